@@ -1,0 +1,37 @@
+// cli.hpp — the command line: options, and run(), the pipeline each command follows:
+// read → validate → compute → check → render → write.
+//
+// Exit status: 0 all checks pass; 1 the tool ran but a check fails; 2 it could not run
+// (usage, input or output problem). Only this module and main print to the terminal.
+#pragma once
+
+#include <iosfwd>
+#include <optional>
+#include <string>
+#include <vector>
+
+#include "cairn/report.hpp"
+
+namespace cairn {
+
+enum class Command { check };
+
+struct Options {
+  Command command = Command::check;
+  std::vector<std::string> files;
+  Format format = Format::text;
+  std::optional<std::string> out_dir;
+  std::optional<std::string> explain_pile;
+};
+
+inline constexpr int kExitPass = 0;
+inline constexpr int kExitFail = 1;
+inline constexpr int kExitBadInput = 2;
+
+// Runs one command; writes results to `out` and problems to `err`. Returns the exit status.
+int run(const Options& options, std::ostream& out, std::ostream& err);
+
+// Parses the command line (CLI11) and runs it. Returns the exit status.
+int run_command_line(int argc, const char* const* argv, std::ostream& out, std::ostream& err);
+
+}  // namespace cairn

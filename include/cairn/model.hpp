@@ -1,0 +1,174 @@
+// model.hpp — the plain data cairn works on: one pile cap, its piles and pile types,
+// its load cases and combinations, as read from a project file.
+//
+// Every value is held in SI units inside: kN, m, kPa, kN/m³, kN/m, kN·m, angles in degrees
+// only where the field name says so. Conversion from the project's units happens once, in
+// input.cpp; conversion back happens once, in report.cpp.
+//
+// Axes: x and y in plan, z up. Pile heads lie at z = 0 (underside of the cap); the top of
+// the cap is at z = thickness. Loads act on the cap in global axes; moments follow the
+// right-hand rule. A downward column load is a negative Fz.
+#pragma once
+
+#include <array>
+#include <cstddef>
+#include <optional>
+#include <string>
+#include <vector>
+
+#include "cairn/soil.hpp"
+#include "cairn/units.hpp"
+
+namespace cairn {
+
+// Where a value came from in the user's files; line and column are 1-based, 0 = unknown.
+struct SourceLocation {
+  std::string file;
+  int line = 0;
+  int column = 0;
+};
+
+enum class SectionShape { square, round };
+
+struct Section {
+  SectionShape shape = SectionShape::square;
+  double width = 0.0;  // m: side of a square, diameter of a round section
+  double area() const;       // m²
+  double perimeter() const;  // m
+};
+
+// Limit state a combination belongs to; capacities are compared on the matching basis only:
+// service → allowable, strength → factored.
+enum class LimitState { service, strength };
+
+// What a capacity number means.
+//   allowable: ultimate already divided by a factor of safety (service checks)
+//   factored:  φ·R, the factored resistance (strength checks)
+//   ultimate:  unfactored; cairn applies the factor of safety or resistance factor
+enum class CapacityBasis { allowable, factored, ultimate };
+
+// One set of capacities for a pile, all on one basis. Values in kN, positive.
+struct CapacitySet {
+  CapacityBasis basis = CapacityBasis::allowable;
+  std::optional<double> compression;
+  std::optional<double> tension;
+  std::optional<double> lateral;
+  // For basis ultimate only: factors of safety (service) and resistance factors φ (strength).
+  std::optional<double> factor_of_safety;           // compression and lateral
+  std::optional<double> factor_of_safety_tension;
+  std::optional<double> resistance_factor;          // compression and lateral
+  std::optional<double> resistance_factor_tension;
+  SourceLocation where;
+};
+
+struct PileType {
+  std::string id;
+  SourceLocation where;
+  Section section;
+  double length = 0.0;           // m, pile head to tip along the axis
+  double elastic_modulus = 0.0;  // kPa, pile material
+  std::optional<double> axial_stiffness;    // kN/m as given; default E·A/L
+  std::optional<double> lateral_stiffness;  // kN/m as given; default 0 (axial-only pile)
+  bool tension = true;                      // false: compression only
+  std::vector<CapacitySet> capacities;      // as given by the geotechnical engineer
+  PileDesign design;                        // installation and methods for soil-based capacity
+
+  // Stiffness used by the solver, with the default applied.
+  double axial_stiffness_used() const;    // kN/m
+  double lateral_stiffness_used() const;  // kN/m
+};
+
+// Batter: 1 horizontal in `ratio` vertical, the toe displaced toward the plan direction
+// `toward_deg` (degrees from +x, counter-clockwise).
+struct Batter {
+  double ratio = 0.0;
+  double toward_deg = 0.0;
+};
+
+struct Pile {
+  std::string id;
+  SourceLocation where;
+  double x = 0.0;  // m, head position in plan
+  double y = 0.0;  // m
+  std::size_t type = 0;  // index into Project::pile_types
+  std::optional<Batter> batter;
+
+  // Unit vector along the pile axis, from head toward toe (pointing down).
+  std::array<double, 3> axis() const;
+};
+
+struct Outline {
+  bool rectangle = true;  // given as {width, length, center}; otherwise a polygon
+  std::vector<std::array<double, 2>> polygon;  // m, corners counter-clockwise
+  double area() const;                          // m²
+  std::array<double, 2> centroid() const;       // m
+  bool contains(double x, double y) const;
+  // Shortest distance from a point inside the outline to its edge, m.
+  double distance_to_edge(double x, double y) const;
+};
+
+struct SelfWeight {
+  double unit_weight = 0.0;  // kN/m³
+  std::string load_case;
+  SourceLocation where;
+};
+
+struct Cap {
+  double thickness = 0.0;  // m
+  std::optional<Outline> outline;
+  std::optional<SelfWeight> self_weight;
+  double depth = 0.0;  // m, depth of the pile heads below the ground surface
+};
+
+// Components of a force and moment: Fx, Fy, Fz (kN), Mx, My, Mz (kN·m).
+using Wrench = std::array<double, 6>;
+inline constexpr std::array<const char*, 6> kWrenchNames = {"Fx", "Fy", "Fz", "Mx", "My", "Mz"};
+
+struct PointLoad {
+  SourceLocation where;
+  std::array<double, 3> at{};  // m; z defaults to the top of the cap
+  Wrench load{};               // forces and moments acting on the cap
+  std::string note;            // e.g. "cap self-weight", or a column id
+};
+
+enum class LoadKind {
+  dead, live, roof_live, snow, rain, wind, seismic, earth, fluid, temperature, other
+};
+
+struct LoadCase {
+  std::string id;
+  SourceLocation where;
+  LoadKind kind = LoadKind::other;
+  std::vector<PointLoad> loads;
+};
+
+struct Combination {
+  std::string id;
+  SourceLocation where;
+  LimitState limit_state = LimitState::service;
+  std::vector<std::pair<std::size_t, double>> factors;  // (load case index, factor)
+  bool generated = false;                               // built by a code generator
+};
+
+struct Project {
+  std::string file;  // path of the project file as given
+  std::string title;
+  UnitSystem units = UnitSystem::SI;
+  Cap cap;
+  std::optional<SoilProfile> soil;
+  std::vector<PileType> pile_types;
+  std::vector<Pile> piles;
+  std::vector<LoadCase> load_cases;
+  std::vector<Combination> combinations;
+  double min_spacing_factor = 2.5;  // minimum c/c spacing in pile widths (common practice)
+};
+
+const char* to_string(LimitState);
+const char* to_string(CapacityBasis);
+const char* to_string(LoadKind);
+const char* to_string(SectionShape);
+
+// Sum of all loads in a case, as a wrench about the global origin (0, 0, 0).
+Wrench resultant_about_origin(const LoadCase& load_case);
+
+}  // namespace cairn

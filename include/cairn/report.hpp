@@ -1,0 +1,59 @@
+// report.hpp — renders check results as text, CSV, Markdown or JSON, in the project's units.
+//
+// Every rendering is a string built in memory (nothing is written here; output_files.hpp
+// writes files atomically). Each output opens with the tool version, the input file and the
+// options, states the assumptions in one place, and ends with the caution that results are
+// for checking by a qualified engineer.
+#pragma once
+
+#include <cstddef>
+#include <optional>
+#include <string>
+#include <utility>
+#include <vector>
+
+#include <nlohmann/json.hpp>
+
+#include "cairn/checks.hpp"
+#include "cairn/explain.hpp"
+#include "cairn/model.hpp"
+
+namespace cairn {
+
+enum class Format { text, csv, markdown, json };
+
+// A table with a header row; cells are already formatted.
+struct Table {
+  std::string title;
+  std::vector<std::string> headers;
+  std::vector<std::vector<std::string>> rows;
+  std::vector<bool> numeric;  // per column: right-align in text
+};
+
+std::string render_table(const Table& table, Format format);
+
+// Everything a check report shows.
+struct CheckReport {
+  const Project* project = nullptr;
+  const CheckResults* results = nullptr;
+  const std::vector<PileTypeResistance>* resistances = nullptr;
+  std::vector<std::string> assumptions;
+  std::string options;  // effective options, for the report header
+  std::optional<std::size_t> explain_pile;
+  std::vector<HandCheck> hand_checks;  // when explain_pile is set
+};
+
+std::string render_check(const CheckReport& report, Format format);
+nlohmann::json check_json(const CheckReport& report);
+
+// Files for `--out DIR`: report.txt, report.md, results.json, summary.csv, envelope.csv and
+// one combination-<id>.csv per combination. (name, content) pairs.
+std::vector<std::pair<std::string, std::string>> check_files(const CheckReport& report);
+
+// "1.0·D + 0.6·W"
+std::string combination_formula(const Project& project, const Combination& combination);
+
+// The one summary line: "PASS: …" or "FAIL: …".
+std::string summary_line(const CheckReport& report);
+
+}  // namespace cairn

@@ -1,0 +1,68 @@
+// units.hpp — the two unit systems of a project and the conversion of numbers written
+// with a unit ("45 ft", "120 pcf", "300 kip", "2.5 tonf").
+//
+// Inside, cairn computes in SI: kN, m, kPa, kN/m³, kN/m, kN·m. A plain number in a project
+// file is in the project's units (the defaults below); a number written as a string with a
+// unit is converted from that unit. Units are parsed from factors of force and length
+// (N, kN, MN, lb, lbf, kip, tonf, tf; mm, cm, m, in, ft) joined by '·', '*', '-' or '/',
+// with exponents written 2, 3, ^2, ^3, ², ³; plus named pressures and unit weights
+// (Pa, kPa, MPa, GPa, psf, ksf, psi, ksi, tsf, pcf, kcf).
+//
+// Conversion factors are exact definitions: 1 ft = 0.3048 m (international foot),
+// 1 lbf = 4.4482216152605 N (NIST SP 811, Appendix B), 1 short ton-force = 2000 lbf,
+// 1 metric tonne-force = 9.80665 kN.
+#pragma once
+
+#include <optional>
+#include <string>
+
+namespace cairn {
+
+enum class UnitSystem { SI, US };
+
+// What a number measures; decides the default unit and which written units are accepted.
+enum class Quantity {
+  length,               // SI m; US ft
+  small_length,         // SI mm; US in (settlements, displacements)
+  force,                // SI kN; US kip
+  moment,               // SI kN·m; US kip·ft
+  pressure,             // SI kPa; US ksf (stresses, moduli, strengths)
+  unit_weight,          // SI kN/m³; US pcf
+  stiffness,            // SI kN/m; US kip/in
+  rotational_stiffness, // SI kN·m/rad; US kip·ft/rad
+  angle,                // degrees in both systems
+  number,               // no unit
+};
+
+// Factor from the project's default unit of `quantity` to SI: si = value · factor.
+double to_si_factor(UnitSystem system, Quantity quantity);
+
+// Label of the project's default unit, e.g. "kN", "kip·ft".
+const char* unit_label(UnitSystem system, Quantity quantity);
+
+const char* to_string(UnitSystem system);
+
+// Converts an SI value to the project's default unit of `quantity`.
+inline double from_si(UnitSystem system, Quantity quantity, double si) {
+  return si / to_si_factor(system, quantity);
+}
+
+struct ParsedQuantity {
+  std::optional<double> si;  // value in SI, when parsing succeeded
+  std::string error;         // otherwise what went wrong, in plain words
+};
+
+// Parses "<number> <unit>" (or a bare number, taken in the project's default unit) as a
+// `quantity` and returns the value in SI. Errors: not a number, unknown unit, unit of the
+// wrong kind ("expected a length, got a force unit 'kip'").
+ParsedQuantity parse_quantity(const std::string& text, Quantity quantity, UnitSystem system);
+
+// Plain name of a quantity for messages: "a length in m".
+std::string describe(Quantity quantity, UnitSystem system);
+
+// Standard atmospheric pressure, kPa: the reference pressure pa of the capacity correlations.
+inline constexpr double kAtmosphericPressure = 101.325;
+// Unit weight of water, kN/m³ (62.4 pcf).
+inline constexpr double kWaterUnitWeight = 9.81;
+
+}  // namespace cairn

@@ -1,0 +1,233 @@
+#include "cairn/checks.hpp"
+
+#include <algorithm>
+#include <cmath>
+#include <limits>
+#include <set>
+
+#include <fmt/format.h>
+
+namespace cairn {
+namespace {
+
+constexpr double kInfinity = std::numeric_limits<double>::infinity();
+// Forces below this are taken as zero (kN): round-off of the solve, far below any capacity.
+constexpr double kForceTolerance = 1e-6;
+
+// Fills missing values of `into` from `from`.
+void fill(std::optional<double>& into, std::optional<double> from) {
+  if (!into && from) into = from;
+}
+
+}  // namespace
+
+const char* to_string(Demand d) {
+  switch (d) {
+    case Demand::none: return "none";
+    case Demand::compression: return "compression";
+    case Demand::tension: return "tension";
+    case Demand::lateral: return "lateral";
+  }
+  return "?";
+}
+
+std::vector<PileTypeResistance> resolve_resistances(
+    const Project& project, const std::vector<std::optional<ComputedResistance>>& computed) {
+  std::vector<PileTypeResistance> result(project.pile_types.size());
+  for (std::size_t t = 0; t < project.pile_types.size(); ++t) {
+    const PileType& type = project.pile_types[t];
+    PileTypeResistance& r = result[t];
+    for (const CapacitySet& set : type.capacities) {
+      switch (set.basis) {
+        case CapacityBasis::allowable:
+          r.allowable.compression = set.compression;
+          r.allowable.tension = set.tension;
+          r.allowable.lateral = set.lateral;
+          r.allowable.source = "allowable values given";
+          break;
+        case CapacityBasis::factored:
+          r.factored.compression = set.compression;
+          r.factored.tension = set.tension;
+          r.factored.lateral = set.lateral;
+          r.factored.source = "factored resistances given";
+          break;
+        case CapacityBasis::ultimate: break;  // below, so that given bases win
+      }
+    }
+    for (const CapacitySet& set : type.capacities) {
+      if (set.basis != CapacityBasis::ultimate) continue;
+      const double fs = set.factor_of_safety.value_or(kDefaultSafetyCompression);
+      const double fs_t = set.factor_of_safety_tension.value_or(kDefaultSafetyTension);
+      auto divide = [](std::optional<double> v, double f) -> std::optional<double> {
+        return v ? std::optional<double>(*v / f) : std::nullopt;
+      };
+      auto times = [](std::optional<double> v, std::optional<double> f) -> std::optional<double> {
+        return v && f ? std::optional<double>(*v * *f) : std::nullopt;
+      };
+      const bool any_allowable = r.allowable.compression || r.allowable.tension;
+      fill(r.allowable.compression, divide(set.compression, fs));
+      fill(r.allowable.tension, divide(set.tension, fs_t));
+      fill(r.allowable.lateral, divide(set.lateral, fs));
+      if (!any_allowable)
+        r.allowable.source = fmt::format("ultimate given ÷ factor of safety {:g} (tension {:g})",
+                                         fs, fs_t);
+      const bool any_factored = r.factored.compression || r.factored.tension;
+      fill(r.factored.compression, times(set.compression, set.resistance_factor));
+      fill(r.factored.tension, times(set.tension, set.resistance_factor_tension));
+      fill(r.factored.lateral, times(set.lateral, set.resistance_factor));
+      if (!any_factored && set.resistance_factor)
+        r.factored.source = fmt::format("ultimate given × resistance factor {:g}",
+                                        *set.resistance_factor);
+    }
+    if (t < computed.size() && computed[t]) {
+      const ComputedResistance& c = *computed[t];
+      const bool had_allowable = r.allowable.compression.has_value();
+      const bool had_factored = r.factored.compression.has_value();
+      fill(r.allowable.compression, c.allowable_compression);
+      fill(r.allowable.tension, c.allowable_tension);
+      fill(r.factored.compression, c.factored_compression);
+      fill(r.factored.tension, c.factored_tension);
+      if (!had_allowable) r.allowable.source = "computed from the soil: " + c.method;
+      if (!had_factored) r.factored.source = "computed from the soil: " + c.method;
+    }
+  }
+  return result;
+}
+
+std::vector<Diagnostic> missing_resistances(const Project& project,
+                                            const std::vector<PileTypeResistance>& resistances) {
+  std::vector<Diagnostic> problems;
+  std::set<std::size_t> used;
+  for (const Pile& pile : project.piles) used.insert(pile.type);
+  for (const Combination& combo : project.combinations) {
+    const bool service = combo.limit_state == LimitState::service;
+    for (std::size_t t : used) {
+      const Resistance& r = service ? resistances[t].allowable : resistances[t].factored;
+      if (r.compression) continue;
+      problems.push_back(
+          {combo.where,
+           fmt::format("combinations.{}: a {} combination is compared with {} capacities, but "
+                       "pile type '{}' has no {} compression capacity; give capacity with "
+                       "basis: {}{}",
+                       combo.id, to_string(combo.limit_state),
+                       service ? "allowable" : "factored", project.pile_types[t].id,
+                       service ? "allowable" : "factored", service ? "allowable" : "factored",
+                       service ? " (or basis: ultimate, divided by a factor of safety)"
+                               : " (or basis: ultimate with resistance_factor)")});
+    }
+  }
+  return problems;
+}
+
+CheckResults check_piles(const Project& project, const std::vector<CapSolution>& solutions,
+                         const std::vector<PileTypeResistance>& resistances) {
+  CheckResults results;
+  const std::size_t n = project.piles.size();
+  results.envelope.assign(n, PileEnvelope{});
+  CheckSummary& summary = results.summary;
+  for (std::size_t c = 0; c < project.combinations.size(); ++c) {
+    const Combination& combo = project.combinations[c];
+    CombinationCheck check;
+    check.combination = c;
+    check.solution = solutions[c];
+    check.piles.resize(n);
+    for (std::size_t i = 0; i < n; ++i) {
+      const PileForce& force = check.solution.piles[i];
+      const Pile& pile = project.piles[i];
+      const Resistance& r = combo.limit_state == LimitState::service
+                                ? resistances[pile.type].allowable
+                                : resistances[pile.type].factored;
+      PileCheck& p = check.piles[i];
+      p.axial = force.axial;
+      p.lateral = force.lateral;
+      p.active = force.active;
+      auto consider = [&](double demand, std::optional<double> capacity, Demand kind) {
+        if (demand <= kForceTolerance) return;
+        const double u = capacity && *capacity > 0 ? demand / *capacity : kInfinity;
+        if (u > p.utilization || p.governing == Demand::none) {
+          p.utilization = std::max(u, p.utilization);
+          p.governing = kind;
+        }
+      };
+      consider(p.axial, r.compression, Demand::compression);
+      consider(-p.axial, r.tension, Demand::tension);
+      consider(p.lateral, r.lateral, Demand::lateral);
+      p.pass = p.utilization <= 1.0;
+      if (!p.pass) check.pass = false;
+      if (!check.governing_pile || p.utilization > check.max_utilization) {
+        check.max_utilization = p.utilization;
+        check.governing_pile = i;
+        check.governing = p.governing;
+      }
+      PileEnvelope& e = results.envelope[i];
+      auto raise = [&](Extreme& x, double v) {
+        if (!x.combination || v > x.value) {
+          x.value = v;
+          x.combination = c;
+        }
+      };
+      raise(e.max_compression, std::max(p.axial, 0.0));
+      raise(e.max_tension, std::max(-p.axial, 0.0));
+      raise(e.max_lateral, p.lateral);
+      raise(e.max_utilization, p.utilization);
+    }
+    if (check.solution.overturns) {
+      check.pass = false;
+      summary.overturned.push_back(c);
+    }
+    if (!check.pass) ++summary.failed_combinations;
+    if (!summary.combination || check.max_utilization > summary.max_utilization) {
+      summary.max_utilization = check.max_utilization;
+      summary.combination = c;
+      summary.pile = check.governing_pile;
+      summary.check = check.governing;
+    }
+    results.combinations.push_back(std::move(check));
+  }
+  summary.pass = summary.failed_combinations == 0;
+  return results;
+}
+
+std::vector<std::string> assumptions(const Project& project,
+                                     const std::vector<PileTypeResistance>& resistances) {
+  std::vector<std::string> list;
+  list.push_back("The cap is rigid: it moves as one body with six degrees of freedom.");
+  list.push_back("Pile heads are pinned to the cap: each is an axial spring along the pile "
+                 "and a lateral spring across it, with no moment at the head.");
+  for (std::size_t t = 0; t < project.pile_types.size(); ++t) {
+    const PileType& type = project.pile_types[t];
+    const UnitSystem u = project.units;
+    if (!type.axial_stiffness)
+      list.push_back(fmt::format(
+          "Pile type {}: axial stiffness defaulted to E·A/L = {:.4g} {} (no soil–pile "
+          "interaction).",
+          type.id, from_si(u, Quantity::stiffness, type.axial_stiffness_used()),
+          unit_label(u, Quantity::stiffness)));
+    if (!type.lateral_stiffness)
+      list.push_back(fmt::format("Pile type {}: lateral stiffness defaulted to 0 (axial-only "
+                                 "piles, the classical assumption).",
+                                 type.id));
+    list.push_back(fmt::format("Pile type {}: {}.", type.id,
+                               type.tension ? "takes tension"
+                                            : "takes no tension (compression only)"));
+    if (t < resistances.size()) {
+      const auto& r = resistances[t];
+      if (!r.allowable.source.empty())
+        list.push_back(fmt::format("Pile type {}: allowable capacities: {}.", type.id,
+                                   r.allowable.source));
+      if (!r.factored.source.empty())
+        list.push_back(fmt::format("Pile type {}: factored resistances: {}.", type.id,
+                                   r.factored.source));
+    }
+  }
+  if (project.cap.self_weight)
+    list.push_back(fmt::format("The cap's self-weight is included in load case {}.",
+                               project.cap.self_weight->load_case));
+  else
+    list.push_back("The cap's self-weight is not included (unless it is in the loads given).");
+  list.push_back("Service combinations are checked against allowable capacities, strength "
+                 "combinations against factored resistances.");
+  return list;
+}
+
+}  // namespace cairn

@@ -1,0 +1,151 @@
+#include "cairn/cli.hpp"
+
+#include <CLI/CLI.hpp>
+
+#include <algorithm>
+#include <ostream>
+
+#include <fmt/format.h>
+
+#include "cairn/cap_solver.hpp"
+#include "cairn/checks.hpp"
+#include "cairn/explain.hpp"
+#include "cairn/input.hpp"
+#include "cairn/output_files.hpp"
+
+namespace cairn {
+namespace {
+
+const char* format_name(Format f) {
+  switch (f) {
+    case Format::text: return "text";
+    case Format::csv: return "csv";
+    case Format::markdown: return "markdown";
+    case Format::json: return "json";
+  }
+  return "text";
+}
+
+std::string describe_options(const Options& o) {
+  std::string text = fmt::format("check --format {}", format_name(o.format));
+  if (o.out_dir) text += " --out " + *o.out_dir;
+  if (o.explain_pile) text += " --explain " + *o.explain_pile;
+  return text;
+}
+
+// Everything `check` computes for one project file.
+struct CheckRun {
+  Project project;
+  std::vector<PileTypeResistance> resistances;
+  CheckResults results;
+};
+
+CheckRun check_project(const std::string& file) {
+  CheckRun run;
+  run.project = read_project(file);
+  const Project& project = run.project;
+  const CapSolver solver(pile_springs(project));
+  Diagnostics problems;
+  for (const auto& u : unresisted_cases(project, solver)) {
+    const LoadCase& lc = project.load_cases[u.load_case];
+    problems.error(lc.where, fmt::format("load_cases.{}: {} cannot be resisted: {}", lc.id,
+                                         u.load.component, u.load.reason));
+  }
+  run.resistances = resolve_resistances(project, {});
+  for (const auto& d : missing_resistances(project, run.resistances))
+    problems.error(d.where, d.message);
+  problems.raise_if_any();
+  run.results = check_piles(project, solve_combinations(project, solver), run.resistances);
+  return run;
+}
+
+int run_check(const Options& options, std::ostream& out) {
+  if (options.files.size() != 1)
+    throw InputError({}, "check: expected one project file");
+  CheckRun run = check_project(options.files.front());
+  CheckReport report;
+  report.project = &run.project;
+  report.results = &run.results;
+  report.resistances = &run.resistances;
+  report.assumptions = assumptions(run.project, run.resistances);
+  report.options = describe_options(options);
+  if (options.explain_pile) {
+    const auto& piles = run.project.piles;
+    auto it = std::find_if(piles.begin(), piles.end(),
+                           [&](const Pile& p) { return p.id == *options.explain_pile; });
+    if (it == piles.end()) {
+      std::vector<std::string> ids;
+      for (const auto& p : piles) ids.push_back(p.id);
+      const std::string near = closest_match(*options.explain_pile, ids);
+      throw InputError({run.project.file, 0, 0},
+                       fmt::format("--explain: pile '{}' does not exist{}", *options.explain_pile,
+                                   near.empty() ? "" : "; did you mean '" + near + "'?"));
+    }
+    report.explain_pile = static_cast<std::size_t>(it - piles.begin());
+    report.hand_checks = explain_pile(run.project, run.results, *report.explain_pile);
+  }
+  const std::string rendered = render_check(report, options.format);
+  if (options.out_dir) write_files_atomically(*options.out_dir, check_files(report));
+  out << rendered;
+  return run.results.summary.pass ? kExitPass : kExitFail;
+}
+
+}  // namespace
+
+int run(const Options& options, std::ostream& out, std::ostream& err) {
+  try {
+    switch (options.command) {
+      case Command::check: return run_check(options, out);
+    }
+    return kExitBadInput;
+  } catch (const InputError& e) {
+    for (const auto& d : e.diagnostics()) err << "cairn: " << d.format() << "\n";
+    return kExitBadInput;
+  } catch (const OutputError& e) {
+    err << "cairn: error: " << e.what() << "\n";
+    return kExitBadInput;
+  }
+}
+
+int run_command_line(int argc, const char* const* argv, std::ostream& out, std::ostream& err) {
+  CLI::App app{"cairn — checks that no pile under a rigid cap is overloaded, for every load "
+               "combination. Results are for checking by a qualified engineer; local codes and "
+               "licensed practice govern."};
+  app.set_version_flag("--version", std::string("cairn ") + CAIRN_VERSION);
+  app.require_subcommand(1);
+  Options options;
+  std::string format = "text";
+  const std::vector<std::string> formats = {"text", "csv", "markdown", "json"};
+
+  CLI::App* check = app.add_subcommand(
+      "check", "Share the cap's loads among the piles and check each pile in every combination");
+  check->add_option("file", options.files, "Project file (YAML)")->required();
+  check->add_option("--format", format, "Output format: text, csv, markdown or json")
+      ->check(CLI::IsMember(formats));
+  check->add_option("--out", options.out_dir,
+                    "Also write report.txt, report.md, results.json and CSV tables into DIR");
+  check->add_option("--explain", options.explain_pile,
+                    "Show the hand check (section properties, substituted formula) for PILE");
+  try {
+    app.parse(argc, argv);
+  } catch (const CLI::CallForHelp& e) {
+    out << app.help();
+    return kExitPass;
+  } catch (const CLI::CallForVersion& e) {
+    out << e.what() << "\n";
+    return kExitPass;
+  } catch (const CLI::ParseError& e) {
+    err << "cairn: error: " << e.what() << "\n";
+    if (e.get_name() == "RequiredError" || e.get_name() == "ExtrasError" ||
+        e.get_name() == "CallForAllHelp")
+      err << "Run 'cairn --help' for usage.\n";
+    return kExitBadInput;
+  }
+  if (format == "csv") options.format = Format::csv;
+  else if (format == "markdown") options.format = Format::markdown;
+  else if (format == "json") options.format = Format::json;
+  if (check->parsed()) options.command = Command::check;
+  return run(options, out, err);
+}
+
+}  // namespace cairn

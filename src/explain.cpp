@@ -1,0 +1,89 @@
+#include "cairn/explain.hpp"
+
+#include <cmath>
+
+namespace cairn {
+
+GroupSection group_section(const std::vector<std::array<double, 2>>& positions) {
+  GroupSection s;
+  s.count = positions.size();
+  if (positions.empty()) return s;
+  for (const auto& p : positions) {
+    s.centroid_x += p[0];
+    s.centroid_y += p[1];
+  }
+  s.centroid_x /= static_cast<double>(s.count);
+  s.centroid_y /= static_cast<double>(s.count);
+  for (const auto& p : positions) {
+    const double dx = p[0] - s.centroid_x, dy = p[1] - s.centroid_y;
+    s.ixx += dy * dy;
+    s.iyy += dx * dx;
+    s.ixy += dx * dy;
+  }
+  return s;
+}
+
+std::vector<HandCheck> explain_pile(const Project& project, const CheckResults& results,
+                                    std::size_t pile) {
+  std::vector<HandCheck> checks;
+  // Applicability that holds for every combination.
+  std::string general;
+  for (const Pile& p : project.piles)
+    if (p.batter) general = "the group has battered piles; the hand formula holds for vertical "
+                            "piles only";
+  for (const CombinationCheck& cc : results.combinations) {
+    HandCheck h;
+    h.combination = cc.combination;
+    h.solver_axial = cc.piles[pile].axial;
+    const auto& solution = cc.solution;
+    std::vector<std::array<double, 2>> positions;
+    std::optional<double> stiffness;
+    bool equal = true;
+    for (std::size_t i = 0; i < project.piles.size(); ++i) {
+      if (!solution.piles[i].active) continue;
+      const Pile& p = project.piles[i];
+      positions.push_back({p.x, p.y});
+      const double k = project.pile_types[p.type].axial_stiffness_used();
+      if (stiffness && std::abs(k - *stiffness) > 1e-9 * *stiffness) equal = false;
+      stiffness = k;
+    }
+    if (!general.empty()) {
+      h.why_not = general;
+    } else if (solution.overturns) {
+      h.why_not = "the cap overturns in this combination";
+    } else if (!equal) {
+      h.why_not = "the active piles have unequal axial stiffness; the hand formula assumes "
+                  "equal stiffness";
+    } else if (!solution.piles[pile].active) {
+      h.why_not = "the pile dropped out (it takes no tension)";
+    } else {
+      h.section = group_section(positions);
+      const GroupSection& s = h.section;
+      const double det = s.ixx * s.iyy - s.ixy * s.ixy;
+      if (s.count < 3 || det <= 1e-12 * std::max(1.0, s.ixx * s.iyy)) {
+        h.why_not = "the active piles lie on one line; the section has no inertia about it";
+      } else {
+        const Wrench f = combination_load(project, project.combinations[cc.combination]);
+        h.vertical = -f[2];
+        h.moment_x = f[3] - s.centroid_y * f[2];
+        h.moment_y = f[4] + s.centroid_x * f[2];
+        if (std::abs(h.vertical) > 1e-12) {
+          h.eccentricity_x = h.moment_y / h.vertical;
+          h.eccentricity_y = -h.moment_x / h.vertical;
+        }
+        const Pile& p = project.piles[pile];
+        h.x_local = p.x - s.centroid_x;
+        h.y_local = p.y - s.centroid_y;
+        h.direct = h.vertical / static_cast<double>(s.count);
+        h.from_moment_y = (h.moment_y * s.ixx + h.moment_x * s.ixy) / det * h.x_local;
+        h.from_moment_x = -(h.moment_x * s.iyy + h.moment_y * s.ixy) / det * h.y_local;
+        h.axial = h.direct + h.from_moment_y + h.from_moment_x;
+        h.available = true;
+      }
+    }
+    checks.push_back(h);
+  }
+  return checks;
+}
+
+}  // namespace cairn

@@ -1,0 +1,855 @@
+#include "cairn/input.hpp"
+
+#include <yaml-cpp/yaml.h>
+
+#include <algorithm>
+#include <cmath>
+#include <filesystem>
+#include <fstream>
+#include <map>
+#include <set>
+#include <sstream>
+
+#include <fmt/format.h>
+
+namespace cairn {
+namespace {
+
+namespace fs = std::filesystem;
+
+// A YAML node with the file it came from and its key path ("piles[3].x").
+struct Located {
+  YAML::Node node;
+  const std::string* file = nullptr;
+  std::string path;
+
+  bool present() const { return node.IsDefined() && !node.IsNull(); }
+  Located child(const std::string& key) const {
+    const YAML::Node& self = node;
+    return {self[key], file, path.empty() ? key : path + "." + key};
+  }
+  Located item(std::size_t index) const {
+    const YAML::Node& self = node;
+    return {self[index], file, fmt::format("{}[{}]", path, index)};
+  }
+};
+
+SourceLocation location_of(const YAML::Node& node, const std::string& file) {
+  const YAML::Mark mark = node.Mark();
+  if (mark.line < 0) return {file, 0, 0};
+  return {file, mark.line + 1, mark.column + 1};
+}
+
+std::string scalar_text(const YAML::Node& node) {
+  if (node.IsScalar()) return node.Scalar();
+  if (node.IsSequence()) return "a list";
+  if (node.IsMap()) return "a map";
+  return "nothing";
+}
+
+// One top-level entry of the merged document, remembering its file.
+struct Entry {
+  std::string name;
+  Located value;
+  SourceLocation key_where;
+};
+
+// The project file merged with its includes. Sections that are maps of named entries are
+// merged entry by entry (the including file wins); other sections are replaced whole.
+struct Merged {
+  std::map<std::string, Entry> sections;
+  std::map<std::string, std::vector<Entry>> named;  // pile_types, load_cases, combinations
+  std::map<std::string, UnitSystem> file_units;
+  std::set<std::string> files;  // keeps the file names alive for Located::file
+};
+
+const std::vector<std::string> kTopKeys = {"title", "units", "include", "cap", "pile_types",
+                                           "piles", "soil", "load_cases", "combinations",
+                                           "checks"};
+const std::set<std::string> kNamedSections = {"pile_types", "load_cases", "combinations"};
+
+const std::map<std::string, LoadKind> kLoadKinds = {
+    {"dead", LoadKind::dead},         {"live", LoadKind::live},
+    {"roof_live", LoadKind::roof_live}, {"snow", LoadKind::snow},
+    {"rain", LoadKind::rain},         {"wind", LoadKind::wind},
+    {"seismic", LoadKind::seismic},   {"earth", LoadKind::earth},
+    {"fluid", LoadKind::fluid},       {"temperature", LoadKind::temperature},
+    {"other", LoadKind::other}};
+
+std::string list_of(const std::vector<std::string>& names) {
+  std::string text;
+  for (const auto& n : names) text += (text.empty() ? "" : ", ") + n;
+  return text;
+}
+
+template <typename Map>
+std::vector<std::string> keys_of(const Map& map) {
+  std::vector<std::string> names;
+  for (const auto& [name, value] : map) names.push_back(name);
+  return names;
+}
+
+class Reader {
+ public:
+  explicit Reader(Diagnostics& diagnostics) : diag_(diagnostics) {}
+
+  // ---- documents and includes -------------------------------------------------------
+
+  void load(const std::string& path, const SourceLocation& included_from,
+            std::vector<std::string>& stack, Merged& merged) {
+    std::error_code ec;
+    const fs::path canonical = fs::weakly_canonical(fs::absolute(path), ec);
+    const std::string key = canonical.string();
+    if (std::find(stack.begin(), stack.end(), key) != stack.end()) {
+      diag_.error(included_from, fmt::format("include: '{}' includes itself (through {})", path,
+                                             list_of(stack)));
+      return;
+    }
+    std::ifstream in(path, std::ios::binary);
+    if (!in) {
+      if (stack.empty())
+        diag_.error({path, 0, 0}, "cannot open the project file (does it exist?)");
+      else
+        diag_.error(included_from, fmt::format("include: cannot open '{}'", path));
+      return;
+    }
+    std::stringstream buffer;
+    buffer << in.rdbuf();
+    const std::string text = buffer.str();
+    const std::string& file = *merged.files.insert(path).first;
+    if (text.find_first_not_of(" \t\r\n") == std::string::npos) {
+      diag_.error({file, 1, 1}, "the file is empty; expected a project (title, units, cap, "
+                                "pile_types, piles, load_cases, combinations)");
+      return;
+    }
+    YAML::Node root;
+    try {
+      root = YAML::Load(text);
+    } catch (const YAML::ParserException& e) {
+      diag_.error({file, e.mark.line + 1, e.mark.column + 1},
+                  fmt::format("malformed YAML: {}", e.msg));
+      return;
+    }
+    if (!root.IsMap()) {
+      diag_.error({file, 1, 1}, fmt::format("expected a map of keys (title, units, cap, …) at "
+                                            "the top of the file, got {}",
+                                            scalar_text(root)));
+      return;
+    }
+    const Located top{root, &file, ""};
+    check_keys(top, kTopKeys);
+    if (auto units = top.child("units"); units.present()) {
+      const std::string u = units.node.IsScalar() ? units.node.Scalar() : "";
+      if (u == "SI") merged.file_units[file] = UnitSystem::SI;
+      else if (u == "US") merged.file_units[file] = UnitSystem::US;
+      else
+        diag_.error(location_of(units.node, file),
+                    fmt::format("units: expected 'SI' or 'US', got '{}'", scalar_text(units.node)));
+    }
+    stack.push_back(key);
+    if (auto includes = top.child("include"); includes.present()) {
+      std::vector<Located> list;
+      if (includes.node.IsSequence()) {
+        for (std::size_t i = 0; i < includes.node.size(); ++i) list.push_back(includes.item(i));
+      } else {
+        list.push_back(includes);
+      }
+      for (const auto& inc : list) {
+        if (!inc.node.IsScalar()) {
+          diag_.error(location_of(inc.node, file),
+                      fmt::format("{}: expected a file path, got {}", inc.path,
+                                  scalar_text(inc.node)));
+          continue;
+        }
+        const fs::path target = fs::path(file).parent_path() / inc.node.Scalar();
+        load(target.lexically_normal().string(), location_of(inc.node, file), stack, merged);
+      }
+    }
+    stack.pop_back();
+    for (auto it = root.begin(); it != root.end(); ++it) {
+      const std::string name = it->first.as<std::string>();
+      if (name == "include") continue;
+      const Located value{it->second, &file, name};
+      const SourceLocation where = location_of(it->first, file);
+      if (kNamedSections.count(name) && value.node.IsMap()) {
+        auto& entries = merged.named[name];
+        for (auto e = value.node.begin(); e != value.node.end(); ++e) {
+          const std::string entry_name = e->first.as<std::string>();
+          Entry entry{entry_name, {e->second, &file, name + "." + entry_name},
+                      location_of(e->first, file)};
+          auto same = std::find_if(entries.begin(), entries.end(),
+                                   [&](const Entry& x) { return x.name == entry_name; });
+          if (same != entries.end()) *same = entry;
+          else entries.push_back(entry);
+        }
+        merged.sections[name] = {name, value, where};
+      } else {
+        merged.sections[name] = {name, value, where};
+        merged.named.erase(name);
+      }
+    }
+  }
+
+  // ---- values -----------------------------------------------------------------------
+
+  SourceLocation at(const Located& n) const { return location_of(n.node, *n.file); }
+
+  UnitSystem units_of(const Located& n) const {
+    auto it = file_units_->find(*n.file);
+    return it != file_units_->end() ? it->second : project_units_;
+  }
+
+  void check_keys(const Located& map, const std::vector<std::string>& allowed) {
+    if (!map.node.IsMap()) return;
+    for (auto it = map.node.begin(); it != map.node.end(); ++it) {
+      const std::string key = it->first.Scalar();
+      if (std::find(allowed.begin(), allowed.end(), key) != allowed.end()) continue;
+      const std::string near = closest_match(key, allowed);
+      const std::string where = map.path.empty() ? key : map.path + "." + key;
+      diag_.error(location_of(it->first, *map.file),
+                  near.empty() ? fmt::format("{}: unknown key; expected one of: {}", where,
+                                             list_of(allowed))
+                               : fmt::format("{}: unknown key; did you mean '{}'?", where, near));
+    }
+  }
+
+  bool expect_map(const Located& n) {
+    if (n.node.IsMap()) return true;
+    diag_.error(at(n), fmt::format("{}: expected a map of keys, got {}", n.path,
+                                   n.present() ? "'" + scalar_text(n.node) + "'" : "nothing"));
+    return false;
+  }
+
+  enum class Need { optional, required };
+  enum class Sign { any, positive, non_negative };
+
+  std::optional<double> number(const Located& parent, const std::string& key, Quantity q,
+                               Need need = Need::required, Sign sign = Sign::positive) {
+    const Located n = parent.child(key);
+    const UnitSystem units = units_of(parent);
+    const std::string sign_word = sign == Sign::positive       ? "a positive "
+                                  : sign == Sign::non_negative ? "a non-negative "
+                                                               : "";
+    std::string expected = describe(q, units);
+    if (!sign_word.empty()) expected = sign_word + expected.substr(expected.find(' ') + 1);
+    if (!n.present()) {
+      if (need == Need::required)
+        diag_.error(at(parent), fmt::format("{}: missing; expected {}", n.path, expected));
+      return std::nullopt;
+    }
+    if (!n.node.IsScalar()) {
+      diag_.error(at(n), fmt::format("{}: expected {}, got {}", n.path, expected,
+                                     scalar_text(n.node)));
+      return std::nullopt;
+    }
+    const auto parsed = parse_quantity(n.node.Scalar(), q, units);
+    if (!parsed.si) {
+      diag_.error(at(n), fmt::format("{}: {}", n.path, parsed.error));
+      return std::nullopt;
+    }
+    const double v = *parsed.si;
+    if ((sign == Sign::positive && !(v > 0)) || (sign == Sign::non_negative && v < 0)) {
+      diag_.error(at(n),
+                  fmt::format("{}: expected {}, got '{}'", n.path, expected, n.node.Scalar()));
+      return std::nullopt;
+    }
+    return v;
+  }
+
+  std::optional<std::string> text(const Located& parent, const std::string& key,
+                                  Need need = Need::required) {
+    const Located n = parent.child(key);
+    if (!n.present()) {
+      if (need == Need::required)
+        diag_.error(at(parent), fmt::format("{}: missing; expected a name", n.path));
+      return std::nullopt;
+    }
+    if (!n.node.IsScalar()) {
+      diag_.error(at(n), fmt::format("{}: expected a name, got {}", n.path, scalar_text(n.node)));
+      return std::nullopt;
+    }
+    return n.node.Scalar();
+  }
+
+  std::optional<bool> flag(const Located& parent, const std::string& key) {
+    const Located n = parent.child(key);
+    if (!n.present()) return std::nullopt;
+    const std::string s = n.node.IsScalar() ? n.node.Scalar() : "";
+    if (s == "true" || s == "yes") return true;
+    if (s == "false" || s == "no") return false;
+    diag_.error(at(n), fmt::format("{}: expected true or false, got '{}'", n.path,
+                                   scalar_text(n.node)));
+    return std::nullopt;
+  }
+
+  // A choice among fixed names.
+  template <typename T>
+  std::optional<T> choice(const Located& n, const std::map<std::string, T>& options) {
+    const std::string s = n.node.IsScalar() ? n.node.Scalar() : scalar_text(n.node);
+    auto it = options.find(s);
+    if (it != options.end()) return it->second;
+    diag_.error(at(n), fmt::format("{}: expected one of {}, got '{}'", n.path,
+                                   list_of(keys_of(options)), s));
+    return std::nullopt;
+  }
+
+  // A list of 2 (or 3 when allowed) coordinates.
+  std::optional<std::array<double, 3>> point(const Located& n, bool allow_z) {
+    const bool ok = n.node.IsSequence() &&
+                    (n.node.size() == 2 || (allow_z && n.node.size() == 3));
+    if (!ok) {
+      diag_.error(at(n), fmt::format("{}: expected [x, y]{} in {}, got {}", n.path,
+                                     allow_z ? " or [x, y, z]" : "",
+                                     unit_label(units_of(n), Quantity::length),
+                                     n.present() ? scalar_text(n.node) : "nothing"));
+      return std::nullopt;
+    }
+    std::array<double, 3> p{0.0, 0.0, std::nan("")};
+    for (std::size_t i = 0; i < n.node.size(); ++i) {
+      const Located c = n.item(i);
+      const auto parsed = parse_quantity(c.node.IsScalar() ? c.node.Scalar() : "", Quantity::length,
+                                         units_of(n));
+      if (!parsed.si) {
+        diag_.error(at(c), fmt::format("{}: {}", c.path, parsed.error));
+        return std::nullopt;
+      }
+      p[i] = *parsed.si;
+    }
+    return p;
+  }
+
+  // ---- sections ---------------------------------------------------------------------
+
+  Project read(const std::string& path) {
+    Merged merged;
+    std::vector<std::string> stack;
+    load(path, {path, 0, 0}, stack, merged);
+    diag_.raise_if_any();
+    file_units_ = &merged.file_units;
+    Project project;
+    project.file = path;
+    auto section = [&](const std::string& name) -> const Entry* {
+      auto it = merged.sections.find(name);
+      return it == merged.sections.end() ? nullptr : &it->second;
+    };
+    const std::string& main_file = *merged.files.find(path);
+    auto it_units = merged.file_units.find(main_file);
+    if (it_units == merged.file_units.end()) {
+      diag_.error({main_file, 1, 1}, "units: missing; expected 'SI' (kN, m, kPa) or 'US' "
+                                     "(kip, ft, ksf)");
+    } else {
+      project_units_ = it_units->second;
+    }
+    project.units = project_units_;
+    if (const Entry* title = section("title"); title && title->value.node.IsScalar())
+      project.title = title->value.node.Scalar();
+    else
+      project.title = fs::path(path).stem().string();
+
+    auto required = [&](const std::string& name) -> const Entry* {
+      const Entry* e = section(name);
+      if (!e) diag_.error({main_file, 1, 1}, fmt::format("{}: missing; the project needs it", name));
+      return e;
+    };
+    if (const Entry* checks = section("checks")) read_checks(checks->value, project);
+    if (const Entry* soil = section("soil")) project.soil = read_soil(soil->value);
+    if (const Entry* cap = required("cap")) read_cap(cap->value, project);
+    if (required("pile_types")) read_pile_types(merged.named["pile_types"],
+                                                section("pile_types")->value, project);
+    if (const Entry* piles = required("piles")) read_piles(piles->value, project);
+    if (required("load_cases"))
+      read_load_cases(merged.named["load_cases"], section("load_cases")->value, project);
+    if (required("combinations"))
+      read_combinations(merged.named["combinations"], section("combinations")->value, project);
+    if (diag_.empty()) add_self_weight(project);
+    diag_.raise_if_any();
+    return project;
+  }
+
+  void read_checks(const Located& n, Project& project) {
+    if (!expect_map(n)) return;
+    check_keys(n, {"min_spacing"});
+    if (auto s = number(n, "min_spacing", Quantity::number, Need::optional))
+      project.min_spacing_factor = *s;
+  }
+
+  void read_cap(const Located& n, Project& project) {
+    if (!expect_map(n)) return;
+    check_keys(n, {"thickness", "outline", "self_weight", "depth"});
+    Cap& cap = project.cap;
+    cap.thickness = number(n, "thickness", Quantity::length).value_or(0.0);
+    cap.depth = number(n, "depth", Quantity::length, Need::optional, Sign::non_negative)
+                    .value_or(0.0);
+    if (auto o = n.child("outline"); o.present() && expect_map(o)) {
+      Outline outline;
+      if (o.child("polygon").present()) {
+        check_keys(o, {"polygon"});
+        const Located poly = o.child("polygon");
+        if (!poly.node.IsSequence() || poly.node.size() < 3) {
+          diag_.error(at(poly), fmt::format("{}: expected a list of at least 3 corners [x, y]",
+                                            poly.path));
+        } else {
+          for (std::size_t i = 0; i < poly.node.size(); ++i)
+            if (auto p = point(poly.item(i), false)) outline.polygon.push_back({(*p)[0], (*p)[1]});
+          outline.rectangle = false;
+          // Keep corners counter-clockwise.
+          double twice = 0.0;
+          for (std::size_t i = 0; i < outline.polygon.size(); ++i) {
+            const auto& a = outline.polygon[i];
+            const auto& b = outline.polygon[(i + 1) % outline.polygon.size()];
+            twice += a[0] * b[1] - b[0] * a[1];
+          }
+          if (twice < 0) std::reverse(outline.polygon.begin(), outline.polygon.end());
+          if (std::abs(twice) < 1e-12)
+            diag_.error(at(poly), fmt::format("{}: the polygon has no area", poly.path));
+        }
+      } else {
+        check_keys(o, {"width", "length", "center"});
+        const double w = number(o, "width", Quantity::length).value_or(0.0);
+        const double l = number(o, "length", Quantity::length).value_or(0.0);
+        std::array<double, 3> c{0.0, 0.0, 0.0};
+        if (o.child("center").present())
+          if (auto p = point(o.child("center"), false)) c = *p;
+        outline.polygon = {{c[0] - w / 2, c[1] - l / 2},
+                           {c[0] + w / 2, c[1] - l / 2},
+                           {c[0] + w / 2, c[1] + l / 2},
+                           {c[0] - w / 2, c[1] + l / 2}};
+      }
+      cap.outline = outline;
+    }
+    if (auto sw = n.child("self_weight"); sw.present() && expect_map(sw)) {
+      check_keys(sw, {"unit_weight", "case"});
+      SelfWeight self;
+      self.unit_weight = number(sw, "unit_weight", Quantity::unit_weight).value_or(0.0);
+      self.load_case = text(sw, "case").value_or("");
+      self.where = at(sw);
+      if (!n.child("outline").present())
+        diag_.error(at(sw), "cap.self_weight: needs cap.outline to know the cap's plan area");
+      cap.self_weight = self;
+    }
+  }
+
+  void read_capacity_set(const Located& n, CapacitySet& set) {
+    if (!expect_map(n)) return;
+    check_keys(n, {"basis", "compression", "tension", "lateral", "factor_of_safety",
+                   "factor_of_safety_tension", "resistance_factor", "resistance_factor_tension"});
+    set.where = at(n);
+    if (auto b = n.child("basis"); b.present()) {
+      if (auto v = choice<CapacityBasis>(b, {{"allowable", CapacityBasis::allowable},
+                                             {"factored", CapacityBasis::factored},
+                                             {"ultimate", CapacityBasis::ultimate}}))
+        set.basis = *v;
+    }
+    set.compression = number(n, "compression", Quantity::force, Need::optional);
+    set.tension = number(n, "tension", Quantity::force, Need::optional);
+    set.lateral = number(n, "lateral", Quantity::force, Need::optional);
+    set.factor_of_safety = number(n, "factor_of_safety", Quantity::number, Need::optional);
+    set.factor_of_safety_tension =
+        number(n, "factor_of_safety_tension", Quantity::number, Need::optional);
+    set.resistance_factor = number(n, "resistance_factor", Quantity::number, Need::optional);
+    set.resistance_factor_tension =
+        number(n, "resistance_factor_tension", Quantity::number, Need::optional);
+    const bool factors = set.factor_of_safety || set.factor_of_safety_tension ||
+                         set.resistance_factor || set.resistance_factor_tension;
+    if (factors && set.basis != CapacityBasis::ultimate)
+      diag_.error(at(n), fmt::format("{}: factors of safety and resistance factors apply to "
+                                     "capacities with basis: ultimate only",
+                                     n.path));
+    if (!set.compression && !set.tension && !set.lateral)
+      diag_.error(at(n), fmt::format("{}: expected at least one of compression, tension, "
+                                     "lateral",
+                                     n.path));
+  }
+
+
+  void read_section(const Located& n, Section& section) {
+    if (!expect_map(n)) return;
+    const auto shape = text(n, "shape");
+    if (shape == "square") {
+      check_keys(n, {"shape", "width"});
+      section.shape = SectionShape::square;
+      section.width = number(n, "width", Quantity::length).value_or(0.0);
+    } else if (shape == "round") {
+      check_keys(n, {"shape", "diameter"});
+      section.shape = SectionShape::round;
+      section.width = number(n, "diameter", Quantity::length).value_or(0.0);
+    } else if (shape) {
+      diag_.error(at(n.child("shape")),
+                  fmt::format("{}.shape: expected 'square' or 'round', got '{}'", n.path, *shape));
+    }
+  }
+
+  template <typename T>
+  void read_method(const Located& n, const std::map<std::string, T>& names,
+                   std::optional<T>& for_clay, std::optional<T>& for_sand) {
+    if (n.node.IsMap()) {
+      check_keys(n, {"clay", "sand"});
+      if (auto c = n.child("clay"); c.present()) for_clay = choice<T>(c, names);
+      if (auto s = n.child("sand"); s.present()) for_sand = choice<T>(s, names);
+    } else if (auto v = choice<T>(n, names)) {
+      for_clay = for_sand = v;
+    }
+  }
+
+  void read_pile_types(const std::vector<Entry>& entries, const Located& whole, Project& project) {
+    if (!expect_map(whole)) return;
+    for (const auto& entry : entries) {
+      const Located& n = entry.value;
+      PileType type;
+      type.id = entry.name;
+      type.where = entry.key_where;
+      if (!expect_map(n)) continue;
+      check_keys(n, {"section", "length", "elastic_modulus", "axial_stiffness",
+                     "lateral_stiffness", "tension", "capacity", "installation", "tip_method",
+                     "shaft_method", "critical_depth", "factor_of_safety",
+                     "factor_of_safety_tip", "factor_of_safety_shaft", "factor_of_safety_tension",
+                     "resistance_factor_tip", "resistance_factor_shaft",
+                     "resistance_factor_uplift"});
+      if (auto s = n.child("section"); s.present()) read_section(s, type.section);
+      else diag_.error(at(n), fmt::format("{}.section: missing; expected {{shape: square, width: …}} "
+                                          "or {{shape: round, diameter: …}}", n.path));
+      type.length = number(n, "length", Quantity::length).value_or(0.0);
+      type.elastic_modulus =
+          number(n, "elastic_modulus", Quantity::pressure, Need::optional).value_or(0.0);
+      type.axial_stiffness = number(n, "axial_stiffness", Quantity::stiffness, Need::optional);
+      type.lateral_stiffness = number(n, "lateral_stiffness", Quantity::stiffness, Need::optional,
+                                      Sign::non_negative);
+      if (!type.axial_stiffness && type.elastic_modulus <= 0.0 &&
+          !n.child("elastic_modulus").present())
+        diag_.error(at(n), fmt::format("{}: needs elastic_modulus (for the default axial "
+                                       "stiffness E·A/L) or axial_stiffness",
+                                       n.path));
+      type.tension = flag(n, "tension").value_or(true);
+      if (auto c = n.child("capacity"); c.present()) {
+        if (c.node.IsSequence()) {
+          for (std::size_t i = 0; i < c.node.size(); ++i) {
+            CapacitySet set;
+            read_capacity_set(c.item(i), set);
+            type.capacities.push_back(set);
+          }
+        } else {
+          CapacitySet set;
+          read_capacity_set(c, set);
+          type.capacities.push_back(set);
+        }
+        std::set<CapacityBasis> bases;
+        for (const auto& set : type.capacities)
+          if (!bases.insert(set.basis).second)
+            diag_.error(set.where, fmt::format("{}.capacity: basis '{}' is given twice", n.path,
+                                               to_string(set.basis)));
+      }
+      PileDesign& design = type.design;
+      if (auto inst = n.child("installation"); inst.present())
+        if (auto v = choice<Installation>(inst, {{"driven", Installation::driven},
+                                                 {"bored", Installation::bored}}))
+          design.installation = *v;
+      if (auto tip = n.child("tip_method"); tip.present())
+        read_method<TipMethod>(tip, {{"vesic", TipMethod::vesic},
+                                     {"meyerhof", TipMethod::meyerhof},
+                                     {"meyerhof-spt", TipMethod::meyerhof_spt},
+                                     {"fhwa", TipMethod::fhwa}},
+                               design.tip_clay, design.tip_sand);
+      if (auto shaft = n.child("shaft_method"); shaft.present())
+        read_method<ShaftMethod>(shaft, {{"beta", ShaftMethod::beta},
+                                         {"alpha-api", ShaftMethod::alpha_api},
+                                         {"alpha-fhwa", ShaftMethod::alpha_fhwa},
+                                         {"lambda", ShaftMethod::lambda},
+                                         {"beta-fhwa", ShaftMethod::beta_fhwa},
+                                         {"meyerhof-spt", ShaftMethod::meyerhof_spt}},
+                                 design.shaft_clay, design.shaft_sand);
+      design.critical_depth_diameters =
+          number(n, "critical_depth", Quantity::number, Need::optional);
+      design.safety_factor = number(n, "factor_of_safety", Quantity::number, Need::optional);
+      design.safety_factor_tip = number(n, "factor_of_safety_tip", Quantity::number, Need::optional);
+      design.safety_factor_shaft =
+          number(n, "factor_of_safety_shaft", Quantity::number, Need::optional);
+      design.safety_factor_tension =
+          number(n, "factor_of_safety_tension", Quantity::number, Need::optional);
+      design.phi_tip = number(n, "resistance_factor_tip", Quantity::number, Need::optional);
+      design.phi_shaft = number(n, "resistance_factor_shaft", Quantity::number, Need::optional);
+      design.phi_uplift = number(n, "resistance_factor_uplift", Quantity::number, Need::optional);
+      if (design.computes_capacity() && !project.soil)
+        diag_.error(at(n), fmt::format("{}: tip_method and shaft_method need a soil profile "
+                                       "(soil: {{layers: …}})",
+                                       n.path));
+      if (type.capacities.empty() && !design.computes_capacity())
+        diag_.error(at(n), fmt::format("{}: no capacity; give capacity: {{compression: …, "
+                                       "tension: …, lateral: …}} or tip_method and shaft_method "
+                                       "with a soil profile",
+                                       n.path));
+      project.pile_types.push_back(type);
+    }
+  }
+
+  void read_piles(const Located& n, Project& project) {
+    if (!n.node.IsSequence()) {
+      diag_.error(at(n), fmt::format("piles: expected a list of piles {{id, x, y, type}}, got {}",
+                                     scalar_text(n.node)));
+      return;
+    }
+    std::map<std::string, std::size_t> type_index;
+    for (std::size_t i = 0; i < project.pile_types.size(); ++i)
+      type_index[project.pile_types[i].id] = i;
+    std::set<std::string> ids;
+    for (std::size_t i = 0; i < n.node.size(); ++i) {
+      const Located p = n.item(i);
+      if (!expect_map(p)) continue;
+      check_keys(p, {"id", "x", "y", "type", "batter"});
+      Pile pile;
+      pile.where = at(p);
+      pile.id = text(p, "id").value_or(fmt::format("#{}", i + 1));
+      if (!ids.insert(pile.id).second)
+        diag_.error(at(p.child("id")), fmt::format("{}.id: pile '{}' is listed twice", p.path,
+                                                   pile.id));
+      pile.x = number(p, "x", Quantity::length, Need::required, Sign::any).value_or(0.0);
+      pile.y = number(p, "y", Quantity::length, Need::required, Sign::any).value_or(0.0);
+      if (auto t = text(p, "type")) {
+        auto it = type_index.find(*t);
+        if (it == type_index.end()) {
+          const std::string near = closest_match(*t, keys_of(type_index));
+          diag_.error(at(p.child("type")),
+                      fmt::format("{}.type: pile type '{}' does not exist{}", p.path, *t,
+                                  near.empty() ? fmt::format(" (known: {})",
+                                                             list_of(keys_of(type_index)))
+                                               : fmt::format("; did you mean '{}'?", near)));
+        } else {
+          pile.type = it->second;
+        }
+      }
+      if (auto b = p.child("batter"); b.present() && expect_map(b)) {
+        check_keys(b, {"ratio", "toward"});
+        Batter batter;
+        batter.ratio = number(b, "ratio", Quantity::number).value_or(1.0);
+        batter.toward_deg =
+            number(b, "toward", Quantity::angle, Need::required, Sign::any).value_or(0.0);
+        pile.batter = batter;
+      }
+      project.piles.push_back(pile);
+    }
+    if (project.piles.empty())
+      diag_.error(at(n), "piles: the list is empty; expected at least one pile");
+    // Two piles at one position, or closer than their widths allow.
+    for (std::size_t i = 0; i < project.piles.size(); ++i) {
+      for (std::size_t j = i + 1; j < project.piles.size(); ++j) {
+        const Pile& a = project.piles[i];
+        const Pile& b = project.piles[j];
+        if (a.type >= project.pile_types.size() || b.type >= project.pile_types.size()) continue;
+        const double distance = std::hypot(a.x - b.x, a.y - b.y);
+        const double touching = 0.5 * (project.pile_types[a.type].section.width +
+                                       project.pile_types[b.type].section.width);
+        if (distance < touching - 1e-9) {
+          const UnitSystem u = project.units;
+          diag_.error(b.where, fmt::format(
+              "piles '{}' and '{}' overlap: centres {:.3f} {} apart, closer than their width "
+              "({:.3f} {})",
+              a.id, b.id, from_si(u, Quantity::length, distance), unit_label(u, Quantity::length),
+              from_si(u, Quantity::length, touching), unit_label(u, Quantity::length)));
+        }
+      }
+    }
+  }
+
+  void read_load_cases(const std::vector<Entry>& entries, const Located& whole, Project& project) {
+    if (!expect_map(whole)) return;
+    for (const auto& entry : entries) {
+      const Located& n = entry.value;
+      LoadCase lc;
+      lc.id = entry.name;
+      lc.where = entry.key_where;
+      if (!expect_map(n)) continue;
+      check_keys(n, {"kind", "loads", "description"});
+      if (auto k = n.child("kind"); k.present()) {
+        if (auto v = choice<LoadKind>(k, kLoadKinds)) lc.kind = *v;
+      } else {
+        diag_.error(at(n), fmt::format("{}.kind: missing; expected one of {}", n.path,
+                                       list_of(keys_of(kLoadKinds))));
+      }
+      const Located loads = n.child("loads");
+      if (loads.present() && !loads.node.IsSequence()) {
+        diag_.error(at(loads), fmt::format("{}: expected a list of loads {{at: [x, y], Fz: …}}",
+                                           loads.path));
+      } else if (loads.present()) {
+        for (std::size_t i = 0; i < loads.node.size(); ++i) {
+          const Located l = loads.item(i);
+          if (!expect_map(l)) continue;
+          check_keys(l, {"at", "Fx", "Fy", "Fz", "Mx", "My", "Mz", "note"});
+          PointLoad load;
+          load.where = at(l);
+          if (auto a = point(l.child("at"), true)) load.at = *a;
+          if (std::isnan(load.at[2])) load.at[2] = project.cap.thickness;
+          bool any = false;
+          for (std::size_t c = 0; c < 6; ++c) {
+            const auto v = number(l, kWrenchNames[c], c < 3 ? Quantity::force : Quantity::moment,
+                                  Need::optional, Sign::any);
+            load.load[c] = v.value_or(0.0);
+            any = any || l.child(kWrenchNames[c]).present();
+          }
+          if (!any)
+            diag_.error(at(l), fmt::format("{}: expected at least one of Fx, Fy, Fz, Mx, My, Mz",
+                                           l.path));
+          if (auto note = text(l, "note", Need::optional)) load.note = *note;
+          lc.loads.push_back(load);
+        }
+      }
+      project.load_cases.push_back(lc);
+    }
+  }
+
+  void read_combinations(const std::vector<Entry>& entries, const Located& whole,
+                         Project& project) {
+    if (!expect_map(whole)) return;
+    std::map<std::string, std::size_t> case_index;
+    for (std::size_t i = 0; i < project.load_cases.size(); ++i)
+      case_index[project.load_cases[i].id] = i;
+    for (const auto& entry : entries) {
+      const Located& n = entry.value;
+      Combination combo;
+      combo.id = entry.name;
+      combo.where = entry.key_where;
+      if (!expect_map(n)) continue;
+      check_keys(n, {"limit_state", "factors", "description"});
+      if (auto ls = n.child("limit_state"); ls.present()) {
+        if (auto v = choice<LimitState>(ls, {{"service", LimitState::service},
+                                             {"strength", LimitState::strength}}))
+          combo.limit_state = *v;
+      } else {
+        diag_.error(at(n), fmt::format("{}.limit_state: missing; expected service or strength",
+                                       n.path));
+      }
+      const Located factors = n.child("factors");
+      if (!factors.present() || !factors.node.IsMap() || factors.node.size() == 0) {
+        diag_.error(at(factors.present() ? factors : n),
+                    fmt::format("{}: expected a map of load case to factor, e.g. {{D: 1.0, L: 1.0}}",
+                                factors.path));
+        continue;
+      }
+      for (auto it = factors.node.begin(); it != factors.node.end(); ++it) {
+        const std::string name = it->first.Scalar();
+        const auto factor = number(factors, name, Quantity::number, Need::required, Sign::any);
+        auto found = case_index.find(name);
+        if (found == case_index.end()) {
+          const std::string near = closest_match(name, keys_of(case_index));
+          diag_.error(location_of(it->first, *factors.file),
+                      fmt::format("{}.{}: load case '{}' does not exist{}", factors.path, name,
+                                  name,
+                                  near.empty() ? fmt::format(" (known: {})",
+                                                             list_of(keys_of(case_index)))
+                                               : fmt::format("; did you mean '{}'?", near)));
+          continue;
+        }
+        if (factor) combo.factors.emplace_back(found->second, *factor);
+      }
+      project.combinations.push_back(combo);
+    }
+    if (project.combinations.empty())
+      diag_.error(at(whole), "combinations: expected at least one combination");
+  }
+
+  std::optional<SoilProfile> read_soil(const Located& n) {
+    if (!expect_map(n)) return std::nullopt;
+    check_keys(n, {"water_table", "layers"});
+    SoilProfile profile;
+    profile.water_table =
+        number(n, "water_table", Quantity::length, Need::optional, Sign::non_negative);
+    const Located layers = n.child("layers");
+    if (!layers.present() || !layers.node.IsSequence() || layers.node.size() == 0) {
+      diag_.error(at(layers.present() ? layers : n),
+                  "soil.layers: expected a list of layers from the ground surface down");
+      return profile;
+    }
+    for (std::size_t i = 0; i < layers.node.size(); ++i) {
+      const Located l = layers.item(i);
+      if (!expect_map(l)) continue;
+      check_keys(l, {"name", "kind", "thickness", "unit_weight", "saturated_unit_weight",
+                     "undrained_strength", "friction_angle", "soil_modulus", "poisson_ratio",
+                     "volumetric_strain", "shaft_k", "shaft_delta", "spt_n60", "max_unit_shaft",
+                     "max_unit_tip", "meyerhof_nq", "lambda", "uplift_factor",
+                     "compression_index", "recompression_index", "void_ratio",
+                     "preconsolidation", "subgrade_modulus"});
+      SoilLayer layer;
+      layer.line = at(l).line;
+      layer.name = text(l, "name", Need::optional).value_or(fmt::format("layer {}", i + 1));
+      if (auto k = l.child("kind"); k.present()) {
+        if (auto v = choice<SoilKind>(k, {{"clay", SoilKind::clay}, {"sand", SoilKind::sand}}))
+          layer.kind = *v;
+      } else {
+        diag_.error(at(l), fmt::format("{}.kind: missing; expected clay or sand", l.path));
+      }
+      layer.thickness = number(l, "thickness", Quantity::length).value_or(0.0);
+      auto opt = [&](const char* key, Quantity q, Sign sign = Sign::positive) {
+        return number(l, key, q, Need::optional, sign);
+      };
+      layer.unit_weight = opt("unit_weight", Quantity::unit_weight);
+      layer.saturated_unit_weight = opt("saturated_unit_weight", Quantity::unit_weight);
+      layer.undrained_strength = opt("undrained_strength", Quantity::pressure);
+      layer.friction_angle = opt("friction_angle", Quantity::angle);
+      layer.soil_modulus = opt("soil_modulus", Quantity::pressure);
+      layer.poisson_ratio = opt("poisson_ratio", Quantity::number, Sign::non_negative);
+      layer.volumetric_strain = opt("volumetric_strain", Quantity::number, Sign::non_negative);
+      layer.shaft_k = opt("shaft_k", Quantity::number);
+      layer.shaft_delta = opt("shaft_delta", Quantity::angle, Sign::non_negative);
+      layer.spt_n60 = opt("spt_n60", Quantity::number, Sign::non_negative);
+      layer.max_unit_shaft = opt("max_unit_shaft", Quantity::pressure);
+      layer.max_unit_tip = opt("max_unit_tip", Quantity::pressure);
+      layer.meyerhof_nq = opt("meyerhof_nq", Quantity::number);
+      layer.lambda = opt("lambda", Quantity::number);
+      layer.uplift_factor = opt("uplift_factor", Quantity::number);
+      layer.compression_index = opt("compression_index", Quantity::number);
+      layer.recompression_index = opt("recompression_index", Quantity::number);
+      layer.void_ratio = opt("void_ratio", Quantity::number);
+      layer.preconsolidation = opt("preconsolidation", Quantity::pressure);
+      layer.subgrade_modulus = opt("subgrade_modulus", Quantity::unit_weight);
+      const std::string who = fmt::format("{} ('{}')", l.path, layer.name);
+      if (layer.kind == SoilKind::sand && !layer.friction_angle)
+        diag_.error(at(l), fmt::format("{}: a sand layer needs friction_angle", who));
+      if (layer.kind == SoilKind::clay && !layer.undrained_strength &&
+          !l.child("undrained_strength").present())
+        diag_.error(at(l), fmt::format("{}: a clay layer needs undrained_strength (cu > 0)", who));
+      if (layer.friction_angle && (*layer.friction_angle < 20.0 || *layer.friction_angle > 50.0))
+        diag_.error(at(l.child("friction_angle")),
+                    fmt::format("{}.friction_angle: expected 20° to 50°, got {}", who,
+                                *layer.friction_angle));
+      if (!layer.unit_weight && !layer.saturated_unit_weight)
+        diag_.error(at(l), fmt::format("{}: needs unit_weight or saturated_unit_weight", who));
+      profile.layers.push_back(layer);
+    }
+    return profile;
+  }
+
+  // The cap's own weight, added to its load case at the outline's centroid, mid-thickness.
+  void add_self_weight(Project& project) {
+    const Cap& cap = project.cap;
+    if (!cap.self_weight || !cap.outline) return;
+    auto it = std::find_if(project.load_cases.begin(), project.load_cases.end(),
+                           [&](const LoadCase& lc) { return lc.id == cap.self_weight->load_case; });
+    if (it == project.load_cases.end()) {
+      diag_.error(cap.self_weight->where,
+                  fmt::format("cap.self_weight.case: load case '{}' does not exist",
+                              cap.self_weight->load_case));
+      return;
+    }
+    const auto c = cap.outline->centroid();
+    PointLoad weight;
+    weight.where = cap.self_weight->where;
+    weight.at = {c[0], c[1], cap.thickness / 2.0};
+    weight.load = {0, 0, -cap.self_weight->unit_weight * cap.outline->area() * cap.thickness, 0, 0,
+                   0};
+    weight.note = "cap self-weight";
+    it->loads.push_back(weight);
+  }
+
+ private:
+  Diagnostics& diag_;
+  UnitSystem project_units_ = UnitSystem::SI;
+  const std::map<std::string, UnitSystem>* file_units_ = nullptr;
+};
+
+}  // namespace
+
+Project read_project(const std::string& path) {
+  Diagnostics diagnostics;
+  Reader reader(diagnostics);
+  return reader.read(path);
+}
+
+}  // namespace cairn

@@ -1,0 +1,40 @@
+#include "cairn/output_files.hpp"
+
+#include <filesystem>
+#include <fstream>
+#include <unistd.h>
+
+namespace cairn {
+
+void write_files_atomically(const std::string& folder,
+                            const std::vector<std::pair<std::string, std::string>>& files) {
+  namespace fs = std::filesystem;
+  std::error_code ec;
+  fs::create_directories(folder, ec);
+  if (ec) throw OutputError("cannot create the output folder '" + folder + "': " + ec.message());
+  const std::string tag = ".cairn-tmp-" + std::to_string(::getpid());
+  std::vector<fs::path> written;
+  auto clean = [&] {
+    for (const auto& p : written) fs::remove(p, ec);
+  };
+  for (const auto& [name, content] : files) {
+    const fs::path temp = fs::path(folder) / (name + tag);
+    std::ofstream out(temp, std::ios::binary | std::ios::trunc);
+    if (out) written.push_back(temp);
+    out << content;
+    out.close();
+    if (!out) {
+      clean();
+      throw OutputError("cannot write '" + (fs::path(folder) / name).string() + "'");
+    }
+  }
+  for (std::size_t i = 0; i < files.size(); ++i) {
+    fs::rename(written[i], fs::path(folder) / files[i].first, ec);
+    if (ec) {
+      clean();
+      throw OutputError("cannot move '" + written[i].string() + "' into place: " + ec.message());
+    }
+  }
+}
+
+}  // namespace cairn

@@ -1,0 +1,551 @@
+#include "cairn/report.hpp"
+
+#include <algorithm>
+#include <cmath>
+#include <limits>
+
+#include <fmt/format.h>
+
+namespace cairn {
+namespace {
+
+using nlohmann::json;
+
+// Display width of a UTF-8 string (counts code points; our symbols are all one column).
+std::size_t width(const std::string& s) {
+  std::size_t n = 0;
+  for (unsigned char c : s)
+    if ((c & 0xC0) != 0x80) ++n;
+  return n;
+}
+
+std::string pad(const std::string& s, std::size_t w, bool right) {
+  const std::size_t have = width(s);
+  if (have >= w) return s;
+  return right ? std::string(w - have, ' ') + s : s + std::string(w - have, ' ');
+}
+
+std::string csv_cell(const std::string& s) {
+  if (s.find_first_of(",\"\n") == std::string::npos) return s;
+  std::string quoted = "\"";
+  for (char c : s) {
+    if (c == '"') quoted += '"';
+    quoted += c;
+  }
+  return quoted + "\"";
+}
+
+// Numbers in the project's units with a precision that suits each quantity.
+class Units {
+ public:
+  explicit Units(UnitSystem system) : u_(system) {}
+  std::string label(Quantity q) const { return unit_label(u_, q); }
+  double value(Quantity q, double si) const { return from_si(u_, q, si); }
+  std::string force(double si) const { return fmt::format("{:.{}f}", value(Quantity::force, si), digits(Quantity::force)); }
+  std::string length(double si) const { return fmt::format("{:.{}f}", value(Quantity::length, si), digits(Quantity::length)); }
+  std::string moment(double si) const { return fmt::format("{:.{}f}", value(Quantity::moment, si), digits(Quantity::moment)); }
+  std::string small(double si) const { return fmt::format("{:.3f}", value(Quantity::small_length, si)); }
+  std::string stiffness(double si) const {
+    const double v = value(Quantity::stiffness, si);
+    return std::abs(v) >= 1e4 ? fmt::format("{:.0f}", v) : fmt::format("{:.4g}", v);
+  }
+  std::string area(double si) const {
+    const double f = to_si_factor(u_, Quantity::length);
+    return fmt::format("{:.4f}", si / (f * f));
+  }
+  std::string area_label() const { return label(Quantity::length) + "²"; }
+  UnitSystem system() const { return u_; }
+
+ private:
+  int digits(Quantity q) const {
+    if (q == Quantity::length) return u_ == UnitSystem::SI ? 3 : 2;
+    return u_ == UnitSystem::SI ? 1 : 2;
+  }
+  UnitSystem u_;
+};
+
+std::string utilization_text(double u) {
+  if (std::isinf(u)) return "no capacity";
+  return fmt::format("{:.3f}", u);
+}
+
+std::string state_text(const PileCheck& p) {
+  if (!p.active) return "out (no tension)";
+  if (std::isinf(p.utilization)) return fmt::format("FAIL: no {} capacity", to_string(p.governing));
+  if (!p.pass) return "OVER";
+  return "ok";
+}
+
+const std::string& combo_id(const CheckReport& r, std::optional<std::size_t> c) {
+  static const std::string none = "-";
+  return c ? r.project->combinations[*c].id : none;
+}
+
+json number_or_null(double v) { return std::isfinite(v) ? json(v) : json(nullptr); }
+
+Table pile_types_table(const CheckReport& r) {
+  const Project& p = *r.project;
+  const Units u(p.units);
+  Table t;
+  t.title = "Pile types";
+  t.headers = {"type", "section", "length (" + u.label(Quantity::length) + ")",
+               "k axial (" + u.label(Quantity::stiffness) + ")",
+               "k lateral (" + u.label(Quantity::stiffness) + ")", "tension",
+               "allowable C/T/L (" + u.label(Quantity::force) + ")",
+               "factored C/T/L (" + u.label(Quantity::force) + ")"};
+  t.numeric = {false, false, true, true, true, false, false, false};
+  for (std::size_t i = 0; i < p.pile_types.size(); ++i) {
+    const PileType& type = p.pile_types[i];
+    auto set = [&](const Resistance& res) {
+      auto one = [&](std::optional<double> v) { return v ? u.force(*v) : std::string("-"); };
+      return one(res.compression) + " / " + one(res.tension) + " / " + one(res.lateral);
+    };
+    t.rows.push_back({type.id,
+                      fmt::format("{} {}", to_string(type.section.shape), u.length(type.section.width)),
+                      u.length(type.length), u.stiffness(type.axial_stiffness_used()),
+                      u.stiffness(type.lateral_stiffness_used()), type.tension ? "yes" : "no",
+                      set((*r.resistances)[i].allowable), set((*r.resistances)[i].factored)});
+  }
+  return t;
+}
+
+Table piles_table(const CheckReport& r) {
+  const Project& p = *r.project;
+  const Units u(p.units);
+  Table t;
+  t.title = "Piles";
+  t.headers = {"pile", "type", "x (" + u.label(Quantity::length) + ")",
+               "y (" + u.label(Quantity::length) + ")", "batter"};
+  t.numeric = {false, false, true, true, false};
+  for (const Pile& pile : p.piles) {
+    t.rows.push_back({pile.id, p.pile_types[pile.type].id, u.length(pile.x), u.length(pile.y),
+                      pile.batter ? fmt::format("1:{:g} toward {:g}°", pile.batter->ratio,
+                                                pile.batter->toward_deg)
+                                  : std::string("vertical")});
+  }
+  return t;
+}
+
+Table combinations_table(const CheckReport& r) {
+  Table t;
+  t.title = "Combinations";
+  t.headers = {"combination", "limit state", "factors"};
+  t.numeric = {false, false, false};
+  for (const Combination& c : r.project->combinations)
+    t.rows.push_back({c.id, to_string(c.limit_state), combination_formula(*r.project, c)});
+  return t;
+}
+
+Table combination_table(const CheckReport& r, const CombinationCheck& cc) {
+  const Project& p = *r.project;
+  const Units u(p.units);
+  Table t;
+  const Combination& combo = p.combinations[cc.combination];
+  t.title = fmt::format("Combination {} ({}): {}", combo.id, to_string(combo.limit_state),
+                        combination_formula(p, combo));
+  t.headers = {"pile", "x (" + u.label(Quantity::length) + ")",
+               "y (" + u.label(Quantity::length) + ")", "axial (" + u.label(Quantity::force) + ")",
+               "lateral (" + u.label(Quantity::force) + ")", "utilization", "state"};
+  t.numeric = {false, true, true, true, true, true, false};
+  for (std::size_t i = 0; i < p.piles.size(); ++i) {
+    const PileCheck& pc = cc.piles[i];
+    t.rows.push_back({p.piles[i].id, u.length(p.piles[i].x), u.length(p.piles[i].y),
+                      u.force(pc.axial), u.force(pc.lateral), utilization_text(pc.utilization),
+                      state_text(pc)});
+  }
+  return t;
+}
+
+std::string combination_note(const CheckReport& r, const CombinationCheck& cc) {
+  const Project& p = *r.project;
+  const Units u(p.units);
+  const auto& m = cc.solution.movement;
+  std::string text;
+  if (cc.solution.overturns) return "FAIL: " + cc.solution.failure;
+  text = fmt::format("Cap movement: translation ({}, {}, {}) {}, rotation ({:.3e}, {:.3e}, "
+                     "{:.3e}) rad.",
+                     u.small(m.translation[0]), u.small(m.translation[1]),
+                     u.small(m.translation[2]), u.label(Quantity::small_length), m.rotation[0],
+                     m.rotation[1], m.rotation[2]);
+  if (!cc.solution.dropped.empty()) {
+    std::string ids;
+    for (auto i : cc.solution.dropped) ids += (ids.empty() ? "" : ", ") + p.piles[i].id;
+    text += fmt::format(" Dropped out (would be in tension, take none): {} — load redistributed "
+                        "in {} solves.",
+                        ids, cc.solution.iterations);
+  }
+  text += cc.pass ? fmt::format(" Pass: max utilization {} (pile {}, {}).",
+                                utilization_text(cc.max_utilization),
+                                cc.governing_pile ? p.piles[*cc.governing_pile].id : "-",
+                                to_string(cc.governing))
+                  : fmt::format(" FAIL: max utilization {} (pile {}, {}).",
+                                utilization_text(cc.max_utilization),
+                                cc.governing_pile ? p.piles[*cc.governing_pile].id : "-",
+                                to_string(cc.governing));
+  return text;
+}
+
+Table envelope_table(const CheckReport& r) {
+  const Project& p = *r.project;
+  const Units u(p.units);
+  const std::string f = u.label(Quantity::force);
+  Table t;
+  t.title = "Envelope per pile";
+  t.headers = {"pile",          "max compression (" + f + ")", "combination",
+               "max tension (" + f + ")", "combination", "max lateral (" + f + ")",
+               "combination",   "max utilization",          "combination"};
+  t.numeric = {false, true, false, true, false, true, false, true, false};
+  for (std::size_t i = 0; i < p.piles.size(); ++i) {
+    const PileEnvelope& e = r.results->envelope[i];
+    t.rows.push_back({p.piles[i].id, u.force(e.max_compression.value),
+                      combo_id(r, e.max_compression.combination), u.force(e.max_tension.value),
+                      combo_id(r, e.max_tension.combination), u.force(e.max_lateral.value),
+                      combo_id(r, e.max_lateral.combination),
+                      utilization_text(e.max_utilization.value),
+                      combo_id(r, e.max_utilization.combination)});
+  }
+  return t;
+}
+
+Table summary_table(const CheckReport& r) {
+  const Project& p = *r.project;
+  const CheckSummary& s = r.results->summary;
+  Table t;
+  t.title = "Summary";
+  t.headers = {"status", "max utilization", "pile", "combination", "check",
+               "failed combinations", "combinations", "piles"};
+  t.numeric = {false, true, false, false, false, true, true, true};
+  t.rows.push_back({s.pass ? "pass" : "fail", utilization_text(s.max_utilization),
+                    s.pile ? p.piles[*s.pile].id : "-", combo_id(r, s.combination),
+                    to_string(s.check), std::to_string(s.failed_combinations),
+                    std::to_string(p.combinations.size()), std::to_string(p.piles.size())});
+  return t;
+}
+
+std::string header(const CheckReport& r, Format format) {
+  const Project& p = *r.project;
+  const std::string units =
+      p.units == UnitSystem::SI ? "SI (kN, m, kPa, kN·m)" : "US (kip, ft, ksf, kip·ft)";
+  if (format == Format::markdown)
+    return fmt::format("# Pile check: {}\n\n- tool: cairn {}\n- input: `{}`\n- units: {}\n- "
+                       "options: {}\n\n",
+                       p.title, CAIRN_VERSION, p.file, units, r.options);
+  return fmt::format("cairn {} — pile check: {}\ninput: {}\nunits: {}\noptions: {}\n\n",
+                     CAIRN_VERSION, p.title, p.file, units, r.options);
+}
+
+std::string assumptions_block(const CheckReport& r, Format format) {
+  std::string text = format == Format::markdown ? "## Assumptions\n\n" : "Assumptions\n";
+  for (const auto& a : r.assumptions)
+    text += (format == Format::markdown ? "- " : "  - ") + a + "\n";
+  return text + "\n";
+}
+
+std::string explain_block(const CheckReport& r, Format format) {
+  const Project& p = *r.project;
+  const Units u(p.units);
+  const std::size_t pile = *r.explain_pile;
+  const std::string f = u.label(Quantity::force), m = u.label(Quantity::moment),
+                    l = u.label(Quantity::length), a = u.area_label();
+  const bool md = format == Format::markdown;
+  std::string text = md ? fmt::format("## Hand check of pile {}\n\n", p.piles[pile].id)
+                        : fmt::format("Hand check of pile {}\n", p.piles[pile].id);
+  text += fmt::format(
+      "{}P = V/n + (My·Ixx + Mx·Ixy)/(Ixx·Iyy − Ixy²)·x' − (Mx·Iyy + My·Ixy)/(Ixx·Iyy − Ixy²)·y'\n"
+      "{}with Ixx = Σy'², Iyy = Σx'², Ixy = Σx'y' over the active piles, x' = x − x̄, y' = y − ȳ,\n"
+      "{}V = −ΣFz and Mx, My the applied moments about the centroid at the pile heads.\n",
+      md ? "    " : "  ", md ? "    " : "  ", md ? "    " : "  ");
+  for (const HandCheck& h : r.hand_checks) {
+    const Combination& c = p.combinations[h.combination];
+    text += md ? fmt::format("\n### {} ({})\n\n", c.id, to_string(c.limit_state))
+               : fmt::format("\n  {} ({}):\n", c.id, to_string(c.limit_state));
+    const std::string in = md ? "- " : "    ";
+    if (!h.available) {
+      text += fmt::format("{}not available: {}; the rigid-cap solver gives P = {} {}\n", in,
+                          h.why_not, u.force(h.solver_axial), f);
+      continue;
+    }
+    const GroupSection& s = h.section;
+    text += fmt::format("{}n = {}, centroid (x̄, ȳ) = ({}, {}) {}\n", in, s.count,
+                        u.length(s.centroid_x), u.length(s.centroid_y), l);
+    text += fmt::format("{}Ixx = {} {}, Iyy = {} {}, Ixy = {} {}\n", in, u.area(s.ixx), a,
+                        u.area(s.iyy), a, u.area(s.ixy), a);
+    text += fmt::format("{}V = {} {}, Mx = {} {}, My = {} {}; eccentricity ex = {} {}, ey = {} {}\n",
+                        in, u.force(h.vertical), f, u.moment(h.moment_x), m, u.moment(h.moment_y),
+                        m, u.length(h.eccentricity_x), l, u.length(h.eccentricity_y), l);
+    const double det = s.ixx * s.iyy - s.ixy * s.ixy;
+    const double lf = to_si_factor(p.units, Quantity::length);
+    text += fmt::format(
+        "{}x' = {} {}, y' = {} {}\n{}P = {}/{} + ({}·{} + {}·{})/{}·{} − ({}·{} + {}·{})/{}·{}\n"
+        "{}  = {} + {} + {} = {} {}   (solver: {} {})\n",
+        in, u.length(h.x_local), l, u.length(h.y_local), l, in, u.force(h.vertical), s.count,
+        u.moment(h.moment_y), u.area(s.ixx), u.moment(h.moment_x), u.area(s.ixy),
+        fmt::format("{:.4f}", det / std::pow(lf, 4)), u.length(h.x_local), u.moment(h.moment_x),
+        u.area(s.iyy), u.moment(h.moment_y), u.area(s.ixy),
+        fmt::format("{:.4f}", det / std::pow(lf, 4)), u.length(h.y_local), in, u.force(h.direct),
+        u.force(h.from_moment_y), u.force(h.from_moment_x), u.force(h.axial), f,
+        u.force(h.solver_axial), f);
+  }
+  return text + "\n";
+}
+
+}  // namespace
+
+std::string render_table(const Table& table, Format format) {
+  std::string out;
+  switch (format) {
+    case Format::csv: {
+      auto line = [](const std::vector<std::string>& cells) {
+        std::string s;
+        for (std::size_t i = 0; i < cells.size(); ++i) s += (i ? "," : "") + csv_cell(cells[i]);
+        return s + "\n";
+      };
+      out += line(table.headers);
+      for (const auto& row : table.rows) out += line(row);
+      return out;
+    }
+    case Format::markdown: {
+      if (!table.title.empty()) out += "## " + table.title + "\n\n";
+      auto line = [](const std::vector<std::string>& cells) {
+        std::string s = "|";
+        for (const auto& c : cells) s += " " + c + " |";
+        return s + "\n";
+      };
+      out += line(table.headers);
+      std::string rule = "|";
+      for (std::size_t i = 0; i < table.headers.size(); ++i)
+        rule += (i < table.numeric.size() && table.numeric[i]) ? " ---: |" : " --- |";
+      out += rule + "\n";
+      for (const auto& row : table.rows) out += line(row);
+      return out + "\n";
+    }
+    case Format::text:
+    case Format::json: {
+      std::vector<std::size_t> w(table.headers.size());
+      for (std::size_t i = 0; i < w.size(); ++i) w[i] = width(table.headers[i]);
+      for (const auto& row : table.rows)
+        for (std::size_t i = 0; i < row.size() && i < w.size(); ++i) w[i] = std::max(w[i], width(row[i]));
+      if (!table.title.empty()) out += table.title + "\n";
+      auto line = [&](const std::vector<std::string>& cells) {
+        std::string s = " ";
+        for (std::size_t i = 0; i < cells.size(); ++i) {
+          const bool right = i < table.numeric.size() && table.numeric[i];
+          s += " " + pad(cells[i], w[i], right);
+        }
+        while (!s.empty() && s.back() == ' ') s.pop_back();
+        return s + "\n";
+      };
+      out += line(table.headers);
+      std::size_t total = 1;
+      for (auto x : w) total += x + 1;
+      out += "  " + std::string(total - 2, '-') + "\n";
+      for (const auto& row : table.rows) out += line(row);
+      return out + "\n";
+    }
+  }
+  return out;
+}
+
+std::string combination_formula(const Project& project, const Combination& combination) {
+  std::string text;
+  for (const auto& [index, factor] : combination.factors) {
+    if (!text.empty()) text += factor < 0 ? " − " : " + ";
+    else if (factor < 0) text += "−";
+    const double f = std::abs(factor);
+    text += f == std::round(f) ? fmt::format("{:.1f}·{}", f, project.load_cases[index].id)
+                               : fmt::format("{:g}·{}", f, project.load_cases[index].id);
+  }
+  return text;
+}
+
+std::string summary_line(const CheckReport& r) {
+  const Project& p = *r.project;
+  const CheckSummary& s = r.results->summary;
+  const std::string where =
+      fmt::format("pile {}, combination {}, {}", s.pile ? p.piles[*s.pile].id : "-",
+                  combo_id(r, s.combination), to_string(s.check));
+  if (s.pass)
+    return fmt::format("PASS: {} piles in {} combinations; max utilization {} ({})",
+                       p.piles.size(), p.combinations.size(), utilization_text(s.max_utilization),
+                       where);
+  std::string overturned;
+  for (auto c : s.overturned) overturned += (overturned.empty() ? "" : ", ") + p.combinations[c].id;
+  return fmt::format("FAIL: {} of {} combinations fail; max utilization {} ({}){}",
+                     s.failed_combinations, p.combinations.size(),
+                     utilization_text(s.max_utilization), where,
+                     overturned.empty() ? "" : "; the cap overturns in " + overturned);
+}
+
+json check_json(const CheckReport& r) {
+  const Project& p = *r.project;
+  const Units u(p.units);
+  json doc;
+  doc["tool"] = {{"name", "cairn"}, {"version", CAIRN_VERSION}};
+  doc["input"] = p.file;
+  doc["title"] = p.title;
+  doc["options"] = r.options;
+  doc["units"] = {{"system", to_string(p.units)},
+                  {"force", u.label(Quantity::force)},
+                  {"length", u.label(Quantity::length)},
+                  {"moment", u.label(Quantity::moment)},
+                  {"displacement", u.label(Quantity::small_length)},
+                  {"rotation", "rad"}};
+  json combos = json::array();
+  for (const CombinationCheck& cc : r.results->combinations) {
+    const Combination& c = p.combinations[cc.combination];
+    json factors = json::object();
+    for (const auto& [index, factor] : c.factors) factors[p.load_cases[index].id] = factor;
+    json piles = json::array();
+    for (std::size_t i = 0; i < p.piles.size(); ++i) {
+      const PileCheck& pc = cc.piles[i];
+      piles.push_back({{"id", p.piles[i].id},
+                       {"axial", u.value(Quantity::force, pc.axial)},
+                       {"lateral", u.value(Quantity::force, pc.lateral)},
+                       {"active", pc.active},
+                       {"utilization", number_or_null(pc.utilization)},
+                       {"governing", to_string(pc.governing)},
+                       {"pass", pc.pass}});
+    }
+    const auto& m = cc.solution.movement;
+    json dropped = json::array();
+    for (auto i : cc.solution.dropped) dropped.push_back(p.piles[i].id);
+    json entry = {
+        {"id", c.id},
+        {"limit_state", to_string(c.limit_state)},
+        {"factors", factors},
+        {"status", cc.solution.overturns ? "overturns" : (cc.pass ? "pass" : "fail")},
+        {"cap",
+         {{"translation",
+           {u.value(Quantity::small_length, m.translation[0]),
+            u.value(Quantity::small_length, m.translation[1]),
+            u.value(Quantity::small_length, m.translation[2])}},
+          {"rotation", {m.rotation[0], m.rotation[1], m.rotation[2]}}}},
+        {"piles", piles},
+        {"dropped", dropped},
+        {"max_utilization", number_or_null(cc.max_utilization)},
+        {"governing_pile", cc.governing_pile ? json(p.piles[*cc.governing_pile].id) : json(nullptr)}};
+    if (cc.solution.overturns) entry["message"] = cc.solution.failure;
+    combos.push_back(entry);
+  }
+  doc["combinations"] = combos;
+  json envelope = json::array();
+  for (std::size_t i = 0; i < p.piles.size(); ++i) {
+    const PileEnvelope& e = r.results->envelope[i];
+    auto extreme = [&](const Extreme& x, Quantity q) {
+      return json{{"value", q == Quantity::number ? number_or_null(x.value)
+                                                  : json(u.value(q, x.value))},
+                  {"combination", x.combination ? json(p.combinations[*x.combination].id)
+                                                : json(nullptr)}};
+    };
+    envelope.push_back({{"pile", p.piles[i].id},
+                        {"max_compression", extreme(e.max_compression, Quantity::force)},
+                        {"max_tension", extreme(e.max_tension, Quantity::force)},
+                        {"max_lateral", extreme(e.max_lateral, Quantity::force)},
+                        {"max_utilization", extreme(e.max_utilization, Quantity::number)}});
+  }
+  doc["envelope"] = envelope;
+  const CheckSummary& s = r.results->summary;
+  json overturned = json::array();
+  for (auto c : s.overturned) overturned.push_back(p.combinations[c].id);
+  doc["summary"] = {
+      {"pass", s.pass},
+      {"max_utilization", number_or_null(s.max_utilization)},
+      {"failed_combinations", s.failed_combinations},
+      {"overturned", overturned},
+      {"governing",
+       {{"pile", s.pile ? json(p.piles[*s.pile].id) : json(nullptr)},
+        {"combination", s.combination ? json(p.combinations[*s.combination].id) : json(nullptr)},
+        {"check", to_string(s.check)}}},
+      {"line", summary_line(r)}};
+  if (r.explain_pile) {
+    json hand = json::array();
+    for (const HandCheck& h : r.hand_checks) {
+      json e = {{"combination", p.combinations[h.combination].id}, {"available", h.available}};
+      if (!h.available) {
+        e["why_not"] = h.why_not;
+      } else {
+        const double lf = to_si_factor(p.units, Quantity::length);
+        e["n"] = h.section.count;
+        e["centroid"] = {u.value(Quantity::length, h.section.centroid_x),
+                         u.value(Quantity::length, h.section.centroid_y)};
+        e["Ixx"] = h.section.ixx / (lf * lf);
+        e["Iyy"] = h.section.iyy / (lf * lf);
+        e["Ixy"] = h.section.ixy / (lf * lf);
+        e["V"] = u.value(Quantity::force, h.vertical);
+        e["Mx"] = u.value(Quantity::moment, h.moment_x);
+        e["My"] = u.value(Quantity::moment, h.moment_y);
+        e["eccentricity"] = {u.value(Quantity::length, h.eccentricity_x),
+                             u.value(Quantity::length, h.eccentricity_y)};
+        e["axial"] = u.value(Quantity::force, h.axial);
+      }
+      e["solver_axial"] = u.value(Quantity::force, h.solver_axial);
+      hand.push_back(e);
+    }
+    doc["explain"] = {{"pile", p.piles[*r.explain_pile].id}, {"combinations", hand}};
+  }
+  doc["assumptions"] = r.assumptions;
+  doc["caution"] = kCaution;
+  return doc;
+}
+
+std::string render_check(const CheckReport& r, Format format) {
+  if (format == Format::json) return check_json(r).dump(2) + "\n";
+  if (format == Format::csv) {
+    // One CSV stream: sections separated by a blank line, each headed by a comment line.
+    std::string out;
+    out += "# summary\n" + render_table(summary_table(r), Format::csv) + "\n";
+    out += "# envelope\n" + render_table(envelope_table(r), Format::csv);
+    for (const auto& cc : r.results->combinations) {
+      Table t = combination_table(r, cc);
+      out += "\n# " + t.title + "\n";
+      t.title.clear();
+      out += render_table(t, Format::csv);
+    }
+    out += "\n";
+    for (const auto& a : r.assumptions) out += "# assumption: " + a + "\n";
+    out += std::string("# ") + kCaution + "\n";
+    return out;
+  }
+  std::string out = header(r, format);
+  out += render_table(pile_types_table(r), format);
+  out += render_table(piles_table(r), format);
+  out += render_table(combinations_table(r), format);
+  for (const auto& cc : r.results->combinations) {
+    out += render_table(combination_table(r, cc), format);
+    out.insert(out.size() - 1, (format == Format::markdown ? "" : "  ") + combination_note(r, cc) + "\n");
+  }
+  out += render_table(envelope_table(r), format);
+  if (r.explain_pile) out += explain_block(r, format);
+  out += assumptions_block(r, format);
+  const std::string line = summary_line(r);
+  out += format == Format::markdown ? "**" + line + "**\n\n" : line + "\n\n";
+  out += format == Format::markdown ? std::string("_") + kCaution + "_\n" : kCaution + std::string("\n");
+  return out;
+}
+
+std::vector<std::pair<std::string, std::string>> check_files(const CheckReport& r) {
+  std::vector<std::pair<std::string, std::string>> files;
+  files.emplace_back("report.txt", render_check(r, Format::text));
+  files.emplace_back("report.md", render_check(r, Format::markdown));
+  files.emplace_back("results.json", render_check(r, Format::json));
+  std::string trailer;
+  for (const auto& a : r.assumptions) trailer += "# assumption: " + a + "\n";
+  trailer += std::string("# ") + kCaution + "\n";
+  Table summary = summary_table(r);
+  summary.title.clear();
+  files.emplace_back("summary.csv", render_table(summary, Format::csv) + trailer);
+  Table envelope = envelope_table(r);
+  envelope.title.clear();
+  files.emplace_back("envelope.csv", render_table(envelope, Format::csv) + trailer);
+  for (const auto& cc : r.results->combinations) {
+    Table t = combination_table(r, cc);
+    t.title.clear();
+    std::string name = r.project->combinations[cc.combination].id;
+    for (char& c : name)
+      if (!(std::isalnum(static_cast<unsigned char>(c)) || c == '-' || c == '_' || c == '.')) c = '_';
+    files.emplace_back("combination-" + name + ".csv", render_table(t, Format::csv) + trailer);
+  }
+  return files;
+}
+
+}  // namespace cairn

@@ -199,7 +199,7 @@ std::vector<std::string> assumptions(const Project& project,
     const UnitSystem u = project.units;
     if (!type.axial_stiffness)
       list.push_back(fmt::format(
-          "Pile type {}: axial stiffness defaulted to E·A/L = {:.4g} {} (no soil–pile "
+          "Pile type {}: axial stiffness defaulted to E·A/L = {:.0f} {} (no soil–pile "
           "interaction).",
           type.id, from_si(u, Quantity::stiffness, type.axial_stiffness_used()),
           unit_label(u, Quantity::stiffness)));

@@ -8,6 +8,7 @@
 #include <fmt/format.h>
 
 #include "cairn/cap_solver.hpp"
+#include "cairn/capacity_report.hpp"
 #include "cairn/checks.hpp"
 #include "cairn/explain.hpp"
 #include "cairn/input.hpp"
@@ -27,7 +28,10 @@ const char* format_name(Format f) {
 }
 
 std::string describe_options(const Options& o) {
-  std::string text = fmt::format("check --format {}", format_name(o.format));
+  std::string text = fmt::format("{} --format {}", o.command == Command::check ? "check" : "capacity",
+                                 format_name(o.format));
+  if (o.depth_step) text += fmt::format(" --step {:g}", *o.depth_step);
+  if (o.min_length) text += fmt::format(" --from {:g}", *o.min_length);
   if (o.out_dir) text += " --out " + *o.out_dir;
   if (o.explain_pile) text += " --explain " + *o.explain_pile;
   return text;
@@ -51,7 +55,8 @@ CheckRun check_project(const std::string& file) {
     problems.error(lc.where, fmt::format("load_cases.{}: {} cannot be resisted: {}", lc.id,
                                          u.load.component, u.load.reason));
   }
-  run.resistances = resolve_resistances(project, {});
+  run.resistances =
+      resolve_resistances(project, computed_resistances(project, compute_capacities(project)));
   for (const auto& d : missing_resistances(project, run.resistances))
     problems.error(d.where, d.message);
   problems.raise_if_any();
@@ -90,12 +95,27 @@ int run_check(const Options& options, std::ostream& out) {
   return run.results.summary.pass ? kExitPass : kExitFail;
 }
 
+int run_capacity(const Options& options, std::ostream& out) {
+  if (options.files.size() != 1) throw InputError({}, "capacity: expected one project file");
+  const Project project = read_project(options.files.front());
+  const UnitSystem u = project.units;
+  const double step = options.depth_step ? *options.depth_step * to_si_factor(u, Quantity::length)
+                                         : (u == UnitSystem::SI ? 0.5 : 0.3048);
+  const double from = options.min_length ? *options.min_length * to_si_factor(u, Quantity::length)
+                                         : (u == UnitSystem::SI ? 3.0 : 3.048);
+  if (!(step > 0)) throw InputError({}, "--step: expected a positive length");
+  const auto capacities = compute_capacities(project, step, from);
+  out << render_capacities(project, capacities, options.format, describe_options(options));
+  return kExitPass;
+}
+
 }  // namespace
 
 int run(const Options& options, std::ostream& out, std::ostream& err) {
   try {
     switch (options.command) {
       case Command::check: return run_check(options, out);
+      case Command::capacity: return run_capacity(options, out);
     }
     return kExitBadInput;
   } catch (const InputError& e) {
@@ -126,6 +146,17 @@ int run_command_line(int argc, const char* const* argv, std::ostream& out, std::
                     "Also write report.txt, report.md, results.json and CSV tables into DIR");
   check->add_option("--explain", options.explain_pile,
                     "Show the hand check (section properties, substituted formula) for PILE");
+  CLI::App* capacity = app.add_subcommand(
+      "capacity", "Compute each pile type's capacity from the soil profile, layer by layer and "
+                  "with depth");
+  capacity->add_option("file", options.files, "Project file (YAML)")->required();
+  capacity->add_option("--format", format, "Output format: text, markdown or json")
+      ->check(CLI::IsMember(std::vector<std::string>{"text", "markdown", "json"}));
+  capacity->add_option("--step", options.depth_step,
+                       "Length step of the capacity-with-depth table, in the project's length "
+                       "unit (default 0.5 m or 1 ft)");
+  capacity->add_option("--from", options.min_length,
+                       "Shortest pile length in the table (default 3 m or 10 ft)");
   try {
     app.parse(argc, argv);
   } catch (const CLI::CallForHelp& e) {
@@ -145,6 +176,7 @@ int run_command_line(int argc, const char* const* argv, std::ostream& out, std::
   else if (format == "markdown") options.format = Format::markdown;
   else if (format == "json") options.format = Format::json;
   if (check->parsed()) options.command = Command::check;
+  if (capacity->parsed()) options.command = Command::capacity;
   return run(options, out, err);
 }
 

@@ -14,7 +14,7 @@
 
 namespace cairn {
 
-enum class Command { check };
+enum class Command { check, capacity };
 
 struct Options {
   Command command = Command::check;
@@ -22,6 +22,10 @@ struct Options {
   Format format = Format::text;
   std::optional<std::string> out_dir;
   std::optional<std::string> explain_pile;
+  // capacity: the capacity-with-depth table, in the project's length unit; defaults
+  // 0.5 m or 1 ft for the step, 3 m or 10 ft for the shortest length.
+  std::optional<double> depth_step;
+  std::optional<double> min_length;
 };
 
 inline constexpr int kExitPass = 0;

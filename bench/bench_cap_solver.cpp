@@ -1,1 +1,156 @@
-int main() {}
+// bench_cap_solver.cpp — wall time of solve_combinations on a large pile group.
+//
+// The group: 400 piles on a 20 × 20 grid at 1.2 m, the outer two rings battered outward
+// (1H:6V along x or y, 1H:8V on the diagonals at the corners), the battered piles
+// compression-only; 12 load cases (dead, live, wind and seismic in ±x and ±y, with moments
+// from horizontal loads at the top of a 2.0 m cap and eccentric column loads); 5000
+// combinations with factors drawn from a fixed seed, a share of them lifting piles so the
+// compression-only iteration runs. The Project is built in code (no input file).
+//
+// Run: bench_cap_solver [--benchmark_repetitions=5]
+#include <benchmark/benchmark.h>
+
+#include <cmath>
+#include <cstddef>
+#include <random>
+#include <string>
+
+#include "cairn/cap_solver.hpp"
+#include "cairn/model.hpp"
+
+namespace {
+
+using cairn::Project;
+
+constexpr int kGridSide = 20;           // 20 × 20 = 400 piles
+constexpr double kSpacing = 1.2;        // m
+constexpr double kCapThickness = 2.0;   // m
+constexpr std::size_t kCombinations = 5000;
+
+cairn::PileType pile_type(const std::string& id, double axial, double lateral, bool tension) {
+  cairn::PileType type;
+  type.id = id;
+  type.section = {cairn::SectionShape::square, 0.4};
+  type.length = 20.0;
+  type.elastic_modulus = 30e6;
+  type.axial_stiffness = axial;
+  type.lateral_stiffness = lateral;
+  type.tension = tension;
+  return type;
+}
+
+cairn::LoadCase load_case(const std::string& id, cairn::LoadKind kind,
+                          std::vector<cairn::PointLoad> loads) {
+  cairn::LoadCase lc;
+  lc.id = id;
+  lc.kind = kind;
+  lc.loads = std::move(loads);
+  return lc;
+}
+
+cairn::PointLoad at(double x, double y, cairn::Wrench load) {
+  cairn::PointLoad p;
+  p.at = {x, y, kCapThickness};
+  p.load = load;
+  return p;
+}
+
+Project large_project() {
+  Project project;
+  project.title = "benchmark: 400 piles, 5000 combinations";
+  project.cap.thickness = kCapThickness;
+  project.pile_types = {
+      pile_type("vertical", 4.0e5, 2.0e4, true),     // interior, takes tension
+      pile_type("raked", 3.5e5, 1.5e4, false),       // outer rings, compression only
+      pile_type("raked-corner", 3.0e5, 0.0, false),  // corners, axial only
+  };
+  const double half = (kGridSide - 1) * kSpacing / 2.0;
+  for (int i = 0; i < kGridSide; ++i) {
+    for (int j = 0; j < kGridSide; ++j) {
+      cairn::Pile pile;
+      pile.id = "P" + std::to_string(i * kGridSide + j + 1);
+      pile.x = i * kSpacing - half;
+      pile.y = j * kSpacing - half;
+      const int ring = std::min(std::min(i, j), std::min(kGridSide - 1 - i, kGridSide - 1 - j));
+      const bool corner_x = i < 2 || i >= kGridSide - 2;
+      const bool corner_y = j < 2 || j >= kGridSide - 2;
+      if (ring < 2) {
+        const double toward = std::atan2(pile.y, pile.x) * 180.0 / 3.141592653589793;
+        if (corner_x && corner_y) {
+          pile.type = 2;
+          pile.batter = cairn::Batter{8.0, toward};
+        } else {
+          pile.type = 1;
+          // Outward along the nearer edge's normal.
+          const double edge = std::abs(pile.x) > std::abs(pile.y) ? (pile.x > 0 ? 0.0 : 180.0)
+                                                                  : (pile.y > 0 ? 90.0 : 270.0);
+          pile.batter = cairn::Batter{6.0, edge};
+        }
+      }
+      project.piles.push_back(pile);
+    }
+  }
+
+  using cairn::LoadKind;
+  project.load_cases = {
+      load_case("D", LoadKind::dead, {at(0.3, -0.2, {0, 0, -60000, 0, 0, 0})}),
+      load_case("SDL", LoadKind::dead, {at(-1.0, 0.5, {0, 0, -8000, 0, 0, 0})}),
+      load_case("L", LoadKind::live, {at(2.5, 1.0, {0, 0, -15000, 0, 0, 0})}),
+      load_case("S", LoadKind::snow, {at(-2.0, -3.0, {0, 0, -4000, 0, 0, 0})}),
+      load_case("Wx+", LoadKind::wind, {at(0, 0, {2500, 0, 0, 0, 120000, 0})}),
+      load_case("Wx-", LoadKind::wind, {at(0, 0, {-2500, 0, 0, 0, -120000, 0})}),
+      load_case("Wy+", LoadKind::wind, {at(0, 0, {0, 2500, 0, -120000, 0, 3000})}),
+      load_case("Wy-", LoadKind::wind, {at(0, 0, {0, -2500, 0, 120000, 0, -3000})}),
+      load_case("Ex", LoadKind::seismic, {at(1.0, 0, {4000, 600, 0, -20000, 180000, 8000})}),
+      load_case("Ey", LoadKind::seismic, {at(0, 1.0, {600, 4000, 0, -180000, 20000, -8000})}),
+      load_case("H", LoadKind::earth, {at(-11.4, 0, {1800, 0, 0, 0, 0, 0})}),
+      load_case("T", LoadKind::temperature, {at(5.0, 5.0, {300, -300, -500, 0, 0, 0})}),
+  };
+
+  std::mt19937 random(20240611);
+  std::uniform_real_distribution<double> unit(0.0, 1.0);
+  for (std::size_t c = 0; c < kCombinations; ++c) {
+    cairn::Combination combination;
+    combination.id = "C" + std::to_string(c + 1);
+    combination.limit_state = c % 2 ? cairn::LimitState::strength : cairn::LimitState::service;
+    combination.factors.emplace_back(0, 0.9 + 0.5 * unit(random));  // dead always present
+    combination.factors.emplace_back(1, 0.9 + 0.5 * unit(random));
+    for (std::size_t lc = 2; lc < project.load_cases.size(); ++lc)
+      if (unit(random) < 0.4) combination.factors.emplace_back(lc, 1.6 * unit(random));
+    project.combinations.push_back(std::move(combination));
+  }
+  return project;
+}
+
+void BM_SolveCombinations(benchmark::State& state) {
+  const Project project = large_project();
+  const cairn::CapSolver solver(cairn::pile_springs(project));
+  std::size_t lifted = 0, overturned = 0;
+  for (auto _ : state) {
+    const auto solutions = cairn::solve_combinations(project, solver);
+    lifted = overturned = 0;
+    for (const auto& s : solutions) {
+      lifted += s.dropped.empty() ? 0 : 1;
+      overturned += s.overturns ? 1 : 0;
+    }
+    benchmark::DoNotOptimize(solutions.data());
+  }
+  state.counters["piles"] = static_cast<double>(project.piles.size());
+  state.counters["combinations"] = static_cast<double>(project.combinations.size());
+  state.counters["with_lifted_piles"] = static_cast<double>(lifted);
+  state.counters["overturned"] = static_cast<double>(overturned);
+}
+BENCHMARK(BM_SolveCombinations)->Unit(benchmark::kMillisecond)->UseRealTime();
+
+void BM_BuildSolver(benchmark::State& state) {
+  const Project project = large_project();
+  for (auto _ : state) {
+    cairn::CapSolver solver(cairn::pile_springs(project));
+    benchmark::DoNotOptimize(&solver);
+  }
+}
+BENCHMARK(BM_BuildSolver)->Unit(benchmark::kMillisecond)->UseRealTime();
+
+}  // namespace
+
+BENCHMARK_MAIN();

@@ -188,24 +188,24 @@ CheckResults check_piles(const Project& project, const std::vector<CapSolution>&
   return results;
 }
 
-std::vector<std::string> assumptions(const Project& project,
-                                     const std::vector<PileTypeResistance>& resistances) {
+std::vector<std::string> assumptions(
+    const Project& project, const std::vector<PileTypeResistance>& resistances,
+    const std::vector<std::pair<std::string, std::string>>& stiffness_sources) {
   std::vector<std::string> list;
   list.push_back("The cap is rigid: it moves as one body with six degrees of freedom.");
-  list.push_back("Pile heads are pinned to the cap: each is an axial spring along the pile "
-                 "and a lateral spring across it, with no moment at the head.");
+  list.push_back("Pile heads act on the cap as an axial spring along the pile and a lateral "
+                 "spring across it; no moment is transferred to the cap.");
   for (std::size_t t = 0; t < project.pile_types.size(); ++t) {
     const PileType& type = project.pile_types[t];
-    const UnitSystem u = project.units;
-    if (!type.axial_stiffness)
-      list.push_back(fmt::format(
-          "Pile type {}: axial stiffness defaulted to E·A/L = {:.0f} {} (no soil–pile "
-          "interaction).",
-          type.id, from_si(u, Quantity::stiffness, type.axial_stiffness_used()),
-          unit_label(u, Quantity::stiffness)));
-    if (!type.lateral_stiffness)
-      list.push_back(fmt::format("Pile type {}: lateral stiffness defaulted to 0 (axial-only "
-                                 "piles, the classical assumption).",
+    if (t < stiffness_sources.size()) {
+      list.push_back(fmt::format("Pile type {}: axial stiffness {}.", type.id,
+                                 stiffness_sources[t].first));
+      list.push_back(fmt::format("Pile type {}: lateral stiffness {}.", type.id,
+                                 stiffness_sources[t].second));
+    }
+    if (type.head == HeadFixity::fixed)
+      list.push_back(fmt::format("Pile type {}: fixed heads; the head moment is reported per "
+                                 "pile but not fed back into the cap's equilibrium.",
                                  type.id));
     list.push_back(fmt::format("Pile type {}: {}.", type.id,
                                type.tension ? "takes tension"

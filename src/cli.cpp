@@ -11,6 +11,8 @@
 #include "cairn/capacity_report.hpp"
 #include "cairn/checks.hpp"
 #include "cairn/explain.hpp"
+#include "cairn/group_checks.hpp"
+#include "cairn/stiffness.hpp"
 #include "cairn/input.hpp"
 #include "cairn/output_files.hpp"
 
@@ -28,8 +30,10 @@ const char* format_name(Format f) {
 }
 
 std::string describe_options(const Options& o) {
-  std::string text = fmt::format("{} --format {}", o.command == Command::check ? "check" : "capacity",
-                                 format_name(o.format));
+  const char* name = o.command == Command::check      ? "check"
+                     : o.command == Command::capacity ? "capacity"
+                                                      : "springs";
+  std::string text = fmt::format("{} --format {}", name, format_name(o.format));
   if (o.depth_step) text += fmt::format(" --step {:g}", *o.depth_step);
   if (o.min_length) text += fmt::format(" --from {:g}", *o.min_length);
   if (o.out_dir) text += " --out " + *o.out_dir;
@@ -40,27 +44,35 @@ std::string describe_options(const Options& o) {
 // Everything `check` computes for one project file.
 struct CheckRun {
   Project project;
+  std::vector<PileTypeCapacity> capacities;
+  std::vector<PileTypeStiffness> stiffness;
   std::vector<PileTypeResistance> resistances;
   CheckResults results;
+  GroupResults group;
 };
 
 CheckRun check_project(const std::string& file) {
   CheckRun run;
   run.project = read_project(file);
   const Project& project = run.project;
-  const CapSolver solver(pile_springs(project));
+  run.capacities = compute_capacities(project);
+  run.stiffness = pile_type_stiffness(project, run.capacities);
+  const CapSolver solver(pile_springs(project, run.stiffness));
   Diagnostics problems;
   for (const auto& u : unresisted_cases(project, solver)) {
     const LoadCase& lc = project.load_cases[u.load_case];
     problems.error(lc.where, fmt::format("load_cases.{}: {} cannot be resisted: {}", lc.id,
                                          u.load.component, u.load.reason));
   }
-  run.resistances =
-      resolve_resistances(project, computed_resistances(project, compute_capacities(project)));
+  run.resistances = resolve_resistances(project, computed_resistances(project, run.capacities));
   for (const auto& d : missing_resistances(project, run.resistances))
+    problems.error(d.where, d.message);
+  for (const auto& d : group_input_problems(project, run.capacities))
     problems.error(d.where, d.message);
   problems.raise_if_any();
   run.results = check_piles(project, solve_combinations(project, solver), run.resistances);
+  run.group = evaluate_group(project, run.results, run.resistances, run.capacities);
+  if (!run.group.pass) run.results.summary.pass = false;
   return run;
 }
 
@@ -72,7 +84,11 @@ int run_check(const Options& options, std::ostream& out) {
   report.project = &run.project;
   report.results = &run.results;
   report.resistances = &run.resistances;
-  report.assumptions = assumptions(run.project, run.resistances);
+  std::vector<std::pair<std::string, std::string>> sources;
+  for (const auto& k : run.stiffness) sources.emplace_back(k.axial_source, k.lateral_source);
+  report.assumptions = assumptions(run.project, run.resistances, sources);
+  report.stiffness = &run.stiffness;
+  report.group = &run.group;
   report.options = describe_options(options);
   if (options.explain_pile) {
     const auto& piles = run.project.piles;
@@ -109,6 +125,14 @@ int run_capacity(const Options& options, std::ostream& out) {
   return kExitPass;
 }
 
+int run_springs(const Options& options, std::ostream& out) {
+  if (options.files.size() != 1) throw InputError({}, "springs: expected one project file");
+  const Project project = read_project(options.files.front());
+  const auto stiffness = pile_type_stiffness(project, compute_capacities(project));
+  out << render_springs(project, stiffness, options.format, describe_options(options));
+  return kExitPass;
+}
+
 }  // namespace
 
 int run(const Options& options, std::ostream& out, std::ostream& err) {
@@ -116,6 +140,7 @@ int run(const Options& options, std::ostream& out, std::ostream& err) {
     switch (options.command) {
       case Command::check: return run_check(options, out);
       case Command::capacity: return run_capacity(options, out);
+      case Command::springs: return run_springs(options, out);
     }
     return kExitBadInput;
   } catch (const InputError& e) {
@@ -157,6 +182,12 @@ int run_command_line(int argc, const char* const* argv, std::ostream& out, std::
                        "unit (default 0.5 m or 1 ft)");
   capacity->add_option("--from", options.min_length,
                        "Shortest pile length in the table (default 3 m or 10 ft)");
+  CLI::App* springs = app.add_subcommand(
+      "springs", "Write each pile's head springs (axial and lateral stiffness) for the global "
+                 "structural model");
+  springs->add_option("file", options.files, "Project file (YAML)")->required();
+  springs->add_option("--format", format, "Output format: text, csv, markdown or json")
+      ->check(CLI::IsMember(formats));
   try {
     app.parse(argc, argv);
   } catch (const CLI::CallForHelp& e) {
@@ -177,6 +208,7 @@ int run_command_line(int argc, const char* const* argv, std::ostream& out, std::
   else if (format == "json") options.format = Format::json;
   if (check->parsed()) options.command = Command::check;
   if (capacity->parsed()) options.command = Command::capacity;
+  if (springs->parsed()) options.command = Command::springs;
   return run(options, out, err);
 }
 

@@ -58,6 +58,9 @@ std::string closest_match(const std::string& word, const std::vector<std::string
   std::size_t best_distance = 3;
   for (const auto& c : candidates) {
     const std::size_t d = edit_distance(word, c);
+    // A suggestion must share at least half of the longer name: 'W' is not a typo of 'D',
+    // but 'LL' may be one of 'L' and 'PC54' of 'PC45'.
+    if (2 * d > std::max(word.size(), c.size())) continue;
     if (d < best_distance) {
       best_distance = d;
       best = c;

@@ -12,6 +12,8 @@
 
 #include <fmt/format.h>
 
+#include "cairn/group.hpp"
+
 namespace cairn {
 namespace {
 
@@ -65,7 +67,7 @@ struct Merged {
 
 const std::vector<std::string> kTopKeys = {"title", "units", "include", "cap", "pile_types",
                                            "piles", "soil", "load_cases", "combinations",
-                                           "checks"};
+                                           "group"};
 const std::set<std::string> kNamedSections = {"pile_types", "load_cases", "combinations"};
 
 const std::map<std::string, LoadKind> kLoadKinds = {
@@ -101,8 +103,11 @@ class Reader {
     const fs::path canonical = fs::weakly_canonical(fs::absolute(path), ec);
     const std::string key = canonical.string();
     if (std::find(stack.begin(), stack.end(), key) != stack.end()) {
-      diag_.error(included_from, fmt::format("include: '{}' includes itself (through {})", path,
-                                             list_of(stack)));
+      // Name the files as the user wrote them, not as absolute paths of this machine.
+      std::string chain;
+      for (const auto& name : reading_) chain += name + " → ";
+      diag_.error(included_from,
+                  fmt::format("include: '{}' includes itself ({}{})", path, chain, path));
       return;
     }
     std::ifstream in(path, std::ios::binary);
@@ -130,6 +135,11 @@ class Reader {
                   fmt::format("malformed YAML: {}", e.msg));
       return;
     }
+    if (root.IsNull()) {  // nothing but comments
+      diag_.error({file, 1, 1}, "the file is empty; expected a project (title, units, cap, "
+                                "pile_types, piles, load_cases, combinations)");
+      return;
+    }
     if (!root.IsMap()) {
       diag_.error({file, 1, 1}, fmt::format("expected a map of keys (title, units, cap, …) at "
                                             "the top of the file, got {}",
@@ -147,6 +157,7 @@ class Reader {
                     fmt::format("units: expected 'SI' or 'US', got '{}'", scalar_text(units.node)));
     }
     stack.push_back(key);
+    reading_.push_back(path);
     if (auto includes = top.child("include"); includes.present()) {
       std::vector<Located> list;
       if (includes.node.IsSequence()) {
@@ -166,6 +177,7 @@ class Reader {
       }
     }
     stack.pop_back();
+    reading_.pop_back();
     for (auto it = root.begin(); it != root.end(); ++it) {
       const std::string name = it->first.as<std::string>();
       if (name == "include") continue;
@@ -351,7 +363,7 @@ class Reader {
       if (!e) diag_.error({main_file, 1, 1}, fmt::format("{}: missing; the project needs it", name));
       return e;
     };
-    if (const Entry* checks = section("checks")) read_checks(checks->value, project);
+    if (const Entry* group = section("group")) read_group(group->value, project);
     if (const Entry* soil = section("soil")) project.soil = read_soil(soil->value);
     if (const Entry* cap = required("cap")) read_cap(cap->value, project);
     if (required("pile_types")) read_pile_types(merged.named["pile_types"],
@@ -366,11 +378,46 @@ class Reader {
     return project;
   }
 
-  void read_checks(const Located& n, Project& project) {
+  void read_group(const Located& n, Project& project) {
     if (!expect_map(n)) return;
-    check_keys(n, {"min_spacing"});
-    if (auto s = number(n, "min_spacing", Quantity::number, Need::optional))
-      project.min_spacing_factor = *s;
+    check_keys(n, {"efficiency", "efficiency_on", "min_spacing", "min_spacing_absolute",
+                   "min_edge_distance", "settlement"});
+    GroupSettings& g = project.group;
+    g.where = at(n);
+    if (auto e = n.child("efficiency"); e.present()) {
+      const std::string name = e.node.IsScalar() ? e.node.Scalar() : scalar_text(e.node);
+      if (!efficiency_method_from_string(name)) {
+        std::vector<std::string> names;
+        for (auto m : {EfficiencyMethod::none, EfficiencyMethod::converse_labarre,
+                       EfficiencyMethod::los_angeles, EfficiencyMethod::feld,
+                       EfficiencyMethod::block_perimeter})
+          names.push_back(to_string(m));
+        diag_.error(at(e), fmt::format("group.efficiency: unknown method '{}'; expected one of {}",
+                                       name, list_of(names)));
+      } else {
+        g.efficiency = name;
+      }
+    }
+    if (auto on = n.child("efficiency_on"); on.present())
+      if (auto v = choice<bool>(on, {{"whole", false}, {"shaft", true}})) g.efficiency_shaft_only = *v;
+    if (auto s = number(n, "min_spacing", Quantity::number, Need::optional)) g.min_spacing_factor = *s;
+    if (auto s = number(n, "min_spacing_absolute", Quantity::length, Need::optional)) g.min_spacing = *s;
+    if (auto s = number(n, "min_edge_distance", Quantity::length, Need::optional, Sign::non_negative))
+      g.min_edge_distance = *s;
+    if (auto st = n.child("settlement"); st.present()) {
+      g.settlement = true;
+      if (st.node.IsScalar() && (st.node.Scalar() == "true" || st.node.Scalar() == "yes")) return;
+      if (st.node.IsScalar() && (st.node.Scalar() == "false" || st.node.Scalar() == "no")) {
+        g.settlement = false;
+        return;
+      }
+      if (!expect_map(st)) return;
+      check_keys(st, {"limit", "tip_share"});
+      g.settlement_limit = number(st, "limit", Quantity::small_length, Need::optional);
+      g.tip_share = number(st, "tip_share", Quantity::number, Need::optional, Sign::non_negative);
+      if (g.tip_share && *g.tip_share > 1.0)
+        diag_.error(at(st.child("tip_share")), "group.settlement.tip_share: expected a share from 0 to 1");
+    }
   }
 
   void read_cap(const Located& n, Project& project) {
@@ -500,7 +547,7 @@ class Reader {
       type.where = entry.key_where;
       if (!expect_map(n)) continue;
       check_keys(n, {"section", "length", "elastic_modulus", "axial_stiffness",
-                     "lateral_stiffness", "tension", "capacity", "installation", "tip_method",
+                     "lateral_stiffness", "tension", "head", "capacity", "installation", "tip_method",
                      "shaft_method", "critical_depth", "factor_of_safety",
                      "factor_of_safety_tip", "factor_of_safety_shaft", "factor_of_safety_tension",
                      "resistance_factor_tip", "resistance_factor_shaft",
@@ -520,6 +567,10 @@ class Reader {
                                        "stiffness E·A/L) or axial_stiffness",
                                        n.path));
       type.tension = flag(n, "tension").value_or(true);
+      if (auto h = n.child("head"); h.present())
+        if (auto v = choice<HeadFixity>(h, {{"pinned", HeadFixity::pinned},
+                                            {"fixed", HeadFixity::fixed}}))
+          type.head = *v;
       if (auto c = n.child("capacity"); c.present()) {
         if (c.node.IsSequence()) {
           for (std::size_t i = 0; i < c.node.size(); ++i) {
@@ -591,6 +642,7 @@ class Reader {
     for (std::size_t i = 0; i < project.pile_types.size(); ++i)
       type_index[project.pile_types[i].id] = i;
     std::set<std::string> ids;
+    std::vector<std::size_t> item_of;  // index in the file's list of each pile read
     for (std::size_t i = 0; i < n.node.size(); ++i) {
       const Located p = n.item(i);
       if (!expect_map(p)) continue;
@@ -625,6 +677,7 @@ class Reader {
         pile.batter = batter;
       }
       project.piles.push_back(pile);
+      item_of.push_back(i);
     }
     if (project.piles.empty())
       diag_.error(at(n), "piles: the list is empty; expected at least one pile");
@@ -639,11 +692,17 @@ class Reader {
                                        project.pile_types[b.type].section.width);
         if (distance < touching - 1e-9) {
           const UnitSystem u = project.units;
-          diag_.error(b.where, fmt::format(
-              "piles '{}' and '{}' overlap: centres {:.3f} {} apart, closer than their width "
-              "({:.3f} {})",
-              a.id, b.id, from_si(u, Quantity::length, distance), unit_label(u, Quantity::length),
-              from_si(u, Quantity::length, touching), unit_label(u, Quantity::length)));
+          const std::string key = fmt::format("piles[{}]", item_of[j]);
+          if (distance < 1e-9)
+            diag_.error(b.where, fmt::format("{}: pile '{}' is at the same position as pile '{}'",
+                                             key, b.id, a.id));
+          else
+            diag_.error(b.where, fmt::format(
+                "{}: piles '{}' and '{}' overlap: centres {:.3f} {} apart, closer than their "
+                "width ({:.3f} {})",
+                key, a.id, b.id, from_si(u, Quantity::length, distance),
+                unit_label(u, Quantity::length), from_si(u, Quantity::length, touching),
+                unit_label(u, Quantity::length)));
         }
       }
     }
@@ -842,6 +901,7 @@ class Reader {
   Diagnostics& diag_;
   UnitSystem project_units_ = UnitSystem::SI;
   const std::map<std::string, UnitSystem>* file_units_ = nullptr;
+  std::vector<std::string> reading_;  // files being read, outermost first, as written
 };
 
 }  // namespace

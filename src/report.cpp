@@ -83,6 +83,189 @@ const std::string& combo_id(const CheckReport& r, std::optional<std::size_t> c) 
 
 json number_or_null(double v) { return std::isfinite(v) ? json(v) : json(nullptr); }
 
+double axial_stiffness(const CheckReport& r, std::size_t type) {
+  return r.stiffness ? (*r.stiffness)[type].axial
+                     : r.project->pile_types[type].axial_stiffness_used();
+}
+double lateral_stiffness(const CheckReport& r, std::size_t type) {
+  return r.stiffness ? (*r.stiffness)[type].lateral
+                     : r.project->pile_types[type].lateral_stiffness_used();
+}
+// Head moment of a fixed-head pile, kN·m (0 for pinned heads).
+double head_moment(const CheckReport& r, std::size_t pile, double lateral) {
+  if (!r.stiffness) return 0.0;
+  return lateral * (*r.stiffness)[r.project->piles[pile].type].head_moment_per_shear;
+}
+bool any_fixed_head(const CheckReport& r) {
+  if (!r.stiffness) return false;
+  for (const auto& k : *r.stiffness)
+    if (k.head_moment_per_shear > 0) return true;
+  return false;
+}
+
+std::string tilt_text(double tilt) {
+  if (tilt <= 1e-12) return "0";
+  return fmt::format("1 in {:.0f}", 1.0 / tilt);
+}
+
+std::string mm_or_dash(const Units& u, std::optional<double> v) {
+  return v ? u.small(*v) : std::string("-");
+}
+
+std::string group_block(const CheckReport& r, Format format) {
+  const GroupResults& g = *r.group;
+  const Project& p = *r.project;
+  const Units u(p.units);
+  const bool md = format == Format::markdown;
+  const Format tf = md ? Format::markdown : Format::text;
+  std::string out = md ? "## Group checks\n\n" : "Group checks\n";
+  const std::string in = md ? "- " : "  ";
+  out += in + fmt::format("Block plan Bg × Lg = {} × {} {} (outer faces).\n", u.length(g.plan.width),
+                          u.length(g.plan.length), u.label(Quantity::length));
+  const auto& grid = g.efficiencies.grid;
+  out += in + (grid.regular ? fmt::format("Layout: rectangular grid, {} rows × {} columns, spacing "
+                                          "x {} / y {} {}.\n",
+                                          grid.rows, grid.columns, u.length(grid.spacing_x),
+                                          u.length(grid.spacing_y), u.label(Quantity::length))
+                            : fmt::format("Layout: irregular ({}).\n", grid.reason));
+  out += "\n";
+  Table eff;
+  eff.title = "Group efficiency, every method";
+  eff.headers = {"method", "η", "note"};
+  eff.numeric = {false, true, false};
+  for (const auto& e : g.efficiencies.all)
+    eff.rows.push_back({std::string(to_string(e.method)) +
+                            (e.method == g.applied.method ? " (applied)" : ""),
+                        e.value ? fmt::format("{:.3f}", *e.value) : std::string("-"), e.note});
+  out += render_table(eff, tf);
+  const std::string f = u.label(Quantity::force);
+  if (g.block)
+    out += in + fmt::format("Block failure (clay): Q_block = Bg·Lg·cu·Nc + 2(Bg + Lg)·Σcu·ΔL = {} + "
+                            "{} = {} {} (Skempton Nc = {:.2f}, cu at base {} {}).\n",
+                            u.force(g.block->base), u.force(g.block->perimeter),
+                            u.force(g.block->capacity), f, g.block->nc,
+                            fmt::format("{:.1f}", from_si(p.units, Quantity::pressure, g.block->base_strength)),
+                            u.label(Quantity::pressure));
+  if (g.capacity_allowable)
+    out += in + fmt::format("Group capacity, allowable: {} {}", u.force(*g.capacity_allowable), f) +
+           (g.capacity_factored ? fmt::format("; factored: {} {}", u.force(*g.capacity_factored), f) : "") +
+           fmt::format(" (governed by {}).\n", g.governing);
+  else if (g.capacity_factored)
+    out += in + fmt::format("Group capacity, factored: {} {} (governed by {}).\n",
+                            u.force(*g.capacity_factored), f, g.governing);
+  out += in + fmt::format("Spacing: smallest centre-to-centre {} {} (minimum {:g} pile widths{}); {}.\n",
+                          u.length(g.spacing.smallest), u.label(Quantity::length),
+                          p.group.min_spacing_factor,
+                          p.group.min_spacing > 0 ? ", at least " + u.length(p.group.min_spacing) + " " + u.label(Quantity::length) : "",
+                          g.spacing.violations.empty() ? "ok" : "FAIL");
+  for (const auto& v : g.spacing.violations)
+    out += in + fmt::format("  FAIL: piles {} and {} are {} {} apart, less than {} {}.\n", v.first,
+                            v.second, u.length(v.distance), u.label(Quantity::length),
+                            u.length(v.required), u.label(Quantity::length));
+  if (g.edge) {
+    out += in + fmt::format("Edge distance (pile face to cap edge, minimum {} {}): {}.\n",
+                            u.length(g.edge->minimum), u.label(Quantity::length),
+                            g.edge->offenders.empty() ? "ok" : "FAIL");
+    for (const auto& e : g.edge->piles)
+      if (!e.ok)
+        out += in + fmt::format("  FAIL: pile {} is {} {} from the edge.\n", e.id,
+                                u.length(e.distance), u.label(Quantity::length));
+  }
+  out += "\n";
+  Table t;
+  t.title = "Group demand per combination";
+  t.headers = {"combination", "Σ compression (" + f + ")", "group capacity (" + f + ")", "utilization",
+               "Σ tension (" + f + ")", "uplift capacity (" + f + ")", "uplift utilization", "tilt"};
+  t.numeric = {false, true, true, true, true, true, true, true};
+  if (g.settlement_asked) {
+    const std::string mm = u.label(Quantity::small_length);
+    for (const auto* h : {"single pile", "group (Vesić)", "equivalent footing", "settlement"})
+      t.headers.push_back(std::string(h) + " (" + mm + ")");
+    for (int i = 0; i < 4; ++i) t.numeric.push_back(true);
+  }
+  t.headers.push_back("state");
+  t.numeric.push_back(false);
+  for (const auto& gc : g.per_combination) {
+    std::vector<std::string> row = {
+        p.combinations[gc.combination].id, u.force(gc.compression),
+        gc.capacity ? u.force(*gc.capacity) : "-",
+        gc.utilization ? fmt::format("{:.3f}", *gc.utilization) : "-", u.force(gc.tension),
+        gc.uplift_capacity ? u.force(*gc.uplift_capacity) : "-",
+        gc.uplift_utilization ? fmt::format("{:.3f}", *gc.uplift_utilization) : "-",
+        tilt_text(gc.tilt)};
+    if (g.settlement_asked) {
+      row.push_back(mm_or_dash(u, gc.single_settlement));
+      row.push_back(mm_or_dash(u, gc.group_settlement));
+      row.push_back(mm_or_dash(u, gc.footing_settlement));
+      row.push_back(mm_or_dash(u, gc.settlement));
+    }
+    row.push_back(gc.pass ? "ok" : "FAIL");
+    t.rows.push_back(row);
+  }
+  out += render_table(t, tf);
+  if (g.settlement_asked)
+    out += in + fmt::format("Tolerable settlement: {} {}.\n", u.small(g.settlement_limit),
+                            u.label(Quantity::small_length));
+  for (const auto& n : g.notes) out += in + "Note: " + n + "\n";
+  return out + "\n";
+}
+
+json group_json(const CheckReport& r) {
+  const GroupResults& g = *r.group;
+  const Project& p = *r.project;
+  const Units u(p.units);
+  auto opt = [&](std::optional<double> v, Quantity q) {
+    return v ? json(u.value(q, *v)) : json(nullptr);
+  };
+  json all = json::object();
+  for (const auto& e : g.efficiencies.all)
+    all[to_string(e.method)] = {{"value", e.value ? json(*e.value) : json(nullptr)}, {"note", e.note}};
+  json spacing = json::array();
+  for (const auto& v : g.spacing.violations)
+    spacing.push_back({{"piles", {v.first, v.second}},
+                       {"distance", u.value(Quantity::length, v.distance)},
+                       {"required", u.value(Quantity::length, v.required)}});
+  json per = json::array();
+  for (const auto& gc : g.per_combination)
+    per.push_back({{"combination", p.combinations[gc.combination].id},
+                   {"compression", u.value(Quantity::force, gc.compression)},
+                   {"capacity", opt(gc.capacity, Quantity::force)},
+                   {"utilization", gc.utilization ? json(*gc.utilization) : json(nullptr)},
+                   {"tension", u.value(Quantity::force, gc.tension)},
+                   {"uplift_capacity", opt(gc.uplift_capacity, Quantity::force)},
+                   {"uplift_utilization", gc.uplift_utilization ? json(*gc.uplift_utilization) : json(nullptr)},
+                   {"tilt", gc.tilt},
+                   {"single", opt(gc.single_settlement, Quantity::small_length)},
+                   {"group", opt(gc.group_settlement, Quantity::small_length)},
+                   {"footing", opt(gc.footing_settlement, Quantity::small_length)},
+                   {"settlement", opt(gc.settlement, Quantity::small_length)},
+                   {"pass", gc.pass}});
+  json edge = nullptr;
+  if (g.edge) {
+    json offenders = g.edge->offenders;
+    edge = {{"minimum", u.value(Quantity::length, g.edge->minimum)}, {"offenders", offenders}};
+  }
+  return {{"efficiency",
+           {{"method", to_string(g.applied.method)},
+            {"value", g.applied.value.value_or(1.0)},
+            {"all", all}}},
+          {"block_capacity", g.block ? json(u.value(Quantity::force, g.block->capacity)) : json(nullptr)},
+          {"capacity_allowable", opt(g.capacity_allowable, Quantity::force)},
+          {"capacity_factored", opt(g.capacity_factored, Quantity::force)},
+          {"governing", g.governing},
+          {"uplift", per},
+          {"spacing", spacing},
+          {"edge_distance", edge},
+          {"settlement",
+           {{"asked", g.settlement_asked},
+            {"method", "Vesić (1977) single pile with s_g = s·√(Bg/D); equivalent footing at 2/3 "
+                       "of the length in the bearing stratum, 2V:1H"},
+            {"limit", u.value(Quantity::small_length, g.settlement_limit)},
+            {"per_combination", per}}},
+          {"notes", g.notes},
+          {"pass", g.pass}};
+}
+
 Table pile_types_table(const CheckReport& r) {
   const Project& p = *r.project;
   const Units u(p.units);
@@ -102,8 +285,8 @@ Table pile_types_table(const CheckReport& r) {
     };
     t.rows.push_back({type.id,
                       fmt::format("{} {}", to_string(type.section.shape), u.length(type.section.width)),
-                      u.length(type.length), u.stiffness(type.axial_stiffness_used()),
-                      u.stiffness(type.lateral_stiffness_used()), type.tension ? "yes" : "no",
+                      u.length(type.length), u.stiffness(axial_stiffness(r, i)),
+                      u.stiffness(lateral_stiffness(r, i)), type.tension ? "yes" : "no",
                       set((*r.resistances)[i].allowable), set((*r.resistances)[i].factored)});
   }
   return t;
@@ -147,11 +330,18 @@ Table combination_table(const CheckReport& r, const CombinationCheck& cc) {
                "y (" + u.label(Quantity::length) + ")", "axial (" + u.label(Quantity::force) + ")",
                "lateral (" + u.label(Quantity::force) + ")", "utilization", "state"};
   t.numeric = {false, true, true, true, true, true, false};
+  const bool moments = any_fixed_head(r);
+  if (moments) {
+    t.headers.insert(t.headers.begin() + 5, "head moment (" + u.label(Quantity::moment) + ")");
+    t.numeric.insert(t.numeric.begin() + 5, true);
+  }
   for (std::size_t i = 0; i < p.piles.size(); ++i) {
     const PileCheck& pc = cc.piles[i];
-    t.rows.push_back({p.piles[i].id, u.length(p.piles[i].x), u.length(p.piles[i].y),
-                      u.force(pc.axial), u.force(pc.lateral), utilization_text(pc.utilization),
-                      state_text(pc)});
+    std::vector<std::string> row = {p.piles[i].id, u.length(p.piles[i].x), u.length(p.piles[i].y),
+                                    u.force(pc.axial), u.force(pc.lateral),
+                                    utilization_text(pc.utilization), state_text(pc)};
+    if (moments) row.insert(row.begin() + 5, u.moment(head_moment(r, i, pc.lateral)));
+    t.rows.push_back(row);
   }
   return t;
 }
@@ -370,10 +560,12 @@ std::string summary_line(const CheckReport& r) {
                        where);
   std::string overturned;
   for (auto c : s.overturned) overturned += (overturned.empty() ? "" : ", ") + p.combinations[c].id;
-  return fmt::format("FAIL: {} of {} combinations fail; max utilization {} ({}){}",
+  const bool group_fails = r.group && !r.group->pass;
+  return fmt::format("FAIL: {} of {} combinations fail; max utilization {} ({}){}{}",
                      s.failed_combinations, p.combinations.size(),
                      utilization_text(s.max_utilization), where,
-                     overturned.empty() ? "" : "; the cap overturns in " + overturned);
+                     overturned.empty() ? "" : "; the cap overturns in " + overturned,
+                     group_fails ? "; group checks fail (see Group checks)" : "");
 }
 
 json check_json(const CheckReport& r) {
@@ -398,13 +590,19 @@ json check_json(const CheckReport& r) {
     json piles = json::array();
     for (std::size_t i = 0; i < p.piles.size(); ++i) {
       const PileCheck& pc = cc.piles[i];
-      piles.push_back({{"id", p.piles[i].id},
-                       {"axial", u.value(Quantity::force, pc.axial)},
-                       {"lateral", u.value(Quantity::force, pc.lateral)},
-                       {"active", pc.active},
-                       {"utilization", number_or_null(pc.utilization)},
-                       {"governing", to_string(pc.governing)},
-                       {"pass", pc.pass}});
+      json pile = {{"id", p.piles[i].id},
+                   {"axial", u.value(Quantity::force, pc.axial)},
+                   {"lateral", u.value(Quantity::force, pc.lateral)},
+                   {"active", pc.active},
+                   {"utilization", number_or_null(pc.utilization)},
+                   {"governing", to_string(pc.governing)},
+                   {"pass", pc.pass},
+                   {"axial_stiffness", u.value(Quantity::stiffness, axial_stiffness(r, p.piles[i].type))},
+                   {"lateral_stiffness",
+                    u.value(Quantity::stiffness, lateral_stiffness(r, p.piles[i].type))}};
+      if (r.stiffness && (*r.stiffness)[p.piles[i].type].head == HeadFixity::fixed)
+        pile["head_moment"] = u.value(Quantity::moment, head_moment(r, i, pc.lateral));
+      piles.push_back(pile);
     }
     const auto& m = cc.solution.movement;
     json dropped = json::array();
@@ -444,6 +642,7 @@ json check_json(const CheckReport& r) {
                         {"max_utilization", extreme(e.max_utilization, Quantity::number)}});
   }
   doc["envelope"] = envelope;
+  if (r.group) doc["group"] = group_json(r);
   const CheckSummary& s = r.results->summary;
   json overturned = json::array();
   for (auto c : s.overturned) overturned.push_back(p.combinations[c].id);
@@ -515,6 +714,7 @@ std::string render_check(const CheckReport& r, Format format) {
     out.insert(out.size() - 1, (format == Format::markdown ? "" : "  ") + combination_note(r, cc) + "\n");
   }
   out += render_table(envelope_table(r), format);
+  if (r.group) out += group_block(r, format);
   if (r.explain_pile) out += explain_block(r, format);
   out += assumptions_block(r, format);
   const std::string line = summary_line(r);
@@ -546,6 +746,91 @@ std::vector<std::pair<std::string, std::string>> check_files(const CheckReport& 
     files.emplace_back("combination-" + name + ".csv", render_table(t, Format::csv) + trailer);
   }
   return files;
+}
+
+}  // namespace cairn
+
+namespace cairn {
+
+CheckTables check_tables(const CheckReport& r) {
+  CheckTables t;
+  t.pile_types = pile_types_table(r);
+  t.piles = piles_table(r);
+  t.combinations = combinations_table(r);
+  for (const auto& cc : r.results->combinations) {
+    t.per_combination.push_back(combination_table(r, cc));
+    t.per_combination_notes.push_back(combination_note(r, cc));
+  }
+  t.envelope = envelope_table(r);
+  t.summary = summary_table(r);
+  return t;
+}
+
+std::string hand_check_text(const CheckReport& r) {
+  return r.explain_pile ? explain_block(r, Format::text) : std::string();
+}
+
+}  // namespace cairn
+
+namespace cairn {
+
+std::string render_springs(const Project& project, const std::vector<PileTypeStiffness>& stiffness,
+                           Format format, const std::string& options) {
+  const Units u(project.units);
+  const std::string k = u.label(Quantity::stiffness), l = u.label(Quantity::length);
+  if (format == Format::json) {
+    json piles = json::array();
+    for (const Pile& pile : project.piles) {
+      const PileTypeStiffness& s = stiffness[pile.type];
+      const auto a = pile.axis();
+      piles.push_back({{"id", pile.id},
+                       {"type", project.pile_types[pile.type].id},
+                       {"x", u.value(Quantity::length, pile.x)},
+                       {"y", u.value(Quantity::length, pile.y)},
+                       {"axis", {a[0], a[1], a[2]}},
+                       {"axial_stiffness", u.value(Quantity::stiffness, s.axial)},
+                       {"lateral_stiffness", u.value(Quantity::stiffness, s.lateral)},
+                       {"head", s.head == HeadFixity::fixed ? "fixed" : "pinned"},
+                       {"axial_source", s.axial_source},
+                       {"lateral_source", s.lateral_source}});
+    }
+    json doc = {{"tool", {{"name", "cairn"}, {"version", CAIRN_VERSION}}},
+                {"input", project.file},
+                {"options", options},
+                {"units", {{"stiffness", k}, {"length", l}}},
+                {"piles", piles},
+                {"caution", kCaution}};
+    return doc.dump(2) + "\n";
+  }
+  Table t;
+  t.title = format == Format::csv ? "" : "Pile-head springs";
+  t.headers = {"pile", "type", "x (" + l + ")", "y (" + l + ")", "axis x", "axis y", "axis z",
+               "axial (" + k + ")", "lateral (" + k + ")", "head"};
+  t.numeric = {false, false, true, true, true, true, true, true, true, false};
+  for (const Pile& pile : project.piles) {
+    const PileTypeStiffness& s = stiffness[pile.type];
+    const auto a = pile.axis();
+    t.rows.push_back({pile.id, project.pile_types[pile.type].id, u.length(pile.x), u.length(pile.y),
+                      fmt::format("{:.4f}", a[0]), fmt::format("{:.4f}", a[1]),
+                      fmt::format("{:.4f}", a[2]), u.stiffness(s.axial), u.stiffness(s.lateral),
+                      s.head == HeadFixity::fixed ? "fixed" : "pinned"});
+  }
+  if (format == Format::csv) return render_table(t, Format::csv) + "# " + kCaution + "\n";
+  const bool md = format == Format::markdown;
+  std::string out = md ? fmt::format("# Pile-head springs: {}\n\n- tool: cairn {}\n- input: `{}`\n\n",
+                                     project.title, CAIRN_VERSION, project.file)
+                       : fmt::format("cairn {} — pile-head springs: {}\ninput: {}\noptions: {}\n\n",
+                                     CAIRN_VERSION, project.title, project.file, options);
+  out += render_table(t, format);
+  out += md ? "Sources:\n\n" : "Sources\n";
+  for (std::size_t i = 0; i < project.pile_types.size(); ++i) {
+    out += fmt::format("{}{}: axial {}; lateral {}\n", md ? "- " : "  ", project.pile_types[i].id,
+                       stiffness[i].axial_source, stiffness[i].lateral_source);
+  }
+  out += "\nAxis: unit vector from pile head to toe. Springs act at the pile heads (underside of "
+         "the cap).\n\n";
+  out += kCaution + std::string("\n");
+  return out;
 }
 
 }  // namespace cairn

@@ -59,6 +59,9 @@ std::optional<Dim> base_unit(std::string_view name) {
       {"tsf", {1, -2, kShortTonForce / (kFoot * kFoot)}},
       {"pcf", {1, -3, kPoundForce / (kFoot * kFoot * kFoot)}},
       {"kcf", {1, -3, kKip / (kFoot * kFoot * kFoot)}},
+      // The radian is dimensionless, so "kN·m/rad" (the label of a rotational stiffness)
+      // reads as kN·m.
+      {"rad", {0, 0, 1.0}},
   };
   for (const auto& entry : kTable)
     if (entry.name == name) return entry.dim;
@@ -123,14 +126,18 @@ std::string_view trim(std::string_view s) {
   return s;
 }
 
+// The kind of a unit with its article, for "got a force unit 'kip'".
 const char* kind_name(int force, int length) {
-  if (force == 0 && length == 1) return "length";
-  if (force == 1 && length == 0) return "force";
-  if (force == 1 && length == 1) return "moment";
-  if (force == 1 && length == -2) return "pressure";
-  if (force == 1 && length == -3) return "unit weight";
-  if (force == 1 && length == -1) return "stiffness";
-  return "other";
+  if (force == 0 && length == 0) return "a dimensionless";
+  if (force == 0 && length == 1) return "a length";
+  if (force == 0 && length == 2) return "an area";
+  if (force == 0 && length == 3) return "a volume";
+  if (force == 1 && length == 0) return "a force";
+  if (force == 1 && length == 1) return "a moment";
+  if (force == 1 && length == -2) return "a pressure";
+  if (force == 1 && length == -3) return "a unit weight";
+  if (force == 1 && length == -1) return "a stiffness";
+  return "an unrelated";
 }
 
 }  // namespace
@@ -225,7 +232,7 @@ ParsedQuantity parse_quantity(const std::string& text, Quantity quantity, UnitSy
   }
   Dim want = expected_dim(quantity);
   if (dim->force != want.force || dim->length != want.length) {
-    return {std::nullopt, "expected " + describe(quantity, system) + ", got a " +
+    return {std::nullopt, "expected " + describe(quantity, system) + ", got " +
                               kind_name(dim->force, dim->length) + " unit '" + std::string(unit) +
                               "'"};
   }

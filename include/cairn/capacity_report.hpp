@@ -1,11 +1,5 @@
-// capacity_report.hpp — computed single-pile capacities per pile type, rendered as text,
-// Markdown or JSON in the project's units (the `cairn capacity` command), and the step that
-// computes them for a project (used by `cairn check` too).
-//
-// A pile type gets computed capacities when it names a tip_method or shaft_method and the
-// project has a soil profile. The pile is taken vertical, with its head at cap.depth below
-// the ground and its type's length; capacities typed in by the geotechnical engineer win
-// over computed ones, value by value (checks.hpp: resolve_resistances).
+// capacity_report.hpp — computed single-pile capacities per pile type (project_capacity.hpp),
+// rendered as text, Markdown or JSON in the project's units: the `cairn capacity` command.
 #pragma once
 
 #include <optional>
@@ -14,29 +8,11 @@
 
 #include <nlohmann/json.hpp>
 
-#include "cairn/capacity.hpp"
-#include "cairn/checks.hpp"
+#include "cairn/project_capacity.hpp"
 #include "cairn/model.hpp"
 #include "cairn/report.hpp"
 
 namespace cairn {
-
-struct PileTypeCapacity {
-  std::size_t type = 0;
-  PileGeometry geometry;
-  CapacityResult result;
-  std::vector<DepthRow> depth_table;  // empty unless asked for
-};
-
-// Computes the capacity of every pile type that asks for it. `depth_step` > 0 adds the
-// capacity-with-depth table from `min_length` (m) to the profile's base. Throws InputError
-// naming the pile type and layer when a method lacks a property or the pile is too long.
-std::vector<PileTypeCapacity> compute_capacities(const Project& project, double depth_step = 0.0,
-                                                 double min_length = 0.0);
-
-// The computed capacities as the check's resistances (indexed like Project::pile_types).
-std::vector<std::optional<ComputedResistance>> computed_resistances(
-    const Project& project, const std::vector<PileTypeCapacity>& capacities);
 
 std::string render_capacities(const Project& project,
                               const std::vector<PileTypeCapacity>& capacities, Format format,

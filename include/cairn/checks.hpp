@@ -114,8 +114,11 @@ CheckResults check_piles(const Project& project, const std::vector<CapSolution>&
                          const std::vector<PileTypeResistance>& resistances);
 
 // The assumptions behind the results, in plain words, for every output.
-std::vector<std::string> assumptions(const Project& project,
-                                     const std::vector<PileTypeResistance>& resistances);
+// `stiffness` gives each pile type's springs and their sources (stiffness.hpp); it is
+// declared there, so only the sources are passed here: (axial source, lateral source).
+std::vector<std::string> assumptions(
+    const Project& project, const std::vector<PileTypeResistance>& resistances,
+    const std::vector<std::pair<std::string, std::string>>& stiffness_sources);
 
 inline constexpr const char* kCaution =
     "Results are for checking by a qualified engineer; local codes and licensed practice "

@@ -14,7 +14,7 @@
 
 namespace cairn {
 
-enum class Command { check, capacity };
+enum class Command { check, capacity, springs };
 
 struct Options {
   Command command = Command::check;

@@ -27,13 +27,14 @@
 #include <string>
 #include <vector>
 
+#include "cairn/model.hpp"
 #include "cairn/soil.hpp"
 
 namespace cairn {
 
 // How the cap holds the pile head: pinned = free to rotate (no head moment); fixed = no
 // rotation (the cap takes the head moment).
-enum class HeadFixity { pinned, fixed };
+// HeadFixity (pinned | fixed) is declared in model.hpp.
 
 // ---------------------------------------------------------------------------------------
 // 1. Beam on elastic foundation (Hetényi 1946)

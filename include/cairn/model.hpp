@@ -61,6 +61,9 @@ struct CapacitySet {
   SourceLocation where;
 };
 
+// How a pile head is connected to the cap, for its lateral stiffness and head moment.
+enum class HeadFixity { pinned, fixed };
+
 struct PileType {
   std::string id;
   SourceLocation where;
@@ -70,10 +73,11 @@ struct PileType {
   std::optional<double> axial_stiffness;    // kN/m as given; default E·A/L
   std::optional<double> lateral_stiffness;  // kN/m as given; default 0 (axial-only pile)
   bool tension = true;                      // false: compression only
+  HeadFixity head = HeadFixity::pinned;     // for the soil-based lateral stiffness
   std::vector<CapacitySet> capacities;      // as given by the geotechnical engineer
   PileDesign design;                        // installation and methods for soil-based capacity
 
-  // Stiffness used by the solver, with the default applied.
+  // Stiffness without soil: the value given, else E·A/L (axial) and 0 (lateral).
   double axial_stiffness_used() const;    // kN/m
   double lateral_stiffness_used() const;  // kN/m
 };
@@ -150,6 +154,19 @@ struct Combination {
   bool generated = false;                               // built by a code generator
 };
 
+// Group checks asked for in the file (`group:`). Defaults are common practice (docs).
+struct GroupSettings {
+  std::string efficiency = "none";    // method applied to the group capacity
+  bool efficiency_shaft_only = false;  // apply η to the shaft component only
+  double min_spacing_factor = 2.5;     // minimum c/c spacing, in pile widths
+  double min_spacing = 0.0;            // m, absolute minimum c/c spacing
+  double min_edge_distance = 0.225;    // m, pile face to cap edge (AASHTO 10.7.1.2)
+  bool settlement = false;             // settlement asked for
+  std::optional<double> settlement_limit;  // m; default 25 mm
+  std::optional<double> tip_share;     // share of the working load carried by the tip
+  SourceLocation where;
+};
+
 struct Project {
   std::string file;  // path of the project file as given
   std::string title;
@@ -160,7 +177,7 @@ struct Project {
   std::vector<Pile> piles;
   std::vector<LoadCase> load_cases;
   std::vector<Combination> combinations;
-  double min_spacing_factor = 2.5;  // minimum c/c spacing in pile widths (common practice)
+  GroupSettings group;
 };
 
 const char* to_string(LimitState);

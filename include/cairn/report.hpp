@@ -16,6 +16,8 @@
 
 #include "cairn/checks.hpp"
 #include "cairn/explain.hpp"
+#include "cairn/group_checks.hpp"
+#include "cairn/stiffness.hpp"
 #include "cairn/model.hpp"
 
 namespace cairn {
@@ -41,6 +43,8 @@ struct CheckReport {
   std::string options;  // effective options, for the report header
   std::optional<std::size_t> explain_pile;
   std::vector<HandCheck> hand_checks;  // when explain_pile is set
+  const std::vector<PileTypeStiffness>* stiffness = nullptr;  // springs per pile type
+  const GroupResults* group = nullptr;                        // group checks
 };
 
 std::string render_check(const CheckReport& report, Format format);
@@ -50,10 +54,37 @@ nlohmann::json check_json(const CheckReport& report);
 // one combination-<id>.csv per combination. (name, content) pairs.
 std::vector<std::pair<std::string, std::string>> check_files(const CheckReport& report);
 
+// The pile-head springs of every pile, for the global structural model (`cairn springs`).
+std::string render_springs(const Project& project, const std::vector<PileTypeStiffness>& stiffness,
+                           Format format, const std::string& options);
+
 // "1.0·D + 0.6·W"
 std::string combination_formula(const Project& project, const Combination& combination);
 
 // The one summary line: "PASS: …" or "FAIL: …".
 std::string summary_line(const CheckReport& report);
+
+}  // namespace cairn
+
+namespace cairn {
+
+// The tables render_check shows, as data, for other renderings (the HTML package).
+struct CheckTables {
+  Table pile_types;
+  Table piles;
+  Table combinations;
+  std::vector<Table> per_combination;              // indexed like CheckResults::combinations
+  std::vector<std::string> per_combination_notes;  // cap movement, dropped piles, pass/fail
+  Table envelope;
+  Table summary;
+};
+
+// The tables of `report`, cells formatted in the project's units. Requires project, results
+// and resistances to be set.
+CheckTables check_tables(const CheckReport& report);
+
+// The hand check of report.explain_pile as plain text, as render_check prints it; empty when
+// explain_pile is not set.
+std::string hand_check_text(const CheckReport& report);
 
 }  // namespace cairn

@@ -1,0 +1,36 @@
+// project_capacity.hpp — the single-pile capacities of a project's pile types, computed
+// from its soil profile (capacity.hpp), for `cairn capacity` and `cairn check`.
+//
+// A pile type gets computed capacities when it names a tip_method or shaft_method and the
+// project has a soil profile. The pile is taken vertical, with its head at cap.depth below
+// the ground and its type's length; capacities typed in by the geotechnical engineer win
+// over computed ones, value by value (checks.hpp: resolve_resistances). Units: kN, m.
+#pragma once
+
+#include <optional>
+#include <vector>
+
+#include "cairn/capacity.hpp"
+#include "cairn/checks.hpp"
+#include "cairn/model.hpp"
+
+namespace cairn {
+
+struct PileTypeCapacity {
+  std::size_t type = 0;
+  PileGeometry geometry;
+  CapacityResult result;
+  std::vector<DepthRow> depth_table;  // empty unless asked for
+};
+
+// Computes the capacity of every pile type that asks for it. `depth_step` > 0 adds the
+// capacity-with-depth table from `min_length` (m) to the profile's base. Throws InputError
+// naming the pile type and layer when a method lacks a property or the pile is too long.
+std::vector<PileTypeCapacity> compute_capacities(const Project& project, double depth_step = 0.0,
+                                                 double min_length = 0.0);
+
+// The computed capacities as the check's resistances (indexed like Project::pile_types).
+std::vector<std::optional<ComputedResistance>> computed_resistances(
+    const Project& project, const std::vector<PileTypeCapacity>& capacities);
+
+}  // namespace cairn

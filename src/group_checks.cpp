@@ -1,0 +1,292 @@
+#include "cairn/group_checks.hpp"
+
+#include <algorithm>
+#include <cmath>
+#include <map>
+#include <stdexcept>
+
+#include <fmt/format.h>
+
+namespace cairn {
+namespace {
+
+// Block failure resistance factors, AASHTO LRFD Tables 10.5.5.2.3-1 (driven piles, 0.60)
+// and 10.5.5.2.4-1 (drilled shafts, 0.55); group uplift 0.50 / 0.45 (from memory).
+constexpr double kPhiBlockDriven = 0.60, kPhiBlockBored = 0.55;
+constexpr double kPhiGroupUpliftDriven = 0.50, kPhiGroupUpliftBored = 0.45;
+// Tolerable total settlement when the file sets none: 25 mm (common practice, Terzaghi &
+// Peck for isolated footings).
+constexpr double kDefaultSettlementLimit = 0.025;
+
+std::vector<PilePlan> plans_of(const Project& project) {
+  std::vector<PilePlan> plans;
+  for (const Pile& p : project.piles) {
+    const Section& s = project.pile_types[p.type].section;
+    plans.push_back({p.id, p.x, p.y, s.width, s.shape == SectionShape::round});
+  }
+  return plans;
+}
+
+std::vector<PlanPoint> outline_points(const Outline& outline) {
+  std::vector<PlanPoint> points;
+  for (const auto& c : outline.polygon) points.push_back({c[0], c[1]});
+  return points;
+}
+
+// The pile type most piles use: it stands for the group in the single-pile settlement.
+std::size_t main_type(const Project& project) {
+  std::map<std::size_t, int> count;
+  for (const Pile& p : project.piles) ++count[p.type];
+  return std::max_element(count.begin(), count.end(),
+                          [](auto& a, auto& b) { return a.second < b.second; })
+      ->first;
+}
+
+double tip_depth(const Project& project) {
+  double deepest = 0.0;
+  for (const Pile& p : project.piles)
+    deepest = std::max(deepest, project.pile_types[p.type].length * -p.axis()[2]);
+  return project.cap.depth + deepest;
+}
+
+const PileTypeCapacity* capacity_of(const std::vector<PileTypeCapacity>& list, std::size_t type) {
+  for (const auto& c : list)
+    if (c.type == type) return &c;
+  return nullptr;
+}
+
+std::optional<VesicPile> vesic_pile(const Project& project, std::size_t t,
+                                    std::vector<std::string>* missing) {
+  const PileType& type = project.pile_types[t];
+  const SoilProfile& soil = *project.soil;
+  VesicPile pile;
+  pile.width = type.section.width;
+  pile.round = type.section.shape == SectionShape::round;
+  pile.length = type.length;
+  pile.pile_modulus = type.elastic_modulus;
+  const double head = project.cap.depth, tip = head + type.length;
+  double z = 0.0, sum = 0.0;
+  bool ok = true;
+  const SoilLayer* at_tip = nullptr;
+  for (const auto& layer : soil.layers) {
+    const double a = std::max(z, head), b = std::min(z + layer.thickness, tip);
+    if (tip >= z && tip < z + layer.thickness) at_tip = &layer;
+    z += layer.thickness;
+    if (b <= a) continue;
+    if (!layer.soil_modulus) {
+      ok = false;
+      if (missing) missing->push_back(fmt::format("layer '{}' needs soil_modulus", layer.name));
+    } else {
+      sum += *layer.soil_modulus * (b - a);
+    }
+  }
+  if (!at_tip && !soil.layers.empty()) at_tip = &soil.layers.back();
+  if (at_tip && !at_tip->soil_modulus) {
+    ok = false;
+    if (missing) missing->push_back(fmt::format("layer '{}' needs soil_modulus", at_tip->name));
+  }
+  if (type.elastic_modulus <= 0) {
+    ok = false;
+    if (missing) missing->push_back(fmt::format("pile type '{}' needs elastic_modulus", type.id));
+  }
+  if (!ok) return std::nullopt;
+  pile.soil_modulus_shaft = sum / type.length;
+  pile.soil_modulus_tip = *at_tip->soil_modulus;
+  pile.poisson_ratio = at_tip->poisson_ratio.value_or(0.3);
+  return pile;
+}
+
+}  // namespace
+
+std::vector<Diagnostic> group_input_problems(const Project& project,
+                                             const std::vector<PileTypeCapacity>& capacities) {
+  std::vector<Diagnostic> problems;
+  const auto plans = plans_of(project);
+  const GroupSettings& g = project.group;
+  if (auto method = efficiency_method_from_string(g.efficiency);
+      method && *method != EfficiencyMethod::none) {
+    const Efficiency e = group_efficiency(*method, plans);
+    if (!e.value)
+      problems.push_back({g.where, fmt::format("group.efficiency: '{}' {}", g.efficiency, e.note)});
+  }
+  if (project.cap.outline) {
+    for (const Pile& p : project.piles)
+      if (!project.cap.outline->contains(p.x, p.y))
+        problems.push_back({p.where, fmt::format("piles: pile '{}' at ({:g}, {:g}) lies outside "
+                                                 "the cap outline",
+                                                 p.id, p.x, p.y)});
+  }
+  if (g.settlement) {
+    if (!project.soil) {
+      problems.push_back({g.where, "group.settlement: settlement needs a soil profile (soil: …)"});
+      return problems;
+    }
+    std::vector<std::string> missing;
+    vesic_pile(project, main_type(project), &missing);
+    const std::size_t t = main_type(project);
+    if (!project.group.tip_share && !capacity_of(capacities, t))
+      missing.push_back(fmt::format("pile type '{}' needs tip_method and shaft_method (to split "
+                                    "the load between tip and shaft) or group.settlement.tip_share",
+                                    project.pile_types[t].id));
+    const double tip = tip_depth(project);
+    if (tip > project.soil->depth())
+      missing.push_back("the piles reach below the soil profile's base");
+    else {
+      const auto footing = equivalent_footing_settlement(*project.soil, block_plan(plans),
+                                                         project.cap.depth, tip, 1.0);
+      for (const auto& m : footing.missing) missing.push_back(m.message);
+    }
+    std::sort(missing.begin(), missing.end());
+    missing.erase(std::unique(missing.begin(), missing.end()), missing.end());
+    for (const auto& m : missing)
+      problems.push_back({g.where, "group.settlement: " + m});
+  }
+  return problems;
+}
+
+GroupResults evaluate_group(const Project& project, const CheckResults& results,
+                            const std::vector<PileTypeResistance>& resistances,
+                            const std::vector<PileTypeCapacity>& capacities) {
+  GroupResults out;
+  const GroupSettings& g = project.group;
+  const auto plans = plans_of(project);
+  out.plan = block_plan(plans);
+  out.efficiencies = all_efficiencies(plans);
+  const EfficiencyMethod method =
+      efficiency_method_from_string(g.efficiency).value_or(EfficiencyMethod::none);
+  out.applied = group_efficiency(method, plans);
+  const double eta = out.applied.value.value_or(1.0);
+  out.spacing = check_spacing(plans, g.min_spacing_factor, g.min_spacing);
+  if (!out.spacing.violations.empty()) out.pass = false;
+  if (project.cap.outline) {
+    out.edge = check_edge_distance(plans, outline_points(*project.cap.outline), g.min_edge_distance);
+    if (!out.edge->offenders.empty()) out.pass = false;
+  }
+
+  // Σ single-pile capacities after efficiency, per basis.
+  double sum_allowable = 0.0, sum_factored = 0.0;
+  bool have_allowable = true, have_factored = true;
+  bool split_known = true;
+  for (const Pile& p : project.piles) {
+    const auto& r = resistances[p.type];
+    double share = 1.0;  // fraction of the capacity η reduces
+    if (g.efficiency_shaft_only) {
+      if (const auto* c = capacity_of(capacities, p.type); c && c->result.ultimate_compression > 0)
+        share = c->result.shaft / c->result.ultimate_compression;
+      else
+        split_known = false;
+    }
+    const double factor = 1.0 - share * (1.0 - eta);
+    if (r.allowable.compression) sum_allowable += factor * *r.allowable.compression;
+    else have_allowable = false;
+    if (r.factored.compression) sum_factored += factor * *r.factored.compression;
+    else have_factored = false;
+  }
+  if (g.efficiency_shaft_only && !split_known)
+    out.notes.push_back("η applied to the whole capacity of pile types without a computed "
+                        "tip/shaft split.");
+  const std::size_t t = main_type(project);
+  const PileType& type = project.pile_types[t];
+  const bool bored = type.design.installation == Installation::bored;
+  out.block_factor_of_safety = type.design.safety_factor.value_or(kDefaultSafetyCompression);
+  out.block_resistance_factor = bored ? kPhiBlockBored : kPhiBlockDriven;
+  const double tip = tip_depth(project);
+  if (project.soil && tip <= project.soil->depth() + 1e-9) {
+    try {
+      BlockCapacity block = block_capacity_clay(*project.soil, out.plan, project.cap.depth, tip);
+      if (block.applies) out.block = block;
+      else
+        for (const auto& n : block.notes) out.notes.push_back(n);
+    } catch (const std::invalid_argument& e) {
+      out.notes.push_back(std::string("Block failure not checked: ") + e.what());
+    }
+  }
+  out.governing = "efficiency";
+  if (have_allowable) {
+    out.capacity_allowable = sum_allowable;
+    if (out.block && out.block->capacity / out.block_factor_of_safety < sum_allowable) {
+      out.capacity_allowable = out.block->capacity / out.block_factor_of_safety;
+      out.governing = "block";
+    }
+  }
+  if (have_factored) {
+    out.capacity_factored = sum_factored;
+    if (out.block && out.block->capacity * out.block_resistance_factor < sum_factored) {
+      out.capacity_factored = out.block->capacity * out.block_resistance_factor;
+      out.governing = "block";
+    }
+  }
+  if (out.block)
+    out.notes.push_back(fmt::format(
+        "Block capacity is divided by FS {:g} for service and multiplied by φ {:.2f} for strength "
+        "(AASHTO LRFD Table 10.5.5.2.{}-1, from memory).",
+        out.block_factor_of_safety, out.block_resistance_factor, bored ? 4 : 3));
+
+  out.settlement_asked = g.settlement && project.soil.has_value();
+  out.settlement_limit = g.settlement_limit.value_or(kDefaultSettlementLimit);
+  if (out.settlement_asked && !g.settlement_limit)
+    out.notes.push_back("Tolerable settlement 25 mm (default; common practice for buildings).");
+  std::optional<VesicPile> single;
+  if (out.settlement_asked) single = vesic_pile(project, t, nullptr);
+  if (out.settlement_asked && project.pile_types.size() > 1)
+    out.notes.push_back(fmt::format("Single-pile settlement uses pile type {} (most of the piles).",
+                                    type.id));
+
+  const double uplift_fs = type.design.safety_factor_tension.value_or(kDefaultSafetyTension);
+  const double uplift_phi = bored ? kPhiGroupUpliftBored : kPhiGroupUpliftDriven;
+  for (const CombinationCheck& cc : results.combinations) {
+    const Combination& combo = project.combinations[cc.combination];
+    const bool service = combo.limit_state == LimitState::service;
+    GroupCombination gc;
+    gc.combination = cc.combination;
+    for (const PileCheck& p : cc.piles) {
+      if (p.axial > 0) gc.compression += p.axial;
+      else gc.tension -= p.axial;
+    }
+    const auto& rot = cc.solution.movement.rotation;
+    gc.tilt = std::hypot(rot[0], rot[1]);
+    gc.capacity = service ? out.capacity_allowable : out.capacity_factored;
+    if (gc.capacity && *gc.capacity > 0) {
+      gc.utilization = gc.compression / *gc.capacity;
+      if (*gc.utilization > 1.0) gc.pass = false;
+    }
+    if (gc.tension > 1e-6 && project.soil && tip <= project.soil->depth() + 1e-9) {
+      try {
+        const GroupUplift uplift =
+            group_uplift(*project.soil, out.plan, project.cap.depth, tip, gc.tension);
+        gc.uplift_capacity = service ? uplift.resistance / uplift_fs : uplift.resistance * uplift_phi;
+        gc.uplift_utilization = gc.tension / *gc.uplift_capacity;
+        if (*gc.uplift_utilization > 1.0) gc.pass = false;
+      } catch (const std::invalid_argument&) {
+        // Soil data for the uplift block is missing: not checked (noted once below).
+      }
+    }
+    if (service && single && !cc.solution.overturns) {
+      const Wrench load = combination_load(project, combo);
+      const double vertical = -load[2];
+      if (vertical > 0) {
+        const double per_pile = vertical / static_cast<double>(project.piles.size());
+        const auto* c = capacity_of(capacities, t);
+        const double tip_share =
+            g.tip_share ? *g.tip_share
+                        : (c && c->result.ultimate_compression > 0
+                               ? c->result.tip / c->result.ultimate_compression
+                               : 0.5);
+        const auto split = split_working_load(per_pile, tip_share, 1.0 - tip_share);
+        const double s = vesic_settlement(*single, split).total;
+        gc.single_settlement = s;
+        gc.group_settlement = vesic_group_settlement(s, out.plan.width, type.section.width);
+        const auto footing = equivalent_footing_settlement(*project.soil, out.plan,
+                                                           project.cap.depth, tip, vertical);
+        gc.footing_settlement = footing.total;
+        gc.settlement = std::max(*gc.group_settlement, footing.total.value_or(0.0));
+        if (*gc.settlement > out.settlement_limit) gc.pass = false;
+      }
+    }
+    if (!gc.pass) out.pass = false;
+    out.per_combination.push_back(gc);
+  }
+  return out;
+}
+
+}  // namespace cairn

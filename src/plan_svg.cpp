@@ -1,0 +1,334 @@
+#include "cairn/plan_svg.hpp"
+
+#include <algorithm>
+#include <cmath>
+#include <limits>
+#include <map>
+#include <stdexcept>
+
+#include <fmt/format.h>
+
+namespace cairn {
+namespace {
+
+constexpr double kPi = 3.14159265358979323846;
+
+// Room around the plan for batter arrows, labels and the axes (px).
+constexpr double kMargin = 90.0;
+// Below the plan: scale bar, colour legend and the note on arrows (px).
+constexpr double kLegendHeight = 92.0;
+// A batter of 1:n is drawn as an arrow kBatterArrow/n px long; 1:3 → 60 px.
+constexpr double kBatterArrow = 180.0;
+// Longest plan side in px relative to the drawing width, so tall caps still fit a page.
+constexpr double kMaxHeightRatio = 1.25;
+// Smallest plan extent drawn (m), so a single pile at the origin still gets a frame.
+constexpr double kMinExtent = 1.0;
+
+struct Box {
+  double min_x = std::numeric_limits<double>::infinity();
+  double min_y = std::numeric_limits<double>::infinity();
+  double max_x = -std::numeric_limits<double>::infinity();
+  double max_y = -std::numeric_limits<double>::infinity();
+  void add(double x, double y) {
+    min_x = std::min(min_x, x);
+    min_y = std::min(min_y, y);
+    max_x = std::max(max_x, x);
+    max_y = std::max(max_y, y);
+  }
+};
+
+Box plan_box(const Project& p) {
+  Box box;
+  box.add(0.0, 0.0);  // the origin, where the axes are drawn
+  if (p.cap.outline)
+    for (const auto& c : p.cap.outline->polygon) box.add(c[0], c[1]);
+  for (const Pile& pile : p.piles) {
+    const double half = p.pile_types.at(pile.type).section.width / 2.0;
+    box.add(pile.x - half, pile.y - half);
+    box.add(pile.x + half, pile.y + half);
+  }
+  for (const LoadCase& lc : p.load_cases)
+    for (const PointLoad& l : lc.loads) box.add(l.at[0], l.at[1]);
+  // Keep at least kMinExtent in each direction, centred on what is there.
+  for (auto [lo, hi] : {std::pair{&box.min_x, &box.max_x}, std::pair{&box.min_y, &box.max_y}}) {
+    if (*hi - *lo < kMinExtent) {
+      const double mid = (*hi + *lo) / 2.0;
+      *lo = mid - kMinExtent / 2.0;
+      *hi = mid + kMinExtent / 2.0;
+    }
+  }
+  return box;
+}
+
+std::string num(double v) {
+  if (std::abs(v) < 5e-4) v = 0.0;  // no "-0.000"
+  return fmt::format("{:.2f}", v);
+}
+
+// A length of 1, 2 or 5 × 10^k (in the project's unit) near `target`.
+double nice_length(double target) {
+  const double power = std::pow(10.0, std::floor(std::log10(target)));
+  const double m = target / power;
+  return (m < 1.5 ? 1.0 : m < 3.5 ? 2.0 : m < 7.5 ? 5.0 : 10.0) * power;
+}
+
+std::string nice_number_text(double v) { return fmt::format("{:g}", v); }
+
+struct LoadPoint {
+  double x = 0.0, y = 0.0;  // m
+  std::vector<std::string> names;
+  std::vector<std::string> cases;
+};
+
+void add_unique(std::vector<std::string>& list, const std::string& s) {
+  if (!s.empty() && std::find(list.begin(), list.end(), s) == list.end()) list.push_back(s);
+}
+
+// Load application points, merged when within a millimetre of each other.
+std::vector<LoadPoint> load_points(const Project& p) {
+  std::vector<LoadPoint> points;
+  for (const LoadCase& lc : p.load_cases) {
+    for (const PointLoad& l : lc.loads) {
+      auto it = std::find_if(points.begin(), points.end(), [&](const LoadPoint& q) {
+        return std::abs(q.x - l.at[0]) < 1e-3 && std::abs(q.y - l.at[1]) < 1e-3;
+      });
+      if (it == points.end()) {
+        points.push_back({l.at[0], l.at[1], {}, {}});
+        it = points.end() - 1;
+      }
+      add_unique(it->names, l.note);
+      add_unique(it->cases, lc.id);
+    }
+  }
+  return points;
+}
+
+std::string joined(const std::vector<std::string>& list) {
+  std::string s;
+  for (const auto& item : list) s += (s.empty() ? "" : ", ") + item;
+  return s;
+}
+
+std::string utilization_label(double u) {
+  return std::isinf(u) ? std::string("no capacity") : fmt::format("{:.3f}", u);
+}
+
+}  // namespace
+
+std::string xml_escape(std::string_view text) {
+  std::string out;
+  out.reserve(text.size());
+  for (char c : text) {
+    switch (c) {
+      case '&': out += "&amp;"; break;
+      case '<': out += "&lt;"; break;
+      case '>': out += "&gt;"; break;
+      case '"': out += "&quot;"; break;
+      case '\'': out += "&#39;"; break;
+      default: out += c;
+    }
+  }
+  return out;
+}
+
+std::string utilization_colour(double u) {
+  if (std::isnan(u)) return kUncheckedColour;
+  if (u < 0.5) return "#9fd89f";   // light green
+  if (u < 0.8) return "#f3e27a";   // yellow
+  if (u <= 1.0) return "#f6a04d";  // orange
+  return "#e0403a";                // red: over capacity
+}
+
+PlanFrame plan_frame(const Project& p, double plan_width) {
+  if (!(plan_width > 2.0 * kMargin)) throw std::invalid_argument("plan_frame: drawing too narrow");
+  const Box box = plan_box(p);
+  const double dx = box.max_x - box.min_x, dy = box.max_y - box.min_y;
+  const double avail_w = plan_width - 2.0 * kMargin;
+  const double avail_h = kMaxHeightRatio * plan_width - 2.0 * kMargin;
+  PlanFrame f;
+  f.scale = std::min(avail_w / dx, avail_h / dy);
+  const double plan_h = dy * f.scale;
+  f.origin_x = kMargin + (avail_w - dx * f.scale) / 2.0 - box.min_x * f.scale;
+  f.origin_y = kMargin + box.max_y * f.scale;
+  f.width = plan_width;
+  f.height = 2.0 * kMargin + plan_h + kLegendHeight;
+  return f;
+}
+
+std::string render_plan_svg(const Project& p, const CheckResults* results,
+                            const std::vector<PileTypeResistance>* resistances) {
+  const PlanFrame f = plan_frame(p);
+  auto X = [&](double x) { return f.origin_x + f.scale * x; };
+  auto Y = [&](double y) { return f.origin_y - f.scale * y; };
+  const std::string length_unit = unit_label(p.units, Quantity::length);
+  const double to_m = to_si_factor(p.units, Quantity::length);
+
+  std::string s = fmt::format(
+      "<svg xmlns=\"http://www.w3.org/2000/svg\" class=\"plan\" width=\"{0}\" height=\"{1}\" "
+      "viewBox=\"0 0 {0} {1}\" font-family=\"Helvetica, Arial, sans-serif\" font-size=\"12\" "
+      "data-px-per-m=\"{2:.6f}\" data-origin-x=\"{3:.6f}\" data-origin-y=\"{4:.6f}\" "
+      "role=\"img\" aria-label=\"Plan of the pile cap, to scale\">\n",
+      num(f.width), num(f.height), f.scale, f.origin_x, f.origin_y);
+  s += "<title>" + xml_escape(p.title) + " — plan</title>\n";
+  s += "<defs><marker id=\"plan-arrow\" viewBox=\"0 0 10 10\" refX=\"9\" refY=\"5\" "
+       "markerWidth=\"7\" markerHeight=\"7\" orient=\"auto-start-reverse\">"
+       "<path d=\"M0,0 L10,5 L0,10 z\" fill=\"context-stroke\"/></marker></defs>\n";
+  s += fmt::format("<rect x=\"0\" y=\"0\" width=\"{}\" height=\"{}\" fill=\"#ffffff\"/>\n",
+                   num(f.width), num(f.height));
+
+  // Cap outline.
+  if (p.cap.outline && !p.cap.outline->polygon.empty()) {
+    std::string points;
+    for (const auto& c : p.cap.outline->polygon)
+      points += (points.empty() ? "" : " ") + num(X(c[0])) + "," + num(Y(c[1]));
+    s += "<polygon class=\"outline\" points=\"" + points +
+         "\" fill=\"#f4f1ea\" stroke=\"#333333\" stroke-width=\"2\"/>\n";
+  }
+
+  // Axes at the origin.
+  const double ox = f.origin_x, oy = f.origin_y, axis = 48.0;
+  s += "<g class=\"axes\" stroke=\"#555555\" stroke-width=\"1.5\">\n";
+  s += fmt::format("<line x1=\"{}\" y1=\"{}\" x2=\"{}\" y2=\"{}\" marker-end=\"url(#plan-arrow)\"/>\n",
+                   num(ox), num(oy), num(ox + axis), num(oy));
+  s += fmt::format("<line x1=\"{}\" y1=\"{}\" x2=\"{}\" y2=\"{}\" marker-end=\"url(#plan-arrow)\"/>\n",
+                   num(ox), num(oy), num(ox), num(oy - axis));
+  s += "</g>\n";
+  s += fmt::format("<circle id=\"origin\" cx=\"{}\" cy=\"{}\" r=\"3\" fill=\"#555555\"/>\n", num(ox),
+                   num(oy));
+  s += fmt::format("<text x=\"{}\" y=\"{}\" fill=\"#555555\">+x</text>\n", num(ox + axis + 4),
+                   num(oy + 4));
+  s += fmt::format("<text x=\"{}\" y=\"{}\" fill=\"#555555\" text-anchor=\"middle\">+y</text>\n",
+                   num(ox), num(oy - axis - 6));
+  s += fmt::format("<text x=\"{}\" y=\"{}\" fill=\"#555555\" font-size=\"10\">(0, 0)</text>\n",
+                   num(ox - 36), num(oy + 14));
+
+  // Piles.
+  s += "<g class=\"piles\">\n";
+  for (std::size_t i = 0; i < p.piles.size(); ++i) {
+    const Pile& pile = p.piles[i];
+    const PileType& type = p.pile_types.at(pile.type);
+    const double size = type.section.width * f.scale;  // px
+    const double cx = X(pile.x), cy = Y(pile.y);
+    std::string fill = kUncheckedColour;
+    std::string tip = fmt::format("{} (type {}) at ({:.3f}, {:.3f}) {}", pile.id, type.id,
+                                  pile.x / to_m, pile.y / to_m, length_unit);
+    if (results && i < results->envelope.size()) {
+      const Extreme& u = results->envelope[i].max_utilization;
+      fill = utilization_colour(u.value);
+      tip += ", max utilization " + utilization_label(u.value);
+      if (u.combination && *u.combination < p.combinations.size())
+        tip += " (" + p.combinations[*u.combination].id + ")";
+    }
+    if (resistances && pile.type < resistances->size()) {
+      const auto& a = (*resistances)[pile.type].allowable;
+      if (a.compression)
+        tip += fmt::format(", allowable compression {:.1f} {}",
+                           from_si(p.units, Quantity::force, *a.compression),
+                           unit_label(p.units, Quantity::force));
+    }
+    s += fmt::format("<g class=\"pile\" data-pile=\"{}\" data-utilization-colour=\"{}\">", xml_escape(pile.id), fill);
+    s += "<title>" + xml_escape(tip) + "</title>";
+    if (type.section.shape == SectionShape::round)
+      s += fmt::format("<circle cx=\"{}\" cy=\"{}\" r=\"{}\" fill=\"{}\" stroke=\"#222222\" "
+                       "stroke-width=\"1.2\"/>",
+                       num(cx), num(cy), num(size / 2.0), fill);
+    else
+      s += fmt::format("<rect x=\"{}\" y=\"{}\" width=\"{}\" height=\"{}\" fill=\"{}\" "
+                       "stroke=\"#222222\" stroke-width=\"1.2\"/>",
+                       num(cx - size / 2.0), num(cy - size / 2.0), num(size), num(size), fill);
+    // The id sits inside the pile when it fits, otherwise above its top-right corner.
+    const double font = std::clamp(size * 0.42, 9.0, 13.0);
+    if (size >= 22.0)
+      s += fmt::format("<text x=\"{}\" y=\"{}\" text-anchor=\"middle\" font-size=\"{}\" "
+                       "font-weight=\"bold\">{}</text>",
+                       num(cx), num(cy + font * 0.35), num(font), xml_escape(pile.id));
+    else
+      s += fmt::format("<text x=\"{}\" y=\"{}\" font-size=\"11\" font-weight=\"bold\">{}</text>",
+                       num(cx + size / 2.0 + 2.0), num(cy - size / 2.0 - 2.0),
+                       xml_escape(pile.id));
+    if (pile.batter && pile.batter->ratio > 0.0) {
+      const double angle = pile.batter->toward_deg * kPi / 180.0;
+      const double ux = std::cos(angle), uy = -std::sin(angle);  // SVG y points down
+      const double start = size / 2.0 * (type.section.shape == SectionShape::round
+                                             ? 1.0
+                                             : 1.0 / std::max(std::abs(std::cos(angle)),
+                                                              std::abs(std::sin(angle))));
+      const double length = kBatterArrow / pile.batter->ratio;
+      const double x1 = cx + ux * start, y1 = cy + uy * start;
+      const double x2 = x1 + ux * length, y2 = y1 + uy * length;
+      s += fmt::format("<line class=\"batter\" x1=\"{}\" y1=\"{}\" x2=\"{}\" y2=\"{}\" "
+                       "stroke=\"#1a1a1a\" stroke-width=\"1.8\" marker-end=\"url(#plan-arrow)\"/>",
+                       num(x1), num(y1), num(x2), num(y2));
+      s += fmt::format("<text x=\"{}\" y=\"{}\" font-size=\"10\" text-anchor=\"middle\">1:{:g}</text>",
+                       num(x2 + ux * 14.0), num(y2 + uy * 14.0 + 3.5), pile.batter->ratio);
+    }
+    s += "</g>\n";
+  }
+  s += "</g>\n";
+
+  // Load points (columns, self-weight).
+  s += "<g class=\"loads\">\n";
+  for (const LoadPoint& lp : load_points(p)) {
+    const double x = X(lp.x), y = Y(lp.y);
+    const std::string label =
+        lp.names.empty() ? "load " + joined(lp.cases) : joined(lp.names) + " (" + joined(lp.cases) + ")";
+    s += fmt::format("<g class=\"load-point\"><title>{}</title>"
+                     "<circle cx=\"{}\" cy=\"{}\" r=\"6\" fill=\"none\" stroke=\"#1f4e9a\" stroke-width=\"1.6\"/>"
+                     "<path d=\"M{},{} h12 M{},{} v12\" stroke=\"#1f4e9a\" stroke-width=\"1.6\"/>"
+                     "<text x=\"{}\" y=\"{}\" fill=\"#1f4e9a\" font-size=\"11\">{}</text></g>\n",
+                     xml_escape(label + fmt::format(" at ({:.3f}, {:.3f}) {}", lp.x / to_m,
+                                                    lp.y / to_m, length_unit)),
+                     num(x), num(y), num(x - 6), num(y), num(x), num(y - 6), num(x + 9),
+                     num(y + 16), xml_escape(label));
+  }
+  s += "</g>\n";
+
+  // Scale bar in the project's length unit, about a quarter of the plan's width.
+  const double legend_top = f.height - kLegendHeight + 8.0;
+  const double bar_units = nice_length((f.width - 2.0 * kMargin) / 4.0 / f.scale / to_m);
+  const double bar_px = bar_units * to_m * f.scale;
+  const double bx = 20.0, by = legend_top + 10.0;
+  s += fmt::format("<g class=\"scale-bar\"><rect id=\"scale-bar\" x=\"{}\" y=\"{}\" width=\"{}\" "
+                   "height=\"6\" fill=\"#222222\" data-length=\"{:g}\" data-unit=\"{}\"/>",
+                   num(bx), num(by), num(bar_px), bar_units, length_unit);
+  s += fmt::format("<rect x=\"{}\" y=\"{}\" width=\"{}\" height=\"6\" fill=\"#ffffff\" "
+                   "stroke=\"#222222\"/>",
+                   num(bx + bar_px / 2.0), num(by), num(bar_px / 2.0));
+  s += fmt::format("<text x=\"{}\" y=\"{}\" text-anchor=\"middle\">0</text>", num(bx), num(by + 20));
+  s += fmt::format("<text x=\"{}\" y=\"{}\" text-anchor=\"middle\">{} {}</text></g>\n",
+                   num(bx + bar_px), num(by + 20), nice_number_text(bar_units), length_unit);
+
+  // Utilization legend.
+  struct Band {
+    double sample;
+    const char* label;
+  };
+  const Band bands[] = {{0.25, "< 0.5"}, {0.65, "0.5–0.8"}, {0.9, "0.8–1.0"}, {1.5, "> 1.0"}};
+  double lx = std::max(bx + bar_px + 50.0, 200.0);
+  s += fmt::format("<g class=\"legend\"><text x=\"{}\" y=\"{}\">max utilization:</text>", num(lx),
+                   num(by + 8));
+  lx += 100.0;
+  for (const Band& b : bands) {
+    s += fmt::format("<rect x=\"{}\" y=\"{}\" width=\"14\" height=\"14\" fill=\"{}\" "
+                     "stroke=\"#222222\"/><text x=\"{}\" y=\"{}\">{}</text>",
+                     num(lx), num(by - 3), utilization_colour(b.sample), num(lx + 18),
+                     num(by + 8), b.label);
+    lx += 70.0;
+  }
+  if (!results)
+    s += fmt::format("<rect x=\"{}\" y=\"{}\" width=\"14\" height=\"14\" fill=\"{}\" "
+                     "stroke=\"#222222\"/><text x=\"{}\" y=\"{}\">not checked</text>",
+                     num(lx), num(by - 3), kUncheckedColour, num(lx + 18), num(by + 8));
+  s += "</g>\n";
+  s += fmt::format("<text x=\"20\" y=\"{}\" font-size=\"10.5\" fill=\"#444444\">Piles drawn at "
+                   "their section size; arrows show the batter direction of the toe, length "
+                   "∝ 1/ratio; ⊕ load points.</text>\n",
+                   num(by + 44));
+  s += fmt::format("<text x=\"20\" y=\"{}\" font-size=\"10.5\" fill=\"#444444\">Plan to scale, "
+                   "coordinates in {}, +x right, +y up.</text>\n",
+                   num(by + 60), length_unit);
+  s += "</svg>\n";
+  return s;
+}
+
+}  // namespace cairn

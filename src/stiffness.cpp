@@ -1,0 +1,177 @@
+#include "cairn/stiffness.hpp"
+
+#include <cmath>
+#include <numbers>
+
+#include <fmt/format.h>
+
+#include "cairn/group.hpp"
+#include "cairn/lateral.hpp"
+
+namespace cairn {
+namespace {
+
+// Davisson (1970) for stiff clay: kh ≈ 67·cu/D (from memory).
+constexpr double kDavissonFactor = 67.0;
+// Vesić (1961) correlation coefficient.
+constexpr double kVesicSubgradeFactor = 0.65;
+constexpr double kDefaultPoisson = 0.3;  // common practice when a layer gives none
+
+const SoilLayer* layer_at(const SoilProfile& profile, double depth) {
+  double top = 0.0;
+  for (const auto& layer : profile.layers) {
+    if (depth < top + layer.thickness) return &layer;
+    top += layer.thickness;
+  }
+  return profile.layers.empty() ? nullptr : &profile.layers.back();
+}
+
+// Thickness-weighted mean Es over [top, bottom]; nullopt when a layer crossed lacks it.
+std::optional<double> mean_modulus(const SoilProfile& profile, double top, double bottom) {
+  double z = 0.0, sum = 0.0;
+  for (const auto& layer : profile.layers) {
+    const double a = std::max(z, top), b = std::min(z + layer.thickness, bottom);
+    z += layer.thickness;
+    if (b <= a) continue;
+    if (!layer.soil_modulus) return std::nullopt;
+    sum += *layer.soil_modulus * (b - a);
+  }
+  return bottom > top ? std::optional<double>(sum / (bottom - top)) : std::nullopt;
+}
+
+struct Subgrade {
+  double kh = 0.0;  // kN/m³
+  std::string source;
+};
+
+std::optional<Subgrade> subgrade_modulus(const SoilLayer& layer, const PileType& type) {
+  const double d = type.section.width;
+  if (layer.subgrade_modulus)
+    return Subgrade{*layer.subgrade_modulus,
+                    fmt::format("kh = {:.0f} kN/m³ given for layer '{}'", *layer.subgrade_modulus,
+                                layer.name)};
+  if (layer.soil_modulus && type.elastic_modulus > 0) {
+    const double es = *layer.soil_modulus;
+    const double mu = layer.poisson_ratio.value_or(kDefaultPoisson);
+    const double ei = type.elastic_modulus * section_inertia(type.section);
+    const double k = kVesicSubgradeFactor * std::pow(es * std::pow(d, 4) / ei, 1.0 / 12.0) * es /
+                     (1.0 - mu * mu);
+    return Subgrade{k / d, fmt::format("kh = {:.0f} kN/m³ from Vesić (1961) with Es of layer '{}'",
+                                       k / d, layer.name)};
+  }
+  if (layer.kind == SoilKind::clay && layer.undrained_strength)
+    return Subgrade{kDavissonFactor * *layer.undrained_strength / d,
+                    fmt::format("kh = 67·cu/D = {:.0f} kN/m³ (Davisson 1970, from memory) for "
+                                "layer '{}'",
+                                kDavissonFactor * *layer.undrained_strength / d, layer.name)};
+  return std::nullopt;
+}
+
+}  // namespace
+
+double section_inertia(const Section& s) {
+  return s.shape == SectionShape::square ? std::pow(s.width, 4) / 12.0
+                                         : std::numbers::pi * std::pow(s.width, 4) / 64.0;
+}
+
+std::vector<PileTypeStiffness> pile_type_stiffness(const Project& project,
+                                                   const std::vector<PileTypeCapacity>& capacities) {
+  std::vector<PileTypeStiffness> out(project.pile_types.size());
+  const UnitSystem u = project.units;
+  for (std::size_t t = 0; t < project.pile_types.size(); ++t) {
+    const PileType& type = project.pile_types[t];
+    PileTypeStiffness& s = out[t];
+    s.head = type.head;
+    const PileTypeCapacity* capacity = nullptr;
+    for (const auto& c : capacities)
+      if (c.type == t) capacity = &c;
+    // Axial.
+    if (type.axial_stiffness) {
+      s.axial = *type.axial_stiffness;
+      s.axial_source = "given";
+    } else {
+      s.axial = type.axial_stiffness_used();
+      s.axial_source = "E·A/L (elastic shortening of the whole pile, no soil)";
+      if (project.soil && capacity && type.elastic_modulus > 0) {
+        const double head = project.cap.depth, tip = head + type.length;
+        const auto es_shaft = mean_modulus(*project.soil, head, tip);
+        const SoilLayer* below = layer_at(*project.soil, tip);
+        if (es_shaft && below && below->soil_modulus) {
+          VesicPile pile;
+          pile.width = type.section.width;
+          pile.round = type.section.shape == SectionShape::round;
+          pile.length = type.length;
+          pile.pile_modulus = type.elastic_modulus;
+          pile.soil_modulus_tip = *below->soil_modulus;
+          pile.soil_modulus_shaft = *es_shaft;
+          pile.poisson_ratio = below->poisson_ratio.value_or(kDefaultPoisson);
+          const double q = capacity->result.allowable_compression;
+          double tip_ult = capacity->result.tip, shaft_ult = capacity->result.shaft;
+          if (project.group.tip_share) {
+            tip_ult = *project.group.tip_share;
+            shaft_ult = 1.0 - *project.group.tip_share;
+          }
+          if (q > 0 && tip_ult + shaft_ult > 0) {
+            const SecantStiffness k = axial_head_stiffness(pile, q, tip_ult, shaft_ult);
+            s.axial = k.stiffness;
+            s.axial_source = fmt::format(
+                "secant Q/s from Vesić (1977) settlement at the allowable load: {:.1f} {} over "
+                "{:.2f} mm",
+                from_si(u, Quantity::force, q), unit_label(u, Quantity::force),
+                k.settlement * 1000.0);
+          }
+        } else {
+          s.axial_source += "; the soil profile lacks soil_modulus for a settlement-based value";
+        }
+      }
+    }
+    // Lateral.
+    if (type.lateral_stiffness) {
+      s.lateral = *type.lateral_stiffness;
+      s.lateral_source = "given";
+    } else {
+      s.lateral = 0.0;
+      s.lateral_source = "0 (axial-only pile, the classical assumption)";
+      if (project.soil && type.elastic_modulus > 0) {
+        const SoilLayer* top = layer_at(*project.soil, project.cap.depth + 1e-9);
+        if (top) {
+          if (auto kh = subgrade_modulus(*top, type)) {
+            ElasticPile pile;
+            pile.bending_stiffness = type.elastic_modulus * section_inertia(type.section);
+            pile.subgrade_modulus = kh->kh;
+            pile.width = type.section.width;
+            pile.embedded_length = type.length;
+            pile.head = type.head;
+            const LateralHeadStiffness k = lateral_head_stiffness(pile);
+            s.lateral = k.lateral_stiffness;
+            s.head_moment_per_shear = type.head == HeadFixity::fixed ? k.head_moment_per_shear : 0.0;
+            s.lateral_source = fmt::format("Hetényi (1946) beam on elastic foundation, {} head, {}{}",
+                                           type.head == HeadFixity::fixed ? "fixed" : "pinned",
+                                           kh->source, k.long_pile ? "" : " (short pile: finite beam)");
+          } else {
+            s.lateral_source += "; the layer at the pile head gives no subgrade_modulus, "
+                                "soil_modulus or undrained_strength";
+          }
+        }
+      }
+    }
+  }
+  return out;
+}
+
+std::vector<PileSpring> pile_springs(const Project& project,
+                                     const std::vector<PileTypeStiffness>& stiffness) {
+  std::vector<PileSpring> springs;
+  springs.reserve(project.piles.size());
+  for (const auto& pile : project.piles) {
+    const auto& type = project.pile_types.at(pile.type);
+    springs.push_back({{pile.x, pile.y, 0.0},
+                       pile.axis(),
+                       stiffness.at(pile.type).axial,
+                       stiffness.at(pile.type).lateral,
+                       type.tension});
+  }
+  return springs;
+}
+
+}  // namespace cairn

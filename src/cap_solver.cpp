@@ -239,8 +239,10 @@ CapSolution CapSolver::solve(const Wrench& load) const {
   const std::size_t n = springs_.size();
   const Vector6 f = to_vector(load);
   std::vector<bool> active(n, true);
-  std::set<std::vector<bool>> seen;
+  std::set<std::vector<bool>> seen, slow_seen;
   bool one_at_a_time = false;
+  // Piles left out for good: see the one-at-a-time steps below.
+  std::vector<bool> left_out(n, false);
   const int limit = static_cast<int>(4 * n + 20);
   for (int iteration = 1; iteration <= limit; ++iteration) {
     const auto dec = impl_->decompose(active);
@@ -274,7 +276,7 @@ CapSolution CapSolver::solve(const Wrench& load) const {
     for (std::size_t i = 0; i < n; ++i) {
       if (springs_[i].tension) continue;
       if (active[i] && along[i] < -tol) drop.push_back(i);
-      if (!active[i] && along[i] > tol) add.push_back(i);
+      if (!active[i] && !left_out[i] && along[i] > tol) add.push_back(i);
     }
     if (drop.empty() && add.empty()) {
       CapSolution solution = forces_from(springs_, impl_->maps, u, active);
@@ -287,19 +289,33 @@ CapSolution CapSolver::solve(const Wrench& load) const {
     }
     if (one_at_a_time) {
       // Change one pile at a time: the most stretched active pile, else the most closed one.
+      std::size_t changed = 0;
       if (!drop.empty()) {
-        auto worst = *std::min_element(drop.begin(), drop.end(),
-                                       [&](auto a, auto b) { return along[a] < along[b]; });
-        active[worst] = false;
+        changed = *std::min_element(drop.begin(), drop.end(),
+                                    [&](auto a, auto b) { return along[a] < along[b]; });
+        active[changed] = false;
       } else {
-        auto best = *std::max_element(add.begin(), add.end(),
-                                      [&](auto a, auto b) { return along[a] < along[b]; });
-        active[best] = true;
+        changed = *std::max_element(add.begin(), add.end(),
+                                    [&](auto a, auto b) { return along[a] < along[b]; });
+        active[changed] = true;
+      }
+      // A dropped pile loses its lateral spring as well as its axial one, so a
+      // compression-only pile with a lateral spring can have no consistent state: out, the
+      // cap closes on it; back in, its own lateral spring pulls it into tension (its axial
+      // force is near zero either way). One pile at a time, the steps are fixed by the
+      // state, so returning to a state met on this path is a cycle: the pile that closes it
+      // is left out for good (it carries nothing; the others hold the load).
+      if (!slow_seen.insert(active).second) {
+        active[changed] = false;
+        left_out[changed] = true;
       }
     } else {
       for (auto i : drop) active[i] = false;
       for (auto i : add) active[i] = true;
-      if (!seen.insert(active).second) one_at_a_time = true;  // a cycle: go slowly
+      if (!seen.insert(active).second) {  // a cycle: go slowly
+        one_at_a_time = true;
+        slow_seen.insert(active);
+      }
     }
   }
   throw std::logic_error("internal error: the compression-only iteration did not settle");

@@ -3,10 +3,13 @@
 #include <CLI/CLI.hpp>
 
 #include <algorithm>
+#include <filesystem>
+#include <thread>
 #include <ostream>
 
 #include <fmt/format.h>
 
+#include "cairn/analysis.hpp"
 #include "cairn/cap_solver.hpp"
 #include "cairn/capacity_report.hpp"
 #include "cairn/checks.hpp"
@@ -41,70 +44,70 @@ std::string describe_options(const Options& o) {
   return text;
 }
 
-// Everything `check` computes for one project file.
-struct CheckRun {
-  Project project;
-  std::vector<PileTypeCapacity> capacities;
-  std::vector<PileTypeStiffness> stiffness;
-  std::vector<PileTypeResistance> resistances;
-  CheckResults results;
-  GroupResults group;
-};
+CapSummaryRow summary_row(const CheckRun& run) {
+  const Project& p = run.project;
+  const CheckSummary& s = run.results.summary;
+  CapSummaryRow row;
+  row.file = p.file;
+  row.title = p.title;
+  row.units = p.units;
+  row.piles = p.piles.size();
+  row.combinations = p.combinations.size();
+  row.max_utilization = s.max_utilization;
+  row.pile = s.pile ? p.piles[*s.pile].id : "-";
+  row.combination = s.combination ? p.combinations[*s.combination].id : "-";
+  row.check = to_string(s.check);
+  for (const auto& gc : run.group.per_combination)
+    if (gc.settlement) row.settlement = std::max(row.settlement.value_or(0.0), *gc.settlement);
+  row.pass = s.pass;
+  row.status = !s.overturned.empty()          ? "overturns"
+               : s.failed_combinations > 0     ? "fail"
+               : !run.group.pass               ? "group checks fail"
+                                               : "pass";
+  return row;
+}
 
-CheckRun check_project(const std::string& file) {
-  CheckRun run;
-  run.project = read_project(file);
-  const Project& project = run.project;
-  run.capacities = compute_capacities(project);
-  run.stiffness = pile_type_stiffness(project, run.capacities);
-  const CapSolver solver(pile_springs(project, run.stiffness));
-  Diagnostics problems;
-  for (const auto& u : unresisted_cases(project, solver)) {
-    const LoadCase& lc = project.load_cases[u.load_case];
-    problems.error(lc.where, fmt::format("load_cases.{}: {} cannot be resisted: {}", lc.id,
-                                         u.load.component, u.load.reason));
+// Several caps: every file is checked (in parallel), then one summary table. Input
+// problems in any file stop the run before anything is written.
+int run_batch(const Options& options, std::ostream& out) {
+  std::vector<std::string> files;
+  for (const auto& f : options.files)
+    for (const auto& cap : expand_foundation(f)) files.push_back(cap);
+  if (options.explain_pile) throw InputError({}, "--explain: give a single project file");
+  const auto outcomes = analyse_projects(files, std::max(1u, std::thread::hardware_concurrency()));
+  std::vector<Diagnostic> problems;
+  for (const auto& o : outcomes) problems.insert(problems.end(), o.problems.begin(), o.problems.end());
+  if (!problems.empty()) throw InputError(problems);
+  std::vector<CapSummaryRow> rows;
+  std::vector<std::pair<std::string, std::string>> written;
+  bool pass = true;
+  const std::string described = describe_options(options);
+  for (const auto& o : outcomes) {
+    rows.push_back(summary_row(*o.run));
+    pass = pass && rows.back().pass;
+    if (options.out_dir) {
+      const CheckReport report = make_check_report(*o.run, described, std::nullopt);
+      const std::string stem = std::filesystem::path(o.file).stem().string();
+      for (auto& [name, content] : check_files(report)) written.emplace_back(stem + "/" + name, content);
+    }
   }
-  run.resistances = resolve_resistances(project, computed_resistances(project, run.capacities));
-  for (const auto& d : missing_resistances(project, run.resistances))
-    problems.error(d.where, d.message);
-  for (const auto& d : group_input_problems(project, run.capacities))
-    problems.error(d.where, d.message);
-  problems.raise_if_any();
-  run.results = check_piles(project, solve_combinations(project, solver), run.resistances);
-  run.group = evaluate_group(project, run.results, run.resistances, run.capacities);
-  if (!run.group.pass) run.results.summary.pass = false;
-  return run;
+  const std::string rendered = render_cap_summary(rows, options.format, described);
+  if (options.out_dir) {
+    written.emplace_back("summary.txt", render_cap_summary(rows, Format::text, described));
+    written.emplace_back("summary.csv", render_cap_summary(rows, Format::csv, described));
+    written.emplace_back("summary.json", render_cap_summary(rows, Format::json, described));
+    write_files_atomically(*options.out_dir, written);
+  }
+  out << rendered;
+  return pass ? kExitPass : kExitFail;
 }
 
 int run_check(const Options& options, std::ostream& out) {
-  if (options.files.size() != 1)
-    throw InputError({}, "check: expected one project file");
-  CheckRun run = check_project(options.files.front());
-  CheckReport report;
-  report.project = &run.project;
-  report.results = &run.results;
-  report.resistances = &run.resistances;
-  std::vector<std::pair<std::string, std::string>> sources;
-  for (const auto& k : run.stiffness) sources.emplace_back(k.axial_source, k.lateral_source);
-  report.assumptions = assumptions(run.project, run.resistances, sources);
-  report.stiffness = &run.stiffness;
-  report.group = &run.group;
-  report.options = describe_options(options);
-  if (options.explain_pile) {
-    const auto& piles = run.project.piles;
-    auto it = std::find_if(piles.begin(), piles.end(),
-                           [&](const Pile& p) { return p.id == *options.explain_pile; });
-    if (it == piles.end()) {
-      std::vector<std::string> ids;
-      for (const auto& p : piles) ids.push_back(p.id);
-      const std::string near = closest_match(*options.explain_pile, ids);
-      throw InputError({run.project.file, 0, 0},
-                       fmt::format("--explain: pile '{}' does not exist{}", *options.explain_pile,
-                                   near.empty() ? "" : "; did you mean '" + near + "'?"));
-    }
-    report.explain_pile = static_cast<std::size_t>(it - piles.begin());
-    report.hand_checks = explain_pile(run.project, run.results, *report.explain_pile);
-  }
+  if (options.files.size() != 1 || expand_foundation(options.files.front()).size() != 1 ||
+      expand_foundation(options.files.front()).front() != options.files.front())
+    return run_batch(options, out);
+  const CheckRun run = analyse_project(options.files.front());
+  const CheckReport report = make_check_report(run, describe_options(options), options.explain_pile);
   const std::string rendered = render_check(report, options.format);
   if (options.out_dir) write_files_atomically(*options.out_dir, check_files(report));
   out << rendered;
@@ -164,7 +167,10 @@ int run_command_line(int argc, const char* const* argv, std::ostream& out, std::
 
   CLI::App* check = app.add_subcommand(
       "check", "Share the cap's loads among the piles and check each pile in every combination");
-  check->add_option("file", options.files, "Project file (YAML)")->required();
+  check->add_option("files", options.files,
+                    "Project file (YAML); several files, or a foundation file listing caps, "
+                    "check every cap and print one summary table")
+      ->required();
   check->add_option("--format", format, "Output format: text, csv, markdown or json")
       ->check(CLI::IsMember(formats));
   check->add_option("--out", options.out_dir,

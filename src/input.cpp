@@ -913,3 +913,40 @@ Project read_project(const std::string& path) {
 }
 
 }  // namespace cairn
+
+namespace cairn {
+
+std::vector<std::string> expand_foundation(const std::string& path) {
+  YAML::Node root;
+  try {
+    root = YAML::LoadFile(path);
+  } catch (const YAML::Exception&) {
+    return {path};  // read_project reports the problem with its location
+  }
+  if (!root.IsMap() || !root["caps"]) return {path};
+  Diagnostics diagnostics;
+  for (auto it = root.begin(); it != root.end(); ++it) {
+    const std::string key = it->first.Scalar();
+    if (key != "caps" && key != "title")
+      diagnostics.error(location_of(it->first, path),
+                        fmt::format("{}: unknown key in a foundation file; expected title, caps", key));
+  }
+  const YAML::Node caps = root["caps"];
+  std::vector<std::string> files;
+  if (!caps.IsSequence() || caps.size() == 0) {
+    diagnostics.error(location_of(caps, path), "caps: expected a list of cap files");
+  } else {
+    for (std::size_t i = 0; i < caps.size(); ++i) {
+      if (!caps[i].IsScalar()) {
+        diagnostics.error(location_of(caps[i], path),
+                          fmt::format("caps[{}]: expected a file path", i));
+        continue;
+      }
+      files.push_back((fs::path(path).parent_path() / caps[i].Scalar()).lexically_normal().string());
+    }
+  }
+  diagnostics.raise_if_any();
+  return files;
+}
+
+}  // namespace cairn

@@ -19,6 +19,7 @@ void write_files_atomically(const std::string& folder,
   };
   for (const auto& [name, content] : files) {
     const fs::path temp = fs::path(folder) / (name + tag);
+    fs::create_directories(temp.parent_path(), ec);
     std::ofstream out(temp, std::ios::binary | std::ios::trunc);
     if (out) written.push_back(temp);
     out << content;

@@ -1,0 +1,230 @@
+#!/usr/bin/env bash
+# End-to-end tests: runs the cairn executable on the project files in tests/data and
+# projects-demo and checks exit statuses, messages and written files.
+#
+#   CAIRN=/path/to/cairn bash tests/end_to_end.sh <source dir>
+#
+# Exit status of cairn: 0 all checks pass, 1 a check fails, 2 bad input or usage (and then
+# nothing is written). Writes only into a fresh temporary folder, removed at the end.
+# Prints one line per failed check and a final line 'N passed, M failed'.
+set -u
+
+src=${1:?usage: CAIRN=<cairn executable> bash tests/end_to_end.sh <source dir>}
+cairn=${CAIRN:?set CAIRN to the path of the cairn executable}
+data="$src/tests/data"
+work=$(mktemp -d "${TMPDIR:-/tmp}/cairn-e2e.XXXXXX") || exit 2
+trap 'rm -rf "$work"' EXIT
+
+passed=0
+failed=0
+ok() { passed=$((passed + 1)); }
+bad() {
+  failed=$((failed + 1))
+  echo "FAIL: $*"
+  if [ -s "$work/err" ]; then sed 's/^/    stderr| /' "$work/err" | head -n 5; fi
+}
+
+# Runs cairn; stdout in $work/out, stderr in $work/err, exit status in $status.
+run() {
+  "$cairn" "$@" >"$work/out" 2>"$work/err"
+  status=$?
+}
+
+# expect_status NAME STATUS ARGS...: runs cairn with ARGS and checks its exit status.
+expect_status() {
+  local name=$1 want=$2
+  shift 2
+  run "$@"
+  if [ "$status" -eq "$want" ]; then ok; else bad "$name: exit status $status, expected $want"; fi
+}
+
+# expect_in NAME FILE TEXT: FILE contains TEXT (fixed string).
+expect_in() {
+  if grep -qF -- "$3" "$2"; then ok; else bad "$1: '$3' not found in $(basename "$2")"; fi
+}
+
+# A listing of a folder with a checksum of every file, to see whether anything changed.
+snapshot() { (cd "$1" && find . -type f -exec md5sum {} + | sort); }
+
+json_has_keys() {
+  python3 -c '
+import json, sys
+doc = json.load(sys.stdin)
+missing = [k for k in sys.argv[1:] if k not in doc]
+if missing:
+    sys.exit("missing keys: " + ", ".join(missing))
+' "$@"
+}
+
+# ---- a passing file ---------------------------------------------------------------------
+expect_status "base.yaml passes" 0 check "$data/base.yaml"
+expect_status "e2e/pass.yaml passes" 0 check "$data/e2e/pass.yaml"
+expect_in "text report ends with the caution" "$work/out" "qualified engineer"
+expect_status "us/cap.yaml runs" 0 check "$data/us/cap.yaml"
+expect_status "includes/main.yaml runs" 0 check "$data/includes/main.yaml"
+
+# ---- output formats ---------------------------------------------------------------------
+expect_status "--format json" 0 check "$data/e2e/pass.yaml" --format json
+if json_has_keys combinations envelope summary units <"$work/out" 2>"$work/err"; then ok; else
+  bad "--format json: not JSON, or keys missing"
+fi
+if python3 -c '
+import json, sys
+doc = json.load(sys.stdin)
+ids = [c["id"] for c in doc["combinations"]]
+assert ids == ["S1", "S2"], ids
+for c in doc["combinations"]:
+    for key in ("id", "limit_state", "status", "cap", "piles", "max_utilization"):
+        assert key in c, key
+    assert len(c["cap"]["translation"]) == 3 and len(c["cap"]["rotation"]) == 3
+    assert [p["id"] for p in c["piles"]] == ["A1", "A2", "A3", "A4", "B2"]
+    for p in c["piles"]:
+        for key in ("id", "axial", "lateral", "active", "utilization"):
+            assert key in p, key
+s = doc["summary"]
+assert s["pass"] is True
+for key in ("pile", "combination", "check"):
+    assert key in s["governing"], key
+' <"$work/out" 2>"$work/err"; then ok; else bad "--format json: document shape"; fi
+
+expect_status "--format csv" 0 check "$data/e2e/pass.yaml" --format csv
+if [ -s "$work/out" ] && grep -q ',' "$work/out"; then ok; else bad "--format csv: no CSV rows"; fi
+expect_status "--format markdown" 0 check "$data/e2e/pass.yaml" --format markdown
+if [ -s "$work/out" ] && grep -q '^|' "$work/out"; then ok; else bad "--format markdown: no table"; fi
+expect_status "--format text" 0 check "$data/e2e/pass.yaml" --format text
+if [ -s "$work/out" ]; then ok; else bad "--format text: nothing printed"; fi
+
+# ---- --out writes every file ------------------------------------------------------------
+out="$work/out-pass"
+expect_status "--out" 0 check "$data/e2e/pass.yaml" --out "$out"
+for f in report.txt results.json envelope.csv summary.csv combination-S1.csv combination-S2.csv; do
+  if [ -s "$out/$f" ]; then ok; else bad "--out: $f missing or empty"; fi
+done
+if json_has_keys combinations envelope summary units <"$out/results.json" 2>"$work/err"; then ok; else
+  bad "--out: results.json is not the JSON document"
+fi
+if ls -A "$out" | grep -qv -e '^[a-z][a-z0-9_.-]*\.\(txt\|md\|json\|csv\|html\)$'; then
+  bad "--out: temporaries or stray files left behind: $(ls -A "$out" | tr '\n' ' ')"
+else
+  ok
+fi
+
+# ---- --explain ----------------------------------------------------------------------------
+expect_status "--explain A1" 0 check "$data/base.yaml" --explain A1
+expect_in "--explain A1" "$work/out" "Hand check of pile"
+expect_status "--explain of a missing pile" 2 check "$data/base.yaml" --explain Z9
+expect_in "--explain of a missing pile" "$work/err" "--explain: pile 'Z9' does not exist"
+
+# ---- failing checks -------------------------------------------------------------------------
+expect_status "overloaded pile fails" 1 check "$data/e2e/fail_overload.yaml"
+expect_status "overloaded pile fails (json)" 1 check "$data/e2e/fail_overload.yaml" --format json
+if python3 -c 'import json,sys; sys.exit(0 if json.load(sys.stdin)["summary"]["pass"] is False else 1)' \
+  <"$work/out" 2>"$work/err"; then ok; else bad "overloaded pile: summary.pass is not false"; fi
+expect_status "cap that overturns fails" 1 check "$data/e2e/fail_overturn.yaml"
+cat "$work/out" "$work/err" >"$work/both"
+expect_in "cap that overturns" "$work/both" "the cap overturns"
+
+# ---- bad input: exit 2, a located message, nothing written --------------------------------
+# A folder with old outputs that must stay as they are, and an empty one that must stay empty.
+old="$work/old-outputs"
+mkdir -p "$old" "$work/empty"
+echo "old report" >"$old/report.txt"
+echo "old,table" >"$old/summary.csv"
+before=$(snapshot "$old")
+bad_files=("$data"/bad_*.yaml "$data/cycle/a.yaml" "$data/e2e/unresisted_fx.yaml")
+for file in "${bad_files[@]}"; do
+  name=${file#"$data/"}
+  expect_status "$name" 2 check "$file"
+  if grep -qE '^cairn: [^ ]+:[0-9]+:[0-9]+: error: ' "$work/err"; then ok; else
+    bad "$name: no 'cairn: file:line:col: error: ' message"
+  fi
+  if [ ! -s "$work/out" ]; then ok; else bad "$name: printed a report on bad input"; fi
+  expect_status "$name --out (old outputs)" 2 check "$file" --out "$old"
+  if [ "$(snapshot "$old")" = "$before" ]; then ok; else bad "$name: old outputs changed"; fi
+  expect_status "$name --out (empty folder)" 2 check "$file" --out "$work/empty" --format json
+  if [ -z "$(ls -A "$work/empty")" ]; then ok; else bad "$name: wrote into the output folder"; fi
+done
+if [ ! -e "$work/never-made" ]; then
+  expect_status "bad input with --out to a new folder" 2 check "$data/bad_several.yaml" \
+    --out "$work/never-made"
+  if [ ! -e "$work/never-made" ] || [ -z "$(ls -A "$work/never-made")" ]; then ok; else
+    bad "bad input: files written to a new output folder"
+  fi
+fi
+
+# The message for a load nothing resists, pinned (found after reading, by the solver setup).
+run check "$data/e2e/unresisted_fx.yaml"
+expect_in "unresisted Fx" "$work/err" \
+  "cairn: $data/e2e/unresisted_fx.yaml:21:3: error: load_cases.L: Fx cannot be resisted: no battered piles and no lateral stiffness"
+# Several problems in one run: one line each.
+run check "$data/bad_several.yaml"
+if [ "$(grep -c '^cairn: ' "$work/err")" -eq 4 ]; then ok; else
+  bad "bad_several.yaml: expected 4 messages, got $(grep -c '^cairn: ' "$work/err")"
+fi
+
+# ---- usage errors ----------------------------------------------------------------------------
+expect_status "no command" 2
+expect_status "check without a file" 2 check
+expect_status "unknown option" 2 check "$data/base.yaml" --no-such-option
+expect_status "unknown format" 2 check "$data/base.yaml" --format pdf
+expect_status "missing project file" 2 check "$work/no-such-file.yaml"
+expect_in "missing project file" "$work/err" "cannot open the project file"
+expect_status "--help" 0 --help
+
+# ---- demo projects ---------------------------------------------------------------------------
+# Each projects-demo/<name>/cap.yaml must pass; when <name>/expected/check.json exists, the
+# JSON document must match it, apart from "input" and "options" (which name paths and flags).
+for project in "$src"/projects-demo/*/cap.yaml; do
+  [ -e "$project" ] || continue
+  dir=$(dirname "$project")
+  name=$(basename "$dir")
+  (cd "$dir" && "$cairn" check cap.yaml --format json >"$work/out" 2>"$work/err")
+  status=$?
+  if [ "$status" -eq 0 ]; then ok; else bad "projects-demo/$name: exit status $status, expected 0"; fi
+  if [ -f "$dir/expected/check.json" ]; then
+    if python3 - "$dir/expected/check.json" "$work/out" >"$work/diff" 2>&1 <<'EOF'
+import json, math, sys
+
+def load(path):
+    with open(path) as f:
+        doc = json.load(f)
+    for key in ("input", "options"):
+        doc.pop(key, None)
+    return doc
+
+def compare(a, b, where):
+    # Numbers agree to 1e-9 relative (or 1e-9 absolute near zero): the same program on
+    # another compiler may round the last printed digit differently.
+    if isinstance(a, bool) or isinstance(b, bool) or not isinstance(a, (int, float)) \
+            or not isinstance(b, (int, float)):
+        if type(a) != type(b):
+            return f"{where}: {a!r} != {b!r}"
+        if isinstance(a, dict):
+            if a.keys() != b.keys():
+                return f"{where}: keys {sorted(a)} != {sorted(b)}"
+            for k in a:
+                d = compare(a[k], b[k], f"{where}.{k}")
+                if d:
+                    return d
+            return None
+        if isinstance(a, list):
+            if len(a) != len(b):
+                return f"{where}: {len(a)} items != {len(b)}"
+            for i, (x, y) in enumerate(zip(a, b)):
+                d = compare(x, y, f"{where}[{i}]")
+                if d:
+                    return d
+            return None
+        return None if a == b else f"{where}: {a!r} != {b!r}"
+    return None if math.isclose(a, b, rel_tol=1e-9, abs_tol=1e-9) else f"{where}: {a!r} != {b!r}"
+
+difference = compare(load(sys.argv[1]), load(sys.argv[2]), "$")
+if difference:
+    sys.exit(difference)
+EOF
+    then ok; else bad "projects-demo/$name: differs from expected/check.json: $(tail -n 1 "$work/diff")"; fi
+  fi
+done
+
+echo "$passed passed, $failed failed"
+[ "$failed" -eq 0 ]

@@ -11,6 +11,7 @@
 #pragma once
 
 #include <string>
+#include <vector>
 
 #include "cairn/diagnostics.hpp"
 #include "cairn/model.hpp"
@@ -20,5 +21,9 @@ namespace cairn {
 // Reads and validates the project file at `path`, following its includes.
 // Throws InputError listing every problem found.
 Project read_project(const std::string& path);
+
+// The cap files a foundation file lists (`caps: [a.yaml, b.yaml]`, paths relative to it);
+// a project file stands for itself. Throws InputError for a foundation file with problems.
+std::vector<std::string> expand_foundation(const std::string& path);
 
 }  // namespace cairn

@@ -58,6 +58,22 @@ std::vector<std::pair<std::string, std::string>> check_files(const CheckReport& 
 std::string render_springs(const Project& project, const std::vector<PileTypeStiffness>& stiffness,
                            Format format, const std::string& options);
 
+// One cap of a foundation checked in one run (`cairn check caps/*.yaml`).
+struct CapSummaryRow {
+  std::string file, title;
+  UnitSystem units = UnitSystem::SI;
+  std::size_t piles = 0, combinations = 0;
+  double max_utilization = 0.0;
+  std::string pile, combination, check;  // where the maximum occurs
+  std::optional<double> settlement;      // m, largest service settlement when computed
+  bool pass = true;
+  std::string status;  // "pass", "fail", "overturns", "group checks fail"
+};
+
+// The summary table of several caps, then the count of failing caps and the caution.
+std::string render_cap_summary(const std::vector<CapSummaryRow>& rows, Format format,
+                               const std::string& options);
+
 // "1.0·D + 0.6·W"
 std::string combination_formula(const Project& project, const Combination& combination);
 

@@ -227,6 +227,7 @@ std::vector<std::string> assumptions(
     list.push_back("The cap's self-weight is not included (unless it is in the loads given).");
   list.push_back("Service combinations are checked against allowable capacities, strength "
                  "combinations against factored resistances.");
+  for (const auto& note : project.notes) list.push_back("Combinations " + note);
   return list;
 }
 

@@ -191,7 +191,7 @@ std::string basis_section(const CheckReport& r, const CheckTables& tables) {
   s += render_table_html(methods);
 
   std::size_t generated = 0;
-  for (const auto& c : p.combinations) generated += c.generated ? 1 : 0;
+  for (const auto& c : p.combinations) generated += !c.generator.empty() ? 1 : 0;
   s += fmt::format("<p>Combinations: {} given in the file, {} generated from the load cases' "
                    "kinds (listed with their factors in section 3). Service combinations are "
                    "compared with allowable capacities, strength combinations with factored "
@@ -238,7 +238,7 @@ std::string loads_section(const CheckReport& r, const CheckTables& tables) {
   combos.headers.push_back("source");
   combos.numeric.push_back(false);
   for (std::size_t i = 0; i < combos.rows.size() && i < p.combinations.size(); ++i)
-    combos.rows[i].push_back(p.combinations[i].generated ? "generated" : "given");
+    combos.rows[i].push_back(!p.combinations[i].generator.empty() ? "generated" : "given");
   s += render_table_html(combos);
   return s + "</section>\n";
 }

@@ -12,6 +12,7 @@
 
 #include <fmt/format.h>
 
+#include "cairn/combinations.hpp"
 #include "cairn/group.hpp"
 
 namespace cairn {
@@ -716,7 +717,8 @@ class Reader {
       lc.id = entry.name;
       lc.where = entry.key_where;
       if (!expect_map(n)) continue;
-      check_keys(n, {"kind", "loads", "description"});
+      check_keys(n, {"kind", "loads", "description", "direction"});
+      if (auto d = text(n, "direction", Need::optional)) lc.direction = *d;
       if (auto k = n.child("kind"); k.present()) {
         if (auto v = choice<LoadKind>(k, kLoadKinds)) lc.kind = *v;
       } else {
@@ -761,6 +763,10 @@ class Reader {
     for (std::size_t i = 0; i < project.load_cases.size(); ++i)
       case_index[project.load_cases[i].id] = i;
     for (const auto& entry : entries) {
+      if (entry.name == "generate") {
+        generate_combinations_for(entry, project);
+        continue;
+      }
       const Located& n = entry.value;
       Combination combo;
       combo.id = entry.name;
@@ -802,6 +808,41 @@ class Reader {
     }
     if (project.combinations.empty())
       diag_.error(at(whole), "combinations: expected at least one combination");
+  }
+
+  // `combinations: {generate: asce7-lrfd}` (or a list of generator names): code
+  // combinations built from the load cases' kinds (combinations.hpp).
+  void generate_combinations_for(const Entry& entry, Project& project) {
+    const Located& n = entry.value;
+    std::vector<Located> names;
+    if (n.node.IsSequence())
+      for (std::size_t i = 0; i < n.node.size(); ++i) names.push_back(n.item(i));
+    else
+      names.push_back(n);
+    std::vector<CaseToCombine> cases;
+    for (const auto& lc : project.load_cases) cases.push_back({lc.id, lc.kind, lc.direction});
+    for (const auto& name : names) {
+      const std::string generator = name.node.IsScalar() ? name.node.Scalar() : scalar_text(name.node);
+      try {
+        const auto generated = generate_combinations(generator, cases);
+        for (const auto& g : generated.combinations) {
+          Combination combo;
+          combo.id = g.id;
+          combo.where = at(name);
+          combo.limit_state = g.limit_state;
+          combo.generator = generator;
+          for (const auto& [case_id, factor] : g.factors) {
+            for (std::size_t i = 0; i < project.load_cases.size(); ++i)
+              if (project.load_cases[i].id == case_id) combo.factors.emplace_back(i, factor);
+          }
+          project.combinations.push_back(combo);
+        }
+        for (const auto& note : generated.notes)
+          project.notes.push_back(generator + ": " + note);
+      } catch (const std::invalid_argument& e) {
+        diag_.error(at(name), fmt::format("combinations.generate: {}", e.what()));
+      }
+    }
   }
 
   std::optional<SoilProfile> read_soil(const Located& n) {

@@ -312,10 +312,11 @@ Table piles_table(const CheckReport& r) {
 Table combinations_table(const CheckReport& r) {
   Table t;
   t.title = "Combinations";
-  t.headers = {"combination", "limit state", "factors"};
-  t.numeric = {false, false, false};
+  t.headers = {"combination", "limit state", "factors", "source"};
+  t.numeric = {false, false, false, false};
   for (const Combination& c : r.project->combinations)
-    t.rows.push_back({c.id, to_string(c.limit_state), combination_formula(*r.project, c)});
+    t.rows.push_back({c.id, to_string(c.limit_state), combination_formula(*r.project, c),
+                      c.generator.empty() ? "given" : "generated: " + c.generator});
   return t;
 }
 
@@ -611,6 +612,7 @@ json check_json(const CheckReport& r) {
         {"id", c.id},
         {"limit_state", to_string(c.limit_state)},
         {"factors", factors},
+        {"source", c.generator.empty() ? std::string("given") : "generated: " + c.generator},
         {"status", cc.solution.overturns ? "overturns" : (cc.pass ? "pass" : "fail")},
         {"cap",
          {{"translation",

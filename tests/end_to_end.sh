@@ -103,7 +103,7 @@ done
 if json_has_keys combinations envelope summary units <"$out/results.json" 2>"$work/err"; then ok; else
   bad "--out: results.json is not the JSON document"
 fi
-if ls -A "$out" | grep -qv -e '^[a-z][a-z0-9_.-]*\.\(txt\|md\|json\|csv\|html\)$'; then
+if ls -A "$out" | grep -qv -e '^[a-z][A-Za-z0-9_.-]*\.\(txt\|md\|json\|csv\|html\)$'; then
   bad "--out: temporaries or stray files left behind: $(ls -A "$out" | tr '\n' ' ')"
 else
   ok

@@ -242,7 +242,7 @@ TEST_CASE("input: includes merge, the including file winning entry by entry", "[
     REQUIRE(p.load_cases.size() == 3);
     const LoadCase& d = case_named(p, "D");
     REQUIRE(d.loads.size() == 1);
-    CHECK(d.loads[0].load[2] == near(-1000.0));
+    CHECK(d.loads[0].load[2] == near(-600.0));
     // cases.yaml says no units: its plain numbers are the project's (SI).
     const LoadCase& l = case_named(p, "L");
     CHECK(l.kind == LoadKind::live);
@@ -257,7 +257,8 @@ TEST_CASE("input: includes merge, the including file winning entry by entry", "[
     CHECK(e.loads[0].load[0] == near(10 * kKip));
     CHECK(e.where.file == kData + "/includes/shared/deeper/combos.yaml");
   }
-  SECTION("combinations: C1 from the project file, C2 from the deepest include") {
+  SECTION("combinations: C1 from the project file (service, not the included strength C1), "
+          "C2 from the deepest include") {
     REQUIRE(p.combinations.size() == 2);
     const Combination& c1 = combination_named(p, "C1");
     CHECK(c1.limit_state == LimitState::service);
@@ -265,10 +266,10 @@ TEST_CASE("input: includes merge, the including file winning entry by entry", "[
     CHECK(factor_of(p, c1, "D") == near(1.0));
     CHECK(factor_of(p, c1, "L") == near(1.0));
     const Combination& c2 = combination_named(p, "C2");
-    CHECK(c2.limit_state == LimitState::strength);
-    CHECK(factor_of(p, c2, "D") == near(1.2));
-    CHECK(factor_of(p, c2, "L") == near(1.6));
-    CHECK(factor_of(p, c2, "E") == near(1.0));
+    CHECK(c2.limit_state == LimitState::service);
+    CHECK(factor_of(p, c2, "D") == near(1.0));
+    CHECK(factor_of(p, c2, "L") == near(0.75));
+    CHECK(factor_of(p, c2, "E") == near(0.7));
   }
 }
 

@@ -143,6 +143,7 @@ struct LoadCase {
   std::string id;
   SourceLocation where;
   LoadKind kind = LoadKind::other;
+  std::string direction;  // wind/seismic: cases sharing a direction act together
   std::vector<PointLoad> loads;
 };
 
@@ -151,7 +152,7 @@ struct Combination {
   SourceLocation where;
   LimitState limit_state = LimitState::service;
   std::vector<std::pair<std::size_t, double>> factors;  // (load case index, factor)
-  bool generated = false;                               // built by a code generator
+  std::string generator;  // the code generator that built it ("asce7-asd"), or empty
 };
 
 // Group checks asked for in the file (`group:`). Defaults are common practice (docs).
@@ -178,6 +179,7 @@ struct Project {
   std::vector<LoadCase> load_cases;
   std::vector<Combination> combinations;
   GroupSettings group;
+  std::vector<std::string> notes;  // choices made while reading (e.g. by a combination generator)
 };
 
 const char* to_string(LimitState);

@@ -43,6 +43,7 @@ Vector6 to_vector(const Wrench& w) {
 struct CapSolver::Impl {
   std::vector<Matrix36> maps;
   std::vector<Eigen::Matrix3d> stiffness;
+  std::vector<Matrix6> contributions;  // Tᵀ·K_pile·T, summed over the active piles
   double length_scale = 1.0;  // m; rotations are scaled by it so all six dofs compare
   Eigen::Matrix<double, 6, 1> scale;
 
@@ -56,7 +57,7 @@ struct CapSolver::Impl {
     Matrix6 k = Matrix6::Zero();
     for (std::size_t i = 0; i < maps.size(); ++i) {
       if (!active[i]) continue;
-      k += maps[i].transpose() * stiffness[i] * maps[i];
+      k += contributions[i];
     }
     const Matrix6 d = scale.asDiagonal();
     Decomposition result{Eigen::SelfAdjointEigenSolver<Matrix6>(d * k * d), {}};
@@ -117,6 +118,8 @@ CapSolver::CapSolver(std::vector<PileSpring> springs)
   for (const auto& s : springs_) {
     impl_->maps.push_back(head_map(s.head));
     impl_->stiffness.push_back(pile_matrix(s));
+    impl_->contributions.push_back(impl_->maps.back().transpose() * impl_->stiffness.back() *
+                                   impl_->maps.back());
     reach = std::max(reach, std::hypot(s.head[0], s.head[1]));
   }
   impl_->length_scale = std::max(reach, 1.0);

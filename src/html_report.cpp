@@ -191,12 +191,20 @@ std::string basis_section(const CheckReport& r, const CheckTables& tables) {
   s += render_table_html(methods);
 
   std::size_t generated = 0;
-  for (const auto& c : p.combinations) generated += !c.generator.empty() ? 1 : 0;
+  std::vector<std::string> generators;
+  for (const auto& c : p.combinations) {
+    if (c.generator.empty()) continue;
+    ++generated;
+    if (std::find(generators.begin(), generators.end(), c.generator) == generators.end())
+      generators.push_back(c.generator);
+  }
+  std::string codes;
+  for (const auto& g : generators) codes += (codes.empty() ? " by " : ", ") + g;
   s += fmt::format("<p>Combinations: {} given in the file, {} generated from the load cases' "
-                   "kinds (listed with their factors in section 3). Service combinations are "
+                   "kinds{} (listed with their factors in section 3). Service combinations are "
                    "compared with allowable capacities, strength combinations with factored "
                    "resistances.</p>\n",
-                   p.combinations.size() - generated, generated);
+                   p.combinations.size() - generated, generated, esc(codes));
   s += "<h3>Assumptions</h3>\n" + list_html(r.assumptions);
   s += render_table_html(tables.pile_types);
   s += render_table_html(tables.piles);
@@ -238,7 +246,9 @@ std::string loads_section(const CheckReport& r, const CheckTables& tables) {
   combos.headers.push_back("source");
   combos.numeric.push_back(false);
   for (std::size_t i = 0; i < combos.rows.size() && i < p.combinations.size(); ++i)
-    combos.rows[i].push_back(!p.combinations[i].generator.empty() ? "generated" : "given");
+    combos.rows[i].push_back(p.combinations[i].generator.empty()
+                                 ? "given"
+                                 : "generated (" + p.combinations[i].generator + ")");
   s += render_table_html(combos);
   return s + "</section>\n";
 }

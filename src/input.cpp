@@ -67,7 +67,7 @@ struct Merged {
 };
 
 const std::vector<std::string> kTopKeys = {"title", "units", "include", "cap", "pile_types",
-                                           "piles", "soil", "load_cases", "combinations",
+                                           "piles", "soil", "load_cases", "combinations", "columns", "loads_from",
                                            "group"};
 const std::set<std::string> kNamedSections = {"pile_types", "load_cases", "combinations"};
 
@@ -339,6 +339,7 @@ class Reader {
     load(path, {path, 0, 0}, stack, merged);
     diag_.raise_if_any();
     file_units_ = &merged.file_units;
+    files_ = &merged.files;
     Project project;
     project.file = path;
     auto section = [&](const std::string& name) -> const Entry* {
@@ -370,8 +371,10 @@ class Reader {
     if (required("pile_types")) read_pile_types(merged.named["pile_types"],
                                                 section("pile_types")->value, project);
     if (const Entry* piles = required("piles")) read_piles(piles->value, project);
+    if (const Entry* columns = section("columns")) read_columns(columns->value, project);
     if (required("load_cases"))
       read_load_cases(merged.named["load_cases"], section("load_cases")->value, project);
+    if (const Entry* from = section("loads_from")) read_reactions(from->value, project);
     if (required("combinations"))
       read_combinations(merged.named["combinations"], section("combinations")->value, project);
     if (diag_.empty()) add_self_weight(project);
@@ -810,6 +813,175 @@ class Reader {
       diag_.error(at(whole), "combinations: expected at least one combination");
   }
 
+  void read_columns(const Located& n, Project& project) {
+    if (!n.node.IsSequence()) {
+      diag_.error(at(n), "columns: expected a list of columns {id, at: [x, y], support}");
+      return;
+    }
+    std::map<std::string, std::string> support_owner;
+    for (std::size_t i = 0; i < n.node.size(); ++i) {
+      const Located c = n.item(i);
+      if (!expect_map(c)) continue;
+      check_keys(c, {"id", "at", "support"});
+      Column column;
+      column.where = at(c);
+      column.id = text(c, "id").value_or(fmt::format("#{}", i + 1));
+      if (auto a = point(c.child("at"), true)) column.at = *a;
+      if (std::isnan(column.at[2])) column.at[2] = project.cap.thickness;
+      column.support = text(c, "support").value_or("");
+      if (!column.support.empty()) {
+        auto [it, fresh] = support_owner.emplace(column.support, column.id);
+        if (!fresh)
+          diag_.error(at(c.child("support")),
+                      fmt::format("{}.support: support '{}' is mapped twice (columns '{}' and '{}')",
+                                  c.path, column.support, it->second, column.id));
+      }
+      project.columns.push_back(column);
+    }
+  }
+
+  // Column reactions exported from the structural model: one row per support and load
+  // case, header `support,case,Fx,Fy,Fz,Mx,My,Mz` in any order (extra columns ignored).
+  void read_reactions(const Located& n, Project& project) {
+    if (!expect_map(n)) return;
+    check_keys(n, {"file", "sign", "units"});
+    const auto file = text(n, "file");
+    const auto sign = text(n, "sign");
+    if (!file || !sign) return;
+    double factor = 1.0;
+    if (*sign == "reaction") factor = -1.0;
+    else if (*sign != "load") {
+      diag_.error(at(n.child("sign")), fmt::format("loads_from.sign: expected 'reaction' (the CSV "
+                                                   "holds support reactions) or 'load' (forces on "
+                                                   "the foundation), got '{}'",
+                                                   *sign));
+      return;
+    }
+    UnitSystem units = units_of(n);
+    if (auto u = text(n, "units", Need::optional)) {
+      if (*u == "SI") units = UnitSystem::SI;
+      else if (*u == "US") units = UnitSystem::US;
+      else
+        diag_.error(at(n.child("units")),
+                    fmt::format("loads_from.units: expected 'SI' or 'US', got '{}'", *u));
+    }
+    if (project.columns.empty()) {
+      diag_.error(at(n), "loads_from: needs columns: [{id, at, support}] to place the reactions");
+      return;
+    }
+    const std::string path = (fs::path(*n.file).parent_path() / *file).lexically_normal().string();
+    project.loads_file = path;
+    std::ifstream in(path, std::ios::binary);
+    if (!in) {
+      diag_.error(at(n.child("file")), fmt::format("loads_from.file: cannot open '{}'", path));
+      return;
+    }
+    const std::string& csv_name = *files_->insert(path).first;
+    std::string line;
+    std::vector<std::string> header;
+    if (!std::getline(in, line)) {
+      diag_.error({csv_name, 1, 1}, "the reactions file is empty; expected a header row "
+                                    "support,case,Fx,Fy,Fz,Mx,My,Mz");
+      return;
+    }
+    header = split_csv(line);
+    const std::vector<std::string> wanted = {"support", "case", "Fx", "Fy", "Fz", "Mx", "My", "Mz"};
+    std::map<std::string, std::size_t> where;
+    for (std::size_t i = 0; i < header.size(); ++i) where[header[i]] = i;
+    bool complete = true;
+    for (const auto& w : wanted)
+      if (!where.count(w)) {
+        diag_.error({csv_name, 1, 1}, fmt::format("header: missing column '{}'; expected support, "
+                                                  "case, Fx, Fy, Fz, Mx, My, Mz (any order)",
+                                                  w));
+        complete = false;
+      }
+    if (!complete) return;
+    std::map<std::string, std::size_t> column_of, case_of;
+    for (std::size_t i = 0; i < project.columns.size(); ++i)
+      column_of[project.columns[i].support] = i;
+    for (std::size_t i = 0; i < project.load_cases.size(); ++i)
+      case_of[project.load_cases[i].id] = i;
+    std::set<std::string> seen_supports;
+    int row = 1;
+    while (std::getline(in, line)) {
+      ++row;
+      if (line.find_first_not_of(" \t\r,") == std::string::npos) continue;
+      const auto cells = split_csv(line);
+      auto cell = [&](const std::string& name) -> std::string {
+        const std::size_t i = where[name];
+        return i < cells.size() ? cells[i] : std::string();
+      };
+      const std::string support = cell("support");
+      auto column = column_of.find(support);
+      if (column == column_of.end()) continue;  // another cap's support
+      seen_supports.insert(support);
+      const std::string case_id = cell("case");
+      auto lc = case_of.find(case_id);
+      if (lc == case_of.end()) {
+        diag_.error({csv_name, row, 0},
+                    fmt::format("row {}: load case '{}' is not listed under load_cases; add it "
+                                "with its kind (e.g. {}: {{kind: dead}})",
+                                row, case_id, case_id));
+        continue;
+      }
+      PointLoad load;
+      load.where = {csv_name, row, 0};
+      load.at = project.columns[column->second].at;
+      load.note = "column " + project.columns[column->second].id;
+      bool ok = true;
+      for (std::size_t c = 0; c < 6; ++c) {
+        const std::string text_value = cell(kWrenchNames[c]);
+        const Quantity q = c < 3 ? Quantity::force : Quantity::moment;
+        const auto parsed = parse_quantity(text_value, q, units);
+        if (!parsed.si || text_value.find_first_not_of("0123456789.+-eE ") != std::string::npos) {
+          diag_.error({csv_name, row, 0},
+                      fmt::format("row {}, column '{}': expected a number ({}), got '{}'", row,
+                                  kWrenchNames[c], describe(q, units), text_value));
+          ok = false;
+          continue;
+        }
+        load.load[c] = factor * *parsed.si;
+      }
+      if (ok) project.load_cases[lc->second].loads.push_back(load);
+    }
+    for (const auto& column : project.columns)
+      if (!column.support.empty() && !seen_supports.count(column.support))
+        diag_.error(column.where, fmt::format("columns: support '{}' of column '{}' does not "
+                                              "appear in '{}'",
+                                              column.support, column.id, path));
+  }
+
+  static std::vector<std::string> split_csv(const std::string& line) {
+    std::vector<std::string> cells(1);
+    bool quoted = false;
+    for (std::size_t i = 0; i < line.size(); ++i) {
+      const char c = line[i];
+      if (quoted) {
+        if (c == '"' && i + 1 < line.size() && line[i + 1] == '"') {
+          cells.back() += '"';
+          ++i;
+        } else if (c == '"') {
+          quoted = false;
+        } else {
+          cells.back() += c;
+        }
+      } else if (c == '"') {
+        quoted = true;
+      } else if (c == ',') {
+        cells.emplace_back();
+      } else if (c != '\r') {
+        cells.back() += c;
+      }
+    }
+    for (auto& cell : cells) {
+      const auto a = cell.find_first_not_of(" \t");
+      const auto b = cell.find_last_not_of(" \t");
+      cell = a == std::string::npos ? std::string() : cell.substr(a, b - a + 1);
+    }
+    return cells;
+  }
+
   // `combinations: {generate: asce7-lrfd}` (or a list of generator names): code
   // combinations built from the load cases' kinds (combinations.hpp).
   void generate_combinations_for(const Entry& entry, Project& project) {
@@ -942,6 +1114,7 @@ class Reader {
   Diagnostics& diag_;
   UnitSystem project_units_ = UnitSystem::SI;
   const std::map<std::string, UnitSystem>* file_units_ = nullptr;
+  std::set<std::string>* files_ = nullptr;  // keeps file names alive for locations
   std::vector<std::string> reading_;  // files being read, outermost first, as written
 };
 

@@ -135,6 +135,14 @@ struct PointLoad {
   std::string note;            // e.g. "cap self-weight", or a column id
 };
 
+// A column meeting the cap, for loads imported from the structural model.
+struct Column {
+  std::string id;
+  SourceLocation where;
+  std::array<double, 3> at{};  // m; z defaults to the top of the cap
+  std::string support;         // support name in the imported reactions
+};
+
 enum class LoadKind {
   dead, live, roof_live, snow, rain, wind, seismic, earth, fluid, temperature, other
 };
@@ -176,8 +184,10 @@ struct Project {
   std::optional<SoilProfile> soil;
   std::vector<PileType> pile_types;
   std::vector<Pile> piles;
+  std::vector<Column> columns;
   std::vector<LoadCase> load_cases;
   std::vector<Combination> combinations;
+  std::string loads_file;  // reactions CSV the loads came from, if any
   GroupSettings group;
   std::vector<std::string> notes;  // choices made while reading (e.g. by a combination generator)
 };

@@ -1,0 +1,117 @@
+#!/usr/bin/env bash
+# Renders the HTML calculation package in a real browser (headless Chromium) and checks that
+# the page is not blank, that the DOM holds the plan drawing and the caution, and that the
+# browser logged no script or console errors.
+#
+# Usage: CAIRN=/path/to/cairn tests/browser_render.sh SOURCE_DIR
+# Skipped (exit 0, with a message) when /usr/bin/chromium is absent; scripts/install-deps
+# installs Debian's chromium package.
+set -euo pipefail
+
+src="${1:?usage: browser_render.sh SOURCE_DIR}"
+chromium=/usr/bin/chromium
+if [ ! -x "$chromium" ]; then
+  echo "SKIPPED: chromium not installed"
+  exit 0
+fi
+: "${CAIRN:?set CAIRN to the cairn executable}"
+
+work="$(mktemp -d)"
+trap 'rm -rf "$work"' EXIT
+fixture="$src/tests/data/html/cap.yaml"
+out="$work/out"
+mkdir -p "$out"
+
+fail() {
+  echo "browser_render: FAIL: $*" >&2
+  exit 1
+}
+
+# 1. The report. Exit 1 only means a check failed; 2 means it could not run.
+set +e
+timeout 60 "$CAIRN" report "$fixture" --out "$out" >"$work/report.log" 2>&1
+status=$?
+set -e
+[ "$status" -le 1 ] || { cat "$work/report.log" >&2; fail "cairn report exited with $status"; }
+html="$out/cap.html"
+[ -s "$html" ] || fail "cairn report wrote no $html"
+
+# Chromium flags: no network, no first-run or background services, one throwaway profile.
+flags=(--headless --no-sandbox --disable-gpu --disable-quic --no-first-run
+       --disable-background-networking --disable-component-update --disable-sync
+       --disable-extensions --hide-scrollbars --user-data-dir="$work/profile")
+
+# 2. Screenshot, with the browser's log on stderr.
+png="$work/page.png"
+timeout 60 "$chromium" "${flags[@]}" --enable-logging=stderr --v=0 \
+  --screenshot="$png" --window-size=1200,1600 "file://$html" \
+  >"$work/shot.out" 2>"$work/shot.err" || { cat "$work/shot.err" >&2; fail "chromium --screenshot failed"; }
+[ -s "$png" ] || { cat "$work/shot.err" >&2; fail "no screenshot written"; }
+
+# 3. Not blank: decode the PNG (zlib, no imaging library) and count distinct pixel colours;
+#    a blank or error page has a handful, a rendered report with tables and a coloured plan
+#    has many. Also require some dark pixels (text) and some red/green (the plan's colours).
+python3 - "$png" <<'PY' || fail "the rendered page looks blank"
+import struct, sys, zlib
+
+data = open(sys.argv[1], "rb").read()
+assert data[:8] == b"\x89PNG\r\n\x1a\n", "not a PNG"
+pos, chunks = 8, {}
+idat = b""
+while pos < len(data):
+    length, kind = struct.unpack(">I4s", data[pos:pos + 8])
+    body = data[pos + 8:pos + 8 + length]
+    if kind == b"IHDR":
+        width, height, depth, colour, _, _, interlace = struct.unpack(">IIBBBBB", body)
+    elif kind == b"IDAT":
+        idat += body
+    pos += 12 + length
+assert depth == 8 and colour in (2, 6) and interlace == 0, f"unexpected PNG format {depth}/{colour}"
+bpp = 3 if colour == 2 else 4
+raw = zlib.decompress(idat)
+stride = width * bpp
+rows, prev, at = [], bytearray(stride), 0
+for _ in range(height):
+    ftype, line = raw[at], bytearray(raw[at + 1:at + 1 + stride])
+    at += 1 + stride
+    for i in range(stride):
+        a = line[i - bpp] if i >= bpp else 0
+        b = prev[i]
+        c = prev[i - bpp] if i >= bpp else 0
+        if ftype == 1: line[i] = (line[i] + a) & 255
+        elif ftype == 2: line[i] = (line[i] + b) & 255
+        elif ftype == 3: line[i] = (line[i] + (a + b) // 2) & 255
+        elif ftype == 4:
+            p = a + b - c
+            pa, pb, pc = abs(p - a), abs(p - b), abs(p - c)
+            line[i] = (line[i] + (a if pa <= pb and pa <= pc else b if pb <= pc else c)) & 255
+    rows.append(bytes(line))
+    prev = line
+colours, dark = set(), 0
+for line in rows:
+    for i in range(0, stride, bpp):
+        r, g, b = line[i], line[i + 1], line[i + 2]
+        colours.add((r, g, b))
+        if r + g + b < 150: dark += 1
+red = (0xe0, 0x40, 0x3a) in colours or (0xb3, 0x26, 0x1e) in colours
+print(f"browser_render: {width}x{height}, {len(colours)} colours, {dark} dark pixels, red {red}")
+sys.exit(0 if len(colours) > 50 and dark > 2000 else 1)
+PY
+
+# 4. The DOM after rendering holds the plan, the piles and the caution.
+timeout 60 "$chromium" "${flags[@]}" --dump-dom "file://$html" >"$work/dom.html" 2>"$work/dom.err" \
+  || { cat "$work/dom.err" >&2; fail "chromium --dump-dom failed"; }
+grep -q '<svg[^>]*class="plan"' "$work/dom.html" || fail "the DOM has no plan drawing"
+for pile in A1 A2 A3 A4 B2; do
+  grep -q "data-pile=\"$pile\"" "$work/dom.html" || fail "the plan has no pile $pile"
+done
+grep -q 'id="caution"' "$work/dom.html" || fail "the DOM has no caution"
+grep -q 'Cap &lt;C4&gt; &amp; grid B' "$work/dom.html" || fail "the title is not escaped as text"
+
+# 5. No console or script errors in the browser's log.
+if grep -E "Uncaught|CONSOLE\(|console\.error|SyntaxError|Failed to load resource" \
+    "$work/shot.err" "$work/dom.err"; then
+  fail "the browser logged errors"
+fi
+
+echo "browser_render: ok"

@@ -25,13 +25,17 @@ CheckRun analyse_project(const std::string& file) {
     problems.error(lc.where, fmt::format("load_cases.{}: {} cannot be resisted: {}", lc.id,
                                          u.load.component, u.load.reason));
   }
-  run.resistances = resolve_resistances(project, computed_resistances(project, run.capacities));
+  run.resistances = resolve_resistances(
+      project, computed_resistances(project, run.capacities, lateral_capacities(project)));
   for (const auto& d : missing_resistances(project, run.resistances))
     problems.error(d.where, d.message);
   for (const auto& d : group_input_problems(project, run.capacities))
     problems.error(d.where, d.message);
   problems.raise_if_any();
-  run.results = check_piles(project, solve_combinations(project, solver), run.resistances);
+  std::vector<double> moment_per_shear;
+  for (const auto& k : run.stiffness) moment_per_shear.push_back(k.head_moment_per_shear);
+  run.results = check_piles(project, solve_combinations(project, solver), run.resistances,
+                            moment_per_shear);
   run.group = evaluate_group(project, run.results, run.resistances, run.capacities);
   if (!run.group.pass) run.results.summary.pass = false;
   std::vector<std::pair<std::string, std::string>> sources;

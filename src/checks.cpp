@@ -7,6 +7,8 @@
 
 #include <fmt/format.h>
 
+#include "cairn/lateral.hpp"
+
 namespace cairn {
 namespace {
 
@@ -27,6 +29,7 @@ const char* to_string(Demand d) {
     case Demand::compression: return "compression";
     case Demand::tension: return "tension";
     case Demand::lateral: return "lateral";
+    case Demand::structural: return "structural";
   }
   return "?";
 }
@@ -79,10 +82,35 @@ std::vector<PileTypeResistance> resolve_resistances(
         r.factored.source = fmt::format("ultimate given × resistance factor {:g}",
                                         *set.resistance_factor);
     }
+    if (type.structure) {
+      // Po = 0.85·f'c·(Ag − As) + fy·As (ACI 318-19 eq. 22.4.2.2), or fy·A for steel.
+      const Structure& st = *type.structure;
+      double nominal = 0.0;
+      if (st.concrete_strength) {
+        ConcreteSection section{type.section.area(), st.steel_area.value_or(0.0),
+                                *st.concrete_strength, st.steel_yield.value_or(0.0)};
+        nominal = concrete_nominal_axial_strength(section);
+      } else {
+        nominal = *st.steel_yield * st.steel_area.value_or(type.section.area());
+      }
+      if (st.allowable_factor) {
+        r.allowable.structural_axial = *st.allowable_factor * nominal;
+        if (st.yield_moment) r.allowable.structural_moment = *st.allowable_factor * *st.yield_moment;
+      }
+      if (st.resistance_factor) {
+        r.factored.structural_axial = *st.resistance_factor * nominal;
+        if (st.yield_moment) r.factored.structural_moment = *st.resistance_factor * *st.yield_moment;
+      }
+    }
     if (t < computed.size() && computed[t]) {
       const ComputedResistance& c = *computed[t];
-      const bool had_allowable = r.allowable.compression.has_value();
-      const bool had_factored = r.factored.compression.has_value();
+      const bool had_lateral = r.allowable.lateral.has_value();
+      fill(r.allowable.lateral, c.allowable_lateral);
+      fill(r.factored.lateral, c.factored_lateral);
+      if (!had_lateral && c.allowable_lateral)
+        r.allowable.source += (r.allowable.source.empty() ? "" : "; ") + std::string("lateral ") + c.lateral_method;
+      const bool had_allowable = r.allowable.compression.has_value() || !c.allowable_compression;
+      const bool had_factored = r.factored.compression.has_value() || !c.factored_compression;
       fill(r.allowable.compression, c.allowable_compression);
       fill(r.allowable.tension, c.allowable_tension);
       fill(r.factored.compression, c.factored_compression);
@@ -120,7 +148,8 @@ std::vector<Diagnostic> missing_resistances(const Project& project,
 }
 
 CheckResults check_piles(const Project& project, const std::vector<CapSolution>& solutions,
-                         const std::vector<PileTypeResistance>& resistances) {
+                         const std::vector<PileTypeResistance>& resistances,
+                         const std::vector<double>& head_moment_per_shear) {
   CheckResults results;
   const std::size_t n = project.piles.size();
   results.envelope.assign(n, PileEnvelope{});
@@ -152,6 +181,18 @@ CheckResults check_piles(const Project& project, const std::vector<CapSolution>&
       consider(p.axial, r.compression, Demand::compression);
       consider(-p.axial, r.tension, Demand::tension);
       consider(p.lateral, r.lateral, Demand::lateral);
+      if (pile.type < head_moment_per_shear.size())
+        p.head_moment = p.lateral * head_moment_per_shear[pile.type];
+      if (r.structural_axial && *r.structural_axial > 0) {
+        double u = std::abs(p.axial) / *r.structural_axial;
+        if (p.head_moment > 0 && r.structural_moment && *r.structural_moment > 0)
+          u = axial_bending_utilization(p.axial, *r.structural_axial, p.head_moment,
+                                        *r.structural_moment);
+        if (u > p.utilization) {
+          p.utilization = u;
+          p.governing = Demand::structural;
+        }
+      }
       p.pass = p.utilization <= 1.0;
       if (!p.pass) check.pass = false;
       if (!check.governing_pile || p.utilization > check.max_utilization) {
@@ -218,6 +259,22 @@ std::vector<std::string> assumptions(
       if (!r.factored.source.empty())
         list.push_back(fmt::format("Pile type {}: factored resistances: {}.", type.id,
                                    r.factored.source));
+      const UnitSystem u = project.units;
+      auto structural = [&](const Resistance& res, const char* basis) {
+        if (!res.structural_axial) return;
+        std::string text = fmt::format(
+            "Pile type {}: structural {} axial capacity {:.1f} {} (Po of ACI 318-19 eq. 22.4.2.2 "
+            "× the factor given)",
+            type.id, basis, from_si(u, Quantity::force, *res.structural_axial),
+            unit_label(u, Quantity::force));
+        if (res.structural_moment)
+          text += fmt::format(", moment capacity {:.1f} {}; fixed heads: |P|/Pc + |M|/Mc ≤ 1",
+                              from_si(u, Quantity::moment, *res.structural_moment),
+                              unit_label(u, Quantity::moment));
+        list.push_back(text + ".");
+      };
+      structural(r.allowable, "allowable");
+      structural(r.factored, "factored");
     }
   }
   if (project.cap.self_weight)

@@ -145,11 +145,13 @@ std::string design_text(const PileType& type) {
   const PileDesign& d = type.design;
   if (!d.computes_capacity()) return "-";
   std::string s = std::string(to_string(d.installation)) + "; tip:";
-  auto method = [](const auto& m, const char* kind) {
-    return m ? fmt::format(" {} ({})", to_string(*m), kind) : std::string();
+  auto methods = [](const auto& clay, const auto& sand) {
+    std::string m;
+    if (clay) m += fmt::format(" {} (clay)", to_string(*clay));
+    if (sand) m += fmt::format("{} {} (sand)", clay ? "," : "", to_string(*sand));
+    return m.empty() ? std::string(" none") : m;
   };
-  s += method(d.tip_clay, "clay") + method(d.tip_sand, "sand");
-  s += "; shaft:" + method(d.shaft_clay, "clay") + method(d.shaft_sand, "sand");
+  s += methods(d.tip_clay, d.tip_sand) + "; shaft:" + methods(d.shaft_clay, d.shaft_sand);
   return s;
 }
 
@@ -242,14 +244,7 @@ std::string loads_section(const CheckReport& r, const CheckTables& tables) {
     if (lc.loads.empty()) t.rows.push_back({lc.id, to_string(lc.kind), "(no loads)", "", "", "", "", "", "", "", "", ""});
   }
   s += render_table_html(t);
-  Table combos = tables.combinations;
-  combos.headers.push_back("source");
-  combos.numeric.push_back(false);
-  for (std::size_t i = 0; i < combos.rows.size() && i < p.combinations.size(); ++i)
-    combos.rows[i].push_back(p.combinations[i].generator.empty()
-                                 ? "given"
-                                 : "generated (" + p.combinations[i].generator + ")");
-  s += render_table_html(combos);
+  s += render_table_html(tables.combinations);  // with each combination's source
   return s + "</section>\n";
 }
 

@@ -551,7 +551,7 @@ class Reader {
       type.where = entry.key_where;
       if (!expect_map(n)) continue;
       check_keys(n, {"section", "length", "elastic_modulus", "axial_stiffness",
-                     "lateral_stiffness", "tension", "head", "capacity", "installation", "tip_method",
+                     "lateral_stiffness", "tension", "head", "structure", "capacity", "installation", "tip_method",
                      "shaft_method", "critical_depth", "factor_of_safety",
                      "factor_of_safety_tip", "factor_of_safety_shaft", "factor_of_safety_tension",
                      "resistance_factor_tip", "resistance_factor_shaft",
@@ -571,6 +571,25 @@ class Reader {
                                        "stiffness E·A/L) or axial_stiffness",
                                        n.path));
       type.tension = flag(n, "tension").value_or(true);
+      if (auto st = n.child("structure"); st.present() && expect_map(st)) {
+        check_keys(st, {"concrete_strength", "steel_yield", "steel_area", "yield_moment",
+                        "allowable_factor", "resistance_factor"});
+        Structure structure;
+        structure.where = at(st);
+        structure.concrete_strength = number(st, "concrete_strength", Quantity::pressure, Need::optional);
+        structure.steel_yield = number(st, "steel_yield", Quantity::pressure, Need::optional);
+        structure.steel_area = number(st, "steel_area", Quantity::area, Need::optional, Sign::non_negative);
+        structure.yield_moment = number(st, "yield_moment", Quantity::moment, Need::optional);
+        structure.allowable_factor = number(st, "allowable_factor", Quantity::number, Need::optional);
+        structure.resistance_factor = number(st, "resistance_factor", Quantity::number, Need::optional);
+        if (!structure.concrete_strength && !structure.steel_yield)
+          diag_.error(at(st), fmt::format("{}.structure: expected concrete_strength (f'c) or "
+                                          "steel_yield (fy)", n.path));
+        if (!structure.allowable_factor && !structure.resistance_factor)
+          diag_.error(at(st), fmt::format("{}.structure: expected allowable_factor (service) and/or "
+                                          "resistance_factor (strength)", n.path));
+        type.structure = structure;
+      }
       if (auto h = n.child("head"); h.present())
         if (auto v = choice<HeadFixity>(h, {{"pinned", HeadFixity::pinned},
                                             {"fixed", HeadFixity::fixed}}))

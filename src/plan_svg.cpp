@@ -13,10 +13,11 @@ namespace {
 
 constexpr double kPi = 3.14159265358979323846;
 
-// Room around the plan for batter arrows, labels and the axes (px).
-constexpr double kMargin = 90.0;
-// Below the plan: scale bar, colour legend and the note on arrows (px).
+// Room around the plan for batter arrows and labels (px).
+constexpr double kMargin = 75.0;
+// Below the plan: scale bar, colour legend and the notes (px), plus one line per load point.
 constexpr double kLegendHeight = 92.0;
+constexpr double kLegendLine = 14.0;
 // A batter of 1:n is drawn as an arrow kBatterArrow/n px long; 1:3 → 60 px.
 constexpr double kBatterArrow = 180.0;
 // Longest plan side in px relative to the drawing width, so tall caps still fit a page.
@@ -151,7 +152,7 @@ PlanFrame plan_frame(const Project& p, double plan_width) {
   f.origin_x = kMargin + (avail_w - dx * f.scale) / 2.0 - box.min_x * f.scale;
   f.origin_y = kMargin + box.max_y * f.scale;
   f.width = plan_width;
-  f.height = 2.0 * kMargin + plan_h + kLegendHeight;
+  f.height = 2.0 * kMargin + plan_h + kLegendHeight + kLegendLine * load_points(p).size();
   return f;
 }
 
@@ -185,23 +186,20 @@ std::string render_plan_svg(const Project& p, const CheckResults* results,
          "\" fill=\"#f4f1ea\" stroke=\"#333333\" stroke-width=\"2\"/>\n";
   }
 
-  // Axes at the origin.
-  const double ox = f.origin_x, oy = f.origin_y, axis = 48.0;
+  // The origin, marked where it is, and the axes drawn as a small key in the lower-left
+  // corner, clear of the piles (a pile often stands at the origin).
+  const double ox = f.origin_x, oy = f.origin_y, axis = 40.0;
+  const double kx = 22.0, ky = f.height - kLegendHeight - kLegendLine * load_points(p).size() - 14.0;
   s += "<g class=\"axes\" stroke=\"#555555\" stroke-width=\"1.5\">\n";
   s += fmt::format("<line x1=\"{}\" y1=\"{}\" x2=\"{}\" y2=\"{}\" marker-end=\"url(#plan-arrow)\"/>\n",
-                   num(ox), num(oy), num(ox + axis), num(oy));
+                   num(kx), num(ky), num(kx + axis), num(ky));
   s += fmt::format("<line x1=\"{}\" y1=\"{}\" x2=\"{}\" y2=\"{}\" marker-end=\"url(#plan-arrow)\"/>\n",
-                   num(ox), num(oy), num(ox), num(oy - axis));
+                   num(kx), num(ky), num(kx), num(ky - axis));
   s += "</g>\n";
-  s += fmt::format("<circle id=\"origin\" cx=\"{}\" cy=\"{}\" r=\"3\" fill=\"#555555\"/>\n", num(ox),
-                   num(oy));
-  s += fmt::format("<text x=\"{}\" y=\"{}\" fill=\"#555555\">+x</text>\n", num(ox + axis + 4),
-                   num(oy + 4));
+  s += fmt::format("<text x=\"{}\" y=\"{}\" fill=\"#555555\">+x</text>\n", num(kx + axis + 4),
+                   num(ky + 4));
   s += fmt::format("<text x=\"{}\" y=\"{}\" fill=\"#555555\" text-anchor=\"middle\">+y</text>\n",
-                   num(ox), num(oy - axis - 6));
-  s += fmt::format("<text x=\"{}\" y=\"{}\" fill=\"#555555\" font-size=\"10\">(0, 0)</text>\n",
-                   num(ox - 36), num(oy + 14));
-
+                   num(kx), num(ky - axis - 6));
   // Piles.
   s += "<g class=\"piles\">\n";
   for (std::size_t i = 0; i < p.piles.size(); ++i) {
@@ -259,32 +257,42 @@ std::string render_plan_svg(const Project& p, const CheckResults* results,
       s += fmt::format("<line class=\"batter\" x1=\"{}\" y1=\"{}\" x2=\"{}\" y2=\"{}\" "
                        "stroke=\"#1a1a1a\" stroke-width=\"1.8\" marker-end=\"url(#plan-arrow)\"/>",
                        num(x1), num(y1), num(x2), num(y2));
-      s += fmt::format("<text x=\"{}\" y=\"{}\" font-size=\"10\" text-anchor=\"middle\">1:{:g}</text>",
+      s += fmt::format("<text x=\"{}\" y=\"{}\" font-size=\"10\" text-anchor=\"middle\" "
+                       "paint-order=\"stroke\" stroke=\"#ffffff\" stroke-width=\"3\">1:{:g}</text>",
                        num(x2 + ux * 14.0), num(y2 + uy * 14.0 + 3.5), pile.batter->ratio);
     }
     s += "</g>\n";
   }
   s += "</g>\n";
 
-  // Load points (columns, self-weight).
+  // Load points (columns, self-weight), tagged L1, L2 … and listed under the plan.
+  const std::vector<LoadPoint> points = load_points(p);
+  std::vector<std::string> point_labels;
   s += "<g class=\"loads\">\n";
-  for (const LoadPoint& lp : load_points(p)) {
+  for (std::size_t k = 0; k < points.size(); ++k) {
+    const LoadPoint& lp = points[k];
     const double x = X(lp.x), y = Y(lp.y);
-    const std::string label =
-        lp.names.empty() ? "load " + joined(lp.cases) : joined(lp.names) + " (" + joined(lp.cases) + ")";
+    const std::string what = lp.names.empty() ? "load" : joined(lp.names);
+    point_labels.push_back(fmt::format("L{}: {} ({}) at ({:.3f}, {:.3f}) {}", k + 1, what,
+                                       joined(lp.cases), lp.x / to_m, lp.y / to_m, length_unit));
     s += fmt::format("<g class=\"load-point\"><title>{}</title>"
                      "<circle cx=\"{}\" cy=\"{}\" r=\"6\" fill=\"none\" stroke=\"#1f4e9a\" stroke-width=\"1.6\"/>"
                      "<path d=\"M{},{} h12 M{},{} v12\" stroke=\"#1f4e9a\" stroke-width=\"1.6\"/>"
-                     "<text x=\"{}\" y=\"{}\" fill=\"#1f4e9a\" font-size=\"11\">{}</text></g>\n",
-                     xml_escape(label + fmt::format(" at ({:.3f}, {:.3f}) {}", lp.x / to_m,
-                                                    lp.y / to_m, length_unit)),
-                     num(x), num(y), num(x - 6), num(y), num(x), num(y - 6), num(x + 9),
-                     num(y + 16), xml_escape(label));
+                     "<text x=\"{}\" y=\"{}\" fill=\"#1f4e9a\" font-size=\"11\" font-weight=\"bold\" "
+                     "paint-order=\"stroke\" stroke=\"#ffffff\" stroke-width=\"3\">L{}</text></g>\n",
+                     xml_escape(point_labels.back()), num(x), num(y), num(x - 6), num(y), num(x),
+                     num(y - 6), num(x + 7), num(y - 7), k + 1);
   }
   s += "</g>\n";
 
+  // The origin on top of everything: a small cross in a ring.
+  s += fmt::format("<g class=\"origin\"><title>origin (0, 0)</title><circle cx=\"{0}\" cy=\"{1}\" "
+                   "r=\"6\" fill=\"none\" stroke=\"#000000\" stroke-width=\"1.2\"/><circle "
+                   "id=\"origin\" cx=\"{0}\" cy=\"{1}\" r=\"2.5\" fill=\"#000000\"/></g>\n",
+                   num(ox), num(oy));
+
   // Scale bar in the project's length unit, about a quarter of the plan's width.
-  const double legend_top = f.height - kLegendHeight + 8.0;
+  const double legend_top = f.height - kLegendHeight - kLegendLine * points.size() + 8.0;
   const double bar_units = nice_length((f.width - 2.0 * kMargin) / 4.0 / f.scale / to_m);
   const double bar_px = bar_units * to_m * f.scale;
   const double bx = 20.0, by = legend_top + 10.0;
@@ -322,11 +330,14 @@ std::string render_plan_svg(const Project& p, const CheckResults* results,
   s += "</g>\n";
   s += fmt::format("<text x=\"20\" y=\"{}\" font-size=\"10.5\" fill=\"#444444\">Piles drawn at "
                    "their section size; arrows show the batter direction of the toe, length "
-                   "∝ 1/ratio; ⊕ load points.</text>\n",
+                   "∝ 1/ratio; ⊕ load points; ◉ the origin (0, 0).</text>\n",
                    num(by + 44));
   s += fmt::format("<text x=\"20\" y=\"{}\" font-size=\"10.5\" fill=\"#444444\">Plan to scale, "
                    "coordinates in {}, +x right, +y up.</text>\n",
                    num(by + 60), length_unit);
+  for (std::size_t k = 0; k < point_labels.size(); ++k)
+    s += fmt::format("<text x=\"20\" y=\"{}\" font-size=\"10.5\" fill=\"#1f4e9a\">{}</text>\n",
+                     num(by + 60 + kLegendLine * (k + 1)), xml_escape(point_labels[k]));
   s += "</svg>\n";
   return s;
 }

@@ -3,9 +3,14 @@
 #include <fmt/format.h>
 
 #include "cairn/diagnostics.hpp"
+#include "cairn/lateral.hpp"
 
 namespace cairn {
 namespace {
+
+// AASHTO LRFD Table 10.5.5.2.3-1: horizontal geotechnical resistance of a pile, φ = 1.0
+// (from memory).
+constexpr double kBromsResistanceFactor = 1.0;
 
 PileGeometry geometry_of(const Project& project, const PileType& type) {
   PileGeometry g;
@@ -50,11 +55,71 @@ std::vector<PileTypeCapacity> compute_capacities(const Project& project, double 
   return list;
 }
 
+std::vector<std::optional<LateralCapacity>> lateral_capacities(const Project& project) {
+  std::vector<std::optional<LateralCapacity>> out(project.pile_types.size());
+  if (!project.soil || project.soil->layers.empty()) return out;
+  // The layer at the pile head governs the lateral mechanism near the top.
+  const SoilProfile& soil = *project.soil;
+  const SoilLayer* layer = &soil.layers.back();
+  double top = 0.0;
+  for (const auto& l : soil.layers) {
+    if (project.cap.depth < top + l.thickness) {
+      layer = &l;
+      break;
+    }
+    top += l.thickness;
+  }
+  for (std::size_t t = 0; t < project.pile_types.size(); ++t) {
+    const PileType& type = project.pile_types[t];
+    BromsInput in;
+    in.soil = layer->kind;
+    in.width = type.section.width;
+    in.embedded_length = type.length;
+    in.head = type.head;
+    if (type.structure && type.structure->yield_moment) in.yield_moment = type.structure->yield_moment;
+    if (layer->kind == SoilKind::clay) {
+      if (!layer->undrained_strength) continue;
+      in.undrained_strength = *layer->undrained_strength;
+    } else {
+      const bool wet = soil.water_table && *soil.water_table <= project.cap.depth;
+      const auto gamma = wet ? layer->saturated_unit_weight : layer->unit_weight;
+      if (!gamma || !layer->friction_angle) continue;
+      in.effective_unit_weight = wet ? *gamma - kWaterUnitWeight : *gamma;
+      in.friction_angle = *layer->friction_angle;
+    }
+    try {
+      const BromsResult b = broms_ultimate_lateral(in);
+      LateralCapacity c;
+      c.ultimate = b.ultimate_load;
+      c.allowable = allowable_lateral_load(b.ultimate_load);
+      c.factored = kBromsResistanceFactor * b.ultimate_load;
+      c.method = fmt::format("Broms (1964), {} pile, {} head, in layer '{}': H_ult = {:.1f} kN, "
+                             "allowable H_ult/{:g}, factored {:g}·H_ult",
+                             to_string(b.mode), to_string(type.head), layer->name, b.ultimate_load,
+                             kLateralFactorOfSafety, kBromsResistanceFactor);
+      if (!in.yield_moment) c.method += " (no yield_moment given: short-pile mechanism only)";
+      out[t] = c;
+    } catch (const std::invalid_argument&) {
+      // Not enough data for Broms: the lateral check then needs a typed-in capacity.
+    }
+  }
+  return out;
+}
+
 std::vector<std::optional<ComputedResistance>> computed_resistances(
-    const Project& project, const std::vector<PileTypeCapacity>& capacities) {
+    const Project& project, const std::vector<PileTypeCapacity>& capacities,
+    const std::vector<std::optional<LateralCapacity>>& lateral) {
   std::vector<std::optional<ComputedResistance>> out(project.pile_types.size());
-  for (const auto& c : capacities) {
+  for (std::size_t t = 0; t < lateral.size() && t < out.size(); ++t) {
+    if (!lateral[t]) continue;
     ComputedResistance r;
+    r.allowable_lateral = lateral[t]->allowable;
+    r.factored_lateral = lateral[t]->factored;
+    r.lateral_method = lateral[t]->method;
+    out[t] = r;
+  }
+  for (const auto& c : capacities) {
+    ComputedResistance r = out[c.type].value_or(ComputedResistance{});
     r.allowable_compression = c.result.allowable_compression;
     r.allowable_tension = c.result.allowable_tension;
     r.factored_compression = c.result.factored_compression;

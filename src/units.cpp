@@ -32,6 +32,7 @@ Dim expected_dim(Quantity quantity) {
     case Quantity::moment:
     case Quantity::rotational_stiffness: return {1, 1};
     case Quantity::pressure: return {1, -2};
+    case Quantity::area: return {0, 2};
     case Quantity::unit_weight: return {1, -3};
     case Quantity::stiffness: return {1, -1};
     case Quantity::angle:
@@ -154,6 +155,7 @@ double to_si_factor(UnitSystem system, Quantity quantity) {
     case Quantity::rotational_stiffness: return kKip * kFoot;
     case Quantity::pressure: return kKip / (kFoot * kFoot);
     case Quantity::unit_weight: return kPoundForce / (kFoot * kFoot * kFoot);
+    case Quantity::area: return kInch * kInch;
     case Quantity::stiffness: return kKip / kInch;
     case Quantity::angle:
     case Quantity::number: return 1.0;
@@ -170,6 +172,7 @@ const char* unit_label(UnitSystem system, Quantity quantity) {
     case Quantity::moment: return si ? "kN·m" : "kip·ft";
     case Quantity::pressure: return si ? "kPa" : "ksf";
     case Quantity::unit_weight: return si ? "kN/m³" : "pcf";
+    case Quantity::area: return si ? "m²" : "in²";
     case Quantity::stiffness: return si ? "kN/m" : "kip/in";
     case Quantity::rotational_stiffness: return si ? "kN·m/rad" : "kip·ft/rad";
     case Quantity::angle: return "°";
@@ -191,6 +194,7 @@ std::string describe(Quantity quantity, UnitSystem system) {
       return std::string("a pressure or modulus in ") + unit_label(system, quantity);
     case Quantity::unit_weight:
       return std::string("a unit weight in ") + unit_label(system, quantity);
+    case Quantity::area: return std::string("an area in ") + unit_label(system, quantity);
     case Quantity::stiffness: return std::string("a stiffness in ") + unit_label(system, quantity);
     case Quantity::rotational_stiffness:
       return std::string("a rotational stiffness in ") + unit_label(system, quantity);

@@ -256,7 +256,7 @@ TEST_CASE("plan_svg: piles are drawn to scale relative to the origin", "[html_re
   const PlanFrame frame = plan_frame(f.project);
   CHECK(attribute_after(svg, "<svg", "data-px-per-m") == Approx(frame.scale).epsilon(1e-6));
   const double ox = attribute_after(svg, "id=\"origin\"", "cx");
-  const double oy = attribute_after(svg, "<circle id=\"origin\"", "cy");
+  const double oy = attribute_after(svg, "id=\"origin\"", "cy");
   // Coordinates are printed to 0.01 px, hence the 0.01 px margin.
   const double margin = 0.011;
   // P1 at (0, 0) m sits on the origin marker.
@@ -278,7 +278,8 @@ TEST_CASE("plan_svg: piles are drawn to scale relative to the origin", "[html_re
   CHECK(oy - 1.8 * frame.scale > 0.0);
   CHECK(svg.find("+x</text>") != std::string::npos);
   CHECK(svg.find("+y</text>") != std::string::npos);
-  CHECK(svg.find("C4 (D)") != std::string::npos);  // the column's load point
+  CHECK(svg.find(">L1: C4 (D) at (0.400, 0.300) m</text>") != std::string::npos);  // the column
+  CHECK(attribute_after(svg, "class=\"load-point\"", "cx") - ox == Approx(0.4 * frame.scale).margin(margin));
 }
 
 TEST_CASE("plan_svg: the batter arrow points toward the toe, length proportional to 1/ratio",

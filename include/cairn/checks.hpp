@@ -30,6 +30,8 @@ namespace cairn {
 // Capacities of one pile type on one basis, after factors were applied. kN.
 struct Resistance {
   std::optional<double> compression, tension, lateral;
+  // Structural: the section's axial capacity (kN) and moment capacity (kN·m) on this basis.
+  std::optional<double> structural_axial, structural_moment;
   std::string source;  // where the numbers came from, for the report
 };
 
@@ -40,9 +42,12 @@ struct PileTypeResistance {
 
 // Capacity computed from the soil for one pile type (see capacity.hpp), kN.
 struct ComputedResistance {
-  double allowable_compression = 0.0, allowable_tension = 0.0;
-  double factored_compression = 0.0, factored_tension = 0.0;
+  std::optional<double> allowable_compression, allowable_tension;
+  std::optional<double> factored_compression, factored_tension;
   std::string method;  // e.g. "vesic tip + beta shaft"
+  // Lateral by Broms (1964) from the soil at the pile head, when computed.
+  std::optional<double> allowable_lateral, factored_lateral;
+  std::string lateral_method;
 };
 
 // Default factors of safety for capacities given as ultimate (common practice: 2.5 in
@@ -59,12 +64,13 @@ std::vector<PileTypeResistance> resolve_resistances(
 std::vector<Diagnostic> missing_resistances(const Project& project,
                                             const std::vector<PileTypeResistance>& resistances);
 
-enum class Demand { none, compression, tension, lateral };
+enum class Demand { none, compression, tension, lateral, structural };
 const char* to_string(Demand);
 
 struct PileCheck {
   double axial = 0.0;    // kN, compression positive
   double lateral = 0.0;  // kN
+  double head_moment = 0.0;  // kN·m, fixed heads (0 for pinned)
   bool active = true;    // false: dropped out, takes no tension
   double utilization = 0.0;   // infinity when a demand has no capacity
   Demand governing = Demand::none;
@@ -110,8 +116,12 @@ struct CheckResults {
 };
 
 // Checks every pile in every combination. `solutions` is indexed like the combinations.
+// `head_moment_per_shear` (m, per pile type; empty = all pinned) gives fixed heads their
+// head moment M = V·(moment per shear) for the combined axial + bending check
+// |P|/Pc + |M|/Mc ≤ 1 (common practice; lateral.hpp).
 CheckResults check_piles(const Project& project, const std::vector<CapSolution>& solutions,
-                         const std::vector<PileTypeResistance>& resistances);
+                         const std::vector<PileTypeResistance>& resistances,
+                         const std::vector<double>& head_moment_per_shear = {});
 
 // The assumptions behind the results, in plain words, for every output.
 // `stiffness` gives each pile type's springs and their sources (stiffness.hpp); it is

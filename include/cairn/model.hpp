@@ -61,6 +61,20 @@ struct CapacitySet {
   SourceLocation where;
 };
 
+// The pile section's material, for its structural capacity (service: factor × Po;
+// strength: φ × Po, with Po = 0.85·f'c·(Ag − As) + fy·As, ACI 318-19 eq. 22.4.2.2, or
+// fy·A for a steel section), and its yield moment for Broms' long piles and the combined
+// axial + head moment check of fixed heads.
+struct Structure {
+  std::optional<double> concrete_strength;  // f'c, kPa
+  std::optional<double> steel_yield;        // fy, kPa
+  std::optional<double> steel_area;         // As, m² (steel section: defaults to the gross area)
+  std::optional<double> yield_moment;       // My, kN·m
+  std::optional<double> allowable_factor;   // service: P_allow = factor·Po, M_allow = factor·My
+  std::optional<double> resistance_factor;  // strength: φ·Po, φ·My
+  SourceLocation where;
+};
+
 // How a pile head is connected to the cap, for its lateral stiffness and head moment.
 enum class HeadFixity { pinned, fixed };
 
@@ -76,6 +90,7 @@ struct PileType {
   HeadFixity head = HeadFixity::pinned;     // for the soil-based lateral stiffness
   std::vector<CapacitySet> capacities;      // as given by the geotechnical engineer
   PileDesign design;                        // installation and methods for soil-based capacity
+  std::optional<Structure> structure;       // material strength, for the structural check
 
   // Stiffness without soil: the value given, else E·A/L (axial) and 0 (lateral).
   double axial_stiffness_used() const;    // kN/m

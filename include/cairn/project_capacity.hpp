@@ -29,8 +29,20 @@ struct PileTypeCapacity {
 std::vector<PileTypeCapacity> compute_capacities(const Project& project, double depth_step = 0.0,
                                                  double min_length = 0.0);
 
+// Broms' (1964) ultimate lateral resistance of each pile type from the soil layer at the
+// pile head (uniform soil assumed; free or fixed head; the structure's yield moment for
+// long piles, else the short-pile mechanism only), with FS 2.5 for service (common
+// practice) and φ = 1.0 for strength (AASHTO LRFD 10.5.5.2.3, horizontal geotechnical
+// resistance, from memory). Empty optional where there is no soil.
+struct LateralCapacity {
+  double ultimate = 0.0, allowable = 0.0, factored = 0.0;  // kN
+  std::string method;  // plain words: mode, soil, notes
+};
+std::vector<std::optional<LateralCapacity>> lateral_capacities(const Project& project);
+
 // The computed capacities as the check's resistances (indexed like Project::pile_types).
 std::vector<std::optional<ComputedResistance>> computed_resistances(
-    const Project& project, const std::vector<PileTypeCapacity>& capacities);
+    const Project& project, const std::vector<PileTypeCapacity>& capacities,
+    const std::vector<std::optional<LateralCapacity>>& lateral = {});
 
 }  // namespace cairn

@@ -30,6 +30,7 @@ enum class Quantity {
   unit_weight,          // SI kN/m³; US pcf
   stiffness,            // SI kN/m; US kip/in
   rotational_stiffness, // SI kN·m/rad; US kip·ft/rad
+  area,                 // SI m²; US in² (section and reinforcement areas)
   angle,                // degrees in both systems
   number,               // no unit
 };

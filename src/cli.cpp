@@ -15,6 +15,8 @@
 #include "cairn/checks.hpp"
 #include "cairn/explain.hpp"
 #include "cairn/group_checks.hpp"
+#include "cairn/html_report.hpp"
+#include "cairn/plan_svg.hpp"
 #include "cairn/stiffness.hpp"
 #include "cairn/input.hpp"
 #include "cairn/output_files.hpp"
@@ -35,6 +37,7 @@ const char* format_name(Format f) {
 std::string describe_options(const Options& o) {
   const char* name = o.command == Command::check      ? "check"
                      : o.command == Command::capacity ? "capacity"
+                     : o.command == Command::report   ? "report"
                                                       : "springs";
   std::string text = fmt::format("{} --format {}", name, format_name(o.format));
   if (o.depth_step) text += fmt::format(" --step {:g}", *o.depth_step);
@@ -128,6 +131,59 @@ int run_capacity(const Options& options, std::ostream& out) {
   return kExitPass;
 }
 
+// The calculation package: one self-contained HTML file per cap (plus, when asked, the
+// plan alone as SVG and the tables as CSV and Markdown), all written at once.
+int run_report(const Options& options, std::ostream& out) {
+  if (!options.out_dir) throw InputError({}, "report: expected --out DIR for the report files");
+  std::vector<std::string> files;
+  for (const auto& f : options.files)
+    for (const auto& cap : expand_foundation(f)) files.push_back(cap);
+  const auto outcomes = analyse_projects(files, std::max(1u, std::thread::hardware_concurrency()));
+  std::vector<Diagnostic> problems;
+  for (const auto& o : outcomes) problems.insert(problems.end(), o.problems.begin(), o.problems.end());
+  if (!problems.empty()) throw InputError(problems);
+  const std::string described = describe_options(options);
+  std::vector<std::pair<std::string, std::string>> written;
+  bool pass = true;
+  for (const auto& o : outcomes) {
+    const CheckRun& run = *o.run;
+    pass = pass && run.results.summary.pass;
+    const CheckReport report = make_check_report(run, described, std::nullopt);
+    const UnitSystem u = run.project.units;
+    // Capacities again, with the capacity-with-depth table for the chart.
+    const double step = u == UnitSystem::SI ? 0.5 : 0.3048;
+    const double from = u == UnitSystem::SI ? 3.0 : 3.048;
+    const auto capacities = compute_capacities(run.project, step, from);
+    HtmlReportInput input;
+    input.check = &report;
+    input.capacities = &capacities;
+    {
+      std::string group = render_group(report, Format::text);
+      std::string escaped;
+      for (char c : group) {
+        if (c == '<') escaped += "&lt;";
+        else if (c == '>') escaped += "&gt;";
+        else if (c == '&') escaped += "&amp;";
+        else escaped += c;
+      }
+      input.extra_sections_html.push_back(
+          "<section id=\"group\"><h2>Group checks and settlement</h2><pre class=\"group\">" +
+          escaped + "</pre></section>");
+    }
+    std::string stem = std::filesystem::path(o.file).stem().string();
+    written.emplace_back(stem + ".html", render_html_report(input));
+    if (options.plan_svg)
+      written.emplace_back(stem + "-plan.svg",
+                           render_plan_svg(run.project, &run.results, &run.resistances));
+    if (options.tables)
+      for (auto& [name, content] : check_files(report)) written.emplace_back(stem + "/" + name, content);
+    out << fmt::format("{}: {} — {}\n", o.file, summary_line(report),
+                       (std::filesystem::path(*options.out_dir) / (stem + ".html")).string());
+  }
+  write_files_atomically(*options.out_dir, written);
+  return pass ? kExitPass : kExitFail;
+}
+
 int run_springs(const Options& options, std::ostream& out) {
   if (options.files.size() != 1) throw InputError({}, "springs: expected one project file");
   const Project project = read_project(options.files.front());
@@ -144,6 +200,7 @@ int run(const Options& options, std::ostream& out, std::ostream& err) {
       case Command::check: return run_check(options, out);
       case Command::capacity: return run_capacity(options, out);
       case Command::springs: return run_springs(options, out);
+      case Command::report: return run_report(options, out);
     }
     return kExitBadInput;
   } catch (const InputError& e) {
@@ -194,6 +251,14 @@ int run_command_line(int argc, const char* const* argv, std::ostream& out, std::
   springs->add_option("file", options.files, "Project file (YAML)")->required();
   springs->add_option("--format", format, "Output format: text, csv, markdown or json")
       ->check(CLI::IsMember(formats));
+  CLI::App* report = app.add_subcommand(
+      "report", "Write the calculation package: a self-contained HTML report per cap, for a "
+                "checking engineer");
+  report->add_option("files", options.files, "Project files or a foundation file")->required();
+  report->add_option("--out", options.out_dir, "Folder for the report files")->required();
+  report->add_flag("--svg", options.plan_svg, "Also write the cap plan alone as SVG");
+  report->add_flag("--tables", options.tables,
+                   "Also write the tables as CSV and Markdown (report.md, *.csv per cap)");
   try {
     app.parse(argc, argv);
   } catch (const CLI::CallForHelp& e) {
@@ -215,6 +280,7 @@ int run_command_line(int argc, const char* const* argv, std::ostream& out, std::
   if (check->parsed()) options.command = Command::check;
   if (capacity->parsed()) options.command = Command::capacity;
   if (springs->parsed()) options.command = Command::springs;
+  if (report->parsed()) options.command = Command::report;
   return run(options, out, err);
 }
 

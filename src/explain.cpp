@@ -38,22 +38,36 @@ std::vector<HandCheck> explain_pile(const Project& project, const CheckResults& 
     const auto& solution = cc.solution;
     std::vector<std::array<double, 2>> positions;
     std::optional<double> stiffness;
-    bool equal = true;
+    std::optional<std::size_t> first_type;
+    bool equal = true, one_type = true, from_soil = false;
     for (std::size_t i = 0; i < project.piles.size(); ++i) {
       if (!solution.piles[i].active) continue;
       const Pile& p = project.piles[i];
       positions.push_back({p.x, p.y});
-      const double k = project.pile_types[p.type].axial_stiffness_used();
+      if (first_type && *first_type != p.type) one_type = false;
+      if (!first_type) first_type = p.type;
+      // The solver's axial spring is the typed value, else (with a soil profile) one
+      // estimated from the soil (stiffness.hpp), else E·A/L. Only the first and last are
+      // known here; piles of one type share their spring whatever its source.
+      const PileType& type = project.pile_types[p.type];
+      if (!type.axial_stiffness && project.soil) {
+        from_soil = true;
+        continue;
+      }
+      const double k = type.axial_stiffness_used();
       if (stiffness && std::abs(k - *stiffness) > 1e-9 * *stiffness) equal = false;
       stiffness = k;
     }
+    const bool known_equal = one_type || (equal && !from_soil);
     if (!general.empty()) {
       h.why_not = general;
     } else if (solution.overturns) {
       h.why_not = "the cap overturns in this combination";
-    } else if (!equal) {
-      h.why_not = "the active piles have unequal axial stiffness; the hand formula assumes "
-                  "equal stiffness";
+    } else if (!known_equal) {
+      h.why_not = equal ? "the active piles are of several types with axial springs from the "
+                          "soil; the hand formula assumes equal stiffness"
+                        : "the active piles have unequal axial stiffness; the hand formula "
+                          "assumes equal stiffness";
     } else if (!solution.piles[pile].active) {
       h.why_not = "the pile dropped out (it takes no tension)";
     } else {

@@ -454,7 +454,10 @@ std::string capacity_section(const Project& p, const std::vector<PileTypeCapacit
       charted = &cap;
       break;
     }
-  s += "<h3>Capacity with depth</h3>\n";
+  if (charted && charted->type < p.pile_types.size())
+    s += "<h3>Capacity with depth, pile type " + esc(p.pile_types[charted->type].id) + "</h3>\n";
+  else
+    s += "<h3>Capacity with depth</h3>\n";
   if (charted)
     s += "<div class=\"figure\">\n" + render_depth_chart_svg(p, *charted) + "</div>\n";
   else
@@ -472,7 +475,7 @@ double nice_step(double raw) {
 
 std::string hand_check_section(const CheckReport& r) {
   if (!r.explain_pile) return "";
-  return "<section class=\"hand-check\" id=\"hand-check\">\n<h2>Hand check</h2>\n<pre>" +
+  return "<section class=\"hand-check\" id=\"hand-check\">\n<h2>6. Hand check</h2>\n<pre>" +
          esc(hand_check_text(r)) + "</pre>\n</section>\n";
 }
 

@@ -201,6 +201,7 @@ std::string render_plan_svg(const Project& p, const CheckResults* results,
   s += fmt::format("<text x=\"{}\" y=\"{}\" fill=\"#555555\" text-anchor=\"middle\">+y</text>\n",
                    num(kx), num(ky - axis - 6));
   // Piles.
+  const std::vector<LoadPoint> points = load_points(p);
   s += "<g class=\"piles\">\n";
   for (std::size_t i = 0; i < p.piles.size(); ++i) {
     const Pile& pile = p.piles[i];
@@ -234,15 +235,24 @@ std::string render_plan_svg(const Project& p, const CheckResults* results,
       s += fmt::format("<rect x=\"{}\" y=\"{}\" width=\"{}\" height=\"{}\" fill=\"{}\" "
                        "stroke=\"#222222\" stroke-width=\"1.2\"/>",
                        num(cx - size / 2.0), num(cy - size / 2.0), num(size), num(size), fill);
-    // The id sits inside the pile when it fits, otherwise above its top-right corner.
+    // The id sits inside the pile when it fits and no marker (origin, load point) is drawn
+    // over the pile; otherwise just outside its top-left corner.
+    const double half = type.section.width / 2.0;
+    auto inside = [&](double x, double y) {
+      return std::abs(x - pile.x) <= half && std::abs(y - pile.y) <= half;
+    };
+    bool crowded = inside(0.0, 0.0);
+    for (const LoadPoint& lp : points) crowded = crowded || inside(lp.x, lp.y);
     const double font = std::clamp(size * 0.42, 9.0, 13.0);
-    if (size >= 22.0)
+    if (size >= 22.0 && !crowded)
       s += fmt::format("<text x=\"{}\" y=\"{}\" text-anchor=\"middle\" font-size=\"{}\" "
                        "font-weight=\"bold\">{}</text>",
                        num(cx), num(cy + font * 0.35), num(font), xml_escape(pile.id));
     else
-      s += fmt::format("<text x=\"{}\" y=\"{}\" font-size=\"11\" font-weight=\"bold\">{}</text>",
-                       num(cx + size / 2.0 + 2.0), num(cy - size / 2.0 - 2.0),
+      s += fmt::format("<text x=\"{}\" y=\"{}\" text-anchor=\"end\" font-size=\"12\" "
+                       "font-weight=\"bold\" paint-order=\"stroke\" stroke=\"#ffffff\" "
+                       "stroke-width=\"3\">{}</text>",
+                       num(cx - size / 2.0 - 2.0), num(cy - size / 2.0 - 2.0),
                        xml_escape(pile.id));
     if (pile.batter && pile.batter->ratio > 0.0) {
       const double angle = pile.batter->toward_deg * kPi / 180.0;
@@ -266,7 +276,6 @@ std::string render_plan_svg(const Project& p, const CheckResults* results,
   s += "</g>\n";
 
   // Load points (columns, self-weight), tagged L1, L2 … and listed under the plan.
-  const std::vector<LoadPoint> points = load_points(p);
   std::vector<std::string> point_labels;
   s += "<g class=\"loads\">\n";
   for (std::size_t k = 0; k < points.size(); ++k) {

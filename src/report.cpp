@@ -482,6 +482,10 @@ std::string explain_block(const CheckReport& r, Format format) {
 
 }  // namespace
 
+std::string render_group(const CheckReport& report, Format format) {
+  return report.group ? group_block(report, format) : std::string();
+}
+
 std::string render_table(const Table& table, Format format) {
   std::string out;
   switch (format) {

@@ -14,7 +14,7 @@
 
 namespace cairn {
 
-enum class Command { check, capacity, springs };
+enum class Command { check, capacity, springs, report };
 
 struct Options {
   Command command = Command::check;
@@ -26,6 +26,9 @@ struct Options {
   // 0.5 m or 1 ft for the step, 3 m or 10 ft for the shortest length.
   std::optional<double> depth_step;
   std::optional<double> min_length;
+  // report: also the plan alone as SVG, and the tables as CSV and Markdown.
+  bool plan_svg = false;
+  bool tables = false;
 };
 
 inline constexpr int kExitPass = 0;

@@ -54,6 +54,9 @@ nlohmann::json check_json(const CheckReport& report);
 // one combination-<id>.csv per combination. (name, content) pairs.
 std::vector<std::pair<std::string, std::string>> check_files(const CheckReport& report);
 
+// The group checks section alone (text or Markdown); empty when the report has none.
+std::string render_group(const CheckReport& report, Format format);
+
 // The pile-head springs of every pile, for the global structural model (`cairn springs`).
 std::string render_springs(const Project& project, const std::vector<PileTypeStiffness>& stiffness,
                            Format format, const std::string& options);

@@ -22,8 +22,17 @@ CheckRun analyse_project(const std::string& file) {
   Diagnostics problems;
   for (const auto& u : unresisted_cases(project, solver)) {
     const LoadCase& lc = project.load_cases[u.load_case];
-    problems.error(lc.where, fmt::format("load_cases.{}: {} cannot be resisted: {}", lc.id,
-                                         u.load.component, u.load.reason));
+    // Point at the first load that has the component, else at the load case.
+    SourceLocation where = lc.where;
+    const auto component = static_cast<std::size_t>(
+        std::find(kWrenchNames.begin(), kWrenchNames.end(), u.load.component) - kWrenchNames.begin());
+    for (const auto& load : lc.loads)
+      if (component < 6 && load.load[component] != 0.0) {
+        where = load.where;
+        break;
+      }
+    problems.error(where, fmt::format("load_cases.{}: {} cannot be resisted: {}", lc.id,
+                                      u.load.component, u.load.reason));
   }
   run.resistances = resolve_resistances(
       project, computed_resistances(project, run.capacities, lateral_capacities(project)));

@@ -44,6 +44,10 @@ struct CapSolver::Impl {
   std::vector<Matrix36> maps;
   std::vector<Eigen::Matrix3d> stiffness;
   std::vector<Matrix6> contributions;  // Tᵀ·K_pile·T, summed over the active piles
+  // A pile that dropped out (it takes no tension) keeps its lateral spring: the soil still
+  // holds it across its axis. Its lateral-only stiffness and contribution:
+  std::vector<Eigen::Matrix3d> lateral_only;
+  std::vector<Matrix6> lateral_contributions;
   double length_scale = 1.0;  // m; rotations are scaled by it so all six dofs compare
   Eigen::Matrix<double, 6, 1> scale;
 
@@ -56,8 +60,7 @@ struct CapSolver::Impl {
   Decomposition decompose(const std::vector<bool>& active) const {
     Matrix6 k = Matrix6::Zero();
     for (std::size_t i = 0; i < maps.size(); ++i) {
-      if (!active[i]) continue;
-      k += contributions[i];
+      k += active[i] ? contributions[i] : lateral_contributions[i];
     }
     const Matrix6 d = scale.asDiagonal();
     Decomposition result{Eigen::SelfAdjointEigenSolver<Matrix6>(d * k * d), {}};
@@ -120,6 +123,11 @@ CapSolver::CapSolver(std::vector<PileSpring> springs)
     impl_->stiffness.push_back(pile_matrix(s));
     impl_->contributions.push_back(impl_->maps.back().transpose() * impl_->stiffness.back() *
                                    impl_->maps.back());
+    PileSpring lateral = s;
+    lateral.axial = 0.0;
+    impl_->lateral_only.push_back(pile_matrix(lateral));
+    impl_->lateral_contributions.push_back(impl_->maps.back().transpose() *
+                                           impl_->lateral_only.back() * impl_->maps.back());
     reach = std::max(reach, std::hypot(s.head[0], s.head[1]));
   }
   impl_->length_scale = std::max(reach, 1.0);
@@ -177,7 +185,7 @@ CapSolution forces_from(const std::vector<PileSpring>& springs, const std::vecto
     // An inactive pile keeps its would-be axial force for the closing test, but carries
     // nothing: report zero.
     pile.axial = active[i] ? s.axial * along : 0.0;
-    pile.lateral = active[i] ? s.lateral * (u - along * a).norm() : 0.0;
+    pile.lateral = s.lateral * (u - along * a).norm();
   }
   return solution;
 }
@@ -185,12 +193,13 @@ CapSolution forces_from(const std::vector<PileSpring>& springs, const std::vecto
 // |Σ R + F| / |F| with moments scaled by the length scale, R the pile forces on the cap.
 double equilibrium_residual(const std::vector<Matrix36>& maps,
                             const std::vector<Eigen::Matrix3d>& stiffness,
+                            const std::vector<Eigen::Matrix3d>& lateral_only,
                             const std::vector<bool>& active, const Vector6& movement,
                             const Vector6& load, const Vector6& scale) {
   Vector6 sum = load;
   for (std::size_t i = 0; i < maps.size(); ++i) {
-    if (!active[i]) continue;
-    const Eigen::Vector3d r = -stiffness[i] * (maps[i] * movement);  // pile force on the cap
+    const Eigen::Matrix3d& k = active[i] ? stiffness[i] : lateral_only[i];
+    const Eigen::Vector3d r = -k * (maps[i] * movement);  // pile force on the cap
     sum += maps[i].transpose() * r;  // Tᵀ·R = (R, p × R): the wrench of R about the origin
   }
   const Vector6 scaled_sum = scale.asDiagonal() * sum;
@@ -208,7 +217,7 @@ CapSolution CapSolver::solve_linear(const Wrench& load) const {
   CapSolution solution = forces_from(springs_, impl_->maps, u, all);
   solution.iterations = 1;
   solution.residual =
-      equilibrium_residual(impl_->maps, impl_->stiffness, all, u, f, impl_->scale);
+      equilibrium_residual(impl_->maps, impl_->stiffness, impl_->lateral_only, all, u, f, impl_->scale);
   return solution;
 }
 
@@ -233,7 +242,7 @@ CapSolution CapSolver::superpose(const std::vector<std::pair<const CapSolution*,
   const std::vector<bool> all(springs_.size(), true);
   CapSolution solution = forces_from(springs_, impl_->maps, u, all);
   solution.iterations = 0;
-  solution.residual = equilibrium_residual(impl_->maps, impl_->stiffness, all, u, to_vector(load),
+  solution.residual = equilibrium_residual(impl_->maps, impl_->stiffness, impl_->lateral_only, all, u, to_vector(load),
                                            impl_->scale);
   return solution;
 }
@@ -287,7 +296,7 @@ CapSolution CapSolver::solve(const Wrench& load) const {
         if (!active[i]) solution.dropped.push_back(i);
       solution.iterations = iteration;
       solution.residual =
-          equilibrium_residual(impl_->maps, impl_->stiffness, active, u, f, impl_->scale);
+          equilibrium_residual(impl_->maps, impl_->stiffness, impl_->lateral_only, active, u, f, impl_->scale);
       return solution;
     }
     if (one_at_a_time) {

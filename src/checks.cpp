@@ -210,6 +210,8 @@ CheckResults check_piles(const Project& project, const std::vector<CapSolution>&
       raise(e.max_compression, std::max(p.axial, 0.0));
       raise(e.max_tension, std::max(-p.axial, 0.0));
       raise(e.max_lateral, p.lateral);
+      if (!e.max_utilization.combination || p.utilization > e.max_utilization.value)
+        e.governing = p.governing;
       raise(e.max_utilization, p.utilization);
     }
     if (check.solution.overturns) {

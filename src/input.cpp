@@ -797,10 +797,12 @@ class Reader {
       check_keys(n, {"limit_state", "factors", "description"});
       if (auto ls = n.child("limit_state"); ls.present()) {
         if (auto v = choice<LimitState>(ls, {{"service", LimitState::service},
-                                             {"strength", LimitState::strength}}))
+                                             {"strength", LimitState::strength},
+                                             {"seismic-overstrength",
+                                              LimitState::seismic_overstrength}}))
           combo.limit_state = *v;
       } else {
-        diag_.error(at(n), fmt::format("{}.limit_state: missing; expected service or strength",
+        diag_.error(at(n), fmt::format("{}.limit_state: missing; expected service, strength or seismic-overstrength",
                                        n.path));
       }
       const Located factors = n.child("factors");

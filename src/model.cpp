@@ -86,6 +86,7 @@ const char* to_string(LimitState s) {
   switch (s) {
     case LimitState::service: return "service";
     case LimitState::strength: return "strength";
+    case LimitState::seismic_overstrength: return "seismic-overstrength";
   }
   return "?";
 }

@@ -384,8 +384,8 @@ Table envelope_table(const CheckReport& r) {
   t.title = "Envelope per pile";
   t.headers = {"pile",          "max compression (" + f + ")", "combination",
                "max tension (" + f + ")", "combination", "max lateral (" + f + ")",
-               "combination",   "max utilization",          "combination"};
-  t.numeric = {false, true, false, true, false, true, false, true, false};
+               "combination",   "max utilization",          "combination", "check"};
+  t.numeric = {false, true, false, true, false, true, false, true, false, false};
   for (std::size_t i = 0; i < p.piles.size(); ++i) {
     const PileEnvelope& e = r.results->envelope[i];
     t.rows.push_back({p.piles[i].id, u.force(e.max_compression.value),
@@ -393,7 +393,7 @@ Table envelope_table(const CheckReport& r) {
                       combo_id(r, e.max_tension.combination), u.force(e.max_lateral.value),
                       combo_id(r, e.max_lateral.combination),
                       utilization_text(e.max_utilization.value),
-                      combo_id(r, e.max_utilization.combination)});
+                      combo_id(r, e.max_utilization.combination), to_string(e.governing)});
   }
   return t;
 }
@@ -645,7 +645,8 @@ json check_json(const CheckReport& r) {
                         {"max_compression", extreme(e.max_compression, Quantity::force)},
                         {"max_tension", extreme(e.max_tension, Quantity::force)},
                         {"max_lateral", extreme(e.max_lateral, Quantity::force)},
-                        {"max_utilization", extreme(e.max_utilization, Quantity::number)}});
+                        {"max_utilization", extreme(e.max_utilization, Quantity::number)},
+                        {"governing", to_string(e.governing)}});
   }
   doc["envelope"] = envelope;
   if (r.group) doc["group"] = group_json(r);

@@ -155,7 +155,7 @@ fi
 # The message for a load nothing resists, pinned (found after reading, by the solver setup).
 run check "$data/e2e/unresisted_fx.yaml"
 expect_in "unresisted Fx" "$work/err" \
-  "cairn: $data/e2e/unresisted_fx.yaml:21:3: error: load_cases.L: Fx cannot be resisted: no battered piles and no lateral stiffness"
+  "cairn: $data/e2e/unresisted_fx.yaml:21:27: error: load_cases.L: Fx cannot be resisted: no battered piles and no lateral stiffness"
 # Several problems in one run: one line each.
 run check "$data/bad_several.yaml"
 if [ "$(grep -c '^cairn: ' "$work/err")" -eq 4 ]; then ok; else

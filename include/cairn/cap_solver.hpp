@@ -14,9 +14,10 @@
 // 1949; Saul 1968); for vertical piles of equal stiffness it reduces to
 //     P_i = P/n ± M_y·x_i/Σx² ± M_x·y_i/Σy² (with the product term for unsymmetric groups).
 //
-// Piles that take no tension are handled by an active set: piles in tension drop out, the
-// cap is solved again, and dropped piles that would close again come back, until the set
-// settles. When the remaining piles cannot hold the load the combination overturns.
+// Piles that take no tension are handled by an active set: piles in tension drop out (their
+// axial spring is removed; the lateral spring stays, since the soil still holds the pile
+// across its axis), the cap is solved again, and dropped piles that would close again come
+// back, until the set settles. When the remaining piles cannot hold the load the combination overturns.
 //
 // Units: kN, m, kN·m, kN/m, radians.
 #pragma once
@@ -45,7 +46,8 @@ std::vector<PileSpring> pile_springs(const Project& project);
 struct PileForce {
   double axial = 0.0;    // kN, compression positive
   double lateral = 0.0;  // kN, resultant shear across the pile axis
-  bool active = true;    // false: dropped out (would be in tension, takes none)
+  bool active = true;    // false: dropped out (would be in tension, takes none); its
+                         // lateral spring still acts
 };
 
 struct CapMovement {

@@ -98,6 +98,7 @@ struct PileEnvelope {
   Extreme max_tension;      // kN, ≥ 0 (magnitude)
   Extreme max_lateral;      // kN
   Extreme max_utilization;
+  Demand governing = Demand::none;  // the check that gives max_utilization
 };
 
 struct CheckSummary {

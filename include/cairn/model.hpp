@@ -38,8 +38,8 @@ struct Section {
 };
 
 // Limit state a combination belongs to; capacities are compared on the matching basis only:
-// service → allowable, strength → factored.
-enum class LimitState { service, strength };
+// service → allowable; strength and seismic overstrength (loads amplified by Ω0) → factored.
+enum class LimitState { service, strength, seismic_overstrength };
 
 // What a capacity number means.
 //   allowable: ultimate already divided by a factor of safety (service checks)

@@ -226,5 +226,50 @@ EOF
   fi
 done
 
+# ---- Loads imported from a reactions CSV: the same pile forces as the loads written out.
+expect_status "reactions.yaml passes" 0 check "$data/reactions/reactions.yaml" --format json
+cp "$work/out" "$work/imported.json"
+expect_status "direct.yaml passes" 0 check "$data/reactions/direct.yaml" --format json
+if python3 - "$work/imported.json" "$work/out" <<'PY'
+import json, math, sys
+a, b = (json.load(open(f)) for f in sys.argv[1:3])
+for ca, cb in zip(a["combinations"], b["combinations"]):
+    for pa, pb in zip(ca["piles"], cb["piles"]):
+        for key in ("axial", "lateral"):
+            if not math.isclose(pa[key], pb[key], rel_tol=1e-9, abs_tol=1e-9):
+                sys.exit(f"{ca['id']} {pa['id']} {key}: {pa[key]} != {pb[key]}")
+PY
+then ok; else bad "reactions round trip: pile forces differ"; fi
+expect_status "reactions: support absent from the file" 2 check "$data/reactions/bad_unmapped.yaml"
+expect_in "reactions: absent support named" "$work/err" "bad_unmapped.yaml:12:5: error: columns: support '777' of column 'C9' does not appear in"
+expect_status "reactions: support mapped twice" 2 check "$data/reactions/bad_twice.yaml"
+expect_in "reactions: twice named" "$work/err" "bad_twice.yaml:12:39: error: columns[1].support: support '101' is mapped twice (columns 'C1' and 'C9')"
+expect_status "reactions: non-numeric value" 2 check "$data/reactions/bad_value.yaml"
+expect_in "reactions: file, row and column named" "$work/err" "bad_value.csv:3: error: row 3, column 'Fy': expected a number (a force in kN), got 'x1'"
+
+# ---- Many caps: one summary table; exit 1 when any cap fails, 2 when any cannot be read.
+expect_status "batch, all pass" 0 check "$data/e2e/pass.yaml" "$data/base.yaml"
+expect_in "batch summary" "$work/out" "PASS: all 2 caps pass"
+expect_status "batch, one fails" 1 check "$data/e2e/pass.yaml" "$data/e2e/fail_overload.yaml"
+expect_in "batch names the failing count" "$work/out" "FAIL: 1 of 2 caps fail"
+expect_status "batch, one unreadable" 2 check "$data/e2e/pass.yaml" "$data/bad_pile_type.yaml"
+expect_status "batch --format json" 0 check "$data/e2e/pass.yaml" "$data/base.yaml" --format json
+if json_has_keys caps summary caution <"$work/out"; then ok; else bad "batch json keys"; fi
+
+# ---- Capacity from the soil, springs, generated combinations.
+expect_status "capacity" 0 capacity "$data/e2e/soil.yaml"
+expect_in "capacity breakdown" "$work/out" "Ultimate compression = tip + shaft"
+expect_in "capacity with depth" "$work/out" "Capacity with depth"
+expect_status "capacity --format json" 0 capacity "$data/e2e/soil.yaml" --format json
+if json_has_keys pile_types units caution <"$work/out"; then ok; else bad "capacity json keys"; fi
+expect_status "check with computed capacities" 0 check "$data/e2e/soil.yaml"
+expect_in "computed capacities stated" "$work/out" "computed from the soil"
+expect_status "springs --format csv" 0 springs "$data/e2e/soil.yaml" --format csv
+expect_in "springs header" "$work/out" "pile,type,x (m),y (m),axis x,axis y,axis z,axial (kN/m),lateral (kN/m),head"
+expect_status "generated combinations" 0 check "$data/e2e/generated.yaml"
+expect_in "generated combinations listed" "$work/out" "generated: asce7-lrfd"
+expect_status "unknown generator" 2 check "$data/e2e/bad_generator.yaml"
+expect_in "valid generators listed" "$work/err" "asce7-asd"
+
 echo "$passed passed, $failed failed"
 [ "$failed" -eq 0 ]

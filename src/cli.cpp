@@ -4,6 +4,7 @@
 
 #include <algorithm>
 #include <filesystem>
+#include <set>
 #include <thread>
 #include <ostream>
 
@@ -47,6 +48,27 @@ std::string describe_options(const Options& o) {
   return text;
 }
 
+// Every cap of the files given (foundation files expanded), analysed on all cores. Input
+// problems in any cap stop the run before anything is written.
+std::vector<CapOutcome> analyse_all(const std::vector<std::string>& given) {
+  std::vector<std::string> files;
+  for (const auto& f : given)
+    for (const auto& cap : expand_foundation(f)) files.push_back(cap);
+  auto outcomes = analyse_projects(files, std::max(1u, std::thread::hardware_concurrency()));
+  std::vector<Diagnostic> problems;
+  for (const auto& o : outcomes) problems.insert(problems.end(), o.problems.begin(), o.problems.end());
+  if (!problems.empty()) throw InputError(problems);
+  return outcomes;
+}
+
+// A file's stem for output names, made unique among the caps of one run (a.yaml, a-2, …).
+std::string unique_stem(const std::string& file, std::set<std::string>& used) {
+  const std::string stem = std::filesystem::path(file).stem().string();
+  std::string name = stem;
+  for (int n = 2; !used.insert(name).second; ++n) name = stem + "-" + std::to_string(n);
+  return name;
+}
+
 CapSummaryRow summary_row(const CheckRun& run) {
   const Project& p = run.project;
   const CheckSummary& s = run.results.summary;
@@ -73,24 +95,19 @@ CapSummaryRow summary_row(const CheckRun& run) {
 // Several caps: every file is checked (in parallel), then one summary table. Input
 // problems in any file stop the run before anything is written.
 int run_batch(const Options& options, std::ostream& out) {
-  std::vector<std::string> files;
-  for (const auto& f : options.files)
-    for (const auto& cap : expand_foundation(f)) files.push_back(cap);
   if (options.explain_pile) throw InputError({}, "--explain: give a single project file");
-  const auto outcomes = analyse_projects(files, std::max(1u, std::thread::hardware_concurrency()));
-  std::vector<Diagnostic> problems;
-  for (const auto& o : outcomes) problems.insert(problems.end(), o.problems.begin(), o.problems.end());
-  if (!problems.empty()) throw InputError(problems);
+  const auto outcomes = analyse_all(options.files);
   std::vector<CapSummaryRow> rows;
   std::vector<std::pair<std::string, std::string>> written;
   bool pass = true;
+  std::set<std::string> stems;
   const std::string described = describe_options(options);
   for (const auto& o : outcomes) {
     rows.push_back(summary_row(*o.run));
     pass = pass && rows.back().pass;
     if (options.out_dir) {
       const CheckReport report = make_check_report(*o.run, described, std::nullopt);
-      const std::string stem = std::filesystem::path(o.file).stem().string();
+      const std::string stem = unique_stem(o.file, stems);
       for (auto& [name, content] : check_files(report)) written.emplace_back(stem + "/" + name, content);
     }
   }
@@ -135,16 +152,11 @@ int run_capacity(const Options& options, std::ostream& out) {
 // plan alone as SVG and the tables as CSV and Markdown), all written at once.
 int run_report(const Options& options, std::ostream& out) {
   if (!options.out_dir) throw InputError({}, "report: expected --out DIR for the report files");
-  std::vector<std::string> files;
-  for (const auto& f : options.files)
-    for (const auto& cap : expand_foundation(f)) files.push_back(cap);
-  const auto outcomes = analyse_projects(files, std::max(1u, std::thread::hardware_concurrency()));
-  std::vector<Diagnostic> problems;
-  for (const auto& o : outcomes) problems.insert(problems.end(), o.problems.begin(), o.problems.end());
-  if (!problems.empty()) throw InputError(problems);
+  const auto outcomes = analyse_all(options.files);
   const std::string described = describe_options(options);
   std::vector<std::pair<std::string, std::string>> written;
   bool pass = true;
+  std::set<std::string> stems;
   for (const auto& o : outcomes) {
     const CheckRun& run = *o.run;
     pass = pass && run.results.summary.pass;
@@ -170,7 +182,7 @@ int run_report(const Options& options, std::ostream& out) {
           "<section id=\"group\"><h2>Group checks and settlement</h2><pre class=\"group\">" +
           escaped + "</pre></section>");
     }
-    std::string stem = std::filesystem::path(o.file).stem().string();
+    const std::string stem = unique_stem(o.file, stems);
     written.emplace_back(stem + ".html", render_html_report(input));
     if (options.plan_svg)
       written.emplace_back(stem + "-plan.svg",

@@ -132,8 +132,16 @@ std::vector<Diagnostic> group_input_problems(const Project& project,
     if (tip > project.soil->depth())
       missing.push_back("the piles reach below the soil profile's base");
     else {
+      // The summation stops where Δσ < 10 % of σ'v0, and Δσ grows with the load: look as
+      // deep as the largest service load will (a token load would stop at the first
+      // sublayer and miss the data of every layer below it).
+      double largest = 0.0;
+      for (const Combination& combo : project.combinations)
+        if (combo.limit_state == LimitState::service)
+          largest = std::max(largest, -combination_load(project, combo)[2]);
       const auto footing = equivalent_footing_settlement(*project.soil, block_plan(plans),
-                                                         project.cap.depth, tip, 1.0);
+                                                         project.cap.depth, tip,
+                                                         std::max(largest, 1.0));
       for (const auto& m : footing.missing) missing.push_back(m.message);
     }
     std::sort(missing.begin(), missing.end());

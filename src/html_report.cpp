@@ -69,7 +69,7 @@ table.meta th { background: none; }
 .eq { font-family: "DejaVu Serif", Georgia, "Times New Roman", serif; margin: 2pt 0 2pt 12pt; }
 .figure { page-break-inside: avoid; break-inside: avoid; margin: 6pt 0; }
 svg { max-width: 100%; height: auto; }
-pre { font-size: 8.5pt; white-space: pre-wrap; background: #f7f7f7; padding: 6pt; }
+pre { font-size: 8pt; white-space: pre; overflow-x: auto; background: #f7f7f7; padding: 6pt; }
 .caution { border: 2px solid var(--fail); padding: 8pt; font-weight: bold; margin-top: 16pt;
            page-break-inside: avoid; break-inside: avoid; }
 .combination { page-break-inside: avoid; break-inside: avoid; }
@@ -77,6 +77,7 @@ pre { font-size: 8.5pt; white-space: pre-wrap; background: #f7f7f7; padding: 6pt
 @media print {
   body { margin: 0; padding: 0; max-width: none; font-size: 9.5pt; }
   h2 { margin-top: 12pt; }
+  pre { white-space: pre-wrap; font-size: 7pt; }
   section.plan, section.capacity { page-break-before: always; break-before: page; }
 }
 )";

@@ -70,7 +70,7 @@ TEST_CASE("analysis: a load nothing resists is an input error", "[analysis]") {
     FAIL("expected an InputError");
   } catch (const InputError& e) {
     CHECK(formatted(e) == std::vector<std::string>{
-                              kData + "unresisted.yaml:19:3: error: load_cases.W: Fx cannot be "
+                              kData + "unresisted.yaml:19:27: error: load_cases.W: Fx cannot be "
                                       "resisted: no battered piles and no lateral stiffness"});
   }
 }

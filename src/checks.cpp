@@ -219,7 +219,10 @@ CheckResults check_piles(const Project& project, const std::vector<CapSolution>&
       summary.overturned.push_back(c);
     }
     if (!check.pass) ++summary.failed_combinations;
-    if (!summary.combination || check.max_utilization > summary.max_utilization) {
+    // An overturned combination has no pile forces to speak of: it fails on its own line
+    // and does not name a governing pile.
+    if (!check.solution.overturns &&
+        (!summary.combination || check.max_utilization > summary.max_utilization)) {
       summary.max_utilization = check.max_utilization;
       summary.combination = c;
       summary.pile = check.governing_pile;

@@ -566,10 +566,12 @@ std::string summary_line(const CheckReport& r) {
   std::string overturned;
   for (auto c : s.overturned) overturned += (overturned.empty() ? "" : ", ") + p.combinations[c].id;
   const bool group_fails = r.group && !r.group->pass;
-  return fmt::format("FAIL: {} of {} combinations fail; max utilization {} ({}){}{}",
-                     s.failed_combinations, p.combinations.size(),
-                     utilization_text(s.max_utilization), where,
-                     overturned.empty() ? "" : "; the cap overturns in " + overturned,
+  const std::string utilization =
+      s.combination ? fmt::format("; max utilization {} ({})", utilization_text(s.max_utilization), where)
+                    : std::string();
+  return fmt::format("FAIL: {} of {} combinations fail{}{}{}", s.failed_combinations,
+                     p.combinations.size(),
+                     overturned.empty() ? "" : "; the cap overturns in " + overturned, utilization,
                      group_fails ? "; group checks fail (see Group checks)" : "");
 }
 

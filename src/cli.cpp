@@ -148,6 +148,24 @@ int run_capacity(const Options& options, std::ostream& out) {
   return kExitPass;
 }
 
+// The group checks and settlement as an HTML section of the calculation package.
+std::string group_section_html(const CheckReport& report) {
+  const GroupParts parts = group_parts(report);
+  std::string html = "<section id=\"group\"><h2>Group checks and settlement</h2>\n";
+  auto lines = [&](const std::vector<std::string>& list) {
+    if (list.empty()) return;
+    html += "<ul>\n";
+    for (const auto& line : list) html += "<li>" + xml_escape(line) + "</li>\n";
+    html += "</ul>\n";
+  };
+  lines(parts.layout);
+  html += render_table_html(parts.efficiency);
+  lines(parts.checks);
+  html += render_table_html(parts.demand);
+  lines(parts.notes);
+  return html + "</section>";
+}
+
 // The calculation package: one self-contained HTML file per cap (plus, when asked, the
 // plan alone as SVG and the tables as CSV and Markdown), all written at once.
 int run_report(const Options& options, std::ostream& out) {
@@ -169,19 +187,7 @@ int run_report(const Options& options, std::ostream& out) {
     HtmlReportInput input;
     input.check = &report;
     input.capacities = &capacities;
-    {
-      std::string group = render_group(report, Format::text);
-      std::string escaped;
-      for (char c : group) {
-        if (c == '<') escaped += "&lt;";
-        else if (c == '>') escaped += "&gt;";
-        else if (c == '&') escaped += "&amp;";
-        else escaped += c;
-      }
-      input.extra_sections_html.push_back(
-          "<section id=\"group\"><h2>Group checks and settlement</h2><pre class=\"group\">" +
-          escaped + "</pre></section>");
-    }
+    input.extra_sections_html.push_back(group_section_html(report));
     const std::string stem = unique_stem(o.file, stems);
     written.emplace_back(stem + ".html", render_html_report(input));
     if (options.plan_svg)

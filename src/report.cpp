@@ -112,24 +112,21 @@ std::string mm_or_dash(const Units& u, std::optional<double> v) {
   return v ? u.small(*v) : std::string("-");
 }
 
-std::string group_block(const CheckReport& r, Format format) {
+GroupParts make_group_parts(const CheckReport& r) {
   const GroupResults& g = *r.group;
   const Project& p = *r.project;
   const Units u(p.units);
-  const bool md = format == Format::markdown;
-  const Format tf = md ? Format::markdown : Format::text;
-  std::string out = md ? "## Group checks\n\n" : "Group checks\n";
-  const std::string in = md ? "- " : "  ";
-  out += in + fmt::format("Block plan Bg × Lg = {} × {} {} (outer faces).\n", u.length(g.plan.width),
-                          u.length(g.plan.length), u.label(Quantity::length));
+  GroupParts parts;
+  auto& before = parts.layout;
+  before.push_back(fmt::format("Block plan Bg × Lg = {} × {} {} (outer faces).", u.length(g.plan.width),
+                               u.length(g.plan.length), u.label(Quantity::length)));
   const auto& grid = g.efficiencies.grid;
-  out += in + (grid.regular ? fmt::format("Layout: rectangular grid, {} rows × {} columns, spacing "
-                                          "x {} / y {} {}.\n",
-                                          grid.rows, grid.columns, u.length(grid.spacing_x),
-                                          u.length(grid.spacing_y), u.label(Quantity::length))
-                            : fmt::format("Layout: irregular ({}).\n", grid.reason));
-  out += "\n";
-  Table eff;
+  before.push_back(grid.regular ? fmt::format("Layout: rectangular grid, {} rows × {} columns, spacing "
+                                              "x {} / y {} {}.",
+                                              grid.rows, grid.columns, u.length(grid.spacing_x),
+                                              u.length(grid.spacing_y), u.label(Quantity::length))
+                                : fmt::format("Layout: irregular ({}).", grid.reason));
+  Table& eff = parts.efficiency;
   eff.title = "Group efficiency, every method";
   eff.headers = {"method", "η", "note"};
   eff.numeric = {false, true, false};
@@ -137,42 +134,41 @@ std::string group_block(const CheckReport& r, Format format) {
     eff.rows.push_back({std::string(to_string(e.method)) +
                             (e.method == g.applied.method ? " (applied)" : ""),
                         e.value ? fmt::format("{:.3f}", *e.value) : std::string("-"), e.note});
-  out += render_table(eff, tf);
   const std::string f = u.label(Quantity::force);
+  auto& checks = parts.checks;
   if (g.block)
-    out += in + fmt::format("Block failure (clay): Q_block = Bg·Lg·cu·Nc + 2(Bg + Lg)·Σcu·ΔL = {} + "
-                            "{} = {} {} (Skempton Nc = {:.2f}, cu at base {} {}).\n",
-                            u.force(g.block->base), u.force(g.block->perimeter),
-                            u.force(g.block->capacity), f, g.block->nc,
-                            fmt::format("{:.1f}", from_si(p.units, Quantity::pressure, g.block->base_strength)),
-                            u.label(Quantity::pressure));
+    checks.push_back(fmt::format("Block failure (clay): Q_block = Bg·Lg·cu·Nc + 2(Bg + Lg)·Σcu·ΔL = {} + "
+                                 "{} = {} {} (Skempton Nc = {:.2f}, cu at base {} {}).",
+                                 u.force(g.block->base), u.force(g.block->perimeter),
+                                 u.force(g.block->capacity), f, g.block->nc,
+                                 fmt::format("{:.1f}", from_si(p.units, Quantity::pressure, g.block->base_strength)),
+                                 u.label(Quantity::pressure)));
   if (g.capacity_allowable)
-    out += in + fmt::format("Group capacity, allowable: {} {}", u.force(*g.capacity_allowable), f) +
-           (g.capacity_factored ? fmt::format("; factored: {} {}", u.force(*g.capacity_factored), f) : "") +
-           fmt::format(" (governed by {}).\n", g.governing);
+    checks.push_back(fmt::format("Group capacity, allowable: {} {}", u.force(*g.capacity_allowable), f) +
+                     (g.capacity_factored ? fmt::format("; factored: {} {}", u.force(*g.capacity_factored), f) : "") +
+                     fmt::format(" (governed by {}).", g.governing));
   else if (g.capacity_factored)
-    out += in + fmt::format("Group capacity, factored: {} {} (governed by {}).\n",
-                            u.force(*g.capacity_factored), f, g.governing);
-  out += in + fmt::format("Spacing: smallest centre-to-centre {} {} (minimum {:g} pile widths{}); {}.\n",
-                          u.length(g.spacing.smallest), u.label(Quantity::length),
-                          p.group.min_spacing_factor,
-                          p.group.min_spacing > 0 ? ", at least " + u.length(p.group.min_spacing) + " " + u.label(Quantity::length) : "",
-                          g.spacing.violations.empty() ? "ok" : "FAIL");
+    checks.push_back(fmt::format("Group capacity, factored: {} {} (governed by {}).",
+                                 u.force(*g.capacity_factored), f, g.governing));
+  checks.push_back(fmt::format("Spacing: smallest centre-to-centre {} {} (minimum {:g} pile widths{}); {}.",
+                               u.length(g.spacing.smallest), u.label(Quantity::length),
+                               p.group.min_spacing_factor,
+                               p.group.min_spacing > 0 ? ", at least " + u.length(p.group.min_spacing) + " " + u.label(Quantity::length) : "",
+                               g.spacing.violations.empty() ? "ok" : "FAIL"));
   for (const auto& v : g.spacing.violations)
-    out += in + fmt::format("  FAIL: piles {} and {} are {} {} apart, less than {} {}.\n", v.first,
-                            v.second, u.length(v.distance), u.label(Quantity::length),
-                            u.length(v.required), u.label(Quantity::length));
+    checks.push_back(fmt::format("FAIL: piles {} and {} are {} {} apart, less than {} {}.", v.first,
+                                 v.second, u.length(v.distance), u.label(Quantity::length),
+                                 u.length(v.required), u.label(Quantity::length)));
   if (g.edge) {
-    out += in + fmt::format("Edge distance (pile face to cap edge, minimum {} {}): {}.\n",
-                            u.length(g.edge->minimum), u.label(Quantity::length),
-                            g.edge->offenders.empty() ? "ok" : "FAIL");
+    checks.push_back(fmt::format("Edge distance (pile face to cap edge, minimum {} {}): {}.",
+                                 u.length(g.edge->minimum), u.label(Quantity::length),
+                                 g.edge->offenders.empty() ? "ok" : "FAIL"));
     for (const auto& e : g.edge->piles)
       if (!e.ok)
-        out += in + fmt::format("  FAIL: pile {} is {} {} from the edge.\n", e.id,
-                                u.length(e.distance), u.label(Quantity::length));
+        checks.push_back(fmt::format("FAIL: pile {} is {} {} from the edge.", e.id,
+                                     u.length(e.distance), u.label(Quantity::length)));
   }
-  out += "\n";
-  Table t;
+  Table& t = parts.demand;
   t.title = "Group demand per combination";
   t.headers = {"combination", "Σ compression (" + f + ")", "group capacity (" + f + ")", "utilization",
                "Σ tension (" + f + ")", "uplift capacity (" + f + ")", "uplift utilization", "tilt"};
@@ -202,11 +198,24 @@ std::string group_block(const CheckReport& r, Format format) {
     row.push_back(gc.pass ? "ok" : "FAIL");
     t.rows.push_back(row);
   }
-  out += render_table(t, tf);
   if (g.settlement_asked)
-    out += in + fmt::format("Tolerable settlement: {} {}.\n", u.small(g.settlement_limit),
-                            u.label(Quantity::small_length));
-  for (const auto& n : g.notes) out += in + "Note: " + n + "\n";
+    parts.notes.push_back(fmt::format("Tolerable settlement: {} {}.", u.small(g.settlement_limit),
+                                      u.label(Quantity::small_length)));
+  for (const auto& n : g.notes) parts.notes.push_back("Note: " + n);
+  return parts;
+}
+
+std::string group_block(const CheckReport& r, Format format) {
+  const GroupParts parts = make_group_parts(r);
+  const bool md = format == Format::markdown;
+  const Format tf = md ? Format::markdown : Format::text;
+  const std::string in = md ? "- " : "  ";
+  std::string out = md ? "## Group checks\n\n" : "Group checks\n";
+  for (const auto& line : parts.layout) out += in + line + "\n";
+  out += "\n" + render_table(parts.efficiency, tf);
+  for (const auto& line : parts.checks) out += in + line + "\n";
+  out += "\n" + render_table(parts.demand, tf);
+  for (const auto& line : parts.notes) out += in + line + "\n";
   return out + "\n";
 }
 
@@ -484,6 +493,10 @@ std::string explain_block(const CheckReport& r, Format format) {
 
 std::string render_group(const CheckReport& report, Format format) {
   return report.group ? group_block(report, format) : std::string();
+}
+
+GroupParts group_parts(const CheckReport& report) {
+  return report.group ? make_group_parts(report) : GroupParts{};
 }
 
 std::string render_table(const Table& table, Format format) {

@@ -57,6 +57,18 @@ std::vector<std::pair<std::string, std::string>> check_files(const CheckReport& 
 // The group checks section alone (text or Markdown); empty when the report has none.
 std::string render_group(const CheckReport& report, Format format);
 
+// The group checks as pieces, for renderers of their own (HTML): lines of text about the
+// layout, the efficiency table, lines about capacity, spacing and edge distance, the
+// demand-per-combination table, and notes.
+struct GroupParts {
+  std::vector<std::string> layout;
+  Table efficiency;
+  std::vector<std::string> checks;
+  Table demand;
+  std::vector<std::string> notes;
+};
+GroupParts group_parts(const CheckReport& report);
+
 // The pile-head springs of every pile, for the global structural model (`cairn springs`).
 std::string render_springs(const Project& project, const std::vector<PileTypeStiffness>& stiffness,
                            Format format, const std::string& options);

@@ -525,6 +525,9 @@ void check_layer_methods(const SoilLayer& layer, const PileDesign& design, bool 
 
 }  // namespace
 
+bool applies_to(TipMethod method, SoilKind kind) { return applies(method, kind); }
+bool applies_to(ShaftMethod method, SoilKind kind) { return applies(method, kind); }
+
 std::vector<std::string> validate_design(const SoilProfile& profile, const PileGeometry& pile,
                                          const PileDesign& design,
                                          std::optional<double> table_min_length) {

@@ -105,10 +105,9 @@ std::vector<PileTypeResistance> resolve_resistances(
     if (t < computed.size() && computed[t]) {
       const ComputedResistance& c = *computed[t];
       const bool had_lateral = r.allowable.lateral.has_value();
+      const bool had_factored_lateral = r.factored.lateral.has_value();
       fill(r.allowable.lateral, c.allowable_lateral);
       fill(r.factored.lateral, c.factored_lateral);
-      if (!had_lateral && c.allowable_lateral)
-        r.allowable.source += (r.allowable.source.empty() ? "" : "; ") + std::string("lateral ") + c.lateral_method;
       const bool had_allowable = r.allowable.compression.has_value() || !c.allowable_compression;
       const bool had_factored = r.factored.compression.has_value() || !c.factored_compression;
       fill(r.allowable.compression, c.allowable_compression);
@@ -117,6 +116,12 @@ std::vector<PileTypeResistance> resolve_resistances(
       fill(r.factored.tension, c.factored_tension);
       if (!had_allowable) r.allowable.source = "computed from the soil: " + c.method;
       if (!had_factored) r.factored.source = "computed from the soil: " + c.method;
+      auto add = [](std::string& source, const std::string& text) {
+        source += (source.empty() ? "" : "; ") + text;
+      };
+      if (!had_lateral && c.allowable_lateral) add(r.allowable.source, "lateral by " + c.lateral_method);
+      if (!had_factored_lateral && c.factored_lateral)
+        add(r.factored.source, "lateral by " + c.lateral_method);
     }
   }
   return result;
@@ -241,8 +246,11 @@ std::vector<std::string> assumptions(
   list.push_back("The cap is rigid: it moves as one body with six degrees of freedom.");
   list.push_back("Pile heads act on the cap as an axial spring along the pile and a lateral "
                  "spring across it; no moment is transferred to the cap.");
+  std::set<std::size_t> used;
+  for (const Pile& pile : project.piles) used.insert(pile.type);
   for (std::size_t t = 0; t < project.pile_types.size(); ++t) {
     const PileType& type = project.pile_types[t];
+    if (!used.count(t)) continue;  // a type from a shared file that no pile uses
     if (t < stiffness_sources.size()) {
       list.push_back(fmt::format("Pile type {}: axial stiffness {}.", type.id,
                                  stiffness_sources[t].first));
@@ -268,10 +276,12 @@ std::vector<std::string> assumptions(
       auto structural = [&](const Resistance& res, const char* basis) {
         if (!res.structural_axial) return;
         std::string text = fmt::format(
-            "Pile type {}: structural {} axial capacity {:.1f} {} (Po of ACI 318-19 eq. 22.4.2.2 "
-            "× the factor given)",
+            "Pile type {}: structural {} axial capacity {:.1f} {} ({} × the factor given)",
             type.id, basis, from_si(u, Quantity::force, *res.structural_axial),
-            unit_label(u, Quantity::force));
+            unit_label(u, Quantity::force),
+            type.structure && type.structure->concrete_strength
+                ? "Po = 0.85·f'c·(Ag − As) + fy·As, ACI 318-19 eq. 22.4.2.2"
+                : "fy·A of the steel section");
         if (res.structural_moment)
           text += fmt::format(", moment capacity {:.1f} {}; fixed heads: |P|/Pc + |M|/Mc ≤ 1",
                               from_si(u, Quantity::moment, *res.structural_moment),

@@ -12,6 +12,7 @@
 
 #include <fmt/format.h>
 
+#include "cairn/capacity.hpp"
 #include "cairn/combinations.hpp"
 #include "cairn/group.hpp"
 
@@ -538,7 +539,9 @@ class Reader {
       if (auto c = n.child("clay"); c.present()) for_clay = choice<T>(c, names);
       if (auto s = n.child("sand"); s.present()) for_sand = choice<T>(s, names);
     } else if (auto v = choice<T>(n, names)) {
-      for_clay = for_sand = v;
+      // One name for both kinds of soil: used wherever the method applies.
+      if (applies_to(*v, SoilKind::clay)) for_clay = v;
+      if (applies_to(*v, SoilKind::sand)) for_sand = v;
     }
   }
 
@@ -642,6 +645,26 @@ class Reader {
       design.phi_tip = number(n, "resistance_factor_tip", Quantity::number, Need::optional);
       design.phi_shaft = number(n, "resistance_factor_shaft", Quantity::number, Need::optional);
       design.phi_uplift = number(n, "resistance_factor_uplift", Quantity::number, Need::optional);
+      for (const char* key : {"factor_of_safety", "factor_of_safety_tip", "factor_of_safety_shaft",
+                              "factor_of_safety_tension"}) {
+        const Located f = n.child(key);
+        if (f.present() && f.node.IsScalar()) {
+          const auto v = parse_quantity(f.node.Scalar(), Quantity::number, units_of(n));
+          if (v.si && *v.si < 1.0)
+            diag_.error(at(f), fmt::format("{}: expected a factor of safety of at least 1, got '{}'",
+                                           f.path, f.node.Scalar()));
+        }
+      }
+      for (const char* key : {"resistance_factor_tip", "resistance_factor_shaft",
+                              "resistance_factor_uplift"}) {
+        const Located f = n.child(key);
+        if (f.present() && f.node.IsScalar()) {
+          const auto v = parse_quantity(f.node.Scalar(), Quantity::number, units_of(n));
+          if (v.si && *v.si > 1.0)
+            diag_.error(at(f), fmt::format("{}: expected a resistance factor φ from 0 to 1, got '{}'",
+                                           f.path, f.node.Scalar()));
+        }
+      }
       if (design.computes_capacity() && !project.soil)
         diag_.error(at(n), fmt::format("{}: tip_method and shaft_method need a soil profile "
                                        "(soil: {{layers: …}})",
@@ -924,6 +947,7 @@ class Reader {
     for (std::size_t i = 0; i < project.load_cases.size(); ++i)
       case_of[project.load_cases[i].id] = i;
     std::set<std::string> seen_supports;
+    std::map<std::pair<std::string, std::string>, int> seen_rows;  // (support, case) → row
     int row = 1;
     while (std::getline(in, line)) {
       ++row;
@@ -944,6 +968,14 @@ class Reader {
                     fmt::format("row {}: load case '{}' is not listed under load_cases; add it "
                                 "with its kind (e.g. {}: {{kind: dead}})",
                                 row, case_id, case_id));
+        continue;
+      }
+      auto [earlier, fresh] = seen_rows.emplace(std::make_pair(support, case_id), row);
+      if (!fresh) {
+        diag_.error({csv_name, row, 0},
+                    fmt::format("row {}: support '{}' and load case '{}' were already given in "
+                                "row {}; expected one row per support and load case",
+                                row, support, case_id, earlier->second));
         continue;
       }
       PointLoad load;

@@ -93,10 +93,12 @@ std::vector<std::optional<LateralCapacity>> lateral_capacities(const Project& pr
       c.ultimate = b.ultimate_load;
       c.allowable = allowable_lateral_load(b.ultimate_load);
       c.factored = kBromsResistanceFactor * b.ultimate_load;
-      c.method = fmt::format("Broms (1964), {} pile, {} head, in layer '{}': H_ult = {:.1f} kN, "
+      c.method = fmt::format("Broms (1964), {} pile, {} head, in layer '{}': H_ult = {:.1f} {}, "
                              "allowable H_ult/{:g}, factored {:g}·H_ult",
-                             to_string(b.mode), to_string(type.head), layer->name, b.ultimate_load,
-                             kLateralFactorOfSafety, kBromsResistanceFactor);
+                             to_string(b.mode), to_string(type.head), layer->name,
+                             from_si(project.units, Quantity::force, b.ultimate_load),
+                             unit_label(project.units, Quantity::force), kLateralFactorOfSafety,
+                             kBromsResistanceFactor);
       if (!in.yield_moment) c.method += " (no yield_moment given: short-pile mechanism only)";
       out[t] = c;
     } catch (const std::invalid_argument&) {

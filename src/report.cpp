@@ -40,11 +40,22 @@ class Units {
  public:
   explicit Units(UnitSystem system) : u_(system) {}
   std::string label(Quantity q) const { return unit_label(u_, q); }
-  double value(Quantity q, double si) const { return from_si(u_, q, si); }
-  std::string force(double si) const { return fmt::format("{:.{}f}", value(Quantity::force, si), digits(Quantity::force)); }
-  std::string length(double si) const { return fmt::format("{:.{}f}", value(Quantity::length, si), digits(Quantity::length)); }
-  std::string moment(double si) const { return fmt::format("{:.{}f}", value(Quantity::moment, si), digits(Quantity::moment)); }
-  std::string small(double si) const { return fmt::format("{:.3f}", value(Quantity::small_length, si)); }
+  // The value in the project's unit; a negative zero (or a round-off below the printed
+  // precision) prints as 0.
+  double value(Quantity q, double si) const {
+    const double v = from_si(u_, q, si);
+    return std::abs(v) < 5e-7 ? 0.0 : v;
+  }
+  std::string force(double si) const { return fixed(value(Quantity::force, si), digits(Quantity::force)); }
+  std::string length(double si) const { return fixed(value(Quantity::length, si), digits(Quantity::length)); }
+  std::string moment(double si) const { return fixed(value(Quantity::moment, si), digits(Quantity::moment)); }
+  std::string small(double si) const { return fixed(value(Quantity::small_length, si), 3); }
+  // Fixed decimals without a minus sign on a value that rounds to zero.
+  static std::string fixed(double v, int decimals) {
+    std::string text = fmt::format("{:.{}f}", v, decimals);
+    if (text.front() == '-' && text.find_first_not_of("-0.") == std::string::npos) text.erase(0, 1);
+    return text;
+  }
   std::string stiffness(double si) const {
     const double v = value(Quantity::stiffness, si);
     return std::abs(v) >= 1e4 ? fmt::format("{:.0f}", v) : fmt::format("{:.4g}", v);

@@ -44,11 +44,17 @@ struct Subgrade {
   std::string source;
 };
 
-std::optional<Subgrade> subgrade_modulus(const SoilLayer& layer, const PileType& type) {
+std::optional<Subgrade> subgrade_modulus(const SoilLayer& layer, const PileType& type,
+                                         UnitSystem units) {
   const double d = type.section.width;
+  // kh in the project's units: kN/m³ or pcf.
+  auto kh_text = [&](double kh) {
+    return fmt::format("{:.0f} {}", from_si(units, Quantity::unit_weight, kh),
+                       unit_label(units, Quantity::unit_weight));
+  };
   if (layer.subgrade_modulus)
     return Subgrade{*layer.subgrade_modulus,
-                    fmt::format("kh = {:.0f} kN/m³ given for layer '{}'", *layer.subgrade_modulus,
+                    fmt::format("kh = {} given for layer '{}'", kh_text(*layer.subgrade_modulus),
                                 layer.name)};
   if (layer.soil_modulus && type.elastic_modulus > 0) {
     const double es = *layer.soil_modulus;
@@ -56,14 +62,13 @@ std::optional<Subgrade> subgrade_modulus(const SoilLayer& layer, const PileType&
     const double ei = type.elastic_modulus * section_inertia(type.section);
     const double k = kVesicSubgradeFactor * std::pow(es * std::pow(d, 4) / ei, 1.0 / 12.0) * es /
                      (1.0 - mu * mu);
-    return Subgrade{k / d, fmt::format("kh = {:.0f} kN/m³ from Vesić (1961) with Es of layer '{}'",
-                                       k / d, layer.name)};
+    return Subgrade{k / d, fmt::format("kh = {} from Vesić (1961) with Es of layer '{}'",
+                                       kh_text(k / d), layer.name)};
   }
   if (layer.kind == SoilKind::clay && layer.undrained_strength)
     return Subgrade{kDavissonFactor * *layer.undrained_strength / d,
-                    fmt::format("kh = 67·cu/D = {:.0f} kN/m³ (Davisson 1970, from memory) for "
-                                "layer '{}'",
-                                kDavissonFactor * *layer.undrained_strength / d, layer.name)};
+                    fmt::format("kh = 67·cu/D = {} (Davisson 1970, from memory) for layer '{}'",
+                                kh_text(kDavissonFactor * *layer.undrained_strength / d), layer.name)};
   return std::nullopt;
 }
 
@@ -116,9 +121,10 @@ std::vector<PileTypeStiffness> pile_type_stiffness(const Project& project,
             s.axial = k.stiffness;
             s.axial_source = fmt::format(
                 "secant Q/s from Vesić (1977) settlement at the allowable load: {:.1f} {} over "
-                "{:.2f} mm",
+                "{:.3f} {}",
                 from_si(u, Quantity::force, q), unit_label(u, Quantity::force),
-                k.settlement * 1000.0);
+                from_si(u, Quantity::small_length, k.settlement),
+                unit_label(u, Quantity::small_length));
           }
         } else {
           s.axial_source += "; the soil profile lacks soil_modulus for a settlement-based value";
@@ -135,7 +141,7 @@ std::vector<PileTypeStiffness> pile_type_stiffness(const Project& project,
       if (project.soil && type.elastic_modulus > 0) {
         const SoilLayer* top = layer_at(*project.soil, project.cap.depth + 1e-9);
         if (top) {
-          if (auto kh = subgrade_modulus(*top, type)) {
+          if (auto kh = subgrade_modulus(*top, type, u)) {
             ElasticPile pile;
             pile.bending_stiffness = type.elastic_modulus * section_inertia(type.section);
             pile.subgrade_modulus = kh->kh;

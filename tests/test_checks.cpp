@@ -99,7 +99,8 @@ TEST_CASE("checks: typed-in capacities win value by value over computed ones", "
   CHECK(*r[0].factored.compression == 1100.0);   // no factored typed in: all computed
   CHECK(*r[0].factored.tension == 400.0);
   CHECK(*r[0].factored.lateral == 125.0);
-  CHECK(r[0].factored.source == "computed from the soil: tip vesic, shaft beta");
+  CHECK(r[0].factored.source ==
+        "computed from the soil: tip vesic, shaft beta; lateral by Broms (1964)");
   CHECK(r[0].allowable.source.find("allowable values given") != std::string::npos);
 }
 

@@ -131,6 +131,10 @@ std::vector<std::string> validate_design(const SoilProfile& profile, const PileG
                                          const PileDesign& design,
                                          std::optional<double> table_min_length = std::nullopt);
 
+// Whether a method applies to a kind of soil (e.g. alpha-api to clay only).
+bool applies_to(TipMethod method, SoilKind kind);
+bool applies_to(ShaftMethod method, SoilKind kind);
+
 // Valid method names, as written in a project file (and as to_string returns them).
 std::vector<std::string> tip_method_names();
 std::vector<std::string> shaft_method_names();

@@ -2,6 +2,7 @@
 
 #include <algorithm>
 #include <atomic>
+#include <stdexcept>
 #include <thread>
 
 #include <fmt/format.h>
@@ -64,6 +65,9 @@ std::vector<CapOutcome> analyse_projects(const std::vector<std::string>& files,
         outcomes[i].run = analyse_project(files[i]);
       } catch (const InputError& e) {
         outcomes[i].problems = e.diagnostics();
+      } catch (const std::invalid_argument& e) {
+        // A method refused its data (outside its range of validity): an input problem.
+        outcomes[i].problems = {{{files[i], 0, 0}, std::string("cannot compute: ") + e.what()}};
       }
     }
   };

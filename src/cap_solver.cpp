@@ -269,11 +269,9 @@ CapSolution CapSolver::solve(const Wrench& load) const {
       }
       failed.overturns = true;
       failed.iterations = iteration;
-      failed.failure = fmt::format(
-          "the cap overturns: the piles that take no tension cannot hold the resultant "
-          "(Fz = {:.4g} kN, Mx = {:.4g} kN·m, My = {:.4g} kN·m about the origin); it lies "
-          "outside the reach of the piles left in compression",
-          load[2], load[3], load[4]);
+      failed.failure =
+          "the cap overturns: the piles that take no tension cannot hold the resultant of the "
+          "loads; it lies outside the reach of the piles left in compression";
       return failed;
     }
     const Vector6 u = impl_->solve(dec, f);

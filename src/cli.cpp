@@ -227,6 +227,13 @@ int run(const Options& options, std::ostream& out, std::ostream& err) {
   } catch (const OutputError& e) {
     err << "cairn: error: " << e.what() << "\n";
     return kExitBadInput;
+  } catch (const std::invalid_argument& e) {
+    // A method refused its data (outside its range of validity).
+    err << "cairn: error: cannot compute: " << e.what() << "\n";
+    return kExitBadInput;
+  } catch (const std::exception& e) {
+    err << "cairn: internal error: " << e.what() << "\n";
+    return kExitBadInput;
   }
 }
 

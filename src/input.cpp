@@ -1110,6 +1110,10 @@ class Reader {
       layer.friction_angle = opt("friction_angle", Quantity::angle);
       layer.soil_modulus = opt("soil_modulus", Quantity::pressure);
       layer.poisson_ratio = opt("poisson_ratio", Quantity::number, Sign::non_negative);
+      if (layer.poisson_ratio && *layer.poisson_ratio >= 0.5)
+        diag_.error(at(l.child("poisson_ratio")),
+                    fmt::format("{} ('{}').poisson_ratio: expected 0 to less than 0.5, got {:g}", l.path, layer.name,
+                                *layer.poisson_ratio));
       layer.volumetric_strain = opt("volumetric_strain", Quantity::number, Sign::non_negative);
       layer.shaft_k = opt("shaft_k", Quantity::number);
       layer.shaft_delta = opt("shaft_delta", Quantity::angle, Sign::non_negative);

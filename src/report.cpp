@@ -372,7 +372,13 @@ std::string combination_note(const CheckReport& r, const CombinationCheck& cc) {
   const Units u(p.units);
   const auto& m = cc.solution.movement;
   std::string text;
-  if (cc.solution.overturns) return "FAIL: " + cc.solution.failure;
+  if (cc.solution.overturns) {
+    const Wrench f = combination_load(p, p.combinations[cc.combination]);
+    return fmt::format("FAIL: {} (resultant about the origin: Fz = {} {}, Mx = {} {}, My = {} {})",
+                       cc.solution.failure, u.force(f[2]), u.label(Quantity::force),
+                       u.moment(f[3]), u.label(Quantity::moment), u.moment(f[4]),
+                       u.label(Quantity::moment));
+  }
   text = fmt::format("Cap movement: translation ({}, {}, {}) {}, rotation ({:.3e}, {:.3e}, "
                      "{:.3e}) rad.",
                      u.small(m.translation[0]), u.small(m.translation[1]),

@@ -247,6 +247,12 @@ expect_in "reactions: twice named" "$work/err" "bad_twice.yaml:12:39: error: col
 expect_status "reactions: non-numeric value" 2 check "$data/reactions/bad_value.yaml"
 expect_in "reactions: file, row and column named" "$work/err" "bad_value.csv:3: error: row 3, column 'Fy': expected a number (a force in kN), got 'x1'"
 
+expect_status "reactions: a row given twice" 2 check "$data/reactions/bad_repeated.yaml"
+expect_in "reactions: repeated row named" "$work/err" "bad_repeated.csv:3: error: row 3: support '101' and load case 'D' were already given in row 2"
+expect_status "factors out of range" 2 check "$data/e2e/bad_factors.yaml"
+expect_in "factor of safety below 1" "$work/err" "pile_types.PC45.factor_of_safety: expected a factor of safety of at least 1, got '0.8'"
+expect_in "resistance factor above 1" "$work/err" "pile_types.PC45.resistance_factor_tip: expected a resistance factor φ from 0 to 1, got '1.5'"
+
 # ---- Many caps: one summary table; exit 1 when any cap fails, 2 when any cannot be read.
 expect_status "batch, all pass" 0 check "$data/e2e/pass.yaml" "$data/base.yaml"
 expect_in "batch summary" "$work/out" "PASS: all 2 caps pass"

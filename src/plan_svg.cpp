@@ -329,7 +329,7 @@ std::string render_plan_svg(const Project& p, const CheckResults* results,
     s += fmt::format("<rect x=\"{}\" y=\"{}\" width=\"14\" height=\"14\" fill=\"{}\" "
                      "stroke=\"#222222\"/><text x=\"{}\" y=\"{}\">{}</text>",
                      num(lx), num(by - 3), utilization_colour(b.sample), num(lx + 18),
-                     num(by + 8), b.label);
+                     num(by + 8), xml_escape(b.label));
     lx += 70.0;
   }
   if (!results)

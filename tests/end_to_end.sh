@@ -253,6 +253,12 @@ expect_status "factors out of range" 2 check "$data/e2e/bad_factors.yaml"
 expect_in "factor of safety below 1" "$work/err" "pile_types.PC45.factor_of_safety: expected a factor of safety of at least 1, got '0.8'"
 expect_in "resistance factor above 1" "$work/err" "pile_types.PC45.resistance_factor_tip: expected a resistance factor φ from 0 to 1, got '1.5'"
 
+# ---- The calculation package: HTML per cap, and the plan alone as SVG that is valid XML.
+expect_status "report --svg" 0 report "$data/e2e/pass.yaml" --out "$work/package" --svg
+if [ -s "$work/package/pass.html" ]; then ok; else bad "report wrote no pass.html"; fi
+if python3 -c 'import sys, xml.etree.ElementTree as E; E.parse(sys.argv[1])' "$work/package/pass-plan.svg" 2>"$work/err"
+then ok; else bad "the plan SVG is not well-formed XML"; fi
+
 # ---- Many caps: one summary table; exit 1 when any cap fails, 2 when any cannot be read.
 expect_status "batch, all pass" 0 check "$data/e2e/pass.yaml" "$data/base.yaml"
 expect_in "batch summary" "$work/out" "PASS: all 2 caps pass"

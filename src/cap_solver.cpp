@@ -366,7 +366,7 @@ std::vector<CapSolution> solve_combinations(const Project& project, const CapSol
     for (const auto& [index, factor] : combo.factors) parts.emplace_back(&per_case[index], factor);
     CapSolution solution = solver.superpose(parts, load);
     if (solver.needs_redistribution(solution)) solution = solver.solve(load);
-    if (!solution.overturns && solution.residual > kResidualLimit)
+    if (!solution.overturns && !(solution.residual <= kResidualLimit))  // NaN fails too
       throw std::logic_error(fmt::format(
           "internal error: combination '{}' misses equilibrium by {:.3g} of the load", combo.id,
           solution.residual));

@@ -148,6 +148,7 @@ class Reader {
                                             scalar_text(root)));
       return;
     }
+    check_unique_keys(root, file, "");
     const Located top{root, &file, ""};
     check_keys(top, kTopKeys);
     if (auto units = top.child("units"); units.present()) {
@@ -201,6 +202,32 @@ class Reader {
         merged.sections[name] = {name, value, where};
         merged.named.erase(name);
       }
+    }
+  }
+
+  // YAML 1.2 (section 3.2.1.1) requires the keys of a mapping to be unique, but yaml-cpp
+  // accepts a repeated key and a lookup then finds the first value while the entry-by-entry
+  // merge keeps the last: either way one value is silently dropped, so a repeat is an error.
+  void check_unique_keys(const YAML::Node& node, const std::string& file,
+                         const std::string& path) {
+    if (node.IsSequence()) {
+      for (std::size_t i = 0; i < node.size(); ++i)
+        check_unique_keys(node[i], file, fmt::format("{}[{}]", path, i));
+      return;
+    }
+    if (!node.IsMap()) return;
+    std::map<std::string, int> first_line;
+    for (auto it = node.begin(); it != node.end(); ++it) {
+      if (!it->first.IsScalar()) continue;
+      const std::string key = it->first.Scalar();
+      const std::string where = path.empty() ? key : path + "." + key;
+      const SourceLocation here = location_of(it->first, file);
+      const auto [seen, added] = first_line.emplace(key, here.line);
+      if (!added) {
+        diag_.error(here, fmt::format("{}: given twice (first at line {})", where, seen->second));
+        continue;
+      }
+      check_unique_keys(it->second, file, where);
     }
   }
 

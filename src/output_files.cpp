@@ -2,6 +2,8 @@
 
 #include <filesystem>
 #include <fstream>
+#include <set>
+#include <stdexcept>
 #include <unistd.h>
 
 namespace cairn {
@@ -9,13 +11,20 @@ namespace cairn {
 void write_files_atomically(const std::string& folder,
                             const std::vector<std::pair<std::string, std::string>>& files) {
   namespace fs = std::filesystem;
+  // Two files of one name would share a temporary, and the second rename would fail after
+  // the first had already put its file in place: callers must give distinct names.
+  std::set<std::string> names;
+  for (const auto& file : files)
+    if (!names.insert(file.first).second)
+      throw std::logic_error("internal error: output file '" + file.first + "' named twice");
   std::error_code ec;
   fs::create_directories(folder, ec);
   if (ec) throw OutputError("cannot create the output folder '" + folder + "': " + ec.message());
   const std::string tag = ".cairn-tmp-" + std::to_string(::getpid());
   std::vector<fs::path> written;
   auto clean = [&] {
-    for (const auto& p : written) fs::remove(p, ec);
+    std::error_code ignored;  // keeps `ec`, the error being reported
+    for (const auto& p : written) fs::remove(p, ignored);
   };
   for (const auto& [name, content] : files) {
     const fs::path temp = fs::path(folder) / (name + tag);

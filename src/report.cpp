@@ -3,6 +3,7 @@
 #include <algorithm>
 #include <cmath>
 #include <limits>
+#include <set>
 
 #include <fmt/format.h>
 
@@ -206,7 +207,12 @@ GroupParts make_group_parts(const CheckReport& r) {
       row.push_back(mm_or_dash(u, gc.footing_settlement));
       row.push_back(mm_or_dash(u, gc.settlement));
     }
-    row.push_back(gc.pass ? "ok" : "FAIL");
+    // A cap that overturns has no pile forces to sum: its row must not read "ok".
+    const bool overturns = std::any_of(
+        r.results->combinations.begin(), r.results->combinations.end(), [&](const auto& cc) {
+          return cc.combination == gc.combination && cc.solution.overturns;
+        });
+    row.push_back(overturns ? "overturns" : (gc.pass ? "ok" : "FAIL"));
     t.rows.push_back(row);
   }
   if (g.settlement_asked)
@@ -776,12 +782,16 @@ std::vector<std::pair<std::string, std::string>> check_files(const CheckReport& 
   Table envelope = envelope_table(r);
   envelope.title.clear();
   files.emplace_back("envelope.csv", render_table(envelope, Format::csv) + trailer);
+  std::set<std::string> used;
   for (const auto& cc : r.results->combinations) {
     Table t = combination_table(r, cc);
     t.title.clear();
-    std::string name = r.project->combinations[cc.combination].id;
-    for (char& c : name)
+    std::string safe = r.project->combinations[cc.combination].id;
+    for (char& c : safe)
       if (!(std::isalnum(static_cast<unsigned char>(c)) || c == '-' || c == '_' || c == '.')) c = '_';
+    // Different ids may read the same once made safe ("W+", "W_"): number the repeats.
+    std::string name = safe;
+    for (int n = 2; !used.insert(name).second; ++n) name = safe + "-" + std::to_string(n);
     files.emplace_back("combination-" + name + ".csv", render_table(t, Format::csv) + trailer);
   }
   return files;

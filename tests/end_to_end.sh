@@ -123,6 +123,10 @@ if python3 -c 'import json,sys; sys.exit(0 if json.load(sys.stdin)["summary"]["p
 expect_status "cap that overturns fails" 1 check "$data/e2e/fail_overturn.yaml"
 cat "$work/out" "$work/err" >"$work/both"
 expect_in "cap that overturns" "$work/both" "the cap overturns"
+# The group demand row of that combination has no pile forces to sum: it must not read "ok".
+if grep -E '^  S1 ' "$work/out" | tail -n 1 | grep -q 'overturns$'; then ok; else
+  bad "cap that overturns: its group demand row does not say so"
+fi
 
 # ---- bad input: exit 2, a located message, nothing written --------------------------------
 # A folder with old outputs that must stay as they are, and an empty one that must stay empty.

@@ -13,6 +13,7 @@
 #include <cstddef>
 #include <optional>
 #include <random>
+#include <stdexcept>
 #include <string>
 #include <vector>
 
@@ -785,4 +786,15 @@ TEST_CASE("cap_solver: a symmetric group under a centric load shares it equally"
     if (lateral == 0.0) CHECK(s.piles[0].axial == close(100.0 * std::sqrt(26.0), 1e-9));
     check_equilibrium(springs, s, load, 2.0, 1e-9);
   }
+}
+
+TEST_CASE("cap_solver: a solution that is not a number is refused, never reported",
+          "[cap_solver]") {
+  // A pile at 1e308 m overflows the stiffness (k·x² = inf) and the solve returns NaN forces.
+  // NaN compares false with the equilibrium limit, so the check must be written to catch it:
+  // an internal error, not a table of 'nan' utilizations.
+  const Project project = one_case_project({pile_type("T", 3e5)}, {pile(0.0, 0.0), pile(1e308, 0.0)},
+                                           {on_top(0.5, 0.0, {0.0, 0.0, -100.0})});
+  const CapSolver solver(cairn::pile_springs(project));
+  CHECK_THROWS_AS(cairn::solve_combinations(project, solver), std::logic_error);
 }

@@ -319,6 +319,13 @@ TEST_CASE("input: every bad input is reported with file, line, column and key", 
       {"bad_missing_units.yaml",
        "@bad_missing_units.yaml:1:1: error: units: missing; expected 'SI' (kN, m, kPa) or 'US' "
        "(kip, ft, ksf)"},
+      // A key given twice in one map: YAML 1.2, section 3.2.1.1 (mapping keys are unique).
+      {"bad_duplicate_key.yaml",
+       "@bad_duplicate_key.yaml:15:5: error: pile_types.PC45.length: given twice (first at "
+       "line 13)\n"
+       "@bad_duplicate_key.yaml:17:3: error: pile_types.PC45: given twice (first at line 11)\n"
+       "@bad_duplicate_key.yaml:31:56: error: combinations.S1.factors.D: given twice (first at "
+       "line 31)"},
       // A pile whose type does not exist.
       {"bad_pile_type.yaml",
        "@bad_pile_type.yaml:17:38: error: piles[3].type: pile type 'PC54' does not exist; did "

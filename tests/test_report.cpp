@@ -230,4 +230,18 @@ TEST_CASE("report: check_files names one file per output and per combination", "
     const auto files = check_files(report);
     CHECK(files.back().first == "combination-S_2_wind.csv");
   }
+
+  SECTION("ids that become the same file name still get a file each") {
+    // "W+" and "W_" both read "W_" once made safe; without a suffix one table would be lost
+    // and the second write of one name breaks the all-or-nothing writing.
+    Project renamed = run.project;
+    renamed.combinations[0].id = "W+";
+    renamed.combinations[1].id = "W_";
+    CheckReport report = make_check_report(run, "", std::nullopt);
+    report.project = &renamed;
+    const auto files = check_files(report);
+    REQUIRE(files.size() == 7);
+    CHECK(files[5].first == "combination-W_.csv");
+    CHECK(files[6].first == "combination-W_-2.csv");
+  }
 }

@@ -232,7 +232,10 @@ int run(const Options& options, std::ostream& out, std::ostream& err) {
     err << "cairn: error: cannot compute: " << e.what() << "\n";
     return kExitBadInput;
   } catch (const std::exception& e) {
-    err << "cairn: internal error: " << e.what() << "\n";
+    // Our own bugs: std::logic_error messages already start "internal error:".
+    const std::string what = e.what();
+    err << "cairn: " << (what.rfind("internal error", 0) == 0 ? "" : "internal error: ") << what
+        << "\n";
     return kExitBadInput;
   }
 }

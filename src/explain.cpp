@@ -74,8 +74,14 @@ std::vector<HandCheck> explain_pile(const Project& project, const CheckResults& 
       h.section = group_section(positions);
       const GroupSection& s = h.section;
       const double det = s.ixx * s.iyy - s.ixy * s.ixy;
-      if (s.count < 3 || det <= 1e-12 * std::max(1.0, s.ixx * s.iyy)) {
-        h.why_not = "the active piles lie on one line; the section has no inertia about it";
+      const double size = std::max(s.ixx + s.iyy, 1e-12);
+      if (s.count >= 2 && s.ixx <= 1e-12 * size && s.iyy > 0) h.form = HandCheck::Form::line_x;
+      if (s.count >= 2 && s.iyy <= 1e-12 * size && s.ixx > 0) h.form = HandCheck::Form::line_y;
+      const bool skew_line = det <= 1e-12 * std::max(1.0, s.ixx * s.iyy) &&
+                             h.form == HandCheck::Form::general;
+      if (s.count < 2 || skew_line) {
+        h.why_not = "the active piles lie on one line askew to x and y; the hand formula is "
+                    "written for lines along x or y";
       } else {
         const Wrench f = combination_load(project, project.combinations[cc.combination]);
         h.vertical = -f[2];
@@ -89,8 +95,14 @@ std::vector<HandCheck> explain_pile(const Project& project, const CheckResults& 
         h.x_local = p.x - s.centroid_x;
         h.y_local = p.y - s.centroid_y;
         h.direct = h.vertical / static_cast<double>(s.count);
-        h.from_moment_y = (h.moment_y * s.ixx + h.moment_x * s.ixy) / det * h.x_local;
-        h.from_moment_x = -(h.moment_x * s.iyy + h.moment_y * s.ixy) / det * h.y_local;
+        if (h.form == HandCheck::Form::line_x) {
+          h.from_moment_y = h.moment_y / s.iyy * h.x_local;
+        } else if (h.form == HandCheck::Form::line_y) {
+          h.from_moment_x = -h.moment_x / s.ixx * h.y_local;
+        } else {
+          h.from_moment_y = (h.moment_y * s.ixx + h.moment_x * s.ixy) / det * h.x_local;
+          h.from_moment_x = -(h.moment_x * s.iyy + h.moment_y * s.ixy) / det * h.y_local;
+        }
         h.axial = h.direct + h.from_moment_y + h.from_moment_x;
         h.available = true;
       }

@@ -498,6 +498,21 @@ std::string explain_block(const CheckReport& r, Format format) {
                         m, u.length(h.eccentricity_x), l, u.length(h.eccentricity_y), l);
     const double det = s.ixx * s.iyy - s.ixy * s.ixy;
     const double lf = to_si_factor(p.units, Quantity::length);
+    if (h.form != HandCheck::Form::general) {
+      // Piles on one line: the one-way form.
+      const bool along_x = h.form == HandCheck::Form::line_x;
+      text += fmt::format(
+          "{}piles on one line along {}: P = V/n {} {}·{}'/{}\n{}x' = {} {}, y' = {} {}\n"
+          "{}P = {}/{} {} {}·{}/{} = {} + {} = {} {}   (solver: {} {})\n",
+          in, along_x ? "x" : "y", along_x ? "+" : "−", along_x ? "My" : "Mx", along_x ? "x" : "y",
+          along_x ? "Iyy" : "Ixx", in, u.length(h.x_local), l, u.length(h.y_local), l, in,
+          u.force(h.vertical), s.count, along_x ? "+" : "−",
+          u.moment(along_x ? h.moment_y : h.moment_x),
+          u.length(along_x ? h.x_local : h.y_local), u.area(along_x ? s.iyy : s.ixx),
+          u.force(h.direct), u.force(along_x ? h.from_moment_y : h.from_moment_x),
+          u.force(h.axial), f, u.force(h.solver_axial), f);
+      continue;
+    }
     text += fmt::format(
         "{}x' = {} {}, y' = {} {}\n{}P = {}/{} + ({}·{} + {}·{})/{}·{} − ({}·{} + {}·{})/{}·{}\n"
         "{}  = {} + {} + {} = {} {}   (solver: {} {})\n",

@@ -226,3 +226,28 @@ TEST_CASE("explain: the hand check says why it does not apply", "[explain]") {
     CHECK(h.why_not == "the cap overturns in this combination");
   }
 }
+
+TEST_CASE("explain: a two-pile cap uses the one-way form (row 8.9)", "[explain][published]") {
+  // Two piles meant at x = ±0.9 m; the pile at +0.9 is driven 75 mm outward (x = 0.975).
+  // Column P = 2000 kN at (0, 0). Hand: x̄ = 0.0375 m, x' = ∓0.9375 m, Iyy = 2·0.9375² =
+  // 1.7578 m², My about the centroid = 0.0375·(−2000) = −75 kN·m, so
+  // P = 1000 ∓ (−75)·0.9375/1.7578 = 1040 / 960 kN.
+  std::vector<cairn::Pile> piles = grid({-0.9, 0.975}, {0.0});
+  const cairn::Project project =
+      project_of({pile_type("V", 2.5e5)}, piles, {on_top(0, 0, {0, 0, -2000})});
+  const cairn::CheckResults results = solved(project);
+  // Source: check-values.md row 8.9 (from the rigid-cap formula, common practice):
+  // outward 75 mm → 1040.0 / 960.0 kN.
+  const std::array<double, 2> expected = {1040.0, 960.0};
+  for (std::size_t i = 0; i < 2; ++i) {
+    INFO("pile " << i);
+    const auto checks = cairn::explain_pile(project, results, i);
+    REQUIRE(checks.size() == 1);
+    const cairn::HandCheck& h = checks[0];
+    REQUIRE(h.available);
+    CHECK(h.form == cairn::HandCheck::Form::line_x);
+    CHECK(h.section.iyy == close(2.0 * 0.9375 * 0.9375, 1e-12));
+    CHECK(h.axial == close(expected[i], 1e-9));
+    CHECK(h.axial == close(h.solver_axial, 1e-9));
+  }
+}

@@ -10,7 +10,9 @@
 // USACE EM 1110-2-2906, ch. 4). Equivalent eccentricities e_x = M_y/V, e_y = −M_x/V.
 //
 // The explanation is offered where the formula is exact: vertical piles of equal axial
-// stiffness (compression-only piles that dropped out are left out of the sums).
+// stiffness (compression-only piles that dropped out are left out of the sums). Piles on
+// one line along x or y (a two-pile cap, a single row) use the one-way form
+// P = V/n + My·x'/Σx'² or P = V/n − Mx·y'/Σy'².
 #pragma once
 
 #include <cstddef>
@@ -42,6 +44,9 @@ struct HandCheck {
   double from_moment_y = 0.0;     // (M_y·Ixx + M_x·Ixy)/det·x'_i, kN
   double from_moment_x = 0.0;     // −(M_x·Iyy + M_y·Ixy)/det·y'_i, kN
   double axial = 0.0;             // the sum, kN
+  // Which form applies: the general one, or the piles on one line along x (Ixx = 0:
+  // P = V/n + My·x'/Iyy) or along y (Iyy = 0: P = V/n − Mx·y'/Ixx).
+  enum class Form { general, line_x, line_y } form = Form::general;
   double solver_axial = 0.0;      // the rigid-cap solver's result, kN
 };
 

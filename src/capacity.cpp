@@ -49,6 +49,17 @@ std::string format(const char* pattern, double value) {
 
 std::string quoted(const SoilLayer& layer) { return "layer '" + layer.name + "'"; }
 
+// A depth or pressure quoted in a note, in the project's units ("12.50 m", "3.2 ksf").
+std::string length_text(double metres, UnitSystem units) {
+  return format("%.2f", from_si(units, Quantity::length, metres)) + " " +
+         unit_label(units, Quantity::length);
+}
+std::string pressure_text(double kilopascals, UnitSystem units) {
+  return format(units == UnitSystem::SI ? "%.0f" : "%.2f",
+                from_si(units, Quantity::pressure, kilopascals)) +
+         " " + unit_label(units, Quantity::pressure);
+}
+
 // Top depth of every layer and the base of the profile (size n + 1), m.
 std::vector<double> boundaries(const SoilProfile& profile) {
   std::vector<double> z{0.0};
@@ -539,9 +550,9 @@ std::vector<std::string> validate_design(const SoilProfile& profile, const PileG
   if (!(pile.head_depth >= 0.0)) problems.push_back("pile head depth must not be negative");
   if (!(pile.unit_weight >= 0.0)) problems.push_back("pile unit weight must not be negative");
   if (pile.tip_depth() > profile.depth() + kDepthTolerance)
-    problems.push_back("the pile tip (" + format("%.2f", pile.tip_depth()) +
-                       " m below the ground) lies below the soil profile's base (" +
-                       format("%.2f", profile.depth()) + " m)");
+    problems.push_back("the pile tip (" + length_text(pile.tip_depth(), pile.units) +
+                       " below the ground) lies below the soil profile's base (" +
+                       length_text(profile.depth(), pile.units) + ")");
 
   auto method_applies = [&](const auto& method, SoilKind kind, const char* key) {
     if (method && !applies(*method, kind))
@@ -739,7 +750,7 @@ TipDetails tip_resistance(const SoilProfile& profile, const PileGeometry& pile,
     q = *layer.max_unit_tip;
     d.limited = true;
     add_note(notes, quoted(layer) + ": unit tip limited to max_unit_tip = " +
-                        format("%.0f", *layer.max_unit_tip) + " kPa");
+                        pressure_text(*layer.max_unit_tip, pile.units));
   }
   d.unit_tip = q;
   return d;
@@ -794,7 +805,8 @@ CapacityResult pile_capacity(const SoilProfile& profile, const PileGeometry& pil
   if (design.critical_depth_diameters) {
     stress.critical_depth = *design.critical_depth_diameters * pile.width;
     add_note(notes, "beta shaft: σ'v held constant below the critical depth " +
-                        format("%.2f", *stress.critical_depth) + " m below the ground surface");
+                        length_text(*stress.critical_depth, pile.units) +
+                        " below the ground surface");
   }
   // λ method: one mean unit friction over all clay crossed with that method
   // (Vijayvergiya & Focht 1972): f_av = λ (σ̄'v + 2 c̄u), λ from the penetration L.
@@ -839,8 +851,8 @@ CapacityResult pile_capacity(const SoilProfile& profile, const PileGeometry& pil
       if (!layer.lambda)
         add_note(notes,
                  "lambda shaft: λ = " + format("%.3f", lambda) + " at a penetration of " +
-                     format("%.2f", penetration) +
-                     " m, from Vijayvergiya & Focht's (1972) chart, tabulated values from memory");
+                     length_text(penetration, pile.units) +
+                     ", from Vijayvergiya & Focht's (1972) chart, tabulated values from memory");
       double f =
           lambda_unit_shaft(lambda, lambda_stress / lambda_length, lambda_cu / lambda_length);
       if (f > limit) {
@@ -879,7 +891,7 @@ CapacityResult pile_capacity(const SoilProfile& profile, const PileGeometry& pil
     }
     if (s.limited && layer.max_unit_shaft)
       add_note(notes, quoted(layer) + ": unit shaft friction limited to max_unit_shaft = " +
-                          format("%.0f", *layer.max_unit_shaft) + " kPa");
+                          pressure_text(*layer.max_unit_shaft, pile.units));
     s.unit_average = s.shaft / (perimeter * (b - a));
     s.uplift_factor = layer.uplift_factor.value_or(default_uplift_factor(layer.kind));
     if (!layer.uplift_factor && layer.kind == SoilKind::sand)

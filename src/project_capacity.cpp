@@ -18,6 +18,7 @@ PileGeometry geometry_of(const Project& project, const PileType& type) {
   g.round = type.section.shape == SectionShape::round;
   g.length = type.length;
   g.head_depth = project.cap.depth;
+  g.units = project.units;
   return g;
 }
 

@@ -31,6 +31,7 @@
 #include <vector>
 
 #include "cairn/soil.hpp"
+#include "cairn/units.hpp"
 
 namespace cairn {
 
@@ -41,6 +42,7 @@ struct PileGeometry {
   double length = 0.0;        // m, pile head to tip (vertical pile)
   double head_depth = 0.0;    // m, pile head below the ground surface
   double unit_weight = 24.0;  // kN/m³, pile material, for the effective weight in uplift
+  UnitSystem units = UnitSystem::SI;  // units of the numbers quoted in notes and messages
 
   double area() const;       // m², gross cross-section (also the tip area)
   double perimeter() const;  // m

@@ -123,9 +123,10 @@ int run_batch(const Options& options, std::ostream& out) {
 }
 
 int run_check(const Options& options, std::ostream& out) {
-  if (options.files.size() != 1 || expand_foundation(options.files.front()).size() != 1 ||
-      expand_foundation(options.files.front()).front() != options.files.front())
-    return run_batch(options, out);
+  // Several files, or a foundation file listing caps: the batch summary.
+  if (options.files.size() != 1) return run_batch(options, out);
+  const auto caps = expand_foundation(options.files.front());
+  if (caps.size() != 1 || caps.front() != options.files.front()) return run_batch(options, out);
   const CheckRun run = analyse_project(options.files.front());
   const CheckReport report = make_check_report(run, describe_options(options), options.explain_pile);
   const std::string rendered = render_check(report, options.format);

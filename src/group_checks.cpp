@@ -55,46 +55,6 @@ const PileTypeCapacity* capacity_of(const std::vector<PileTypeCapacity>& list, s
   return nullptr;
 }
 
-std::optional<VesicPile> vesic_pile(const Project& project, std::size_t t,
-                                    std::vector<std::string>* missing) {
-  const PileType& type = project.pile_types[t];
-  const SoilProfile& soil = *project.soil;
-  VesicPile pile;
-  pile.width = type.section.width;
-  pile.round = type.section.shape == SectionShape::round;
-  pile.length = type.length;
-  pile.pile_modulus = type.elastic_modulus;
-  const double head = project.cap.depth, tip = head + type.length;
-  double z = 0.0, sum = 0.0;
-  bool ok = true;
-  const SoilLayer* at_tip = nullptr;
-  for (const auto& layer : soil.layers) {
-    const double a = std::max(z, head), b = std::min(z + layer.thickness, tip);
-    if (tip >= z && tip < z + layer.thickness) at_tip = &layer;
-    z += layer.thickness;
-    if (b <= a) continue;
-    if (!layer.soil_modulus) {
-      ok = false;
-      if (missing) missing->push_back(fmt::format("layer '{}' needs soil_modulus", layer.name));
-    } else {
-      sum += *layer.soil_modulus * (b - a);
-    }
-  }
-  if (!at_tip && !soil.layers.empty()) at_tip = &soil.layers.back();
-  if (at_tip && !at_tip->soil_modulus) {
-    ok = false;
-    if (missing) missing->push_back(fmt::format("layer '{}' needs soil_modulus", at_tip->name));
-  }
-  if (type.elastic_modulus <= 0) {
-    ok = false;
-    if (missing) missing->push_back(fmt::format("pile type '{}' needs elastic_modulus", type.id));
-  }
-  if (!ok) return std::nullopt;
-  pile.soil_modulus_shaft = sum / type.length;
-  pile.soil_modulus_tip = *at_tip->soil_modulus;
-  pile.poisson_ratio = at_tip->poisson_ratio.value_or(0.3);
-  return pile;
-}
 
 }  // namespace
 

@@ -26,18 +26,6 @@ const SoilLayer* layer_at(const SoilProfile& profile, double depth) {
   return profile.layers.empty() ? nullptr : &profile.layers.back();
 }
 
-// Thickness-weighted mean Es over [top, bottom]; nullopt when a layer crossed lacks it.
-std::optional<double> mean_modulus(const SoilProfile& profile, double top, double bottom) {
-  double z = 0.0, sum = 0.0;
-  for (const auto& layer : profile.layers) {
-    const double a = std::max(z, top), b = std::min(z + layer.thickness, bottom);
-    z += layer.thickness;
-    if (b <= a) continue;
-    if (!layer.soil_modulus) return std::nullopt;
-    sum += *layer.soil_modulus * (b - a);
-  }
-  return bottom > top ? std::optional<double>(sum / (bottom - top)) : std::nullopt;
-}
 
 struct Subgrade {
   double kh = 0.0;  // kN/m³
@@ -74,6 +62,49 @@ std::optional<Subgrade> subgrade_modulus(const SoilLayer& layer, const PileType&
 
 }  // namespace
 
+std::optional<VesicPile> vesic_pile(const Project& project, std::size_t t,
+                                    std::vector<std::string>* missing) {
+  // Es along the shaft is the thickness-weighted mean of the layers it crosses; Es and μs
+  // below the tip are the tip layer's.
+  const PileType& type = project.pile_types[t];
+  const SoilProfile& soil = *project.soil;
+  VesicPile pile;
+  pile.width = type.section.width;
+  pile.round = type.section.shape == SectionShape::round;
+  pile.length = type.length;
+  pile.pile_modulus = type.elastic_modulus;
+  const double head = project.cap.depth, tip = head + type.length;
+  double z = 0.0, sum = 0.0;
+  bool ok = true;
+  const SoilLayer* at_tip = nullptr;
+  for (const auto& layer : soil.layers) {
+    const double a = std::max(z, head), b = std::min(z + layer.thickness, tip);
+    if (tip >= z && tip < z + layer.thickness) at_tip = &layer;
+    z += layer.thickness;
+    if (b <= a) continue;
+    if (!layer.soil_modulus) {
+      ok = false;
+      if (missing) missing->push_back(fmt::format("layer '{}' needs soil_modulus", layer.name));
+    } else {
+      sum += *layer.soil_modulus * (b - a);
+    }
+  }
+  if (!at_tip && !soil.layers.empty()) at_tip = &soil.layers.back();
+  if (at_tip && !at_tip->soil_modulus) {
+    ok = false;
+    if (missing) missing->push_back(fmt::format("layer '{}' needs soil_modulus", at_tip->name));
+  }
+  if (type.elastic_modulus <= 0) {
+    ok = false;
+    if (missing) missing->push_back(fmt::format("pile type '{}' needs elastic_modulus", type.id));
+  }
+  if (!ok) return std::nullopt;
+  pile.soil_modulus_shaft = sum / type.length;
+  pile.soil_modulus_tip = *at_tip->soil_modulus;
+  pile.poisson_ratio = at_tip->poisson_ratio.value_or(kDefaultPoisson);
+  return pile;
+}
+
 double section_inertia(const Section& s) {
   return s.shape == SectionShape::square ? std::pow(s.width, 4) / 12.0
                                          : std::numbers::pi * std::pow(s.width, 4) / 64.0;
@@ -98,18 +129,7 @@ std::vector<PileTypeStiffness> pile_type_stiffness(const Project& project,
       s.axial = type.axial_stiffness_used();
       s.axial_source = "E·A/L (elastic shortening of the whole pile, no soil)";
       if (project.soil && capacity && type.elastic_modulus > 0) {
-        const double head = project.cap.depth, tip = head + type.length;
-        const auto es_shaft = mean_modulus(*project.soil, head, tip);
-        const SoilLayer* below = layer_at(*project.soil, tip);
-        if (es_shaft && below && below->soil_modulus) {
-          VesicPile pile;
-          pile.width = type.section.width;
-          pile.round = type.section.shape == SectionShape::round;
-          pile.length = type.length;
-          pile.pile_modulus = type.elastic_modulus;
-          pile.soil_modulus_tip = *below->soil_modulus;
-          pile.soil_modulus_shaft = *es_shaft;
-          pile.poisson_ratio = below->poisson_ratio.value_or(kDefaultPoisson);
+        if (const auto pile = vesic_pile(project, t)) {
           const double q = capacity->result.allowable_compression;
           double tip_ult = capacity->result.tip, shaft_ult = capacity->result.shaft;
           if (project.group.tip_share) {
@@ -117,7 +137,7 @@ std::vector<PileTypeStiffness> pile_type_stiffness(const Project& project,
             shaft_ult = 1.0 - *project.group.tip_share;
           }
           if (q > 0 && tip_ult + shaft_ult > 0) {
-            const SecantStiffness k = axial_head_stiffness(pile, q, tip_ult, shaft_ult);
+            const SecantStiffness k = axial_head_stiffness(*pile, q, tip_ult, shaft_ult);
             s.axial = k.stiffness;
             s.axial_source = fmt::format(
                 "secant Q/s from Vesić (1977) settlement at the allowable load: {:.1f} {} over "

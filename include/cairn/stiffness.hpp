@@ -19,6 +19,7 @@
 #include <vector>
 
 #include "cairn/cap_solver.hpp"
+#include "cairn/group.hpp"
 #include "cairn/project_capacity.hpp"
 #include "cairn/model.hpp"
 
@@ -40,6 +41,14 @@ std::vector<PileTypeStiffness> pile_type_stiffness(const Project& project,
 // Springs of every pile, in the order of Project::piles.
 std::vector<PileSpring> pile_springs(const Project& project,
                                      const std::vector<PileTypeStiffness>& stiffness);
+
+// The pile of type `t` as Vesić's (1977) settlement method sees it: Es along the shaft (the
+// thickness-weighted mean over the layers crossed), Es and μs below the tip (μs 0.3 when the
+// layer gives none, common practice). Absent when data is missing; each missing item is
+// then added to `missing` in plain words ("layer 'sand' needs soil_modulus").
+// Requires a soil profile.
+std::optional<VesicPile> vesic_pile(const Project& project, std::size_t t,
+                                    std::vector<std::string>* missing = nullptr);
 
 // Second moment of area of a pile section about a centroidal axis, m⁴
 // (square w⁴/12, round πD⁴/64).

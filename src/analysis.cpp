@@ -102,7 +102,9 @@ CheckReport make_check_report(const CheckRun& run, const std::string& options,
                                    near.empty() ? "" : "; did you mean '" + near + "'?"));
     }
     report.explain_pile = static_cast<std::size_t>(it - piles.begin());
-    report.hand_checks = explain_pile(run.project, run.results, *report.explain_pile);
+    std::vector<double> springs;
+    for (const auto& k : run.stiffness) springs.push_back(k.axial);
+    report.hand_checks = explain_pile(run.project, run.results, *report.explain_pile, springs);
   }
   return report;
 }

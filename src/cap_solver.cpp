@@ -328,7 +328,7 @@ CapSolution CapSolver::solve(const Wrench& load) const {
       }
     }
   }
-  throw std::logic_error("internal error: the compression-only iteration did not settle");
+  throw std::logic_error("the compression-only iteration did not settle");
 }
 
 }  // namespace cairn
@@ -368,7 +368,7 @@ std::vector<CapSolution> solve_combinations(const Project& project, const CapSol
     if (solver.needs_redistribution(solution)) solution = solver.solve(load);
     if (!solution.overturns && !(solution.residual <= kResidualLimit))  // NaN fails too
       throw std::logic_error(fmt::format(
-          "internal error: combination '{}' misses equilibrium by {:.3g} of the load", combo.id,
+          "combination '{}' misses equilibrium by {:.3g} of the load", combo.id,
           solution.residual));
     result.push_back(std::move(solution));
   }

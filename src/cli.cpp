@@ -135,14 +135,24 @@ int run_check(const Options& options, std::ostream& out) {
   return run.results.summary.pass ? kExitPass : kExitFail;
 }
 
+// The capacity-with-depth table's default step and shortest length, m: 0.5 m from 3 m, or
+// 1 ft from 10 ft in a US project.
+struct DepthTable {
+  double step, from;
+};
+DepthTable default_depth_table(UnitSystem u) {
+  return u == UnitSystem::SI ? DepthTable{0.5, 3.0} : DepthTable{0.3048, 3.048};
+}
+
 int run_capacity(const Options& options, std::ostream& out) {
   if (options.files.size() != 1) throw InputError({}, "capacity: expected one project file");
   const Project project = read_project(options.files.front());
   const UnitSystem u = project.units;
+  const DepthTable table = default_depth_table(u);
   const double step = options.depth_step ? *options.depth_step * to_si_factor(u, Quantity::length)
-                                         : (u == UnitSystem::SI ? 0.5 : 0.3048);
+                                         : table.step;
   const double from = options.min_length ? *options.min_length * to_si_factor(u, Quantity::length)
-                                         : (u == UnitSystem::SI ? 3.0 : 3.048);
+                                         : table.from;
   if (!(step > 0)) throw InputError({}, "--step: expected a positive length");
   const auto capacities = compute_capacities(project, step, from);
   out << render_capacities(project, capacities, options.format, describe_options(options));
@@ -182,9 +192,8 @@ int run_report(const Options& options, std::ostream& out) {
     const CheckReport report = make_check_report(run, described, std::nullopt);
     const UnitSystem u = run.project.units;
     // Capacities again, with the capacity-with-depth table for the chart.
-    const double step = u == UnitSystem::SI ? 0.5 : 0.3048;
-    const double from = u == UnitSystem::SI ? 3.0 : 3.048;
-    const auto capacities = compute_capacities(run.project, step, from);
+    const DepthTable table = default_depth_table(u);
+    const auto capacities = compute_capacities(run.project, table.step, table.from);
     HtmlReportInput input;
     input.check = &report;
     input.capacities = &capacities;
@@ -233,10 +242,8 @@ int run(const Options& options, std::ostream& out, std::ostream& err) {
     err << "cairn: error: cannot compute: " << e.what() << "\n";
     return kExitBadInput;
   } catch (const std::exception& e) {
-    // Our own bugs: std::logic_error messages already start "internal error:".
-    const std::string what = e.what();
-    err << "cairn: " << (what.rfind("internal error", 0) == 0 ? "" : "internal error: ") << what
-        << "\n";
+    // Our own bugs (std::logic_error and anything unexpected).
+    err << "cairn: internal error: " << e.what() << "\n";
     return kExitBadInput;
   }
 }
@@ -251,14 +258,24 @@ int run_command_line(int argc, const char* const* argv, std::ostream& out, std::
   std::string format = "text";
   const std::vector<std::string> formats = {"text", "csv", "markdown", "json"};
 
+  // The project file(s) and --format, which every command takes.
+  auto add_files_and_format = [&](CLI::App* command, const std::string& name,
+                                  const std::string& files_help,
+                                  const std::vector<std::string>& allowed) {
+    command->add_option(name, options.files, files_help)->required();
+    std::string names;
+    for (std::size_t i = 0; i < allowed.size(); ++i)
+      names += (i == 0 ? "" : i + 1 == allowed.size() ? " or " : ", ") + allowed[i];
+    command->add_option("--format", format, "Output format: " + names)
+        ->check(CLI::IsMember(allowed));
+  };
+
   CLI::App* check = app.add_subcommand(
       "check", "Share the cap's loads among the piles and check each pile in every combination");
-  check->add_option("files", options.files,
-                    "Project file (YAML); several files, or a foundation file listing caps, "
-                    "check every cap and print one summary table")
-      ->required();
-  check->add_option("--format", format, "Output format: text, csv, markdown or json")
-      ->check(CLI::IsMember(formats));
+  add_files_and_format(check, "files",
+                       "Project file (YAML); several files, or a foundation file listing caps, "
+                       "check every cap and print one summary table",
+                       formats);
   check->add_option("--out", options.out_dir,
                     "Also write report.txt, report.md, results.json and CSV tables into DIR");
   check->add_option("--explain", options.explain_pile,
@@ -266,9 +283,7 @@ int run_command_line(int argc, const char* const* argv, std::ostream& out, std::
   CLI::App* capacity = app.add_subcommand(
       "capacity", "Compute each pile type's capacity from the soil profile, layer by layer and "
                   "with depth");
-  capacity->add_option("file", options.files, "Project file (YAML)")->required();
-  capacity->add_option("--format", format, "Output format: text, markdown or json")
-      ->check(CLI::IsMember(std::vector<std::string>{"text", "markdown", "json"}));
+  add_files_and_format(capacity, "file", "Project file (YAML)", {"text", "markdown", "json"});
   capacity->add_option("--step", options.depth_step,
                        "Length step of the capacity-with-depth table, in the project's length "
                        "unit (default 0.5 m or 1 ft)");
@@ -277,9 +292,7 @@ int run_command_line(int argc, const char* const* argv, std::ostream& out, std::
   CLI::App* springs = app.add_subcommand(
       "springs", "Write each pile's head springs (axial and lateral stiffness) for the global "
                  "structural model");
-  springs->add_option("file", options.files, "Project file (YAML)")->required();
-  springs->add_option("--format", format, "Output format: text, csv, markdown or json")
-      ->check(CLI::IsMember(formats));
+  add_files_and_format(springs, "file", "Project file (YAML)", formats);
   CLI::App* report = app.add_subcommand(
       "report", "Write the calculation package: a self-contained HTML report per cap, for a "
                 "checking engineer");

@@ -24,7 +24,7 @@ GroupSection group_section(const std::vector<std::array<double, 2>>& positions) 
 }
 
 std::vector<HandCheck> explain_pile(const Project& project, const CheckResults& results,
-                                    std::size_t pile) {
+                                    std::size_t pile, const std::vector<double>& axial_stiffness) {
   std::vector<HandCheck> checks;
   // Applicability that holds for every combination.
   std::string general;
@@ -50,11 +50,12 @@ std::vector<HandCheck> explain_pile(const Project& project, const CheckResults& 
       // estimated from the soil (stiffness.hpp), else E·A/L. Only the first and last are
       // known here; piles of one type share their spring whatever its source.
       const PileType& type = project.pile_types[p.type];
-      if (!type.axial_stiffness && project.soil) {
+      const bool known = p.type < axial_stiffness.size();
+      if (!known && !type.axial_stiffness && project.soil) {
         from_soil = true;
         continue;
       }
-      const double k = type.axial_stiffness_used();
+      const double k = known ? axial_stiffness[p.type] : type.axial_stiffness_used();
       if (stiffness && std::abs(k - *stiffness) > 1e-9 * *stiffness) equal = false;
       stiffness = k;
     }

@@ -16,7 +16,7 @@ void write_files_atomically(const std::string& folder,
   std::set<std::string> names;
   for (const auto& file : files)
     if (!names.insert(file.first).second)
-      throw std::logic_error("internal error: output file '" + file.first + "' named twice");
+      throw std::logic_error("output file '" + file.first + "' named twice");
   std::error_code ec;
   fs::create_directories(folder, ec);
   if (ec) throw OutputError("cannot create the output folder '" + folder + "': " + ec.message());

@@ -50,9 +50,13 @@ struct HandCheck {
   double solver_axial = 0.0;      // the rigid-cap solver's result, kN
 };
 
-// The hand check of pile `pile` in every combination. Requires pile < project.piles.size().
+// The hand check of pile `pile` in every combination. `axial_stiffness` gives the solver's
+// axial spring per pile type (kN/m, stiffness.hpp); when empty, springs are judged equal
+// only where that is certain without them (one pile type, or equal typed or E·A/L values).
+// Requires pile < project.piles.size().
 std::vector<HandCheck> explain_pile(const Project& project, const CheckResults& results,
-                                    std::size_t pile);
+                                    std::size_t pile,
+                                    const std::vector<double>& axial_stiffness = {});
 
 // The section properties of a set of pile positions (all weights 1).
 GroupSection group_section(const std::vector<std::array<double, 2>>& positions);

@@ -5,6 +5,7 @@
 #include <fmt/format.h>
 
 #include "cairn/diagnostics.hpp"
+#include "cairn/number_text.hpp"
 
 namespace cairn {
 namespace {
@@ -14,13 +15,13 @@ using nlohmann::json;
 struct Fmt {
   UnitSystem u;
   std::string force(double v) const {
-    return fmt::format("{:.{}f}", from_si(u, Quantity::force, v), u == UnitSystem::SI ? 1 : 2);
+    return fixed_text(from_si(u, Quantity::force, v), u == UnitSystem::SI ? 1 : 2);
   }
   std::string length(double v) const {
-    return fmt::format("{:.{}f}", from_si(u, Quantity::length, v), u == UnitSystem::SI ? 2 : 1);
+    return fixed_text(from_si(u, Quantity::length, v), u == UnitSystem::SI ? 2 : 1);
   }
   std::string pressure(double v) const {
-    return fmt::format("{:.{}f}", from_si(u, Quantity::pressure, v), u == UnitSystem::SI ? 1 : 3);
+    return fixed_text(from_si(u, Quantity::pressure, v), u == UnitSystem::SI ? 1 : 3);
   }
   const char* f() const { return unit_label(u, Quantity::force); }
   const char* l() const { return unit_label(u, Quantity::length); }
@@ -124,7 +125,7 @@ json capacities_json(const Project& project, const std::vector<PileTypeCapacity>
   }
   return {{"tool", {{"name", "cairn"}, {"version", CAIRN_VERSION}}},
           {"input", project.file},
-          {"options", options},
+          {"command", options},
           {"units",
            {{"system", to_string(u)},
             {"force", unit_label(u, Quantity::force)},
@@ -141,9 +142,9 @@ std::string render_capacities(const Project& project,
   const Fmt f{project.units};
   const bool md = format == Format::markdown;
   std::string out =
-      md ? fmt::format("# Pile capacity: {}\n\n- tool: cairn {}\n- input: `{}`\n- options: {}\n\n",
+      md ? fmt::format("# Pile capacity: {}\n\n- tool: cairn {}\n- input: `{}`\n- command: `{}`\n\n",
                        project.title, CAIRN_VERSION, project.file, options)
-         : fmt::format("cairn {} — pile capacity: {}\ninput: {}\noptions: {}\n\n", CAIRN_VERSION,
+         : fmt::format("cairn {} — pile capacity: {}\ninput: {}\ncommand: {}\n\n", CAIRN_VERSION,
                        project.title, project.file, options);
   if (capacities.empty())
     out += "No pile type asks for a computed capacity (tip_method / shaft_method with a soil "

@@ -34,6 +34,29 @@ const char* to_string(Demand d) {
   return "?";
 }
 
+const char* to_string(PileState s) {
+  switch (s) {
+    case PileState::in_contact: return "in contact";
+    case PileState::dropped_out: return "dropped out";
+    case PileState::overturned: return "overturned";
+  }
+  return "?";
+}
+
+const char* to_string(Verdict v) {
+  switch (v) {
+    case Verdict::pass: return "pass";
+    case Verdict::fail: return "fail";
+    case Verdict::overturned: return "overturned";
+  }
+  return "?";
+}
+
+Verdict verdict(const CombinationCheck& check) {
+  if (check.solution.overturns) return Verdict::overturned;
+  return check.pass ? Verdict::pass : Verdict::fail;
+}
+
 std::vector<PileTypeResistance> resolve_resistances(
     const Project& project, const std::vector<std::optional<ComputedResistance>>& computed) {
   std::vector<PileTypeResistance> result(project.pile_types.size());
@@ -165,16 +188,27 @@ CheckResults check_piles(const Project& project, const std::vector<CapSolution>&
     check.combination = c;
     check.solution = solutions[c];
     check.piles.resize(n);
+    const bool overturns = check.solution.overturns;
     for (std::size_t i = 0; i < n; ++i) {
+      PileCheck& p = check.piles[i];
+      PileEnvelope& e = results.envelope[i];
+      if (overturns) {
+        // No equilibrium: the solver's forces mean nothing, and no pile can be shown safe.
+        p.active = check.solution.piles[i].active;
+        p.state = PileState::overturned;
+        p.pass = false;
+        e.pass = false;
+        continue;
+      }
       const PileForce& force = check.solution.piles[i];
       const Pile& pile = project.piles[i];
       const Resistance& r = combo.limit_state == LimitState::service
                                 ? resistances[pile.type].allowable
                                 : resistances[pile.type].factored;
-      PileCheck& p = check.piles[i];
       p.axial = force.axial;
       p.lateral = force.lateral;
       p.active = force.active;
+      p.state = force.active ? PileState::in_contact : PileState::dropped_out;
       auto consider = [&](double demand, std::optional<double> capacity, Demand kind) {
         if (demand <= kForceTolerance) return;
         const double u = capacity && *capacity > 0 ? demand / *capacity : kInfinity;
@@ -199,25 +233,30 @@ CheckResults check_piles(const Project& project, const std::vector<CapSolution>&
         }
       }
       p.pass = p.utilization <= 1.0;
-      if (!p.pass) check.pass = false;
+      if (!p.pass) {
+        check.pass = false;
+        e.pass = false;
+      }
       if (!check.governing_pile || p.utilization > check.max_utilization) {
         check.max_utilization = p.utilization;
         check.governing_pile = i;
         check.governing = p.governing;
       }
-      PileEnvelope& e = results.envelope[i];
-      auto raise = [&](Extreme& x, double v) {
-        if (!x.combination || v > x.value) {
+      // A zero value names no combination: "max tension 0.0 in S1" of a pile never in
+      // tension would point the reader at nothing.
+      auto raise = [&](Extreme& x, double v, double tolerance) {
+        if (v > tolerance && (!x.combination || v > x.value)) {
           x.value = v;
           x.combination = c;
         }
       };
-      raise(e.max_compression, std::max(p.axial, 0.0));
-      raise(e.max_tension, std::max(-p.axial, 0.0));
-      raise(e.max_lateral, p.lateral);
-      if (!e.max_utilization.combination || p.utilization > e.max_utilization.value)
+      raise(e.max_compression, p.axial, kForceTolerance);
+      raise(e.max_tension, -p.axial, kForceTolerance);
+      raise(e.max_lateral, p.lateral, kForceTolerance);
+      if (p.utilization > 0.0 &&
+          (!e.max_utilization.combination || p.utilization > e.max_utilization.value))
         e.governing = p.governing;
-      raise(e.max_utilization, p.utilization);
+      raise(e.max_utilization, p.utilization, 0.0);
     }
     if (check.solution.overturns) {
       check.pass = false;

@@ -2,9 +2,11 @@
 
 #include <CLI/CLI.hpp>
 
+#include <cctype>
 #include <algorithm>
 #include <filesystem>
 #include <set>
+#include <string_view>
 #include <thread>
 #include <ostream>
 
@@ -36,15 +38,38 @@ const char* format_name(Format f) {
 }
 
 std::string describe_options(const Options& o) {
+  if (!o.command_line.empty()) return o.command_line;
   const char* name = o.command == Command::check      ? "check"
                      : o.command == Command::capacity ? "capacity"
                      : o.command == Command::report   ? "report"
                                                       : "springs";
-  std::string text = fmt::format("{} --format {}", name, format_name(o.format));
+  std::string text = fmt::format("cairn {} --format {}", name, format_name(o.format));
   if (o.depth_step) text += fmt::format(" --step {:g}", *o.depth_step);
   if (o.min_length) text += fmt::format(" --from {:g}", *o.min_length);
   if (o.out_dir) text += " --out " + *o.out_dir;
   if (o.explain_pile) text += " --explain " + *o.explain_pile;
+  return text;
+}
+
+// One argument as a POSIX shell would need it written: as is when it holds only safe
+// characters, else in single quotes.
+std::string shell_word(const std::string& word) {
+  const bool safe = !word.empty() && std::all_of(word.begin(), word.end(), [](unsigned char c) {
+    return std::isalnum(c) || std::string_view("-_./=:,+@%").find(static_cast<char>(c)) !=
+                                  std::string_view::npos;
+  });
+  if (safe) return word;
+  std::string quoted = "'";
+  for (char c : word) quoted += c == '\'' ? std::string("'\\''") : std::string(1, c);
+  return quoted + "'";
+}
+
+// The command line as it was run, for report headers: the program's file name (its folder
+// would tie the outputs to one machine) and every argument.
+std::string command_line_text(int argc, const char* const* argv) {
+  std::string text =
+      argc > 0 && argv[0] ? std::filesystem::path(argv[0]).filename().string() : "cairn";
+  for (int i = 1; i < argc; ++i) text += " " + shell_word(argv[i]);
   return text;
 }
 
@@ -85,7 +110,7 @@ CapSummaryRow summary_row(const CheckRun& run) {
   for (const auto& gc : run.group.per_combination)
     if (gc.settlement) row.settlement = std::max(row.settlement.value_or(0.0), *gc.settlement);
   row.pass = s.pass;
-  row.status = !s.overturned.empty()          ? "overturns"
+  row.status = !s.overturned.empty()          ? to_string(Verdict::overturned)
                : s.failed_combinations > 0     ? "fail"
                : !run.group.pass               ? "group checks fail"
                                                : "pass";
@@ -316,6 +341,7 @@ int run_command_line(int argc, const char* const* argv, std::ostream& out, std::
       err << "Run 'cairn --help' for usage.\n";
     return kExitBadInput;
   }
+  options.command_line = command_line_text(argc, argv);
   if (format == "csv") options.format = Format::csv;
   else if (format == "markdown") options.format = Format::markdown;
   else if (format == "json") options.format = Format::json;

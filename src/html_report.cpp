@@ -7,6 +7,7 @@
 
 #include <fmt/format.h>
 
+#include "cairn/number_text.hpp"
 #include "cairn/plan_svg.hpp"
 
 namespace cairn {
@@ -34,10 +35,7 @@ class Units {
   std::string area_label() const { return label(Quantity::length) + std::string("²"); }
 
  private:
-  static std::string fixed(double v, int digits) {
-    if (std::abs(v) < 0.5 * std::pow(10.0, -digits)) v = 0.0;  // no "-0.0"
-    return fmt::format("{:.{}f}", v, digits);
-  }
+  static std::string fixed(double v, int digits) { return fixed_text(v, digits); }
   UnitSystem u_;
   bool si_ = u_ == UnitSystem::SI;
 };
@@ -114,7 +112,7 @@ std::string title_block(const CheckReport& r) {
   s += "<table class=\"meta\">\n";
   s += "<tr><th>tool</th><td>cairn " + esc(CAIRN_VERSION) + "</td></tr>\n";
   s += "<tr><th>input</th><td><code>" + esc(p.file) + "</code></td></tr>\n";
-  s += "<tr><th>options</th><td><code>" + esc(r.options) + "</code></td></tr>\n";
+  s += "<tr><th>command</th><td><code>" + esc(r.options) + "</code></td></tr>\n";
   s += "<tr><th>units</th><td>" + esc(units_text(p.units)) + "</td></tr>\n";
   s += fmt::format("<tr><th>piles</th><td>{}</td></tr>\n<tr><th>combinations</th><td>{}</td></tr>\n",
                    p.piles.size(), p.combinations.size());
@@ -122,6 +120,14 @@ std::string title_block(const CheckReport& r) {
   const bool pass = r.results->summary.pass;
   s += fmt::format("<p class=\"status {}\" id=\"status\">{}</p>\n", pass ? "pass" : "fail",
                    esc(summary_line(r)));
+  // An overturned combination at a glance: named on its own line under the verdict.
+  std::string overturned;
+  for (auto c : r.results->summary.overturned)
+    overturned += (overturned.empty() ? "" : ", ") + p.combinations[c].id;
+  if (!overturned.empty())
+    s += "<p class=\"status fail overturned\" id=\"overturned\">Overturned: " + esc(overturned) +
+         " — the cap has no equilibrium on its piles; no pile forces exist and every pile fails "
+         "in " + (r.results->summary.overturned.size() == 1 ? "it" : "them") + ".</p>\n";
   return s + "</header>\n";
 }
 
@@ -219,7 +225,9 @@ std::string plan_section(const CheckReport& r) {
   s += "<div class=\"figure\">\n" +
        render_plan_svg(*r.project, r.results, r.resistances) + "</div>\n";
   s += "<p class=\"note\">Piles are coloured by their largest utilization over all "
-       "combinations; hover over a pile for its values.</p>\n";
+       "combinations on a continuous scale (viridis: dark violet at 0, yellow at the top of the "
+       "bar, 1.0 marked); a pile that fails in any combination also has a bold outline and a "
+       "cross. Hover over a pile for its values.</p>\n";
   return s + "</section>\n";
 }
 
@@ -253,17 +261,21 @@ std::string results_section(const CheckReport& r, const CheckTables& tables) {
   std::string s = "<section class=\"results\" id=\"results\">\n<h2>4. Pile forces and "
                   "utilizations</h2>\n";
   s += "<p>Axial force positive in compression. Utilization = demand / capacity on the "
-       "combination's basis; a pile passes at 1.000 or less.</p>\n";
+       "combination's basis; a pile passes at 1.000 or less. Check: the check that gives the "
+       "utilization (compression, tension, lateral, structural). State: in contact, dropped out "
+       "(a compression-only pile that would be in tension) or overturned (no equilibrium: no "
+       "pile forces, every pile fails).</p>\n";
+  const double scale_max = utilization_scale_max(r.results);
   for (std::size_t i = 0; i < tables.per_combination.size(); ++i) {
     const CombinationCheck& cc = r.results->combinations[i];
-    s += "<div class=\"combination\">\n" + render_table_html(tables.per_combination[i]);
+    s += "<div class=\"combination\">\n" + render_table_html(tables.per_combination[i], scale_max);
     if (i < tables.per_combination_notes.size())
       s += fmt::format("<p class=\"note{}\">{}</p>\n", cc.pass ? "" : " fail",
                        esc(tables.per_combination_notes[i]));
     s += "</div>\n";
   }
-  s += render_table_html(tables.envelope);
-  s += render_table_html(tables.summary);
+  s += render_table_html(tables.envelope, scale_max);
+  s += render_table_html(tables.summary, scale_max);
   return s + "</section>\n";
 }
 
@@ -482,7 +494,7 @@ std::string hand_check_section(const CheckReport& r) {
 
 }  // namespace
 
-std::string render_table_html(const Table& table) {
+std::string render_table_html(const Table& table, double scale_max) {
   std::string s = "<table>\n";
   if (!table.title.empty()) s += "<caption>" + esc(table.title) + "</caption>\n";
   s += "<thead><tr>";
@@ -499,11 +511,13 @@ std::string render_table_html(const Table& table) {
       if (contains(header, "utilization")) {
         bool ok = false;
         const double u = parse_utilization(cell, ok);
-        if (ok) style = " style=\"background:" + utilization_colour(u) + "\"";
+        if (ok)
+          style = fmt::format(" style=\"background:{};color:{}\"", utilization_colour(u, scale_max),
+                              utilization_text_colour(u, scale_max));
       }
-      if (header == "state" || header == "status") {
-        const bool failing = cell == "OVER" || cell == "fail" || cell.rfind("FAIL", 0) == 0;
-        const bool passing = cell == "ok" || cell == "pass";
+      if (header == "state" || header == "status" || header == "result") {
+        const bool failing = cell == "fail" || cell == "overturned" || cell.rfind("FAIL", 0) == 0;
+        const bool passing = cell == "pass";
         if (failing) cls += cls.empty() ? "fail" : " fail";
         if (passing) cls += cls.empty() ? "ok" : " ok";
       }

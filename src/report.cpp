@@ -7,6 +7,8 @@
 
 #include <fmt/format.h>
 
+#include "cairn/number_text.hpp"
+
 namespace cairn {
 namespace {
 
@@ -52,11 +54,7 @@ class Units {
   std::string moment(double si) const { return fixed(value(Quantity::moment, si), digits(Quantity::moment)); }
   std::string small(double si) const { return fixed(value(Quantity::small_length, si), 3); }
   // Fixed decimals without a minus sign on a value that rounds to zero.
-  static std::string fixed(double v, int decimals) {
-    std::string text = fmt::format("{:.{}f}", v, decimals);
-    if (text.front() == '-' && text.find_first_not_of("-0.") == std::string::npos) text.erase(0, 1);
-    return text;
-  }
+  static std::string fixed(double v, int decimals) { return fixed_text(v, decimals); }
   std::string stiffness(double si) const {
     const double v = value(Quantity::stiffness, si);
     return std::abs(v) >= 1e4 ? fmt::format("{:.0f}", v) : fmt::format("{:.4g}", v);
@@ -78,14 +76,31 @@ class Units {
 
 std::string utilization_text(double u) {
   if (std::isinf(u)) return "no capacity";
-  return fmt::format("{:.3f}", u);
+  return fixed_text(u, 3);
 }
 
-std::string state_text(const PileCheck& p) {
-  if (!p.active) return "out (no tension)";
-  if (std::isinf(p.utilization)) return fmt::format("FAIL: no {} capacity", to_string(p.governing));
-  if (!p.pass) return "OVER";
-  return "ok";
+// A pile's result in a combination: "pass" or "fail", the words of the combination verdict.
+const char* result_text(const PileCheck& p) { return p.pass ? "pass" : "fail"; }
+
+// Reach of the cap for the rotations' display resolution: the farthest pile head from the
+// origin, at least 1 m (m).
+double cap_reach(const Project& p) {
+  double reach = 1.0;
+  for (const Pile& pile : p.piles) reach = std::max(reach, std::hypot(pile.x, pile.y));
+  return reach;
+}
+// The displacements are printed to 0.001 mm (SI) or 0.001 in (US): a rotation that moves no
+// pile head by half of that is round-off and prints as 0.
+double displacement_resolution(UnitSystem u) {
+  return 1e-3 * to_si_factor(u, Quantity::small_length);
+}
+
+// Ids of the overturned combinations, "S1, S3".
+std::string overturned_ids(const CheckReport& r) {
+  std::string ids;
+  for (auto c : r.results->summary.overturned)
+    ids += (ids.empty() ? "" : ", ") + r.project->combinations[c].id;
+  return ids;
 }
 
 const std::string& combo_id(const CheckReport& r, std::optional<std::size_t> c) {
@@ -191,7 +206,7 @@ GroupParts make_group_parts(const CheckReport& r) {
       t.headers.push_back(std::string(h) + " (" + mm + ")");
     for (int i = 0; i < 4; ++i) t.numeric.push_back(true);
   }
-  t.headers.push_back("state");
+  t.headers.push_back("status");
   t.numeric.push_back(false);
   for (const auto& gc : g.per_combination) {
     std::vector<std::string> row = {
@@ -212,7 +227,7 @@ GroupParts make_group_parts(const CheckReport& r) {
         r.results->combinations.begin(), r.results->combinations.end(), [&](const auto& cc) {
           return cc.combination == gc.combination && cc.solution.overturns;
         });
-    row.push_back(overturns ? "overturns" : (gc.pass ? "ok" : "FAIL"));
+    row.push_back(to_string(overturns ? Verdict::overturned : gc.pass ? Verdict::pass : Verdict::fail));
     t.rows.push_back(row);
   }
   if (g.settlement_asked)
@@ -351,12 +366,13 @@ Table combination_table(const CheckReport& r, const CombinationCheck& cc) {
   const Units u(p.units);
   Table t;
   const Combination& combo = p.combinations[cc.combination];
-  t.title = fmt::format("Combination {} ({}): {}", combo.id, to_string(combo.limit_state),
-                        combination_formula(p, combo));
+  t.title = fmt::format("Combination {} ({}): {} — {}", combo.id, to_string(combo.limit_state),
+                        combination_formula(p, combo), to_string(verdict(cc)));
   t.headers = {"pile", "x (" + u.label(Quantity::length) + ")",
                "y (" + u.label(Quantity::length) + ")", "axial (" + u.label(Quantity::force) + ")",
-               "lateral (" + u.label(Quantity::force) + ")", "utilization", "state"};
-  t.numeric = {false, true, true, true, true, true, false};
+               "lateral (" + u.label(Quantity::force) + ")", "utilization", "check", "state",
+               "result"};
+  t.numeric = {false, true, true, true, true, true, false, false, false};
   const bool moments = any_fixed_head(r);
   if (moments) {
     t.headers.insert(t.headers.begin() + 5, "head moment (" + u.label(Quantity::moment) + ")");
@@ -364,10 +380,14 @@ Table combination_table(const CheckReport& r, const CombinationCheck& cc) {
   }
   for (std::size_t i = 0; i < p.piles.size(); ++i) {
     const PileCheck& pc = cc.piles[i];
+    // An overturned cap has no pile forces: dashes, not zeros that would read as computed.
+    const bool none = pc.state == PileState::overturned;
+    const std::string dash = "-";
     std::vector<std::string> row = {p.piles[i].id, u.length(p.piles[i].x), u.length(p.piles[i].y),
-                                    u.force(pc.axial), u.force(pc.lateral),
-                                    utilization_text(pc.utilization), state_text(pc)};
-    if (moments) row.insert(row.begin() + 5, u.moment(head_moment(r, i, pc.lateral)));
+                                    none ? dash : u.force(pc.axial), none ? dash : u.force(pc.lateral),
+                                    none ? dash : utilization_text(pc.utilization),
+                                    to_string(pc.governing), to_string(pc.state), result_text(pc)};
+    if (moments) row.insert(row.begin() + 5, none ? dash : u.moment(head_moment(r, i, pc.lateral)));
     t.rows.push_back(row);
   }
   return t;
@@ -380,16 +400,19 @@ std::string combination_note(const CheckReport& r, const CombinationCheck& cc) {
   std::string text;
   if (cc.solution.overturns) {
     const Wrench f = combination_load(p, p.combinations[cc.combination]);
-    return fmt::format("FAIL: {} (resultant about the origin: Fz = {} {}, Mx = {} {}, My = {} {})",
+    return fmt::format("FAIL (overturned): {}; no pile forces exist and every pile fails "
+                       "(resultant about the origin: Fz = {} {}, Mx = {} {}, My = {} {})",
                        cc.solution.failure, u.force(f[2]), u.label(Quantity::force),
                        u.moment(f[3]), u.label(Quantity::moment), u.moment(f[4]),
                        u.label(Quantity::moment));
   }
-  text = fmt::format("Cap movement: translation ({}, {}, {}) {}, rotation ({:.3e}, {:.3e}, "
-                     "{:.3e}) rad.",
+  const double reach = cap_reach(p), resolution = displacement_resolution(p.units);
+  text = fmt::format("Cap movement: translation ({}, {}, {}) {}, rotation ({}, {}, {}) rad.",
                      u.small(m.translation[0]), u.small(m.translation[1]),
-                     u.small(m.translation[2]), u.label(Quantity::small_length), m.rotation[0],
-                     m.rotation[1], m.rotation[2]);
+                     u.small(m.translation[2]), u.label(Quantity::small_length),
+                     rotation_text(m.rotation[0], reach, resolution),
+                     rotation_text(m.rotation[1], reach, resolution),
+                     rotation_text(m.rotation[2], reach, resolution));
   if (!cc.solution.dropped.empty()) {
     std::string ids;
     for (auto i : cc.solution.dropped) ids += (ids.empty() ? "" : ", ") + p.piles[i].id;
@@ -414,10 +437,13 @@ Table envelope_table(const CheckReport& r) {
   const std::string f = u.label(Quantity::force);
   Table t;
   t.title = "Envelope per pile";
+  // Overturned combinations have no pile forces to take the largest of.
+  if (!r.results->summary.overturned.empty())
+    t.title += " (overturned, without pile forces, left out: " + overturned_ids(r) + ")";
   t.headers = {"pile",          "max compression (" + f + ")", "combination",
                "max tension (" + f + ")", "combination", "max lateral (" + f + ")",
-               "combination",   "max utilization",          "combination", "check"};
-  t.numeric = {false, true, false, true, false, true, false, true, false, false};
+               "combination",   "max utilization",          "combination", "check", "result"};
+  t.numeric = {false, true, false, true, false, true, false, true, false, false, false};
   for (std::size_t i = 0; i < p.piles.size(); ++i) {
     const PileEnvelope& e = r.results->envelope[i];
     t.rows.push_back({p.piles[i].id, u.force(e.max_compression.value),
@@ -425,9 +451,36 @@ Table envelope_table(const CheckReport& r) {
                       combo_id(r, e.max_tension.combination), u.force(e.max_lateral.value),
                       combo_id(r, e.max_lateral.combination),
                       utilization_text(e.max_utilization.value),
-                      combo_id(r, e.max_utilization.combination), to_string(e.governing)});
+                      combo_id(r, e.max_utilization.combination), to_string(e.governing),
+                      e.pass ? "pass" : "fail"});
   }
   return t;
+}
+
+// Why the check fails, in plain words, one item per cause; empty when it passes.
+std::vector<std::string> failure_reasons(const CheckReport& r) {
+  const Project& p = *r.project;
+  const CheckSummary& s = r.results->summary;
+  std::vector<std::string> reasons;
+  if (!s.overturned.empty()) reasons.push_back("the cap overturns in " + overturned_ids(r));
+  if (s.combination && s.pile && s.max_utilization > 1.0) {
+    const std::string pile = p.piles[*s.pile].id, combo = p.combinations[*s.combination].id;
+    reasons.push_back(std::isinf(s.max_utilization)
+                          ? fmt::format("pile {} has no {} capacity (combination {})", pile,
+                                        to_string(s.check), combo)
+                          : fmt::format("pile {} over capacity: utilization {} > 1 in {} ({})",
+                                        pile, utilization_text(s.max_utilization), combo,
+                                        to_string(s.check)));
+  }
+  if (r.group && !r.group->pass) reasons.push_back("group checks fail");
+  if (reasons.empty() && !s.pass) reasons.push_back("a check fails");
+  return reasons;
+}
+
+std::string joined(const std::vector<std::string>& items, const char* separator) {
+  std::string text;
+  for (const auto& item : items) text += (text.empty() ? "" : separator) + item;
+  return text;
 }
 
 Table summary_table(const CheckReport& r) {
@@ -435,10 +488,12 @@ Table summary_table(const CheckReport& r) {
   const CheckSummary& s = r.results->summary;
   Table t;
   t.title = "Summary";
-  t.headers = {"status", "max utilization", "pile", "combination", "check",
+  t.headers = {"status", "reason", "max utilization", "pile", "combination", "check",
                "failed combinations", "combinations", "piles"};
-  t.numeric = {false, true, false, false, false, true, true, true};
-  t.rows.push_back({s.pass ? "pass" : "fail", utilization_text(s.max_utilization),
+  t.numeric = {false, false, true, false, false, false, true, true, true};
+  const auto reasons = failure_reasons(r);
+  t.rows.push_back({s.pass ? "pass" : "fail", reasons.empty() ? "-" : joined(reasons, "; "),
+                    s.combination ? utilization_text(s.max_utilization) : "-",
                     s.pile ? p.piles[*s.pile].id : "-", combo_id(r, s.combination),
                     to_string(s.check), std::to_string(s.failed_combinations),
                     std::to_string(p.combinations.size()), std::to_string(p.piles.size())});
@@ -451,9 +506,9 @@ std::string header(const CheckReport& r, Format format) {
       p.units == UnitSystem::SI ? "SI (kN, m, kPa, kN·m)" : "US (kip, ft, ksf, kip·ft)";
   if (format == Format::markdown)
     return fmt::format("# Pile check: {}\n\n- tool: cairn {}\n- input: `{}`\n- units: {}\n- "
-                       "options: {}\n\n",
+                       "command: `{}`\n\n",
                        p.title, CAIRN_VERSION, p.file, units, r.options);
-  return fmt::format("cairn {} — pile check: {}\ninput: {}\nunits: {}\noptions: {}\n\n",
+  return fmt::format("cairn {} — pile check: {}\ninput: {}\nunits: {}\ncommand: {}\n\n",
                      CAIRN_VERSION, p.title, p.file, units, r.options);
 }
 
@@ -611,17 +666,19 @@ std::string summary_line(const CheckReport& r) {
       fmt::format("pile {}, combination {}, {}", s.pile ? p.piles[*s.pile].id : "-",
                   combo_id(r, s.combination), to_string(s.check));
   if (s.pass)
-    return fmt::format("PASS: {} piles in {} combinations; max utilization {} ({})",
-                       p.piles.size(), p.combinations.size(), utilization_text(s.max_utilization),
-                       where);
-  std::string overturned;
-  for (auto c : s.overturned) overturned += (overturned.empty() ? "" : ", ") + p.combinations[c].id;
+    return fmt::format("PASS: {} in {}; max utilization {} ({})",
+                       count_text(p.piles.size(), "pile"),
+                       count_text(p.combinations.size(), "combination"),
+                       utilization_text(s.max_utilization), where);
+  const std::string overturned = overturned_ids(r);
   const bool group_fails = r.group && !r.group->pass;
   const std::string utilization =
       s.combination ? fmt::format("; max utilization {} ({})", utilization_text(s.max_utilization), where)
                     : std::string();
-  return fmt::format("FAIL: {} of {} combinations fail{}{}{}", s.failed_combinations,
-                     p.combinations.size(),
+  // "1 of 3 combinations fails", "2 of 3 combinations fail".
+  return fmt::format("FAIL: {} of {} {}{}{}{}", s.failed_combinations,
+                     count_text(p.combinations.size(), "combination"),
+                     s.failed_combinations == 1 ? "fails" : "fail",
                      overturned.empty() ? "" : "; the cap overturns in " + overturned, utilization,
                      group_fails ? "; group checks fail (see Group checks)" : "");
 }
@@ -633,7 +690,7 @@ json check_json(const CheckReport& r) {
   doc["tool"] = {{"name", "cairn"}, {"version", CAIRN_VERSION}};
   doc["input"] = p.file;
   doc["title"] = p.title;
-  doc["options"] = r.options;
+  doc["command"] = r.options;
   doc["units"] = {{"system", to_string(p.units)},
                   {"force", u.label(Quantity::force)},
                   {"length", u.label(Quantity::length)},
@@ -641,6 +698,7 @@ json check_json(const CheckReport& r) {
                   {"displacement", u.label(Quantity::small_length)},
                   {"rotation", "rad"}};
   json combos = json::array();
+  const double reach = cap_reach(p), resolution = displacement_resolution(p.units);
   for (const CombinationCheck& cc : r.results->combinations) {
     const Combination& c = p.combinations[cc.combination];
     json factors = json::object();
@@ -648,18 +706,22 @@ json check_json(const CheckReport& r) {
     json piles = json::array();
     for (std::size_t i = 0; i < p.piles.size(); ++i) {
       const PileCheck& pc = cc.piles[i];
+      // An overturned cap has no pile forces: null, not zeros that would read as computed.
+      const bool none = pc.state == PileState::overturned;
       json pile = {{"id", p.piles[i].id},
-                   {"axial", u.value(Quantity::force, pc.axial)},
-                   {"lateral", u.value(Quantity::force, pc.lateral)},
+                   {"axial", none ? json(nullptr) : json(u.value(Quantity::force, pc.axial))},
+                   {"lateral", none ? json(nullptr) : json(u.value(Quantity::force, pc.lateral))},
                    {"active", pc.active},
-                   {"utilization", number_or_null(pc.utilization)},
+                   {"utilization", none ? json(nullptr) : number_or_null(pc.utilization)},
                    {"governing", to_string(pc.governing)},
+                   {"state", to_string(pc.state)},
                    {"pass", pc.pass},
                    {"axial_stiffness", u.value(Quantity::stiffness, axial_stiffness(r, p.piles[i].type))},
                    {"lateral_stiffness",
                     u.value(Quantity::stiffness, lateral_stiffness(r, p.piles[i].type))}};
       if (r.stiffness && (*r.stiffness)[p.piles[i].type].head == HeadFixity::fixed)
-        pile["head_moment"] = u.value(Quantity::moment, head_moment(r, i, pc.lateral));
+        pile["head_moment"] =
+            none ? json(nullptr) : json(u.value(Quantity::moment, head_moment(r, i, pc.lateral)));
       piles.push_back(pile);
     }
     const auto& m = cc.solution.movement;
@@ -670,13 +732,16 @@ json check_json(const CheckReport& r) {
         {"limit_state", to_string(c.limit_state)},
         {"factors", factors},
         {"source", c.generator.empty() ? std::string("given") : "generated: " + c.generator},
-        {"status", cc.solution.overturns ? "overturns" : (cc.pass ? "pass" : "fail")},
+        {"status", to_string(verdict(cc))},
         {"cap",
          {{"translation",
            {u.value(Quantity::small_length, m.translation[0]),
             u.value(Quantity::small_length, m.translation[1]),
             u.value(Quantity::small_length, m.translation[2])}},
-          {"rotation", {m.rotation[0], m.rotation[1], m.rotation[2]}}}},
+          {"rotation",
+           {rotation_value(m.rotation[0], reach, resolution),
+            rotation_value(m.rotation[1], reach, resolution),
+            rotation_value(m.rotation[2], reach, resolution)}}}},
         {"piles", piles},
         {"dropped", dropped},
         {"max_utilization", number_or_null(cc.max_utilization)},
@@ -699,7 +764,8 @@ json check_json(const CheckReport& r) {
                         {"max_tension", extreme(e.max_tension, Quantity::force)},
                         {"max_lateral", extreme(e.max_lateral, Quantity::force)},
                         {"max_utilization", extreme(e.max_utilization, Quantity::number)},
-                        {"governing", to_string(e.governing)}});
+                        {"governing", to_string(e.governing)},
+                        {"pass", e.pass}});
   }
   doc["envelope"] = envelope;
   if (r.group) doc["group"] = group_json(r);
@@ -708,6 +774,8 @@ json check_json(const CheckReport& r) {
   for (auto c : s.overturned) overturned.push_back(p.combinations[c].id);
   doc["summary"] = {
       {"pass", s.pass},
+      {"status", s.pass ? "pass" : "fail"},
+      {"reasons", failure_reasons(r)},
       {"max_utilization", number_or_null(s.max_utilization)},
       {"failed_combinations", s.failed_combinations},
       {"overturned", overturned},
@@ -771,7 +839,12 @@ std::string render_check(const CheckReport& r, Format format) {
   out += render_table(combinations_table(r), format);
   for (const auto& cc : r.results->combinations) {
     out += render_table(combination_table(r, cc), format);
-    out.insert(out.size() - 1, (format == Format::markdown ? "" : "  ") + combination_note(r, cc) + "\n");
+    // Markdown: the note is its own paragraph after the table's blank line, or a renderer
+    // would take it for one more table row.
+    if (format == Format::markdown)
+      out += combination_note(r, cc) + "\n\n";
+    else
+      out.insert(out.size() - 1, "  " + combination_note(r, cc) + "\n");
   }
   out += render_table(envelope_table(r), format);
   if (r.group) out += group_block(r, format);
@@ -860,7 +933,7 @@ std::string render_springs(const Project& project, const std::vector<PileTypeSti
     }
     json doc = {{"tool", {{"name", "cairn"}, {"version", CAIRN_VERSION}}},
                 {"input", project.file},
-                {"options", options},
+                {"command", options},
                 {"units", {{"stiffness", k}, {"length", l}}},
                 {"piles", piles},
                 {"caution", kCaution}};
@@ -881,9 +954,9 @@ std::string render_springs(const Project& project, const std::vector<PileTypeSti
   }
   if (format == Format::csv) return render_table(t, Format::csv) + "# " + kCaution + "\n";
   const bool md = format == Format::markdown;
-  std::string out = md ? fmt::format("# Pile-head springs: {}\n\n- tool: cairn {}\n- input: `{}`\n\n",
-                                     project.title, CAIRN_VERSION, project.file)
-                       : fmt::format("cairn {} — pile-head springs: {}\ninput: {}\noptions: {}\n\n",
+  std::string out = md ? fmt::format("# Pile-head springs: {}\n\n- tool: cairn {}\n- input: `{}`\n- command: `{}`\n\n",
+                                     project.title, CAIRN_VERSION, project.file, options)
+                       : fmt::format("cairn {} — pile-head springs: {}\ninput: {}\ncommand: {}\n\n",
                                      CAIRN_VERSION, project.title, project.file, options);
   out += render_table(t, format);
   out += md ? "Sources:\n\n" : "Sources\n";
@@ -922,7 +995,7 @@ std::string render_cap_summary(const std::vector<CapSummaryRow>& rows, Format fo
                       {"pass", r.pass}});
     }
     json doc = {{"tool", {{"name", "cairn"}, {"version", CAIRN_VERSION}}},
-                {"options", options},
+                {"command", options},
                 {"caps", caps},
                 {"summary", {{"pass", failing == 0}, {"caps", rows.size()}, {"failing", failing}}},
                 {"caution", kCaution}};
@@ -943,14 +1016,16 @@ std::string render_cap_summary(const std::vector<CapSummaryRow>& rows, Format fo
   }
   if (format == Format::csv) return render_table(t, Format::csv) + "# " + kCaution + "\n";
   std::string out = format == Format::markdown
-                        ? fmt::format("# Foundation check\n\n- tool: cairn {}\n- options: {}\n\n",
+                        ? fmt::format("# Foundation check\n\n- tool: cairn {}\n- command: `{}`\n\n",
                                       CAIRN_VERSION, options)
-                        : fmt::format("cairn {} — foundation check\noptions: {}\n\n", CAIRN_VERSION,
+                        : fmt::format("cairn {} — foundation check\ncommand: {}\n\n", CAIRN_VERSION,
                                       options);
   out += render_table(t, format);
   const std::string line =
-      failing == 0 ? fmt::format("PASS: all {} caps pass", rows.size())
-                   : fmt::format("FAIL: {} of {} caps fail", failing, rows.size());
+      failing == 0 ? (rows.size() == 1 ? std::string("PASS: the cap passes")
+                                       : fmt::format("PASS: all {} caps pass", rows.size()))
+                   : fmt::format("FAIL: {} of {} {}", failing, count_text(rows.size(), "cap"),
+                                 failing == 1 ? "fails" : "fail");
   out += format == Format::markdown ? "**" + line + "**\n\n_" + kCaution + "_\n"
                                     : line + "\n\n" + kCaution + "\n";
   return out;

@@ -124,7 +124,7 @@ expect_status "cap that overturns fails" 1 check "$data/e2e/fail_overturn.yaml"
 cat "$work/out" "$work/err" >"$work/both"
 expect_in "cap that overturns" "$work/both" "the cap overturns"
 # The group demand row of that combination has no pile forces to sum: it must not read "ok".
-if grep -E '^  S1 ' "$work/out" | tail -n 1 | grep -q 'overturns$'; then ok; else
+if grep -E '^  S1 ' "$work/out" | tail -n 1 | grep -q 'overturned$'; then ok; else
   bad "cap that overturns: its group demand row does not say so"
 fi
 
@@ -177,7 +177,7 @@ expect_status "--help" 0 --help
 
 # ---- demo projects ---------------------------------------------------------------------------
 # Each projects-demo/<name>/cap.yaml must pass; when <name>/expected/check.json exists, the
-# JSON document must match it, apart from "input" and "options" (which name paths and flags).
+# JSON document must match it, apart from "input" and "command" (which name paths and flags).
 for project in "$src"/projects-demo/*/cap.yaml; do
   [ -e "$project" ] || continue
   dir=$(dirname "$project")
@@ -192,7 +192,7 @@ import json, math, sys
 def load(path):
     with open(path) as f:
         doc = json.load(f)
-    for key in ("input", "options"):
+    for key in ("input", "options", "command"):
         doc.pop(key, None)
     return doc
 
@@ -267,7 +267,7 @@ then ok; else bad "the plan SVG is not well-formed XML"; fi
 expect_status "batch, all pass" 0 check "$data/e2e/pass.yaml" "$data/base.yaml"
 expect_in "batch summary" "$work/out" "PASS: all 2 caps pass"
 expect_status "batch, one fails" 1 check "$data/e2e/pass.yaml" "$data/e2e/fail_overload.yaml"
-expect_in "batch names the failing count" "$work/out" "FAIL: 1 of 2 caps fail"
+expect_in "batch names the failing count" "$work/out" "FAIL: 1 of 2 caps fails"
 expect_status "batch, one unreadable" 2 check "$data/e2e/pass.yaml" "$data/bad_pile_type.yaml"
 expect_status "batch --format json" 0 check "$data/e2e/pass.yaml" "$data/base.yaml" --format json
 if json_has_keys caps summary caution <"$work/out"; then ok; else bad "batch json keys"; fi

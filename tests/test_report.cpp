@@ -106,7 +106,7 @@ TEST_CASE("report: the summary line says PASS or FAIL with where the maximum occ
     INFO(line);
     // Hand (fail.yaml): 1533.33/1400 = 1.095; the group is overloaded too (Σ 6000 kN
     // against 4 × 1400 = 5600 kN with η = 1).
-    CHECK(line.rfind("FAIL: 1 of 1 combinations fail; max utilization 1.095 (pile ", 0) == 0);
+    CHECK(line.rfind("FAIL: 1 of 1 combination fails; max utilization 1.095 (pile ", 0) == 0);
     CHECK(ends_with(line, ", combination S1, compression); group checks fail (see Group checks)"));
   }
   SECTION("overturns") {
@@ -114,7 +114,7 @@ TEST_CASE("report: the summary line says PASS or FAIL with where the maximum occ
     const std::string line = summary_line(make_check_report(run, "", std::nullopt));
     INFO(line);
     // The only combination overturns: no pile governs, so none is named.
-    CHECK(line == "FAIL: 1 of 1 combinations fail; the cap overturns in S1");
+    CHECK(line == "FAIL: 1 of 1 combination fails; the cap overturns in S1");
   }
 }
 

@@ -64,17 +64,37 @@ std::vector<PileTypeResistance> resolve_resistances(
 std::vector<Diagnostic> missing_resistances(const Project& project,
                                             const std::vector<PileTypeResistance>& resistances);
 
+// The checks a pile's utilization comes from: the one list every output names them by.
+// `none` when the pile carries no demand at all (or no forces exist: the cap overturned).
 enum class Demand { none, compression, tension, lateral, structural };
+// "none", "compression", "tension", "lateral", "structural": the word every output prints.
 const char* to_string(Demand);
 
+// What a pile does in one combination: the one list of states every output uses.
+//   in_contact   the pile carries its share (compression, or tension where allowed)
+//   dropped_out  a compression-only pile that would be in tension; its axial spring is
+//                removed and the load redistributed (cap_solver.hpp)
+//   overturned   no equilibrium exists in the combination: the cap overturns or is unstable,
+//                so the pile has no force to speak of and the pile fails with the combination
+enum class PileState { in_contact, dropped_out, overturned };
+// "in contact", "dropped out", "overturned": the word every output prints (JSON included).
+const char* to_string(PileState);
+
+// The verdict on a combination: pass, fail (some pile over capacity or without one), or
+// overturned (no equilibrium). An overturned combination fails.
+enum class Verdict { pass, fail, overturned };
+// "pass", "fail", "overturned".
+const char* to_string(Verdict);
+
 struct PileCheck {
-  double axial = 0.0;    // kN, compression positive
+  double axial = 0.0;    // kN, compression positive (0 when overturned: no forces exist)
   double lateral = 0.0;  // kN
   double head_moment = 0.0;  // kN·m, fixed heads (0 for pinned)
   bool active = true;    // false: dropped out, takes no tension
+  PileState state = PileState::in_contact;
   double utilization = 0.0;   // infinity when a demand has no capacity
   Demand governing = Demand::none;
-  bool pass = true;
+  bool pass = true;      // false in an overturned combination, whatever the forces
 };
 
 struct CombinationCheck {
@@ -87,7 +107,12 @@ struct CombinationCheck {
   Demand governing = Demand::none;
 };
 
-// The largest value of a quantity over all combinations and where it occurs.
+// The verdict on one checked combination.
+Verdict verdict(const CombinationCheck& check);
+
+// The largest value of a quantity over all combinations and where it occurs. No combination
+// is named when the value is zero in every combination (a pile never in tension has no
+// combination of largest tension). Overturned combinations have no forces and are left out.
 struct Extreme {
   double value = 0.0;
   std::optional<std::size_t> combination;
@@ -99,6 +124,7 @@ struct PileEnvelope {
   Extreme max_lateral;      // kN
   Extreme max_utilization;
   Demand governing = Demand::none;  // the check that gives max_utilization
+  bool pass = true;  // false when the pile fails in any combination, overturned ones included
 };
 
 struct CheckSummary {

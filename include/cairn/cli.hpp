@@ -29,6 +29,10 @@ struct Options {
   // report: also the plan alone as SVG, and the tables as CSV and Markdown.
   bool plan_svg = false;
   bool tables = false;
+  // The command as it was run (program name without its folder, then the arguments as
+  // given, quoted where a shell would need it), shown in every report header. Empty when
+  // run() is called without a command line: the header then shows the options rebuilt.
+  std::string command_line;
 };
 
 inline constexpr int kExitPass = 0;

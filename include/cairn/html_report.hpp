@@ -40,8 +40,9 @@ struct HtmlReportInput {
 std::string render_html_report(const HtmlReportInput& input);
 
 // One table as an HTML <table> with its title as <caption>; numeric columns right-aligned,
-// utilization cells tinted with the plan's colours and failing states marked.
-std::string render_table_html(const Table& table);
+// utilization cells tinted with the plan's colour scale (0 to `scale_max`, plan_svg.hpp) and
+// failing cells of a "state", "status" or "result" column ("fail", "overturned") marked.
+std::string render_table_html(const Table& table, double scale_max = 1.2);
 
 // The capacity-with-depth chart of one pile type as an inline SVG: ultimate compression and
 // tension (horizontal axis, project force unit) against pile length (vertical axis, down,

@@ -5,7 +5,12 @@
 // direction the toe moves (length proportional to 1/ratio, labelled "1:n"), the points where
 // load cases apply loads (columns, self-weight), the global axes with +x and +y arrows at the
 // origin, a scale bar in the project's length unit and, when check results are given, each
-// pile filled by its largest utilization over all combinations with a legend.
+// pile filled by its largest utilization over all combinations on a continuous colour scale
+// with its colour bar (0 to max(1.2, largest utilization), 1.0 marked). A pile that fails in
+// any combination (over capacity, a demand with no capacity, or the cap overturned) is also
+// marked by shape — a bold outline and a cross — so that the plan reads in grayscale and
+// for colour-blind readers; an overturned combination is named in a banner above the plan.
+// The legend lists each load point with its own loads (case, name, non-zero components).
 //
 // Geometry is in m (SI inside, as everywhere in cairn); the drawing maps plan (x, y) to SVG
 // user units (px) with one uniform scale, y flipped so that +y points up the page:
@@ -35,10 +40,25 @@ struct PlanFrame {
 // origin fit in a drawing `plan_width` px wide with margins for arrows and labels.
 PlanFrame plan_frame(const Project& project, double plan_width = 640.0);
 
-// Utilization bands of the plan's legend (common practice for colour-coded results):
-// below 0.5, 0.5–0.8, 0.8–1.0 and over 1.0 (red). An infinite utilization (a demand with no
-// capacity) is over 1.0. Returns a CSS colour "#rrggbb".
-std::string utilization_colour(double utilization);
+// The utilization colour scale: viridis, a perceptually uniform sequential colour map that
+// stays ordered in grayscale and for the common colour-vision deficiencies (van der Walt &
+// Smith 2015, "mpl-colormaps", released CC0), sampled at 9 anchors (entries 0, 32, …, 224,
+// 255 of its published 256-entry table) and interpolated linearly between them in sRGB.
+// The scale runs from 0 (dark violet #440154) to `scale_max` (yellow #fde725); utilizations
+// above it (infinity included: a demand with no capacity) take the top colour.
+// Returns a CSS colour "#rrggbb"; NaN gives kUncheckedColour. Requires: scale_max > 0.
+std::string utilization_colour(double utilization, double scale_max = 1.2);
+
+// Black or white, whichever reads better on utilization_colour(utilization, scale_max): the
+// lower part of the scale is dark.
+const char* utilization_text_colour(double utilization, double scale_max = 1.2);
+
+// The top of the colour bar: the larger of 1.2 and the largest finite utilization of any pile
+// in `results` (null: 1.2), so that 1.0 always sits inside the bar.
+double utilization_scale_max(const CheckResults* results);
+
+// The smallest top of the colour bar.
+inline constexpr double kUtilizationScaleMin = 1.2;
 
 // Colour of a pile with no check results.
 inline constexpr const char* kUncheckedColour = "#d9d9d9";

@@ -61,7 +61,7 @@ class Units {
   }
   std::string area(double si) const {
     const double f = to_si_factor(u_, Quantity::length);
-    return fmt::format("{:.4f}", si / (f * f));
+    return fixed_text(si / (f * f), 4);
   }
   std::string area_label() const { return label(Quantity::length) + "²"; }
   UnitSystem system() const { return u_; }
@@ -325,7 +325,8 @@ Table pile_types_table(const CheckReport& r) {
       return one(res.compression) + " / " + one(res.tension) + " / " + one(res.lateral);
     };
     t.rows.push_back({type.id,
-                      fmt::format("{} {}", to_string(type.section.shape), u.length(type.section.width)),
+                      fmt::format("{} {} {}", to_string(type.section.shape), u.length(type.section.width),
+                                  u.label(Quantity::length)),
                       u.length(type.length), u.stiffness(axial_stiffness(r, i)),
                       u.stiffness(lateral_stiffness(r, i)), type.tension ? "yes" : "no",
                       set((*r.resistances)[i].allowable), set((*r.resistances)[i].factored)});
@@ -573,9 +574,9 @@ std::string explain_block(const CheckReport& r, Format format) {
         "{}  = {} + {} + {} = {} {}   (solver: {} {})\n",
         in, u.length(h.x_local), l, u.length(h.y_local), l, in, u.force(h.vertical), s.count,
         u.moment(h.moment_y), u.area(s.ixx), u.moment(h.moment_x), u.area(s.ixy),
-        fmt::format("{:.4f}", det / std::pow(lf, 4)), u.length(h.x_local), u.moment(h.moment_x),
+        fixed_text(det / std::pow(lf, 4), 4), u.length(h.x_local), u.moment(h.moment_x),
         u.area(s.iyy), u.moment(h.moment_y), u.area(s.ixy),
-        fmt::format("{:.4f}", det / std::pow(lf, 4)), u.length(h.y_local), in, u.force(h.direct),
+        fixed_text(det / std::pow(lf, 4), 4), u.length(h.y_local), in, u.force(h.direct),
         u.force(h.from_moment_y), u.force(h.from_moment_x), u.force(h.axial), f,
         u.force(h.solver_axial), f);
   }
@@ -795,9 +796,10 @@ json check_json(const CheckReport& r) {
         e["n"] = h.section.count;
         e["centroid"] = {u.value(Quantity::length, h.section.centroid_x),
                          u.value(Quantity::length, h.section.centroid_y)};
-        e["Ixx"] = h.section.ixx / (lf * lf);
-        e["Iyy"] = h.section.iyy / (lf * lf);
-        e["Ixy"] = h.section.ixy / (lf * lf);
+        // + 0.0 turns a negative zero (Ixy of a symmetric group) into 0.
+        e["Ixx"] = h.section.ixx / (lf * lf) + 0.0;
+        e["Iyy"] = h.section.iyy / (lf * lf) + 0.0;
+        e["Ixy"] = h.section.ixy / (lf * lf) + 0.0;
         e["V"] = u.value(Quantity::force, h.vertical);
         e["Mx"] = u.value(Quantity::moment, h.moment_x);
         e["My"] = u.value(Quantity::moment, h.moment_y);
@@ -948,8 +950,8 @@ std::string render_springs(const Project& project, const std::vector<PileTypeSti
     const PileTypeStiffness& s = stiffness[pile.type];
     const auto a = pile.axis();
     t.rows.push_back({pile.id, project.pile_types[pile.type].id, u.length(pile.x), u.length(pile.y),
-                      fmt::format("{:.4f}", a[0]), fmt::format("{:.4f}", a[1]),
-                      fmt::format("{:.4f}", a[2]), u.stiffness(s.axial), u.stiffness(s.lateral),
+                      fixed_text(a[0], 4), fixed_text(a[1], 4),
+                      fixed_text(a[2], 4), u.stiffness(s.axial), u.stiffness(s.lateral),
                       s.head == HeadFixity::fixed ? "fixed" : "pinned"});
   }
   if (format == Format::csv) return render_table(t, Format::csv) + "# " + kCaution + "\n";

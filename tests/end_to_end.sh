@@ -287,5 +287,53 @@ expect_in "generated combinations listed" "$work/out" "generated: asce7-lrfd"
 expect_status "unknown generator" 2 check "$data/e2e/bad_generator.yaml"
 expect_in "valid generators listed" "$work/err" "asce7-asd"
 
+# ---- One verdict in every output: an overturned combination, the pile states and words.
+mixed="$data/outputs/mixed.yaml"
+expect_status "mixed.yaml fails (S2 overturns)" 1 check "$mixed"
+expect_in "text: S2's title carries its verdict" "$work/out" "Combination S2 (service): 0.25·D + 1.0·O — overturned"
+expect_in "text: a dropped pile is named by its state" "$work/out" " none        dropped out pass"
+if grep -E '^  [AB][12] ' "$work/out" | grep -F ' overturned ' | grep -qv ' overturned fail$'; then
+  bad "text: a pile of the overturned combination is not marked fail"
+else ok; fi
+expect_in "text: the command as run" "$work/out" "command: $(basename "$cairn") check $mixed"
+expect_status "mixed.yaml csv" 1 check "$mixed" --format csv
+expect_in "csv: the summary row says why" "$work/out" "fail,the cap overturns in S2,0.847,A2,S1,compression,1,2,4"
+expect_in "csv: overturned pile rows" "$work/out" "A1,-1.350,-1.350,-,-,-,none,overturned,fail"
+expect_status "mixed.yaml json" 1 check "$mixed" --format json
+if python3 -c '
+import json, sys
+doc = json.load(sys.stdin)
+s2 = doc["combinations"][1]
+assert s2["status"] == "overturned", s2["status"]
+assert all(p["state"] == "overturned" and p["pass"] is False for p in s2["piles"])
+assert doc["combinations"][0]["piles"][2]["state"] == "dropped out"
+assert doc["summary"]["reasons"] == ["the cap overturns in S2"], doc["summary"]["reasons"]
+assert all(e["max_tension"]["combination"] is None for e in doc["envelope"])
+' <"$work/out" 2>"$work/err"; then ok; else bad "json: verdict, states or reasons"; fi
+expect_status "mixed.yaml --out" 1 check "$mixed" --out "$work/mixed-out"
+if [ "$(grep -c ',overturned,fail$' "$work/mixed-out/combination-S2.csv")" -eq 4 ]; then ok; else
+  bad "combination-S2.csv: not every pile overturned and failing"
+fi
+expect_in "summary.csv says why" "$work/mixed-out/summary.csv" "fail,the cap overturns in S2,"
+if awk 'prev ~ /^\|/ && $0 !~ /^\|/ && $0 != "" {bad = 1} {prev = $0} END {exit bad}' \
+  "$work/mixed-out/report.md"; then ok; else bad "report.md: a line follows a table without a blank line"; fi
+expect_status "mixed.yaml report" 1 report "$mixed" --out "$work/mixed-html" --svg
+expect_in "html: overturned at a glance" "$work/mixed-html/mixed.html" 'id="overturned">Overturned: S2'
+expect_in "html: the command as run" "$work/mixed-html/mixed.html" "<code>$(basename "$cairn") report $mixed --out $work/mixed-html --svg</code>"
+if [ "$(grep -o '<g class="pile failing"' "$work/mixed-html/mixed-plan.svg" | wc -l)" -eq 4 ]; then ok; else
+  bad "plan: the piles of an overturned cap are not all marked failing"
+fi
+expect_in "plan: colour bar" "$work/mixed-html/mixed-plan.svg" 'class="colour-bar"'
+if python3 -c 'import sys, xml.etree.ElementTree as E; E.parse(sys.argv[1])' "$work/mixed-html/mixed-plan.svg" 2>"$work/err"
+then ok; else bad "mixed plan SVG is not well-formed XML"; fi
+# No "-0.000" and no round-off rotations anywhere in the demo outputs.
+for project in "$src"/projects-demo/*/cap.yaml; do
+  (cd "$(dirname "$project")" && "$cairn" check cap.yaml >"$work/out" 2>"$work/err")
+  if grep -qE -- '-0\.0+([^0-9]|$)' "$work/out"; then bad "$project: prints a negative zero"; else ok; fi
+  if grep -oE 'rotation \([^)]*\)' "$work/out" | grep -qE 'e-(1[0-9]|[2-9][0-9])'; then
+    bad "$project: prints a round-off rotation"
+  else ok; fi
+done
+
 echo "$passed passed, $failed failed"
 [ "$failed" -eq 0 ]

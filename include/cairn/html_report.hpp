@@ -1,8 +1,8 @@
 // html_report.hpp — the calculation package: one self-contained HTML document a checking
 // engineer can read, print (A4 or Letter) and verify by hand.
 //
-// The document holds, in order: a title block (tool version, input file, options, units,
-// pass/fail), the basis (units and axes, capacities with their basis and source, methods,
+// The document holds, in order: a title block (tool version, input file, the command as it
+// was run, units, pass/fail, and any overturned combination named on its own line), the basis (units and axes, capacities with their basis and source, methods,
 // assumptions), the cap plan drawn to scale (plan_svg.hpp), load cases and combinations,
 // per-pile results per combination and the envelope, the capacity breakdown of one sample
 // pile type with the equations written out and the numbers substituted (Vesić 1977, Meyerhof

@@ -2,8 +2,15 @@
 //
 // Every rendering is a string built in memory (nothing is written here; output_files.hpp
 // writes files atomically). Each output opens with the tool version, the input file and the
-// options, states the assumptions in one place, and ends with the caution that results are
-// for checking by a qualified engineer.
+// command as it was run, states the assumptions in one place, and ends with the caution that
+// results are for checking by a qualified engineer.
+//
+// One vocabulary in every format (checks.hpp): each pile row gives its governing check
+// (to_string(Demand)), its state (to_string(PileState)) and its result (pass / fail); each
+// combination its verdict (to_string(Verdict)). An overturned combination shows no pile
+// forces ("-", JSON null), fails every pile, is left out of the envelope and is named in the
+// summary's reason. Numbers go through number_text.hpp: no "-0.000", rotations below the
+// displacements' printed precision as 0, counts that agree with their noun.
 #pragma once
 
 #include <cstddef>
@@ -40,7 +47,9 @@ struct CheckReport {
   const CheckResults* results = nullptr;
   const std::vector<PileTypeResistance>* resistances = nullptr;
   std::vector<std::string> assumptions;
-  std::string options;  // effective options, for the report header
+  // The command as it was run (Options::command_line), else the options rebuilt: shown as
+  // "command:" in every report header and as "command" in JSON.
+  std::string options;
   std::optional<std::size_t> explain_pile;
   std::vector<HandCheck> hand_checks;  // when explain_pile is set
   const std::vector<PileTypeStiffness>* stiffness = nullptr;  // springs per pile type

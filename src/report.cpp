@@ -82,19 +82,6 @@ std::string utilization_text(double u) {
 // A pile's result in a combination: "pass" or "fail", the words of the combination verdict.
 const char* result_text(const PileCheck& p) { return p.pass ? "pass" : "fail"; }
 
-// Reach of the cap for the rotations' display resolution: the farthest pile head from the
-// origin, at least 1 m (m).
-double cap_reach(const Project& p) {
-  double reach = 1.0;
-  for (const Pile& pile : p.piles) reach = std::max(reach, std::hypot(pile.x, pile.y));
-  return reach;
-}
-// The displacements are printed to 0.001 mm (SI) or 0.001 in (US): a rotation that moves no
-// pile head by half of that is round-off and prints as 0.
-double displacement_resolution(UnitSystem u) {
-  return 1e-3 * to_si_factor(u, Quantity::small_length);
-}
-
 // Ids of the overturned combinations, "S1, S3".
 std::string overturned_ids(const CheckReport& r) {
   std::string ids;
@@ -130,8 +117,22 @@ bool any_fixed_head(const CheckReport& r) {
   return false;
 }
 
-std::string tilt_text(double tilt) {
-  if (tilt <= 1e-12) return "0";
+// Reach of the cap for the rotations' display resolution: the farthest pile head from the
+// origin, at least 1 m (m).
+double cap_reach(const Project& p) {
+  double reach = 1.0;
+  for (const Pile& pile : p.piles) reach = std::max(reach, std::hypot(pile.x, pile.y));
+  return reach;
+}
+// The displacements are printed to 0.001 mm (SI) or 0.001 in (US): a rotation that moves no
+// pile head by half of that is round-off and prints as 0.
+double displacement_resolution(UnitSystem u) {
+  return 1e-3 * to_si_factor(u, Quantity::small_length);
+}
+
+// The cap's tilt as "1 in N"; "0" below the rotations' display resolution.
+std::string tilt_text(const Project& p, double tilt) {
+  if (rotation_value(tilt, cap_reach(p), displacement_resolution(p.units)) == 0.0) return "0";
   return fmt::format("1 in {:.0f}", 1.0 / tilt);
 }
 
@@ -215,7 +216,7 @@ GroupParts make_group_parts(const CheckReport& r) {
         gc.utilization ? fmt::format("{:.3f}", *gc.utilization) : "-", u.force(gc.tension),
         gc.uplift_capacity ? u.force(*gc.uplift_capacity) : "-",
         gc.uplift_utilization ? fmt::format("{:.3f}", *gc.uplift_utilization) : "-",
-        tilt_text(gc.tilt)};
+        tilt_text(p, gc.tilt)};
     if (g.settlement_asked) {
       row.push_back(mm_or_dash(u, gc.single_settlement));
       row.push_back(mm_or_dash(u, gc.group_settlement));
@@ -275,7 +276,7 @@ json group_json(const CheckReport& r) {
                    {"tension", u.value(Quantity::force, gc.tension)},
                    {"uplift_capacity", opt(gc.uplift_capacity, Quantity::force)},
                    {"uplift_utilization", gc.uplift_utilization ? json(*gc.uplift_utilization) : json(nullptr)},
-                   {"tilt", gc.tilt},
+                   {"tilt", rotation_value(gc.tilt, cap_reach(p), displacement_resolution(p.units))},
                    {"single", opt(gc.single_settlement, Quantity::small_length)},
                    {"group", opt(gc.group_settlement, Quantity::small_length)},
                    {"footing", opt(gc.footing_settlement, Quantity::small_length)},

@@ -149,9 +149,10 @@ GroupParts make_group_parts(const CheckReport& r) {
   before.push_back(fmt::format("Block plan Bg × Lg = {} × {} {} (outer faces).", u.length(g.plan.width),
                                u.length(g.plan.length), u.label(Quantity::length)));
   const auto& grid = g.efficiencies.grid;
-  before.push_back(grid.regular ? fmt::format("Layout: rectangular grid, {} rows × {} columns, spacing "
+  before.push_back(grid.regular ? fmt::format("Layout: rectangular grid, {} × {}, spacing "
                                               "x {} / y {} {}.",
-                                              grid.rows, grid.columns, u.length(grid.spacing_x),
+                                              count_text(grid.rows, "row"),
+                                              count_text(grid.columns, "column"), u.length(grid.spacing_x),
                                               u.length(grid.spacing_y), u.label(Quantity::length))
                                 : fmt::format("Layout: irregular ({}).", grid.reason));
   Table& eff = parts.efficiency;
@@ -419,8 +420,8 @@ std::string combination_note(const CheckReport& r, const CombinationCheck& cc) {
     std::string ids;
     for (auto i : cc.solution.dropped) ids += (ids.empty() ? "" : ", ") + p.piles[i].id;
     text += fmt::format(" Dropped out (would be in tension, take none): {} — load redistributed "
-                        "in {} solves.",
-                        ids, cc.solution.iterations);
+                        "in {}.",
+                        ids, count_text(static_cast<std::size_t>(std::max(cc.solution.iterations, 0)), "solve"));
   }
   text += cc.pass ? fmt::format(" Pass: max utilization {} (pile {}, {}).",
                                 utilization_text(cc.max_utilization),

@@ -1,0 +1,3 @@
+#include <catch2/catch.hpp>
+
+#include "cairn/reactions_csv.hpp"

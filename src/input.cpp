@@ -945,14 +945,22 @@ class Reader {
         diag_.error(at(n.child("units")),
                     fmt::format("loads_from.units: expected 'SI' or 'US', got '{}'", *u));
     }
-    if (auto d = n.child("delimiter"); d.present()) {
-      if (auto v = choice<char>(d, {{",", ','}, {";", ';'}, {"tab", '\t'}})) layout.delimiter = *v;
+    if (auto d = text(n, "delimiter", Need::optional)) {
+      if (*d == "," || *d == ";") layout.delimiter = d->front();
+      else if (*d == "tab" || *d == "\t") layout.delimiter = '\t';
+      else
+        diag_.error(at(n.child("delimiter")),
+                    fmt::format("loads_from.delimiter: expected ',', ';' or tab, got '{}'", *d));
     }
-    if (auto d = n.child("decimal"); d.present()) {
-      if (auto v = choice<char>(d, {{".", '.'}, {",", ','}})) layout.decimal = *v;
+    if (auto d = text(n, "decimal", Need::optional)) {
+      if (*d == "." || *d == ",") layout.decimal = d->front();
+      else
+        diag_.error(at(n.child("decimal")),
+                    fmt::format("loads_from.decimal: expected '.' or ',', got '{}'", *d));
       if (layout.decimal == ',' && layout.delimiter == ',')
-        diag_.error(at(d), "loads_from.decimal: a decimal comma needs another delimiter; set "
-                           "loads_from.delimiter: ';'");
+        diag_.error(at(n.child("decimal")),
+                    "loads_from.decimal: a decimal comma needs another delimiter; set "
+                    "loads_from.delimiter: ';'");
     }
     if (const Located headers = n.child("headers"); headers.present() && expect_map(headers)) {
       check_keys(headers, {kReactionColumns.begin(), kReactionColumns.end()});

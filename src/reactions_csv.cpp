@@ -323,6 +323,14 @@ std::vector<ReactionRow> read_reactions_csv(const std::string& text, const std::
       complete = false;
     } else {
       index[k] = hits.front();
+      for (std::size_t j = 0; j < k; ++j)
+        if (index[j] == index[k] && complete) {
+          diagnostics.error({file, header.line, header.cells[index[k]].column},
+                            fmt::format("header: column '{}' is read for both {} and {}; map "
+                                        "each to its own column (loads_from.headers)",
+                                        header.cells[index[k]].text, kReactionColumns[j], ours));
+          complete = false;
+        }
     }
   }
   if (!complete) return {};

@@ -1130,6 +1130,9 @@ class Reader {
     if (factors.present()) check_keys(factors, keys_of(states));
     std::vector<std::string> typed_names;
     for (std::size_t i = 0; i < typed; ++i) typed_names.push_back(project.load_cases[i].id);
+    std::vector<std::string> imported, added_text;
+    for (const auto& [id, index] : combination_of)
+      if (index != kNone) imported.push_back(id);
     for (const auto& [name, state] : states) {
       const Located given = factors.present() ? factors.child(name) : Located{};
       if (!occurring.count(state)) {
@@ -1154,17 +1157,25 @@ class Reader {
       if (!expect_map(given)) continue;
       check_keys(given, typed_names);
       std::vector<std::pair<std::size_t, double>> added;
+      std::string text;
       for (std::size_t i = 0; i < typed; ++i) {
         const auto f = number(given, typed_names[i], Quantity::number, Need::required,
                               Sign::non_negative);
         if (f && *f != 0.0) added.emplace_back(i, *f);
+        if (f) text += fmt::format("{}{:g}·{}", text.empty() ? "" : " + ", *f, typed_names[i]);
       }
+      added_text.push_back(fmt::format("{} combination: {}", name, text));
       for (auto& combo : project.combinations) {
         auto own = combination_of.find(combo.id);
         if (combo.limit_state == state && own != combination_of.end() && own->second != kNone)
           combo.factors.insert(combo.factors.end(), added.begin(), added.end());
       }
     }
+    if (imported.empty()) return;
+    std::string note = fmt::format("{} imported from {} as already factored (reactions at 1.0)",
+                                   list_of(imported), rows.front().where.file);
+    for (const auto& t : added_text) note += "; added to each " + t;
+    project.notes.push_back(note + ".");
   }
 
   // The limit state of an imported combination: the one given for all, else the entry with

@@ -289,6 +289,12 @@ TEST_CASE("reactions_csv: factored combinations imported with the typed cases' f
     fz += factor * resultant_about_origin(p.load_cases[index])[2];
   CHECK(fz == near(-(3240.0 + 405.0) - 1.2 * 345.6 - 1.2 * 40.0));
   CHECK(p.warnings.empty());
+  // What was imported and what was added is stated among the assumptions.
+  REQUIRE(p.notes.size() == 1);
+  CHECK(p.notes[0] == "SLS-1, SLS-CHAR, ULS-1, ULS-2 imported from " + kData +
+                          "combos.csv as already factored (reactions at 1.0); added to each "
+                          "service combination: 1·SW + 1·PIPE; added to each strength "
+                          "combination: 1.2·SW + 1.2·PIPE.");
 }
 
 TEST_CASE("reactions_csv: a missing factor for a limit state that occurs is an error",

@@ -24,7 +24,6 @@ constexpr double kLegendHeight = 118.0;
 constexpr double kLegendLine = 14.0;
 // Load-point legend lines are wrapped at about this many characters (10.5 px text in 600 px).
 constexpr std::size_t kLegendLineChars = 104;
-
 // A batter of 1:n is drawn as an arrow kBatterArrow/n px long; 1:3 → 60 px.
 constexpr double kBatterArrow = 180.0;
 // Longest plan side in px relative to the drawing width, so tall caps still fit a page.
@@ -399,7 +398,8 @@ std::string render_plan_svg(const Project& p, const CheckResults* results,
     const LoadPoint& lp = points[k];
     const double x = X(lp.x), y = Y(lp.y);
     std::string label;
-    for (const auto& line : load_point_lines(p, k, lp)) label += (label.empty() ? "" : " ") + line;
+    for (const auto& line : load_point_lines(p, k, lp))
+      label += (label.empty() ? "" : " ") + line.substr(line.find_first_not_of(' '));
     point_labels.push_back(label);
     s += fmt::format("<g class=\"load-point\"><title>{}</title>"
                      "<circle cx=\"{}\" cy=\"{}\" r=\"6\" fill=\"none\" stroke=\"#1f4e9a\" stroke-width=\"1.6\"/>"

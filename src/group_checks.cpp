@@ -55,6 +55,27 @@ const PileTypeCapacity* capacity_of(const std::vector<PileTypeCapacity>& list, s
   return nullptr;
 }
 
+// What η = 1 means for this project's piles and soil, added to the method's own note: the
+// common-practice reason (driving densifies sand) is given only where it holds.
+std::string no_reduction_context(const Project& project) {
+  if (!project.soil)
+    return "; the project has no soil profile, so whether the piles interact is not judged "
+           "here: confirm that the single-pile capacities allow for group action";
+  for (const Pile& p : project.piles)
+    if (project.pile_types[p.type].design.installation == Installation::bored)
+      return "; bored piles do not densify the soil between them: confirm that group action "
+             "does not reduce the capacity (an efficiency method, or block failure in clay)";
+  double top = 0.0;
+  const double tip = tip_depth(project);
+  for (const SoilLayer& layer : project.soil->layers) {
+    if (layer.kind == SoilKind::clay && top < tip && top + layer.thickness > project.cap.depth)
+      return "; the piles pass through clay, where a close group can fail as a block: see the "
+             "block-failure check where it applies";
+    top += layer.thickness;
+  }
+  return "; common practice for driven piles in sand, where driving densifies the soil "
+         "between the piles";
+}
 
 }  // namespace
 
@@ -123,6 +144,10 @@ GroupResults evaluate_group(const Project& project, const CheckResults& results,
   const EfficiencyMethod method =
       efficiency_method_from_string(g.efficiency).value_or(EfficiencyMethod::none);
   out.applied = group_efficiency(method, plans);
+  const std::string context = no_reduction_context(project);
+  for (Efficiency& e : out.efficiencies.all)
+    if (e.method == EfficiencyMethod::none) e.note += context;
+  if (method == EfficiencyMethod::none) out.applied.note += context;
   const double eta = out.applied.value.value_or(1.0);
   out.spacing = check_spacing(plans, g.min_spacing_factor, g.min_spacing);
   if (!out.spacing.violations.empty()) out.pass = false;

@@ -11,6 +11,7 @@
 #include <vector>
 
 #include "cairn/analysis.hpp"
+#include "cairn/group_checks.hpp"
 #include "cairn/input.hpp"
 #include "cairn/lateral.hpp"
 #include "cairn/section_moment.hpp"
@@ -246,4 +247,99 @@ TEST_CASE("group_checks: the η = 1 note says what holds for the project", "[gro
   const std::string clay = note("pipe_in_clay.yaml");
   CHECK(clay.find("clay") != std::string::npos);
   CHECK(clay.find("driven piles in sand") == std::string::npos);
+}
+
+// ---- battered piles keep their spacing at depth ----------------------------------------
+
+namespace {
+
+// Piles 0.4 m wide (required spacing 2.5 × 0.4 = 1.0 m, common practice), type 0 12 m long,
+// type 1 6 m long.
+Project battered_project(std::vector<Pile> piles) {
+  Project p;
+  PileType long_type, short_type;
+  long_type.id = "L12";
+  long_type.section = {SectionShape::round, 0.4};
+  long_type.length = 12.0;
+  short_type = long_type;
+  short_type.id = "S6";
+  short_type.length = 6.0;
+  p.pile_types = {long_type, short_type};
+  p.piles = std::move(piles);
+  return p;
+}
+
+Pile pile(const std::string& id, double x, double y, std::size_t type,
+          std::optional<Batter> batter = std::nullopt) {
+  Pile p;
+  p.id = id;
+  p.x = x;
+  p.y = y;
+  p.type = type;
+  p.batter = batter;
+  return p;
+}
+
+}  // namespace
+
+TEST_CASE("group_checks: closest approach of two segments", "[group_checks]") {
+  // Hand geometry: the x axis from 0 to 2 and a segment parallel to y at x = 1, z = 1: they
+  // come within 1 m at (1, 0, 0) and (1, 0, 1).
+  const auto c = closest_approach({0, 0, 0}, {2, 0, 0}, {1, -1, 1}, {1, 1, 1});
+  CHECK(c.distance == Approx(1.0).epsilon(1e-12));
+  CHECK(c.first[0] == Approx(1.0).epsilon(1e-12));
+  CHECK(c.second[2] == Approx(1.0).epsilon(1e-12));
+  // The closest point lies beyond an end: clamped to it. (0,0,0)–(1,0,0) and (3,−1,0)–(3,1,0):
+  // 2 m, from (1, 0, 0).
+  const auto d = closest_approach({0, 0, 0}, {1, 0, 0}, {3, -1, 0}, {3, 1, 0});
+  CHECK(d.distance == Approx(2.0).epsilon(1e-12));
+  // Parallel segments: the distance between the lines.
+  CHECK(closest_approach({0, 0, 0}, {0, 0, -5}, {0.7, 0, 0}, {0.7, 0, -5}).distance ==
+        Approx(0.7).epsilon(1e-12));
+}
+
+TEST_CASE("group_checks: battered piles keep the minimum spacing at every depth",
+          "[group_checks]") {
+  SECTION("two piles battered 1:4 toward each other cross at 4 m") {
+    // Heads 2 m apart; each axis moves 0.25 m per metre of depth toward the other: the
+    // horizontal gap is 2 − 0.5·z, zero at z = 4 m (above the tips at 12/√1.0625 = 11.64 m).
+    const auto v = battered_spacing_violations(battered_project(
+        {pile("A1", -1.0, 0.0, 0, Batter{4.0, 0.0}), pile("A2", 1.0, 0.0, 0, Batter{4.0, 180.0})}));
+    REQUIRE(v.size() == 1);
+    CHECK(v[0].first == "A1");
+    CHECK(v[0].second == "A2");
+    CHECK(v[0].distance == Approx(0.0).margin(1e-9));
+    CHECK(*v[0].depth == Approx(4.0).epsilon(1e-9));
+    CHECK(v[0].required == Approx(1.0).epsilon(1e-12));
+  }
+  SECTION("a battered pile passing a vertical one") {
+    // A1 at (−1, 0) battered 1:4 toward +x; A2 vertical at (1, 0.8): the gap at depth z is
+    // √((2 − 0.25z)² + 0.8²), least at z = 8 m: 0.8 m < 1.0 m.
+    const auto v = battered_spacing_violations(battered_project(
+        {pile("A1", -1.0, 0.0, 0, Batter{4.0, 0.0}), pile("A2", 1.0, 0.8, 0)}));
+    REQUIRE(v.size() == 1);
+    CHECK(v[0].distance == Approx(0.8).epsilon(1e-9));
+    CHECK(*v[0].depth == Approx(8.0).epsilon(1e-9));
+  }
+  SECTION("only down to the shallower tip") {
+    // The same with A2 at y = 0.9 and 6 m long: at its tip the gap is √(0.5² + 0.9²) =
+    // 1.0296 m ≥ 1.0 m, so the pair passes, although the full axes would come within 0.9 m.
+    CHECK(battered_spacing_violations(battered_project(
+              {pile("A1", -1.0, 0.0, 0, Batter{4.0, 0.0}), pile("A2", 1.0, 0.9, 1)}))
+              .empty());
+    // At y = 0.8 the gap at 6 m is √(0.25 + 0.64) = 0.9434 m: fails at the short pile's tip.
+    const auto v = battered_spacing_violations(battered_project(
+        {pile("A1", -1.0, 0.0, 0, Batter{4.0, 0.0}), pile("A2", 1.0, 0.8, 1)}));
+    REQUIRE(v.size() == 1);
+    CHECK(v[0].distance == Approx(std::sqrt(0.89)).epsilon(1e-9));
+    CHECK(*v[0].depth == Approx(6.0).epsilon(1e-9));
+  }
+  SECTION("battered apart, or parallel, passes") {
+    CHECK(battered_spacing_violations(battered_project(
+              {pile("A1", -1.0, 0.0, 0, Batter{4.0, 180.0}), pile("A2", 1.0, 0.0, 0, Batter{4.0, 0.0})}))
+              .empty());
+    CHECK(battered_spacing_violations(battered_project(
+              {pile("A1", -1.0, 0.0, 0, Batter{4.0, 90.0}), pile("A2", 1.0, 0.0, 0, Batter{4.0, 90.0})}))
+              .empty());
+  }
 }

@@ -231,6 +231,21 @@ TEST_CASE("input: a tension capacity of 0 is accepted and fails any tension", "[
   CHECK(s2.governing == Demand::tension);
 }
 
+TEST_CASE("checks: a compression-only pile does not use the uplift computed from the soil",
+          "[input]") {
+  // tests/data/e2e/soil.yaml: tension: false, capacities computed from clay over sand.
+  const CheckRun run = analyse_project(std::string(CAIRN_TEST_DATA) + "/e2e/soil.yaml");
+  REQUIRE(run.capacities.size() == 1);
+  CHECK(run.capacities[0].result.allowable_tension > 0.0);  // computed...
+  CHECK_FALSE(run.resistances[0].allowable.tension);         // ...but not used
+  CHECK_FALSE(run.resistances[0].factored.tension);
+  bool said = false;
+  for (const auto& a : run.assumptions)
+    said = said || a.find("the uplift capacity computed from the soil is not used") !=
+                       std::string::npos;
+  CHECK(said);
+}
+
 // ---- the group-efficiency note ---------------------------------------------------------
 
 TEST_CASE("group_checks: the η = 1 note says what holds for the project", "[group_checks]") {

@@ -3,7 +3,9 @@
 #include "cairn/section_moment.hpp"
 
 #include <algorithm>
+#include <array>
 #include <cmath>
+#include <limits>
 #include <numbers>
 #include <stdexcept>
 #include <vector>
@@ -27,28 +29,42 @@ void check_shape(double width, double wall) {
     throw std::invalid_argument("wall thickness must lie in [0, width/2)");
 }
 
-// Area and first moment about the centroid of the part of a solid square (side b) or circle
-// (diameter b) above the line y = y0 (y from the centroid, toward the compression face).
-// Circle, half-width R: A = R²·acos(y0/R) − y0·√(R² − y0²), Q = (2/3)(R² − y0²)^(3/2).
-// Square: A = b(b/2 − y0), Q = b(b²/4 − y0²)/2.
+// Distance from the centroid to the extreme fibre, m: b/2, or b/√2 for a square bent about
+// its diagonal.
+double half_depth(SectionShape shape, double width, BendingAxis axis) {
+  return shape == SectionShape::square && axis == BendingAxis::diagonal ? width / std::sqrt(2.0)
+                                                                         : 0.5 * width;
+}
+
+// Area and first moment about the centroid of the part of a solid section above the line
+// y = y0 (y from the centroid, toward the compression face). h = half depth.
+//   circle (R = h):     A = R²·acos(y0/R) − y0·√(R² − y0²),  Q = (2/3)(R² − y0²)^(3/2)
+//   square, side axis:  A = b(h − y0),                        Q = b(h² − y0²)/2
+//   square, diagonal:   A = (h − y0)² for y0 ≥ 0, 2h² − (h + y0)² below;
+//                       Q = h³/3 − h·y0² + (2/3)|y0|³   (width 2(h − |y|))
 struct Part {
   double area = 0.0;
   double moment = 0.0;
 };
 
-Part solid_above(SectionShape shape, double width, double y0) {
-  const double h = 0.5 * width;
+Part solid_above(SectionShape shape, double width, double y0, BendingAxis axis) {
+  const double h = half_depth(shape, width, axis);
   const double y = std::clamp(y0, -h, h);
+  if (shape == SectionShape::square && axis == BendingAxis::diagonal) {
+    const double area = y >= 0.0 ? (h - y) * (h - y) : 2.0 * h * h - (h + y) * (h + y);
+    const double ay = std::abs(y);
+    return {area, h * h * h / 3.0 - h * y * y + 2.0 / 3.0 * ay * ay * ay};
+  }
   if (shape == SectionShape::square) return {width * (h - y), 0.5 * width * (h * h - y * y)};
   const double root = std::sqrt(std::max(h * h - y * y, 0.0));
   return {h * h * std::acos(y / h) - y * root, 2.0 / 3.0 * root * root * root};
 }
 
-// The same for a hollow section: outer part less inner part.
-Part above(SectionShape shape, double width, double wall, double y0) {
-  Part outer = solid_above(shape, width, y0);
+// The same for a hollow section: outer part less inner part (same centre, same axis).
+Part above(SectionShape shape, double width, double wall, double y0, BendingAxis axis) {
+  Part outer = solid_above(shape, width, y0, axis);
   if (wall > 0.0) {
-    const Part inner = solid_above(shape, width - 2.0 * wall, y0);
+    const Part inner = solid_above(shape, width - 2.0 * wall, y0, axis);
     outer.area -= inner.area;
     outer.moment -= inner.moment;
   }
@@ -65,43 +81,60 @@ double solve_increasing(F f, double lo, double hi, double target) {
   return 0.5 * (lo + hi);
 }
 
-// Bar centres as distances from the compression face, m.
-std::vector<double> bar_depths(const ReinforcedSection& s, bool turned) {
-  std::vector<double> depths;
+// Bar centres in the plane of the section, m, from its centre: evenly on a circle (round,
+// optionally turned by half a spacing) or round the perimeter of the square through the bar
+// centres, from a corner.
+std::vector<std::array<double, 2>> bar_positions(const ReinforcedSection& s, bool turned) {
+  std::vector<std::array<double, 2>> bars;
   const double n = s.bar_count;
   if (s.shape == SectionShape::round) {
     const double radius = 0.5 * s.width - s.cover_to_bar_center;
     const double offset = turned ? kPi / n : 0.0;
-    for (int i = 0; i < s.bar_count; ++i)
-      depths.push_back(0.5 * s.width - radius * std::cos(2.0 * kPi * i / n + offset));
-    return depths;
+    for (int i = 0; i < s.bar_count; ++i) {
+      const double angle = 2.0 * kPi * i / n + offset;
+      bars.push_back({radius * std::sin(angle), radius * std::cos(angle)});
+    }
+    return bars;
   }
-  // Square: evenly along the perimeter of the square through the bar centres, from a corner.
   const double side = s.width - 2.0 * s.cover_to_bar_center;
+  const double half = 0.5 * side;
   for (int i = 0; i < s.bar_count; ++i) {
     const double along = 4.0 * side * i / n;  // distance round the perimeter
-    const int edge = static_cast<int>(along / side);
+    const int edge = std::min(static_cast<int>(along / side), 3);
     const double t = along - edge * side;
-    // Edges in order: top (depth 0), right (going down), bottom, left (going up).
-    double depth = 0.0;
+    // Edges in order: top (left to right), right (down), bottom (right to left), left (up).
     switch (edge) {
-      case 0: depth = 0.0; break;
-      case 1: depth = t; break;
-      case 2: depth = side; break;
-      default: depth = side - t; break;
+      case 0: bars.push_back({-half + t, half}); break;
+      case 1: bars.push_back({half, half - t}); break;
+      case 2: bars.push_back({half - t, -half}); break;
+      default: bars.push_back({-half, -half + t}); break;
     }
-    depths.push_back(s.cover_to_bar_center + depth);
+  }
+  return bars;
+}
+
+// Bar depths below the compression face for bending about `axis`, m; `mirrored` puts the
+// compression on the opposite face (bar layouts need not be symmetric).
+std::vector<double> bar_depths(const ReinforcedSection& s, bool turned, BendingAxis axis,
+                               bool mirrored) {
+  const double h = half_depth(s.shape, s.width, axis);
+  std::vector<double> depths;
+  for (const auto& [x, y] : bar_positions(s, turned)) {
+    const double up = s.shape == SectionShape::square && axis == BendingAxis::diagonal
+                          ? (x + y) / std::sqrt(2.0)
+                          : y;
+    depths.push_back(h - (mirrored ? -up : up));
   }
   return depths;
 }
 
 // Axial force (kN) and moment about the centroid (kN·m) at neutral-axis depth c (m).
-std::pair<double, double> concrete_forces(const ReinforcedSection& s,
+std::pair<double, double> concrete_forces(const ReinforcedSection& s, BendingAxis axis,
                                           const std::vector<double>& depths, double c) {
-  const double h = 0.5 * s.width;
-  const double a = std::min(stress_block_beta1(s.concrete_strength) * c, s.width);
+  const double h = half_depth(s.shape, s.width, axis);
+  const double a = std::min(stress_block_beta1(s.concrete_strength) * c, 2.0 * h);
   const double stress = 0.85 * s.concrete_strength;
-  const Part block = above(s.shape, s.width, 0.0, h - a);
+  const Part block = above(s.shape, s.width, 0.0, h - a, axis);
   double force = stress * block.area;
   double moment = stress * block.moment;
   const double bar = s.steel_area / s.bar_count;
@@ -115,14 +148,14 @@ std::pair<double, double> concrete_forces(const ReinforcedSection& s,
   return {force, moment};
 }
 
-double concrete_moment_one_layout(const ReinforcedSection& s, const std::vector<double>& depths,
-                                  double axial) {
-  const auto force = [&](double c) { return concrete_forces(s, depths, c).first; };
+double concrete_moment_one_layout(const ReinforcedSection& s, BendingAxis axis,
+                                  const std::vector<double>& depths, double axial) {
+  const auto force = [&](double c) { return concrete_forces(s, axis, depths, c).first; };
   // c → 0: every bar yields in tension; c large: the whole section in compression.
   const double lo = 1e-9 * s.width, hi = 1e3 * s.width;
   if (axial <= force(lo) || axial >= force(hi)) return 0.0;
   const double c = solve_increasing(force, lo, hi, axial);
-  return std::max(concrete_forces(s, depths, c).second, 0.0);
+  return std::max(concrete_forces(s, axis, depths, c).second, 0.0);
 }
 
 std::string number(UnitSystem units, Quantity q, double si) {
@@ -137,24 +170,30 @@ double section_area(SectionShape shape, double width, double wall) {
   return solid(width) - (wall > 0.0 ? solid(width - 2.0 * wall) : 0.0);
 }
 
-double plastic_modulus(SectionShape shape, double width, double wall) {
+double plastic_modulus(SectionShape shape, double width, double wall, BendingAxis axis) {
   check_shape(width, wall);
-  // Z = 2·Q(0): square b³/4, round D³/6, hollow = outer − inner.
-  const auto solid = [&](double b) { return shape == SectionShape::square ? b * b * b / 4.0 : b * b * b / 6.0; };
+  // Z = 2·Q(0): square b³/4 (side axis) or b³/(3√2) (diagonal), round D³/6; hollow = outer −
+  // inner.
+  const auto solid = [&](double b) {
+    if (shape == SectionShape::round) return b * b * b / 6.0;
+    return axis == BendingAxis::diagonal ? b * b * b / (3.0 * std::sqrt(2.0)) : b * b * b / 4.0;
+  };
   return solid(width) - (wall > 0.0 ? solid(width - 2.0 * wall) : 0.0);
 }
 
-double elastic_modulus(SectionShape shape, double width, double wall) {
+double elastic_modulus(SectionShape shape, double width, double wall, BendingAxis axis) {
   check_shape(width, wall);
-  // S = I/(b/2): I = b⁴/12 (square), πD⁴/64 (round); hollow = outer I − inner I.
+  // S = I/c: I = b⁴/12 (square, any axis), πD⁴/64 (round); hollow = outer I − inner I;
+  // c = b/2, or b/√2 about a square's diagonal.
   const auto inertia = [&](double b) {
     return shape == SectionShape::square ? b * b * b * b / 12.0 : kPi * b * b * b * b / 64.0;
   };
-  return (inertia(width) - (wall > 0.0 ? inertia(width - 2.0 * wall) : 0.0)) / (0.5 * width);
+  return (inertia(width) - (wall > 0.0 ? inertia(width - 2.0 * wall) : 0.0)) /
+         half_depth(shape, width, axis);
 }
 
 double steel_plastic_moment(SectionShape shape, double width, double wall, double yield_stress,
-                            double axial) {
+                            double axial, BendingAxis axis) {
   check_shape(width, wall);
   if (!(yield_stress > 0.0)) throw std::invalid_argument("steel yield fy must be positive");
   const double area = section_area(shape, width, wall);
@@ -162,11 +201,12 @@ double steel_plastic_moment(SectionShape shape, double width, double wall, doubl
   // the stress distribution).
   const double target = 0.5 * (area + std::abs(axial) / yield_stress);
   if (target >= area) return 0.0;
-  const double h = 0.5 * width;
+  const double h = half_depth(shape, width, axis);
   // A_above falls as y0 rises: solve on −y0.
   const double y0 = -solve_increasing(
-      [&](double minus_y) { return above(shape, width, wall, -minus_y).area; }, -h, h, target);
-  return yield_stress * 2.0 * above(shape, width, wall, y0).moment;
+      [&](double minus_y) { return above(shape, width, wall, -minus_y, axis).area; }, -h, h,
+      target);
+  return yield_stress * 2.0 * above(shape, width, wall, y0, axis).moment;
 }
 
 double stress_block_beta1(double concrete_strength) {
@@ -174,7 +214,7 @@ double stress_block_beta1(double concrete_strength) {
   return std::clamp(0.85 - 0.05 * (mpa - 28.0) / 7.0, 0.65, 0.85);
 }
 
-double concrete_moment_capacity(const ReinforcedSection& s, double axial) {
+double concrete_moment_capacity(const ReinforcedSection& s, double axial, BendingAxis axis) {
   check_shape(s.width, 0.0);
   if (!(s.concrete_strength > 0.0 && s.steel_yield > 0.0 && s.steel_area > 0.0))
     throw std::invalid_argument("f'c, fy and As must be positive");
@@ -182,9 +222,13 @@ double concrete_moment_capacity(const ReinforcedSection& s, double axial) {
     throw std::invalid_argument("too few bars for the section");
   if (!(s.cover_to_bar_center > 0.0 && s.cover_to_bar_center < 0.5 * s.width))
     throw std::invalid_argument("bar cover must lie in (0, width/2)");
-  double m = concrete_moment_one_layout(s, bar_depths(s, false), axial);
-  if (s.shape == SectionShape::round)
-    m = std::min(m, concrete_moment_one_layout(s, bar_depths(s, true), axial));
+  double m = std::numeric_limits<double>::infinity();
+  for (bool turned : {false, true}) {
+    if (turned && s.shape == SectionShape::square) continue;
+    for (bool mirrored : {false, true})
+      m = std::min(m, concrete_moment_one_layout(s, axis, bar_depths(s, turned, axis, mirrored),
+                                                 axial));
+  }
   return m;
 }
 
@@ -211,6 +255,25 @@ SectionYieldMoment section_yield_moment(const PileType& type,
   const char* shape_name = shape == SectionShape::square ? "square" : "round";
   // The least favourable of the two ends of the axial range (M(P) is concave in P).
   const AxialRange range = axial.value_or(AxialRange{});
+  // A pile's lateral load may come from any direction: a square is bent about the weaker of
+  // its side and diagonal axes (a round section is the same about any).
+  BendingAxis weak = BendingAxis::side;
+  const auto weakest = [&](auto moment_about) {
+    double m = moment_about(BendingAxis::side);
+    if (shape == SectionShape::square) {
+      const double diagonal = moment_about(BendingAxis::diagonal);
+      if (diagonal < m) {
+        m = diagonal;
+        weak = BendingAxis::diagonal;
+      }
+    }
+    return m;
+  };
+  const auto axis_words = [&] {
+    if (shape != SectionShape::square) return std::string();
+    return std::string(weak == BendingAxis::diagonal ? ", about the diagonal (weaker than a side)"
+                                                     : ", about an axis parallel to a side (weaker than the diagonal)");
+  };
   const auto at_range = [&](auto moment_at) {
     const double low = moment_at(range.least), high = moment_at(range.greatest);
     out.axial = low <= high ? range.least : range.greatest;
@@ -237,7 +300,9 @@ SectionYieldMoment section_yield_moment(const PileType& type,
     ReinforcedSection rc{shape, width, *st.concrete_strength, *st.steel_yield, *st.steel_area,
                          *st.bar_count, *st.cover_to_bar_center};
     try {
-      const double m = at_range([&](double p) { return concrete_moment_capacity(rc, p); });
+      const double m = at_range([&](double p) {
+        return weakest([&](BendingAxis axis) { return concrete_moment_capacity(rc, p, axis); });
+      });
       if (!(m > 0.0)) {
         out.missing = fmt::format("the reinforced section has no moment capacity at P = {} "
                                   "(outside −As·fy … the largest compression)",
@@ -250,9 +315,9 @@ SectionYieldMoment section_yield_moment(const PileType& type,
       return out;
     }
     out.basis = fmt::format("My = Mn = {} from f'c and {} bars by strain compatibility with the "
-                            "ACI 318-19 rectangular stress block (β1 = {:.2f}), {}",
+                            "ACI 318-19 rectangular stress block (β1 = {:.2f}){}, {}",
                             moment_text(*out.value), *st.bar_count,
-                            stress_block_beta1(*st.concrete_strength), place());
+                            stress_block_beta1(*st.concrete_strength), axis_words(), place());
     return out;
   }
   if (st.steel_yield) {
@@ -288,7 +353,9 @@ SectionYieldMoment section_yield_moment(const PileType& type,
       }
     }
     const double m = at_range([&](double p) {
-      return steel_plastic_moment(shape, width, wall, *st.steel_yield, p);
+      return weakest([&](BendingAxis axis) {
+        return steel_plastic_moment(shape, width, wall, *st.steel_yield, p, axis);
+      });
     });
     if (!(m > 0.0)) {
       out.missing = fmt::format("the steel section has no moment capacity at P = {}",
@@ -297,18 +364,18 @@ SectionYieldMoment section_yield_moment(const PileType& type,
     }
     out.value = m;
     out.basis = fmt::format("My = {} for the {} steel section: fy·Z = {} with the plastic "
-                            "modulus Z, reduced for the axial force {}",
+                            "modulus Z{}, reduced for the axial force {}",
                             moment_text(m), kind,
-                            moment_text(*st.steel_yield * plastic_modulus(shape, width, wall)),
-                            place());
+                            moment_text(*st.steel_yield * plastic_modulus(shape, width, wall, weak)),
+                            axis_words(), place());
     return out;
   }
   if (st.bending_strength) {
-    const double s = elastic_modulus(shape, width, 0.0);
+    const double s = weakest([&](BendingAxis axis) { return elastic_modulus(shape, width, 0.0, axis); });
     out.value = *st.bending_strength * s;
-    out.basis = fmt::format("My = Fb·S = {} for the {} timber section (elastic modulus S; the "
+    out.basis = fmt::format("My = Fb·S = {} for the {} timber section (elastic modulus S{}; the "
                             "axial force is not included)",
-                            moment_text(*out.value), shape_name);
+                            moment_text(*out.value), shape_name, axis_words());
     return out;
   }
   out.missing = "the structure gives no material strength for bending";

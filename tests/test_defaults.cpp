@@ -61,6 +61,12 @@ TEST_CASE("lateral: plastic and elastic section moduli", "[lateral][published]")
   CHECK(elastic_modulus(SectionShape::round, 0.6) == exact(kPi * 0.216 / 32.0));
   CHECK(elastic_modulus(SectionShape::round, 0.61, 0.019) ==
         exact(kPi * (std::pow(0.61, 4) - std::pow(0.572, 4)) / (32.0 * 0.61)));
+  // About the diagonal of a solid square (from memory): Z = b³/(3√2) (two triangles b²/2 with
+  // centroids (b/√2)/3 from the axis), S = √2·b³/12 (I = b⁴/12 about any axis, c = b/√2).
+  CHECK(plastic_modulus(SectionShape::square, 0.4, 0.0, BendingAxis::diagonal) ==
+        exact(0.064 / (3.0 * std::sqrt(2.0))));
+  CHECK(elastic_modulus(SectionShape::square, 0.4, 0.0, BendingAxis::diagonal) ==
+        exact(std::sqrt(2.0) * 0.064 / 12.0));
   // Shape factors Z/S: 1.5 for a solid square, 16/(3π) = 1.698 for a solid round (from
   // memory).
   CHECK(plastic_modulus(SectionShape::square, 0.4) / elastic_modulus(SectionShape::square, 0.4) ==
@@ -94,6 +100,14 @@ TEST_CASE("lateral: a steel section's plastic moment under axial force", "[later
           Approx(pipe_mp * std::cos(kPi * n / 2.0)).epsilon(2e-3));
   }
   CHECK(steel_plastic_moment(SectionShape::round, 0.61, 0.019, fy, 1.01 * fy * area) == 0.0);
+  // Diagonal of a solid square: fy·b³/(3√2) at P = 0; under P the diamond's neutral axis moves
+  // to y0 with (h − y0)² = A(1 − n)/2, h = b/√2, and M = 2fy·(h³/3 − h·y0² + (2/3)y0³)
+  // (hand integration of the width 2(h − |y|)). n = 0.5: y0 = h(1 − √0.5).
+  CHECK(steel_plastic_moment(SectionShape::square, b, 0.0, fy, 0.0, BendingAxis::diagonal) ==
+        Approx(fy * b * b * b / (3.0 * std::sqrt(2.0))).epsilon(1e-9));
+  const double hd = b / std::sqrt(2.0), y0 = hd * (1.0 - std::sqrt(0.5));
+  CHECK(steel_plastic_moment(SectionShape::square, b, 0.0, fy, 0.5 * py, BendingAxis::diagonal) ==
+        Approx(2.0 * fy * (hd * hd * hd / 3.0 - hd * y0 * y0 + 2.0 / 3.0 * y0 * y0 * y0)).epsilon(1e-9));
 }
 
 TEST_CASE("lateral: reinforced concrete Mn by the ACI stress block", "[lateral][published]") {
@@ -126,6 +140,14 @@ TEST_CASE("lateral: reinforced concrete Mn by the ACI stress block", "[lateral][
   CHECK(concrete_moment_capacity(square, po) == 0.0);
   CHECK(concrete_moment_capacity(square, 0.999 * po) > 0.0);
   CHECK(concrete_moment_capacity(square, -0.999 * as_fy) > 0.0);
+  // The same section bent about its diagonal (hand calculation, same procedure): bars at
+  // depths 84.85, 353.55 (two) and 622.25 mm below the compression corner; the block is the
+  // triangle of area a², centroid 2a/3 down. With the top bar elastic inside the block and
+  // the others yielding in tension: 0.85·28·(0.85c)² + 510·(600(c − 84.85)/c − 23.8)
+  // − 3·510·420 = 0 → c = 170.67 mm (iterated by hand), a = 145.07 mm, top bar 301.7 MPa;
+  // Mn = 500.87 kN·(353.55 − 96.71) mm + 141.73 kN·268.70 mm + 2·214.2 kN·0 + 214.2 kN·268.70 mm
+  // = 224.28 kN·m — more than about a side, so a side governs this layout.
+  CHECK(concrete_moment_capacity(square, 0.0, BendingAxis::diagonal) == Approx(224.28).epsilon(1e-4));
   // Round section: Mn(P) concave over the range, so the lesser end governs (invariant).
   ReinforcedSection round{SectionShape::round, 0.6, 35000, 420000, 8 * 387e-6, 8, 0.075};
   const double m0 = concrete_moment_capacity(round, 0.0);
@@ -167,6 +189,15 @@ TEST_CASE("lateral: which yield moment a pile type gets", "[lateral]") {
   // The given value wins.
   type.structure->yield_moment = 900.0;
   CHECK(*section_yield_moment(type, std::nullopt, UnitSystem::SI).value == 900.0);
+  // A solid steel square: the diagonal is the weaker axis, b³/(3√2) < b³/4.
+  Structure square_steel;
+  square_steel.steel_yield = 345000;
+  PileType square = type;
+  square.section = {SectionShape::square, 0.4};
+  square.structure = square_steel;
+  const auto sq = section_yield_moment(square, std::nullopt, UnitSystem::SI);
+  CHECK(*sq.value == Approx(345000 * 0.064 / (3.0 * std::sqrt(2.0))).epsilon(1e-9));
+  CHECK(sq.basis.find("about the diagonal") != std::string::npos);
   // Timber: Fb·S with the elastic modulus, S = πD³/32; Fb = 20 MPa, D = 0.3 m.
   Structure timber;
   timber.bending_strength = 20000;

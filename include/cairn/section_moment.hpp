@@ -29,19 +29,26 @@ namespace cairn {
 // memory). For the bars' strain and the compactness limits.
 inline constexpr double kSteelModulus = 200e6;
 
-// Area (m²), plastic modulus Z (m³) and elastic modulus S = I/(h/2) (m³) of a square or round
-// section of width (side or diameter) b and wall t; t = 0 means solid. Requires b > 0 and
-// 0 ≤ t < b/2; throws std::invalid_argument otherwise.
+// The axis a square section is bent about: parallel to a side, or its diagonal (weaker for
+// the elastic modulus by √2 and for the plastic modulus by 2√2/3). Ignored for round sections.
+enum class BendingAxis { side, diagonal };
+
+// Area (m²), plastic modulus Z (m³) and elastic modulus S = I/c (m³) of a square or round
+// section of width (side or diameter) b and wall t; t = 0 means solid. Diagonal of a solid
+// square: Z = b³/(3√2), S = √2·b³/12. Requires b > 0 and 0 ≤ t < b/2; throws
+// std::invalid_argument otherwise.
 double section_area(SectionShape shape, double width, double wall = 0.0);
-double plastic_modulus(SectionShape shape, double width, double wall = 0.0);
-double elastic_modulus(SectionShape shape, double width, double wall = 0.0);
+double plastic_modulus(SectionShape shape, double width, double wall = 0.0,
+                       BendingAxis axis = BendingAxis::side);
+double elastic_modulus(SectionShape shape, double width, double wall = 0.0,
+                       BendingAxis axis = BendingAxis::side);
 
 // Fully plastic moment of a steel section under axial force P (either sign), kN·m:
 // M = fy·2·Q(y0), Q(y0) the first moment about the centroid of the part above the neutral
 // axis y0, chosen so that fy·(A_above − A_below) = P. Equals fy·Z at P = 0 and 0 at
 // |P| = fy·A. Requires fy > 0; returns 0 when |P| ≥ fy·A.
 double steel_plastic_moment(SectionShape shape, double width, double wall, double yield_stress,
-                            double axial);
+                            double axial, BendingAxis axis = BendingAxis::side);
 
 // ACI 318-19 Table 22.2.2.4.3: β1 = 0.85 for f'c ≤ 28 MPa, less 0.05 per 7 MPa above it, not
 // below 0.65 (from memory). f'c in kPa.
@@ -61,11 +68,13 @@ struct ReinforcedSection {
 };
 
 // Nominal moment capacity Mn at axial force P (compression positive), kN·m, by strain
-// compatibility (see the header). For a round section the lesser of two bar orientations
-// (a bar on the bending plane, or two bars either side of it) is returned. Returns 0 when P
-// lies outside the section's axial range (below −As·fy or above the largest compression).
-// Requires b, f'c, fy, As > 0, bar_count ≥ 2 (≥ 4 for a square), 0 < cover < b/2.
-double concrete_moment_capacity(const ReinforcedSection& section, double axial);
+// compatibility (see the header), bent about `axis` (square). The least over the bar layout's
+// orientations is returned: compression on either face, and for a round section a bar on the
+// bending plane or two bars either side of it. Returns 0 when P lies outside the section's
+// axial range (below −As·fy or above the largest compression). Requires b, f'c, fy, As > 0,
+// bar_count ≥ 2 (≥ 4 for a square), 0 < cover < b/2.
+double concrete_moment_capacity(const ReinforcedSection& section, double axial,
+                                BendingAxis axis = BendingAxis::side);
 
 // The axial forces a pile type carries, kN (compression positive), for a yield moment that
 // depends on them. Absent: not known (P = 0 is used, and said).
@@ -84,7 +93,9 @@ struct SectionYieldMoment {
 
 // My of a pile type: structure.yield_moment when given; else from the section and material
 // (steel, reinforced concrete, timber, see the header) at the least favourable axial force of
-// `axial` — both ends of the range are tried, since M(P) is concave, and the lesser kept.
+// `axial` — both ends of the range are tried, since M(P) is concave, and the lesser kept — and,
+// for a square, about the weaker of its side and diagonal axes (the lateral load may come
+// from any direction).
 // `basis` and `missing` quote forces and moments in `units`.
 SectionYieldMoment section_yield_moment(const PileType& type,
                                         const std::optional<AxialRange>& axial,

@@ -280,9 +280,10 @@ SectionYieldMoment section_yield_moment(const PileType& type,
     return std::min(low, high);
   };
   const auto place = [&] {
-    return axial ? fmt::format("at P = {}, the least favourable axial force of all combinations "
-                               "(range {} to {}, compression positive)",
-                               force_text(out.axial), force_text(range.least),
+    return axial ? fmt::format("at P = {}{}, the least favourable axial force of all "
+                               "combinations (range {} to {}, compression positive)",
+                               force_text(out.axial), out.axial < 0.0 ? " (tension)" : "",
+                               force_text(range.least),
                                force_text(range.greatest))
                  : std::string("at P = 0 (axial forces not known)");
   };

@@ -294,6 +294,8 @@ expect_status "Broms without a yield moment" 2 check "$data/defaults/bad_no_yiel
 expect_in "yield moment asked for" "$work/err" "pile_types.PC45: Broms' lateral capacity of this reinforced concrete pile needs its yield moment"
 expect_status "yield moment of a steel pipe" 0 check "$data/defaults/pipe_in_clay.yaml"
 expect_in "yield moment's source stated" "$work/out" "with the plastic modulus Z, reduced for the axial force at P = 1000.0 kN, the least favourable axial force of all combinations"
+expect_status "yield moment of a concrete pile" 0 check "$data/defaults/concrete_in_sand.yaml"
+expect_in "concrete My at the pile's tension" "$work/out" "from f'c and 8 bars by strain compatibility with the ACI 318-19 rectangular stress block (β1 = 0.80), at P = -200.0 kN (tension)"
 expect_status "tension: false with a tension capacity" 2 check "$data/defaults/bad_tension_contradiction.yaml"
 expect_in "which tension was meant" "$work/err" "which did you mean"
 expect_status "capacity.tension: 0 accepted, tension fails" 1 check "$data/defaults/tension_zero.yaml"

@@ -222,6 +222,29 @@ TEST_CASE("lateral: Broms with the yield moment of a steel pipe", "[lateral][pub
   CHECK(run.resistances[0].allowable.source.find("long pile") != std::string::npos);
 }
 
+TEST_CASE("lateral: a concrete pile's yield moment at its tension", "[lateral]") {
+  // tests/data/defaults/concrete_in_sand.yaml: by hand (rigid cap, two piles) the axial
+  // forces range from −200 kN (S2, tension) to 600 kN; Mn(P) is lower in tension.
+  const CheckRun run = analyse_project(kData + "concrete_in_sand.yaml");
+  const ReinforcedSection rc{SectionShape::round, 0.6, 35000, 420000, 0.0031, 8, 0.075};
+  const double my = concrete_moment_capacity(rc, -200.0);
+  CHECK(my < concrete_moment_capacity(rc, 0.0));
+  CHECK(my < concrete_moment_capacity(rc, 600.0));
+  BromsInput in;
+  in.soil = SoilKind::sand;
+  in.effective_unit_weight = 19.0;
+  in.friction_angle = 32.0;
+  in.width = 0.6;
+  in.embedded_length = 15.0;
+  in.yield_moment = my;
+  REQUIRE(run.resistances[0].allowable.lateral);
+  CHECK(*run.resistances[0].allowable.lateral ==
+        Approx(broms_ultimate_lateral(in).ultimate_load / 2.5).epsilon(1e-6));
+  CHECK(run.resistances[0].allowable.source.find(
+            "at P = -200.0 kN (tension), the least favourable axial force of all combinations") !=
+        std::string::npos);
+}
+
 TEST_CASE("lateral: no yield moment where Broms is needed is an input error",
           "[lateral][input]") {
   CHECK(error_of([] { analyse_project(kData + "bad_no_yield_moment.yaml"); }) ==

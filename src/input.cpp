@@ -628,7 +628,9 @@ class Reader {
         if (!structure.concrete_strength && !structure.steel_yield && !structure.bending_strength)
           diag_.error(at(st), fmt::format("{}.structure: expected concrete_strength (f'c), "
                                           "steel_yield (fy) or bending_strength (timber Fb)", n.path));
-        if (!structure.allowable_factor && !structure.resistance_factor)
+        // The factors scale the axial capacity, which a timber section (Fb only) does not get.
+        if ((structure.concrete_strength || structure.steel_yield) &&
+            !structure.allowable_factor && !structure.resistance_factor)
           diag_.error(at(st), fmt::format("{}.structure: expected allowable_factor (service) and/or "
                                           "resistance_factor (strength)", n.path));
         type.structure = structure;

@@ -35,8 +35,15 @@ CheckRun analyse_project(const std::string& file) {
     problems.error(where, fmt::format("load_cases.{}: {} cannot be resisted: {}", lc.id,
                                       u.load.component, u.load.reason));
   }
-  run.resistances = resolve_resistances(
-      project, computed_resistances(project, run.capacities, lateral_capacities(project)));
+  // The cap's pile forces depend on the springs only, so they are known before the
+  // resistances; Broms' yield moment is taken at the least favourable of them.
+  // (Not when a load cannot be resisted at all: that is reported first.)
+  std::vector<CapSolution> solutions;
+  if (problems.empty()) solutions = solve_combinations(project, solver);
+  const auto lateral = lateral_capacities(project, axial_ranges(project, solutions));
+  for (const auto& d : lateral_input_problems(project, lateral, solutions)) problems.error(d.where, d.message);
+  run.resistances =
+      resolve_resistances(project, computed_resistances(project, run.capacities, lateral));
   for (const auto& d : missing_resistances(project, run.resistances))
     problems.error(d.where, d.message);
   for (const auto& d : group_input_problems(project, run.capacities))
@@ -44,8 +51,7 @@ CheckRun analyse_project(const std::string& file) {
   problems.raise_if_any();
   std::vector<double> moment_per_shear;
   for (const auto& k : run.stiffness) moment_per_shear.push_back(k.head_moment_per_shear);
-  run.results = check_piles(project, solve_combinations(project, solver), run.resistances,
-                            moment_per_shear);
+  run.results = check_piles(project, std::move(solutions), run.resistances, moment_per_shear);
   run.group = evaluate_group(project, run.results, run.resistances, run.capacities);
   if (!run.group.pass) run.results.summary.pass = false;
   std::vector<std::pair<std::string, std::string>> sources;

@@ -8,6 +8,7 @@
 #include <fmt/format.h>
 
 #include "cairn/lateral.hpp"
+#include "cairn/section_moment.hpp"
 
 namespace cairn {
 namespace {
@@ -105,7 +106,8 @@ std::vector<PileTypeResistance> resolve_resistances(
         r.factored.source = fmt::format("ultimate given × resistance factor {:g}",
                                         *set.resistance_factor);
     }
-    if (type.structure) {
+    // A timber section (bending strength only) has no axial capacity here.
+    if (type.structure && (type.structure->concrete_strength || type.structure->steel_yield)) {
       // Po = 0.85·f'c·(Ag − As) + fy·As (ACI 318-19 eq. 22.4.2.2), or fy·A for steel.
       const Structure& st = *type.structure;
       double nominal = 0.0;
@@ -114,7 +116,12 @@ std::vector<PileTypeResistance> resolve_resistances(
                                 *st.concrete_strength, st.steel_yield.value_or(0.0)};
         nominal = concrete_nominal_axial_strength(section);
       } else {
-        nominal = *st.steel_yield * st.steel_area.value_or(type.section.area());
+        // A pipe or hollow square: the wall's area unless steel_area is given.
+        const double area = st.wall_thickness && *st.wall_thickness < 0.5 * type.section.width
+                                ? section_area(type.section.shape, type.section.width,
+                                               *st.wall_thickness)
+                                : type.section.area();
+        nominal = *st.steel_yield * st.steel_area.value_or(area);
       }
       if (st.allowable_factor) {
         r.allowable.structural_axial = *st.allowable_factor * nominal;
@@ -134,9 +141,13 @@ std::vector<PileTypeResistance> resolve_resistances(
       const bool had_allowable = r.allowable.compression.has_value() || !c.allowable_compression;
       const bool had_factored = r.factored.compression.has_value() || !c.factored_compression;
       fill(r.allowable.compression, c.allowable_compression);
-      fill(r.allowable.tension, c.allowable_tension);
       fill(r.factored.compression, c.factored_compression);
-      fill(r.factored.tension, c.factored_tension);
+      // A compression-only pile drops out of the cap before it takes tension: the uplift
+      // computed from the soil is not used (said in the assumptions).
+      if (type.tension) {
+        fill(r.allowable.tension, c.allowable_tension);
+        fill(r.factored.tension, c.factored_tension);
+      }
       if (!had_allowable) r.allowable.source = "computed from the soil: " + c.method;
       if (!had_factored) r.factored.source = "computed from the soil: " + c.method;
       auto add = [](std::string& source, const std::string& text) {
@@ -301,9 +312,14 @@ std::vector<std::string> assumptions(
       list.push_back(fmt::format("Pile type {}: fixed heads; the head moment is reported per "
                                  "pile but not fed back into the cap's equilibrium.",
                                  type.id));
-    list.push_back(fmt::format("Pile type {}: {}.", type.id,
-                               type.tension ? "takes tension"
-                                            : "takes no tension (compression only)"));
+    list.push_back(fmt::format(
+        "Pile type {}: {}.", type.id,
+        type.tension ? "takes tension"
+        : type.design.computes_capacity() && project.soil
+            ? "takes no tension (compression only: it drops out of the cap rather than take "
+              "tension; the uplift capacity computed from the soil is not used)"
+            : "takes no tension (compression only: it drops out of the cap rather than take "
+              "tension)"));
     if (t < resistances.size()) {
       const auto& r = resistances[t];
       if (!r.allowable.source.empty())

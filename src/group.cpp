@@ -435,8 +435,9 @@ Efficiency efficiency_on_grid(EfficiencyMethod method, const std::vector<PilePla
   Efficiency result{method, std::nullopt, {}};
   if (method == EfficiencyMethod::none) {
     result.value = 1.0;
-    result.note = "η = 1 taken as given (common practice for driven piles in sand, where "
-                  "driving densifies the soil between the piles)";
+    // What the choice assumes; evaluate_group() adds what the project's piles and soil say.
+    result.note = "η = 1: no reduction for group action (the group capacity is the sum of the "
+                  "single-pile capacities)";
     return result;
   }
   if (!grid.regular) {

@@ -17,6 +17,8 @@ constexpr double kPhiGroupUpliftDriven = 0.50, kPhiGroupUpliftBored = 0.45;
 // Tolerable total settlement when the file sets none: 25 mm (common practice, Terzaghi &
 // Peck for isolated footings).
 constexpr double kDefaultSettlementLimit = 0.025;
+// Lengths closer than this are equal (m): coordinates are given to the millimetre at best.
+constexpr double kSpacingTolerance = 1e-9;
 
 std::vector<PilePlan> plans_of(const Project& project) {
   std::vector<PilePlan> plans;
@@ -55,6 +57,27 @@ const PileTypeCapacity* capacity_of(const std::vector<PileTypeCapacity>& list, s
   return nullptr;
 }
 
+// What η = 1 means for this project's piles and soil, added to the method's own note: the
+// common-practice reason (driving densifies sand) is given only where it holds.
+std::string no_reduction_context(const Project& project) {
+  if (!project.soil)
+    return "; the project has no soil profile, so whether the piles interact is not judged "
+           "here: confirm that the single-pile capacities allow for group action";
+  for (const Pile& p : project.piles)
+    if (project.pile_types[p.type].design.installation == Installation::bored)
+      return "; bored piles do not densify the soil between them: confirm that group action "
+             "does not reduce the capacity (an efficiency method, or block failure in clay)";
+  double top = 0.0;
+  const double tip = tip_depth(project);
+  for (const SoilLayer& layer : project.soil->layers) {
+    if (layer.kind == SoilKind::clay && top < tip && top + layer.thickness > project.cap.depth)
+      return "; the piles pass through clay, where a close group can fail as a block: see the "
+             "block-failure check where it applies";
+    top += layer.thickness;
+  }
+  return "; common practice for driven piles in sand, where driving densifies the soil "
+         "between the piles";
+}
 
 }  // namespace
 
@@ -123,8 +146,14 @@ GroupResults evaluate_group(const Project& project, const CheckResults& results,
   const EfficiencyMethod method =
       efficiency_method_from_string(g.efficiency).value_or(EfficiencyMethod::none);
   out.applied = group_efficiency(method, plans);
+  const std::string context = no_reduction_context(project);
+  for (Efficiency& e : out.efficiencies.all)
+    if (e.method == EfficiencyMethod::none) e.note += context;
+  if (method == EfficiencyMethod::none) out.applied.note += context;
   const double eta = out.applied.value.value_or(1.0);
   out.spacing = check_spacing(plans, g.min_spacing_factor, g.min_spacing);
+  for (SpacingViolation& v : battered_spacing_violations(project))
+    out.spacing.violations.push_back(std::move(v));
   if (!out.spacing.violations.empty()) out.pass = false;
   if (project.cap.outline) {
     out.edge = check_edge_distance(plans, outline_points(*project.cap.outline), g.min_edge_distance);
@@ -253,6 +282,92 @@ GroupResults evaluate_group(const Project& project, const CheckResults& results,
     }
     if (!gc.pass) out.pass = false;
     out.per_combination.push_back(gc);
+  }
+  return out;
+}
+
+SegmentApproach closest_approach(const std::array<double, 3>& p1, const std::array<double, 3>& q1,
+                                 const std::array<double, 3>& p2, const std::array<double, 3>& q2) {
+  using Point = std::array<double, 3>;
+  const auto minus = [](const Point& a, const Point& b) {
+    return Point{a[0] - b[0], a[1] - b[1], a[2] - b[2]};
+  };
+  const auto dot = [](const Point& a, const Point& b) {
+    return a[0] * b[0] + a[1] * b[1] + a[2] * b[2];
+  };
+  const auto along = [](const Point& a, const Point& d, double f) {
+    return Point{a[0] + f * d[0], a[1] + f * d[1], a[2] + f * d[2]};
+  };
+  // Ericson (2005) §5.1.9, with d1, d2 the segments' directions and r = P1 − P2.
+  const Point d1 = minus(q1, p1), d2 = minus(q2, p2), r = minus(p1, p2);
+  const double a = dot(d1, d1), e = dot(d2, d2), f = dot(d2, r);
+  constexpr double kTiny = 1e-24;  // m², a segment of no length
+  double s = 0.0, t = 0.0;
+  if (a <= kTiny && e <= kTiny) {
+    // Two points.
+  } else if (a <= kTiny) {
+    t = std::clamp(f / e, 0.0, 1.0);
+  } else {
+    const double c = dot(d1, r);
+    if (e <= kTiny) {
+      s = std::clamp(-c / a, 0.0, 1.0);
+    } else {
+      const double b = dot(d1, d2);
+      const double denom = a * e - b * b;  // ≥ 0; 0 for parallel segments (any s will do)
+      s = denom > 0.0 ? std::clamp((b * f - c * e) / denom, 0.0, 1.0) : 0.0;
+      t = (b * s + f) / e;
+      if (t < 0.0) {
+        t = 0.0;
+        s = std::clamp(-c / a, 0.0, 1.0);
+      } else if (t > 1.0) {
+        t = 1.0;
+        s = std::clamp((b - c) / a, 0.0, 1.0);
+      }
+    }
+  }
+  SegmentApproach out;
+  out.first = along(p1, d1, s);
+  out.second = along(p2, d2, t);
+  const Point gap = minus(out.first, out.second);
+  out.distance = std::sqrt(dot(gap, gap));
+  return out;
+}
+
+std::vector<SpacingViolation> battered_spacing_violations(const Project& project) {
+  std::vector<SpacingViolation> out;
+  const GroupSettings& g = project.group;
+  // Only pairs with a battered pile can come closer below the heads: loop over those.
+  std::vector<std::size_t> battered;
+  for (std::size_t i = 0; i < project.piles.size(); ++i)
+    if (project.piles[i].batter) battered.push_back(i);
+  const auto tip_depth_of = [&](const Pile& p) {
+    return project.pile_types[p.type].length * -p.axis()[2];
+  };
+  for (std::size_t i : battered) {
+    for (std::size_t j = 0; j < project.piles.size(); ++j) {
+      if (j == i || (project.piles[j].batter && j < i)) continue;  // each pair once
+      const Pile& a = project.piles[i];
+      const Pile& b = project.piles[j];
+      const double wa = project.pile_types[a.type].section.width;
+      const double wb = project.pile_types[b.type].section.width;
+      const double required = std::max(g.min_spacing_factor * std::max(wa, wb), g.min_spacing);
+      if (std::hypot(a.x - b.x, a.y - b.y) < required) continue;  // the plan check's
+      // Both axes from the head (z = 0) down to the shallower tip.
+      const double depth = std::min(tip_depth_of(a), tip_depth_of(b));
+      const auto end = [&](const Pile& p) {
+        const auto u = p.axis();
+        const double along = depth / -u[2];
+        return std::array<double, 3>{p.x + along * u[0], p.y + along * u[1], along * u[2]};
+      };
+      const SegmentApproach c =
+          closest_approach({a.x, a.y, 0.0}, end(a), {b.x, b.y, 0.0}, end(b));
+      if (c.distance < required - kSpacingTolerance) {
+        const double at = -0.5 * (c.first[2] + c.second[2]);
+        // Listed with the earlier pile of the file first, as the plan check does.
+        const bool ordered = i < j;
+        out.push_back({ordered ? a.id : b.id, ordered ? b.id : a.id, c.distance, required, at});
+      }
+    }
   }
   return out;
 }

@@ -527,7 +527,8 @@ class Reader {
         set.basis = *v;
     }
     set.compression = number(n, "compression", Quantity::force, Need::optional);
-    set.tension = number(n, "tension", Quantity::force, Need::optional);
+    // 0 is a tension capacity too: any tension then fails the pile (checks.hpp).
+    set.tension = number(n, "tension", Quantity::force, Need::optional, Sign::non_negative);
     set.lateral = number(n, "lateral", Quantity::force, Need::optional);
     set.factor_of_safety = number(n, "factor_of_safety", Quantity::number, Need::optional);
     set.factor_of_safety_tension =
@@ -610,7 +611,8 @@ class Reader {
       type.tension = flag(n, "tension").value_or(true);
       if (auto st = n.child("structure"); st.present() && expect_map(st)) {
         check_keys(st, {"concrete_strength", "steel_yield", "steel_area", "yield_moment",
-                        "allowable_factor", "resistance_factor"});
+                        "allowable_factor", "resistance_factor", "wall_thickness", "bar_count",
+                        "cover_to_bar_center", "bending_strength"});
         Structure structure;
         structure.where = at(st);
         structure.concrete_strength = number(st, "concrete_strength", Quantity::pressure, Need::optional);
@@ -619,10 +621,23 @@ class Reader {
         structure.yield_moment = number(st, "yield_moment", Quantity::moment, Need::optional);
         structure.allowable_factor = number(st, "allowable_factor", Quantity::number, Need::optional);
         structure.resistance_factor = number(st, "resistance_factor", Quantity::number, Need::optional);
-        if (!structure.concrete_strength && !structure.steel_yield)
-          diag_.error(at(st), fmt::format("{}.structure: expected concrete_strength (f'c) or "
-                                          "steel_yield (fy)", n.path));
-        if (!structure.allowable_factor && !structure.resistance_factor)
+        // What the yield moment is computed from (section_moment.hpp).
+        structure.wall_thickness = number(st, "wall_thickness", Quantity::length, Need::optional);
+        if (const auto bars = number(st, "bar_count", Quantity::number, Need::optional)) {
+          if (*bars == std::floor(*bars) && *bars <= 1000) structure.bar_count = static_cast<int>(*bars);
+          else diag_.error(at(st.child("bar_count")),
+                           fmt::format("{}.structure.bar_count: expected a whole number of bars, got '{}'",
+                                       n.path, scalar_text(st.child("bar_count").node)));
+        }
+        structure.cover_to_bar_center =
+            number(st, "cover_to_bar_center", Quantity::length, Need::optional);
+        structure.bending_strength = number(st, "bending_strength", Quantity::pressure, Need::optional);
+        if (!structure.concrete_strength && !structure.steel_yield && !structure.bending_strength)
+          diag_.error(at(st), fmt::format("{}.structure: expected concrete_strength (f'c), "
+                                          "steel_yield (fy) or bending_strength (timber Fb)", n.path));
+        // The factors scale the axial capacity, which a timber section (Fb only) does not get.
+        if ((structure.concrete_strength || structure.steel_yield) &&
+            !structure.allowable_factor && !structure.resistance_factor)
           diag_.error(at(st), fmt::format("{}.structure: expected allowable_factor (service) and/or "
                                           "resistance_factor (strength)", n.path));
         type.structure = structure;
@@ -642,6 +657,18 @@ class Reader {
           CapacitySet set;
           read_capacity_set(c, set);
           type.capacities.push_back(set);
+        }
+        // `tension: false` (compression only) and a tension capacity contradict each other;
+        // 0 agrees with it.
+        for (std::size_t i = 0; i < type.capacities.size() && !type.tension; ++i) {
+          const Located t = (c.node.IsSequence() ? c.item(i) : c).child("tension");
+          if (type.capacities[i].tension.value_or(0.0) > 0.0)
+            diag_.error(at(t), fmt::format(
+                "{}: expected 0 or no tension capacity with tension: false (the pile drops out "
+                "of the cap rather than take tension), got '{}'; which did you mean: a pile "
+                "that takes tension up to this capacity (remove 'tension: false') or a "
+                "compression-only pile (remove {})?",
+                t.path, scalar_text(t.node), t.path));
         }
         std::set<CapacityBasis> bases;
         for (const auto& set : type.capacities)

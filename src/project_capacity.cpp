@@ -1,5 +1,8 @@
 #include "cairn/project_capacity.hpp"
 
+#include <algorithm>
+#include <set>
+
 #include <fmt/format.h>
 
 #include "cairn/diagnostics.hpp"
@@ -11,6 +14,8 @@ namespace {
 // AASHTO LRFD Table 10.5.5.2.3-1: horizontal geotechnical resistance of a pile, φ = 1.0
 // (from memory).
 constexpr double kBromsResistanceFactor = 1.0;
+// A lateral force below this is round-off of the cap solve (kN), as in the checks.
+constexpr double kNoLateralForce = 1e-6;
 
 PileGeometry geometry_of(const Project& project, const PileType& type) {
   PileGeometry g;
@@ -56,7 +61,24 @@ std::vector<PileTypeCapacity> compute_capacities(const Project& project, double 
   return list;
 }
 
-std::vector<std::optional<LateralCapacity>> lateral_capacities(const Project& project) {
+std::vector<std::optional<AxialRange>> axial_ranges(const Project& project,
+                                                    const std::vector<CapSolution>& solutions) {
+  std::vector<std::optional<AxialRange>> out(project.pile_types.size());
+  for (const CapSolution& solution : solutions) {
+    if (solution.overturns) continue;  // no pile forces to speak of
+    for (std::size_t i = 0; i < solution.piles.size() && i < project.piles.size(); ++i) {
+      const double p = solution.piles[i].axial;
+      auto& range = out[project.piles[i].type];
+      if (!range) range = AxialRange{p, p};
+      range->least = std::min(range->least, p);
+      range->greatest = std::max(range->greatest, p);
+    }
+  }
+  return out;
+}
+
+std::vector<std::optional<LateralCapacity>> lateral_capacities(
+    const Project& project, const std::vector<std::optional<AxialRange>>& axial) {
   std::vector<std::optional<LateralCapacity>> out(project.pile_types.size());
   if (!project.soil || project.soil->layers.empty()) return out;
   // The layer at the pile head governs the lateral mechanism near the top.
@@ -77,7 +99,6 @@ std::vector<std::optional<LateralCapacity>> lateral_capacities(const Project& pr
     in.width = type.section.width;
     in.embedded_length = type.length;
     in.head = type.head;
-    if (type.structure && type.structure->yield_moment) in.yield_moment = type.structure->yield_moment;
     if (layer->kind == SoilKind::clay) {
       if (!layer->undrained_strength) continue;
       in.undrained_strength = *layer->undrained_strength;
@@ -88,6 +109,17 @@ std::vector<std::optional<LateralCapacity>> lateral_capacities(const Project& pr
       in.effective_unit_weight = wet ? *gamma - kWaterUnitWeight : *gamma;
       in.friction_angle = *layer->friction_angle;
     }
+    const SectionYieldMoment my = section_yield_moment(
+        type, t < axial.size() ? axial[t] : std::nullopt, project.units);
+    if (!my.value) {
+      LateralCapacity c;
+      c.missing = my.missing;
+      c.method = fmt::format("Broms (1964) in layer '{}': not computed, no yield moment ({})",
+                             layer->name, my.missing);
+      out[t] = c;
+      continue;
+    }
+    in.yield_moment = my.value;
     try {
       const BromsResult b = broms_ultimate_lateral(in);
       LateralCapacity c;
@@ -100,7 +132,7 @@ std::vector<std::optional<LateralCapacity>> lateral_capacities(const Project& pr
                              from_si(project.units, Quantity::force, b.ultimate_load),
                              unit_label(project.units, Quantity::force), kLateralFactorOfSafety,
                              kBromsResistanceFactor);
-      if (!in.yield_moment) c.method += " (no yield_moment given: short-pile mechanism only)";
+      c.method += "; " + my.basis;
       out[t] = c;
     } catch (const std::invalid_argument&) {
       // Not enough data for Broms: the lateral check then needs a typed-in capacity.
@@ -109,12 +141,44 @@ std::vector<std::optional<LateralCapacity>> lateral_capacities(const Project& pr
   return out;
 }
 
+std::vector<Diagnostic> lateral_input_problems(
+    const Project& project, const std::vector<std::optional<LateralCapacity>>& lateral,
+    const std::vector<CapSolution>& solutions) {
+  std::vector<Diagnostic> problems;
+  // The capacities typed in, alone: where a basis lacks a lateral value, Broms is needed.
+  const auto typed = resolve_resistances(project, {});
+  // Types with a lateral force to check against a basis that has no typed-in value.
+  std::set<std::size_t> needed;
+  for (std::size_t c = 0; c < solutions.size() && c < project.combinations.size(); ++c) {
+    const bool service = project.combinations[c].limit_state == LimitState::service;
+    for (std::size_t i = 0; i < solutions[c].piles.size() && i < project.piles.size(); ++i) {
+      const std::size_t t = project.piles[i].type;
+      const Resistance& r = service ? typed[t].allowable : typed[t].factored;
+      if (!r.lateral && solutions[c].piles[i].lateral > kNoLateralForce) needed.insert(t);
+    }
+  }
+  for (std::size_t t : needed) {
+    if (t >= lateral.size() || !lateral[t] || lateral[t]->missing.empty()) continue;
+    const PileType& type = project.pile_types[t];
+    const char* material = !type.structure                       ? ""
+                           : type.structure->concrete_strength   ? "reinforced concrete "
+                           : type.structure->steel_yield         ? "steel "
+                                                                 : "timber ";
+    problems.push_back(
+        {type.structure ? type.structure->where : type.where,
+         fmt::format("pile_types.{}: Broms' lateral capacity of this {}pile needs its yield "
+                     "moment, but {}; give structure.yield_moment (or a lateral capacity)",
+                     type.id, material, lateral[t]->missing)});
+  }
+  return problems;
+}
+
 std::vector<std::optional<ComputedResistance>> computed_resistances(
     const Project& project, const std::vector<PileTypeCapacity>& capacities,
     const std::vector<std::optional<LateralCapacity>>& lateral) {
   std::vector<std::optional<ComputedResistance>> out(project.pile_types.size());
   for (std::size_t t = 0; t < lateral.size() && t < out.size(); ++t) {
-    if (!lateral[t]) continue;
+    if (!lateral[t] || !lateral[t]->missing.empty()) continue;
     ComputedResistance r;
     r.allowable_lateral = lateral[t]->allowable;
     r.factored_lateral = lateral[t]->factored;

@@ -185,9 +185,15 @@ GroupParts make_group_parts(const CheckReport& r) {
                                p.group.min_spacing > 0 ? ", at least " + u.length(p.group.min_spacing) + " " + u.label(Quantity::length) : "",
                                g.spacing.violations.empty() ? "ok" : "FAIL"));
   for (const auto& v : g.spacing.violations)
-    checks.push_back(fmt::format("FAIL: piles {} and {} are {} {} apart, less than {} {}.", v.first,
-                                 v.second, u.length(v.distance), u.label(Quantity::length),
-                                 u.length(v.required), u.label(Quantity::length)));
+    checks.push_back(
+        v.depth ? fmt::format("FAIL: battered piles {} and {} come within {} {} of each other at "
+                              "{} {} below the pile heads, less than {} {}.",
+                              v.first, v.second, u.length(v.distance), u.label(Quantity::length),
+                              u.length(*v.depth), u.label(Quantity::length),
+                              u.length(v.required), u.label(Quantity::length))
+                : fmt::format("FAIL: piles {} and {} are {} {} apart, less than {} {}.", v.first,
+                              v.second, u.length(v.distance), u.label(Quantity::length),
+                              u.length(v.required), u.label(Quantity::length)));
   if (g.edge) {
     checks.push_back(fmt::format("Edge distance (pile face to cap edge, minimum {} {}): {}.",
                                  u.length(g.edge->minimum), u.label(Quantity::length),
@@ -267,7 +273,8 @@ json group_json(const CheckReport& r) {
   for (const auto& v : g.spacing.violations)
     spacing.push_back({{"piles", {v.first, v.second}},
                        {"distance", u.value(Quantity::length, v.distance)},
-                       {"required", u.value(Quantity::length, v.required)}});
+                       {"required", u.value(Quantity::length, v.required)},
+                       {"depth", v.depth ? json(u.value(Quantity::length, *v.depth)) : json(nullptr)}});
   json per = json::array();
   for (const auto& gc : g.per_combination)
     per.push_back({{"combination", p.combinations[gc.combination].id},

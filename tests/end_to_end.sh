@@ -349,6 +349,21 @@ done
 expect_status "warning: report" 0 report "$r/unused_case.yaml" --out "$work/warned-html"
 expect_in "warning on stderr (report)" "$work/err" "warning: $unused"
 expect_in "warning in the HTML notes" "$work/warned-html/unused_case.html" "Warning: $unused"
+# ---- No unsafe defaults: yield moment, battered spacing, the tension keys, the η = 1 note.
+expect_status "battered piles crossing at depth" 1 check "$data/defaults/battered_toward.yaml"
+expect_in "battered pair and depth named" "$work/out" "FAIL: battered piles A1 and A2 come within 0.000 m of each other at 4.000 m below the pile heads, less than 1.000 m."
+expect_status "Broms without a yield moment" 2 check "$data/defaults/bad_no_yield_moment.yaml"
+expect_in "yield moment asked for" "$work/err" "pile_types.PC45: Broms' lateral capacity of this reinforced concrete pile needs its yield moment"
+expect_status "yield moment of a steel pipe" 0 check "$data/defaults/pipe_in_clay.yaml"
+expect_in "yield moment's source stated" "$work/out" "with the plastic modulus Z, reduced for the axial force at P = 1000.0 kN, the least favourable axial force of all combinations"
+expect_status "yield moment of a concrete pile" 0 check "$data/defaults/concrete_in_sand.yaml"
+expect_in "concrete My at the pile's tension" "$work/out" "from f'c and 8 bars by strain compatibility with the ACI 318-19 rectangular stress block (β1 = 0.80), at P = -200.0 kN (tension)"
+expect_status "tension: false with a tension capacity" 2 check "$data/defaults/bad_tension_contradiction.yaml"
+expect_in "which tension was meant" "$work/err" "which did you mean"
+expect_status "capacity.tension: 0 accepted, tension fails" 1 check "$data/defaults/tension_zero.yaml"
+expect_in "no claim of driven piles in sand without soil" "$work/out" "the project has no soil profile"
+expect_status "bored piles in sand" 0 check "$data/defaults/bored_in_sand.yaml"
+expect_in "bored piles do not densify" "$work/out" "bored piles do not densify the soil between them"
 
 # ---- One verdict in every output: an overturned combination, the pile states and words.
 mixed="$data/outputs/mixed.yaml"

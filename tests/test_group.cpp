@@ -239,7 +239,9 @@ TEST_CASE("group: block-perimeter rule for sand, none, and unequal spacings", "[
   CHECK(efficiency(cairn::EfficiencyMethod::block_perimeter, grid_piles(3, 3, 2.0, 2.0, 0.4)) == 1.0);
   const auto none = cairn::group_efficiency(cairn::EfficiencyMethod::none, piles);
   CHECK(none.value == 1.0);
-  CHECK(none.note.find("common practice") != std::string::npos);
+  // The method alone does not know the piles or soil: no claim about driven piles in sand.
+  CHECK(none.note.find("no reduction for group action") != std::string::npos);
+  CHECK(none.note.find("sand") == std::string::npos);
   // Unequal spacings: the smaller (1.2 m) is used, so η equals the 1.2 × 1.2 m grid's.
   const auto uneven = cairn::group_efficiency(cairn::EfficiencyMethod::converse_labarre,
                                               grid_piles(3, 3, 1.6, 1.2, 0.4));

@@ -74,6 +74,9 @@ struct SpacingViolation {
   std::string first, second;  // pile ids
   double distance = 0.0;      // m, centre to centre
   double required = 0.0;      // m
+  // Battered piles: where the axes come closest, m below the pile heads (distance is then
+  // the closest approach of the axes); absent for the centre-to-centre distance at the heads.
+  std::optional<double> depth;
 };
 
 struct SpacingCheck {

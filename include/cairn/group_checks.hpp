@@ -8,6 +8,7 @@
 // Units: kN, m, kPa. Failed group checks fail the project (exit status 1).
 #pragma once
 
+#include <array>
 #include <optional>
 #include <string>
 #include <vector>
@@ -64,5 +65,26 @@ std::vector<Diagnostic> group_input_problems(const Project& project,
 GroupResults evaluate_group(const Project& project, const CheckResults& results,
                             const std::vector<PileTypeResistance>& resistances,
                             const std::vector<PileTypeCapacity>& capacities);
+
+// Closest approach of two line segments in 3D (Ericson, Real-Time Collision Detection, 2005,
+// §5.1.9: the closest points minimise |P(s) − Q(t)| over s, t ∈ [0, 1], clamped to the
+// segments' ends; exact up to round-off). Points in m.
+struct SegmentApproach {
+  double distance = 0.0;                 // m
+  std::array<double, 3> first{}, second{};  // the closest points on each segment
+};
+SegmentApproach closest_approach(const std::array<double, 3>& first_start,
+                                 const std::array<double, 3>& first_end,
+                                 const std::array<double, 3>& second_start,
+                                 const std::array<double, 3>& second_end);
+
+// Spacing of battered piles below the cap (common practice: the minimum spacing applies at
+// every depth, not only at the heads). For every pair with at least one battered pile, the
+// axes from the heads down to the depth of the shallower tip must stay the pair's required
+// spacing apart (max(factor·larger width, absolute minimum), as at the heads); a pair that
+// comes closer below the heads than allowed is a violation carrying the depth (below the
+// pile heads) midway between its two closest points. Pairs already too close at the heads
+// are left to the plan check.
+std::vector<SpacingViolation> battered_spacing_violations(const Project& project);
 
 }  // namespace cairn

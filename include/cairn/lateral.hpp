@@ -124,7 +124,9 @@ struct BromsInput {
   double width = 0.0;                 // D, m
   double embedded_length = 0.0;       // L, m
   double eccentricity = 0.0;          // e, m: height of the applied H above the ground
-  std::optional<double> yield_moment; // My, kN·m; absent: the pile is taken not to yield
+  std::optional<double> yield_moment; // My, kN·m; absent: the short-pile mechanism only, an
+                                      // upper bound for checks of the formulas — cairn's
+                                      // pipeline always gives My (section_moment.hpp)
   HeadFixity head = HeadFixity::pinned;
 };
 

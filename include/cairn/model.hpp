@@ -69,7 +69,11 @@ struct Structure {
   std::optional<double> concrete_strength;  // f'c, kPa
   std::optional<double> steel_yield;        // fy, kPa
   std::optional<double> steel_area;         // As, m² (steel section: defaults to the gross area)
-  std::optional<double> yield_moment;       // My, kN·m
+  std::optional<double> yield_moment;       // My, kN·m; absent: from the section (section_moment.hpp)
+  std::optional<double> wall_thickness;     // t, m: a steel pipe (round) or hollow square
+  std::optional<int> bar_count;             // reinforced concrete: number of longitudinal bars
+  std::optional<double> cover_to_bar_center;  // m, from the face to the bar centres
+  std::optional<double> bending_strength;   // Fb, kPa: timber
   std::optional<double> allowable_factor;   // service: P_allow = factor·Po, M_allow = factor·My
   std::optional<double> resistance_factor;  // strength: φ·Po, φ·My
   SourceLocation where;

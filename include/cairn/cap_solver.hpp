@@ -22,7 +22,9 @@
 // |p − c|), stiffness equilibrated to a unit diagonal — and whether a direction has no
 // stiffness is decided from the geometry and which springs exist (a unit-spring copy of the
 // stiffness), relative to its largest value, so stiff and soft piles together (ratios of
-// 1e10) do not make a stable group look unstable. Results are reported about the user's
+// 1e10) do not make a stable group look unstable; where such piles leave an imbalance above
+// 1e-13 of the load, the solution is refined with the imbalance in long double (docs/methods.md
+// §2 gives the tolerances). Results are reported about the user's
 // origin: the rotation is the same about every point; the translation at the origin,
 // t₀ = t − r × c, is computed from t and r for display only (superposition and the pile
 // forces use t at c).
@@ -79,8 +81,8 @@ struct CapSolution {
   std::vector<std::size_t> dropped;  // piles that dropped out (indices)
   int iterations = 0;                // solves of the active-set loop (1 = linear)
   // Equilibrium about the reference point: the largest component of Σ pile forces + load,
-  // forces over the largest applied force, moments over L·(largest applied force) (where
-  // the load is a pure couple, its largest moment over L takes the force's place).
+  // moments over L, divided by the largest applied component (moments over L): forces
+  // against the largest applied force, moments against it times the group's size L.
   double residual = 0.0;
 };
 

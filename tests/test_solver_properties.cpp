@@ -353,7 +353,7 @@ TEST_CASE("cap_solver: random groups, near and far, stiff and soft, are in equil
   // applied force, moments to 1e-9 of that force times the group's size; and an
   // independent solve — the 6×6 stiffness assembled here about the first pile's head, in
   // metres and radians, solved by Householder QR with column pivoting instead of the
-  // solver's equilibrated LDLT — gives the same pile forces. For compression-only piles the
+  // solver's LDLT — gives the same pile forces, to the margin its condition allows. For compression-only piles the
   // dense solve uses the solver's final active set (a dropped pile keeps its lateral spring).
   std::mt19937 random(20261202);
   int far = 0, compression_only = 0, dropped = 0, overturned = 0;
@@ -427,7 +427,21 @@ TEST_CASE("cap_solver: random groups, near and far, stiff and soft, are in equil
                                    p.lateral * (Eigen::Matrix3d::Identity() - a * a.transpose());
       k += map.transpose() * pile * map;
     }
-    const Eigen::Matrix<double, 6, 1> dense = k.colPivHouseholderQr().solve(applied);
+    // Solved equilibrated to a unit diagonal (y = (D·K·D)⁻¹·D·F, U = D·y), so that both
+    // solves are backward stable on the same well-scaled matrix: each force may then be
+    // off by about ε·κ of the load, κ the condition number of D·K·D — most groups 1e2–1e6,
+    // three piles nearly on one line up to 1e9. Margin: 1e-14·κ, and 1e-9 where κ is small.
+    Eigen::Matrix<double, 6, 1> unit_diagonal;
+    for (int j = 0; j < 6; ++j) unit_diagonal(j) = 1.0 / std::sqrt(k(j, j));
+    const Eigen::Matrix<double, 6, 6> equilibrated =
+        unit_diagonal.asDiagonal() * k * unit_diagonal.asDiagonal();
+    const Eigen::Matrix<double, 6, 1> dense =
+        unit_diagonal.asDiagonal() *
+        equilibrated.colPivHouseholderQr().solve(unit_diagonal.asDiagonal() * applied);
+    const auto singular = equilibrated.jacobiSvd().singularValues();
+    const double condition = singular(0) / singular(5);
+    const double agreement = 1e-9 + 1e-14 * condition;
+    INFO("condition number " << condition);
     for (std::size_t i = 0; i < c.springs.size(); ++i) {
       const auto& p = c.springs[i];
       const Eigen::Vector3d a = vec(p.axis);
@@ -435,22 +449,20 @@ TEST_CASE("cap_solver: random groups, near and far, stiff and soft, are in equil
           dense.head<3>() + dense.tail<3>().cross(vec(p.head) - origin);
       const double axial = s.piles[i].active ? p.axial * a.dot(u) : 0.0;
       const double difference = std::abs(axial - s.piles[i].axial) / largest_force;
-      worst_agreement = std::max(worst_agreement, difference);
-      // Both solves round to ~1e-16 of the largest stiffness times the movement: with
-      // stiffness ratios up to 1e6 and lever arms to 20 m, up to ~1e-9 of the load
-      // (1.3e-9 measured over these cases).
-      CHECK(difference <= 1e-8);
+      worst_agreement = std::max(worst_agreement, difference / agreement);
+      CHECK(difference <= agreement);
     }
     // The rotation is the same about every point.
     const double rotation_scale = dense.tail<3>().cwiseAbs().maxCoeff();
     for (int j = 0; j < 3; ++j)
-      CHECK(r(j) == close(dense(3 + j), 1e-6, 1e-6 * rotation_scale));
+      CHECK(r(j) == close(dense(3 + j), 0.0, 1e3 * agreement * rotation_scale));
   }
   // The cases exercised what they were meant to.
   CHECK(far > 150);
   CHECK(compression_only > 100);
   CHECK(dropped > 20);
   CHECK(overturned < 100);
-  INFO("worst equilibrium " << worst_equilibrium << ", worst agreement " << worst_agreement);
+  INFO("worst equilibrium " << worst_equilibrium << ", worst agreement (share of its margin) "
+                            << worst_agreement);
   CHECK(worst_equilibrium <= 1e-9);
 }

@@ -52,7 +52,8 @@ std::array<double, 3> to_array(const Eigen::Vector3d& v) { return {v(0), v(1), v
 
 }  // namespace
 
-// Per pile: the head map and the pile's stiffness, kept for assembling any active subset.
+// Per pile: the head map, offset, axis and springs, kept for assembling any active subset
+// and for the pile forces.
 struct CapSolver::Impl {
   Eigen::Vector3d reference = Eigen::Vector3d::Zero();  // c, m
   std::array<double, 3> reference_point{};               // the same, as the model writes it
@@ -61,11 +62,9 @@ struct CapSolver::Impl {
   std::vector<Eigen::Vector3d> offsets;                  // ρ = (p − c)/L
   std::vector<Eigen::Vector3d> axes;
   std::vector<double> axial, lateral;                    // kN/m
-  std::vector<Eigen::Matrix3d> stiffness;                // kN/m
   std::vector<Matrix6> contributions;                    // T̂ᵀ·K_pile·T̂, kN/m
   // A pile that dropped out (it takes no tension) keeps its lateral spring: the soil still
-  // holds it across its axis. Its lateral-only stiffness and contribution:
-  std::vector<Eigen::Matrix3d> lateral_only;
+  // holds it across its axis. Its lateral-only contribution:
   std::vector<Matrix6> lateral_contributions;
   // The same with every existing spring of stiffness 1: its null space is the stiffness's
   // (K = Σ of positive semidefinite terms, so K·v = 0 exactly when every spring is idle),
@@ -356,16 +355,14 @@ CapSolver::CapSolver(std::vector<PileSpring> springs)
   m.size = reach > 0.0 ? reach : 1.0;
   for (const auto& s : springs_) {
     const Eigen::Vector3d a = to_vector3(s.axis);
-    m.maps.push_back(head_map((to_vector3(s.head) - m.reference) / m.size));  // kept for assembly
     m.offsets.push_back((to_vector3(s.head) - m.reference) / m.size);
+    m.maps.push_back(head_map(m.offsets.back()));
     m.axes.push_back(a);
     m.axial.push_back(s.axial);
     m.lateral.push_back(s.lateral);
     const Matrix36& t = m.maps.back();
-    m.stiffness.push_back(spring_matrix(a, s.axial, s.lateral));
-    m.contributions.push_back(t.transpose() * m.stiffness.back() * t);
-    m.lateral_only.push_back(spring_matrix(a, 0.0, s.lateral));
-    m.lateral_contributions.push_back(t.transpose() * m.lateral_only.back() * t);
+    m.contributions.push_back(t.transpose() * spring_matrix(a, s.axial, s.lateral) * t);
+    m.lateral_contributions.push_back(t.transpose() * spring_matrix(a, 0.0, s.lateral) * t);
     const double has_lateral = s.lateral > 0.0 ? 1.0 : 0.0;
     m.pattern.push_back(t.transpose() *
                         spring_matrix(a, s.axial > 0.0 ? 1.0 : 0.0, has_lateral) * t);

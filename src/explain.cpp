@@ -84,10 +84,14 @@ std::vector<HandCheck> explain_pile(const Project& project, const CheckResults& 
         h.why_not = "the active piles lie on one line askew to x and y; the hand formula is "
                     "written for lines along x or y";
       } else {
-        const Wrench f = combination_load(project, project.combinations[cc.combination]);
+        // Moments about the centroid taken from the loads' points (lever arms as
+        // differences of coordinates), not moved from the origin: a group far from the
+        // origin keeps its digits.
+        const Wrench f = combination_load(project, project.combinations[cc.combination],
+                                          {s.centroid_x, s.centroid_y, 0.0});
         h.vertical = -f[2];
-        h.moment_x = f[3] - s.centroid_y * f[2];
-        h.moment_y = f[4] + s.centroid_x * f[2];
+        h.moment_x = f[3];
+        h.moment_y = f[4];
         if (std::abs(h.vertical) > 1e-12) {
           h.eccentricity_x = h.moment_y / h.vertical;
           h.eccentricity_y = -h.moment_x / h.vertical;

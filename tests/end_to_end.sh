@@ -412,6 +412,20 @@ for project in "$src"/projects-demo/*/cap.yaml; do
     bad "$project: prints a round-off rotation"
   else ok; fi
 done
+# ---- A group on survey grid coordinates: the rigid cap is solved about the group's own
+# centre (issue 12), so the far-off origin costs no digits.
+expect_status "far from the origin" 0 check "$data/e2e/far_origin.yaml" --format json
+if python3 - "$work/out" <<'PY'
+import json, math, sys
+doc = json.load(open(sys.argv[1]))
+axial = [p["axial"] for p in doc["combinations"][0]["piles"]]
+for got, want in zip(axial, (500.0, 250.0, 250.0)):
+    if not math.isclose(got, want, rel_tol=1e-9):
+        sys.exit(f"axial forces {axial}, expected 500/250/250")
+PY
+then ok; else bad "far from the origin: pile forces"; fi
+expect_status "far from the origin, hand check" 0 check "$data/e2e/far_origin.yaml" --explain A
+expect_in "far from the origin, hand check agrees" "$work/out" "= 333.3 + 83.3 + 83.3 = 500.0 kN   (solver: 500.0 kN)"
 
 echo "$passed passed, $failed failed"
 [ "$failed" -eq 0 ]

@@ -6,8 +6,11 @@
 // Inputs: a SoilProfile (depths m from the ground surface, unit weights kN/m³, strengths
 // and moduli kPa, angles degrees), a PileGeometry (m, kN/m³) and a PileDesign (methods,
 // factors). Outputs in kN (forces) and kPa (unit resistances); depths m below the ground.
-// Stresses: σv from the unit weights (γ above the water table, γsat below), u = γw·(z − zw),
-// σ'v = σv − u, piecewise linear in depth.
+// Stresses, layers and boundaries come from the soil column (soil.hpp): a tip on a layer
+// boundary bears on the layer below; σv from the unit weights, u = γw·(z − zw), σ'v = σv − u.
+// Near a boundary the tip follows Meyerhof's (1976) transitions over 10 diameters. Unit tip
+// and shaft resistances are limited by the method's own limits, or by a stated default where
+// the method's source gives none; max_unit_tip / max_unit_shaft are the engineer's override.
 //
 // Methods (each formula is written beside its code in capacity.cpp and in
 // docs/methods-capacity.md):
@@ -68,9 +71,16 @@ struct TipDetails {
   std::optional<double> n_q;                     // N*q (Meyerhof sand)
   std::optional<double> penetration;             // m, penetration into the bearing layer
   std::optional<double> reduction;               // factor applied (shallow base, wide base)
-  std::optional<double> limit;                   // kPa, the method's limiting unit tip
-  double unit_tip = 0.0;  // kPa, unit tip resistance used (after every limit)
-  bool limited = false;   // a limit (the method's or max_unit_tip) governed
+  std::optional<double> limit;                   // kPa, the limiting unit tip applied
+  std::string limit_source;  // where `limit` comes from, in plain words (method, default, engineer)
+  bool limit_default = false;  // `limit` is cairn's default (the method's source gives none)
+  std::string governed_by;     // the limit that governed the unit tip; empty when none did
+  std::optional<double> layer_unit_tip;  // kPa, the bearing layer's own value, when a
+                                         // transition near a boundary changed it
+  std::string transition;        // the transition applied, in plain words; empty when none
+  std::string transition_short;  // the same in a few words, for the capacity-with-depth table
+  double unit_tip = 0.0;  // kPa, unit tip resistance used (after every limit and transition)
+  bool limited = false;   // a limit governed (governed_by says which)
 };
 
 // Shaft resistance of the part of one layer crossed by the shaft.
@@ -86,7 +96,10 @@ struct LayerShaft {
   double unit_average = 0.0;  // kPa, shaft / (perimeter · (bottom − top))
   double phi_shaft = 0.0;     // resistance factor used on `shaft`
   double phi_uplift = 0.0;    // resistance factor used on `uplift`
-  bool limited = false;       // max_unit_shaft or the method's limit governed somewhere
+  std::optional<double> limit;  // kPa, limiting unit shaft friction applied; empty: none
+  std::string limit_source;     // where `limit` comes from, in plain words
+  bool limit_default = false;   // `limit` is cairn's default (the method's source gives none)
+  bool limited = false;         // the limit governed somewhere in the layer
 };
 
 struct CapacityResult {
@@ -108,7 +121,8 @@ struct CapacityResult {
   double phi_uplift = 0.0;  // factor is in `layers`)
   TipDetails tip_details;
   std::vector<LayerShaft> layers;  // from the pile head down
-  std::vector<std::string> notes;  // choices made for the user, in plain words
+  std::vector<std::string> limits;  // every limit that governed, in plain words
+  std::vector<std::string> notes;   // choices made for the user, in plain words
 };
 
 // One row of the capacity-with-depth table.
@@ -119,6 +133,7 @@ struct DepthRow {
   double shaft = 0.0;      // kN, ultimate
   double ultimate = 0.0;   // kN, tip + shaft
   double tension = 0.0;    // kN, ultimate tension (uplift shaft + effective weight)
+  std::string note;        // a transition or tip limit that shapes this row, in a few words
 };
 
 // ---- Profile and design --------------------------------------------------------------
@@ -144,17 +159,8 @@ std::vector<std::string> shaft_method_names();
 std::optional<TipMethod> parse_tip_method(std::string_view name);
 std::optional<ShaftMethod> parse_shaft_method(std::string_view name);
 
-// Index of the layer holding depth z (m); a depth on a boundary belongs to the layer above,
-// z = 0 to the first. Throws std::invalid_argument outside [0, profile depth].
-std::size_t layer_index(const SoilProfile& profile, double z);
-
-// Total vertical stress σv, pore pressure u = γw·max(0, z − zw) and effective stress
-// σ'v = σv − u at depth z, kPa. Uses unit_weight above the water table and
-// saturated_unit_weight below it. Throws std::invalid_argument if the one needed is missing
-// or z lies outside the profile.
-double total_stress(const SoilProfile& profile, double z);
-double pore_pressure(const SoilProfile& profile, double z);
-double effective_stress(const SoilProfile& profile, double z);
+// Layers, water and stresses with depth: SoilColumn (soil.hpp), with its rules for boundaries
+// and missing unit weights.
 
 // ---- Tip building blocks (unit resistances in kPa) ------------------------------------
 

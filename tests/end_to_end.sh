@@ -287,5 +287,13 @@ expect_in "generated combinations listed" "$work/out" "generated: asce7-lrfd"
 expect_status "unknown generator" 2 check "$data/e2e/bad_generator.yaml"
 expect_in "valid generators listed" "$work/err" "asce7-asd"
 
+# Capacity limits (issue 10): the limit that governed is printed with its source, the
+# engineer's reason is quoted, and a reason without its limit is an input error.
+expect_status "capacity with the engineer's limits" 0 capacity "$data/e2e/soil.yaml"
+expect_in "engineer's reason quoted" "$work/out" "max_unit_tip given, reason: 'fixture: checks the run, not the limit'"
+expect_in "depth table notes the transition" "$work/out" "Db < 10·D in 'dense sand'"
+expect_status "limit reason alone" 2 check "$data/e2e/bad_limit_reason.yaml"
+expect_in "limit reason alone named" "$work/err" "bad_limit_reason.yaml:7:105: error: soil.layers[0].max_unit_tip_reason: expected max_unit_tip beside it, got a reason alone"
+
 echo "$passed passed, $failed failed"
 [ "$failed" -eq 0 ]

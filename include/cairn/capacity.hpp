@@ -14,13 +14,16 @@
 //
 // Methods (each formula is written beside its code in capacity.cpp and in
 // docs/methods-capacity.md):
-//   tip   vesic        Vesić (1977), NCHRP Synthesis 42: cavity expansion, N*σ and N*c
+//   tip   vesic        Vesić (1977), NCHRP Synthesis 42: cavity expansion, N*σ and N*c;
+//                      sand limited by default to Meyerhof's (1976) 0.5·pa·N*q·tanφ
 //         meyerhof     Meyerhof (1976), JGED 102(GT3): q'·N*q ≤ 0.5·pa·N*q·tanφ; clay 9·cu
 //         meyerhof-spt Meyerhof (1976): 0.4·pa·N60·Db/D ≤ 4·pa·N60 (sand)
 //         fhwa         O'Neill & Reese (1999), FHWA-IF-99-025, drilled shafts
 //   shaft beta         f = K·σ'v·tanδ;  alpha-api  API RP 2GEO α(ψ);  lambda  Vijayvergiya
 //                      & Focht (1972);  alpha-fhwa / beta-fhwa  O'Neill & Reese (1999);
-//                      meyerhof-spt  f = pa·N60/50 (driven) or /100 (bored)
+//                      meyerhof-spt  f = pa·N60/50 (driven) or /100 (bored); beta in sand
+//                      and meyerhof-spt limited to 1 tsf (Meyerhof 1976; a default where
+//                      the method's source gives none)
 // Shaft friction is integrated along the shaft with Gauss–Legendre quadrature on short
 // sub-intervals (≤ 5 cm) split at the water table and at every kink the method introduces,
 // so a unit friction proportional to σ'v is integrated exactly.
@@ -141,7 +144,8 @@ struct DepthRow {
 // Problems that stop the computation for this profile, pile and design, in plain words
 // naming the layer and the property, e.g. "layer 'dense sand': method 'vesic' needs
 // soil_modulus". Shaft properties are checked in the layers the shaft crosses and tip
-// properties in the layer the tip ends in; with table_min_length (m), for every length of
+// properties in the layer the tip ends in and the layers within 10 D of the tip (Meyerhof's
+// transitions); with table_min_length (m), for every length of
 // capacity_with_depth from that length to the profile's base. Empty when the computation
 // can run.
 std::vector<std::string> validate_design(const SoilProfile& profile, const PileGeometry& pile,

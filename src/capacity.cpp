@@ -17,11 +17,18 @@ namespace {
 
 constexpr double kPi = std::numbers::pi;
 constexpr double kPa = kAtmosphericPressure;
-// Tolerance on depths, m: a tip within 1 µm of a boundary is on it.
-constexpr double kDepthTolerance = 1e-6;
+// Tolerance on depths, m: the soil column's (a tip within 1 µm of a boundary is on it).
+constexpr double kDepthTolerance = kBoundaryTolerance;
+// Meyerhof (1976): the unit tip develops over about 10 diameters of penetration into a
+// stronger layer, and a weaker layer less than about 10 diameters below the tip reduces it.
+constexpr double kTransitionDiameters = 10.0;
 // 1 short ton-force per square foot in kPa: 2000 lbf · 4.4482216152605 N / (0.3048 m)².
 // O'Neill & Reese (1999) state the drilled-shaft sand tip in tsf.
 constexpr double kTsf = 2000.0 * 4.4482216152605 / (0.3048 * 0.3048) / 1000.0;
+// Meyerhof's (1976) limiting unit shaft friction of driven displacement piles in sand,
+// 1 tsf (FHWA-HI-97-013 quotes it as 2 ksf), from memory. cairn applies it by default to
+// shaft methods whose source gives no limit in sand (beta; meyerhof-spt on bored piles).
+constexpr double kMeyerhofShaftLimit = 1.0 * kTsf;
 // Default factors of safety (common practice, check-values 9.20): compression, tension.
 constexpr double kDefaultSafetyCompression = 2.5;
 constexpr double kDefaultSafetyTension = 3.0;
@@ -49,6 +56,11 @@ std::string format(const char* pattern, double value) {
 
 std::string quoted(const SoilLayer& layer) { return "layer '" + layer.name + "'"; }
 
+// The words for the engineer's limit (max_unit_tip, max_unit_shaft), quoting the reason.
+std::string engineer_limit(const char* key, const std::optional<std::string>& reason) {
+  return std::string(key) + " given, " + (reason ? "reason: '" + *reason + "'" : "no reason stated");
+}
+
 // A depth or pressure quoted in a note, in the project's units ("12.50 m", "3.2 ksf").
 std::string length_text(double metres, UnitSystem units) {
   return format("%.2f", from_si(units, Quantity::length, metres)) + " " +
@@ -58,39 +70,6 @@ std::string pressure_text(double kilopascals, UnitSystem units) {
   return format(units == UnitSystem::SI ? "%.0f" : "%.2f",
                 from_si(units, Quantity::pressure, kilopascals)) +
          " " + unit_label(units, Quantity::pressure);
-}
-
-// Top depth of every layer and the base of the profile (size n + 1), m.
-std::vector<double> boundaries(const SoilProfile& profile) {
-  std::vector<double> z{0.0};
-  for (const SoilLayer& layer : profile.layers) z.push_back(z.back() + layer.thickness);
-  return z;
-}
-
-// Water table for the stress calculation: water above the ground adds equally to σv and u,
-// so it is left out of both.
-std::optional<double> water_level(const SoilProfile& profile) {
-  if (!profile.water_table) return std::nullopt;
-  return std::max(*profile.water_table, 0.0);
-}
-
-double dry_weight(const SoilLayer& layer) {
-  if (!layer.unit_weight)
-    throw std::invalid_argument(quoted(layer) +
-                                ": needs unit_weight (it lies above the water table)");
-  return *layer.unit_weight;
-}
-
-double wet_weight(const SoilLayer& layer) {
-  if (!layer.saturated_unit_weight)
-    throw std::invalid_argument(quoted(layer) +
-                                ": needs saturated_unit_weight (it lies below the water table)");
-  return *layer.saturated_unit_weight;
-}
-
-void check_depth(const SoilProfile& profile, double z) {
-  if (!(z >= -kDepthTolerance && z <= profile.depth() + kDepthTolerance))
-    throw std::invalid_argument("depth " + format("%.3f", z) + " m lies outside the soil profile");
 }
 
 // Three-point Gauss–Legendre rule on [a, b] split into pieces ≤ kQuadratureStep; exact for
@@ -171,11 +150,11 @@ void add_note(std::vector<std::string>& notes, std::string note) {
 
 // Effective vertical stress with the optional critical depth: constant below z_c.
 struct StressField {
-  const SoilProfile& profile;
+  const SoilColumn& column;
   std::optional<double> critical_depth;
   double operator()(double z) const {
     if (critical_depth && z > *critical_depth) z = *critical_depth;
-    return effective_stress(profile, z);
+    return column.effective_stress(z);
   }
 };
 
@@ -216,45 +195,6 @@ std::optional<ShaftMethod> parse_shaft_method(std::string_view name) {
                         ShaftMethod::lambda, ShaftMethod::beta_fhwa, ShaftMethod::meyerhof_spt})
     if (name == to_string(m)) return m;
   return std::nullopt;
-}
-
-// ---- Stresses ---------------------------------------------------------------------------
-
-std::size_t layer_index(const SoilProfile& profile, double z) {
-  check_depth(profile, z);
-  double bottom = 0.0;
-  for (std::size_t i = 0; i < profile.layers.size(); ++i) {
-    bottom += profile.layers[i].thickness;
-    if (z <= bottom + kDepthTolerance) return i;
-  }
-  return profile.layers.size() - 1;
-}
-
-// σv = Σ γ·Δz over the layers above z, with γ above the water table and γsat below it.
-double total_stress(const SoilProfile& profile, double z) {
-  check_depth(profile, z);
-  const std::optional<double> water = water_level(profile);
-  double sigma = 0.0, top = 0.0;
-  for (const SoilLayer& layer : profile.layers) {
-    const double bottom = std::min(top + layer.thickness, z);
-    if (bottom <= top) break;
-    const double dry_bottom = water ? std::clamp(*water, top, bottom) : bottom;
-    if (dry_bottom > top) sigma += dry_weight(layer) * (dry_bottom - top);
-    if (bottom > dry_bottom) sigma += wet_weight(layer) * (bottom - dry_bottom);
-    top += layer.thickness;
-  }
-  return sigma;
-}
-
-// Hydrostatic pore pressure below the water table.
-double pore_pressure(const SoilProfile& profile, double z) {
-  check_depth(profile, z);
-  const std::optional<double> water = water_level(profile);
-  return water ? kWaterUnitWeight * std::max(0.0, z - *water) : 0.0;
-}
-
-double effective_stress(const SoilProfile& profile, double z) {
-  return total_stress(profile, z) - pore_pressure(profile, z);
 }
 
 // ---- Vesić (1977), NCHRP Synthesis 42 ---------------------------------------------------
@@ -459,16 +399,12 @@ double default_uplift_factor(SoilKind kind) {
 
 namespace {
 
-void check_layer_basics(const SoilLayer& layer, double top, const SoilProfile& profile,
-                        std::vector<std::string>& problems) {
+// The weights rule is the soil column's (soil.hpp): one of the two unit weights suffices.
+void check_layer_basics(const SoilLayer& layer, std::vector<std::string>& problems) {
   const std::string who = quoted(layer);
   if (!(layer.thickness > 0.0)) problems.push_back(who + ": thickness must be positive");
-  const std::optional<double> water = water_level(profile);
-  const double bottom = top + layer.thickness;
-  if ((!water || *water > top) && !layer.unit_weight)
-    problems.push_back(who + ": needs unit_weight (it lies above the water table)");
-  if (water && *water < bottom && !layer.saturated_unit_weight)
-    problems.push_back(who + ": needs saturated_unit_weight (it lies below the water table)");
+  if (!layer.unit_weight && !layer.saturated_unit_weight)
+    problems.push_back(who + ": needs unit_weight or saturated_unit_weight");
   if (layer.kind == SoilKind::sand) {
     if (!layer.friction_angle)
       problems.push_back(who + ": a sand layer needs friction_angle");
@@ -579,18 +515,20 @@ std::vector<std::string> validate_design(const SoilProfile& profile, const PileG
       problems.push_back(std::string(key) + " must lie in (0, 1]");
 
   // Shaft properties are needed in every layer the shaft may cross (down to the base when a
-  // depth table is asked for); tip properties where the tip may end.
+  // depth table is asked for); tip properties where the tip may end and in the layers within
+  // the transition zone, 10 D above (on the shaft) and below the tip (tip_resistance).
   const double shallowest_tip = pile.head_depth + table_min_length.value_or(pile.length);
   const double deepest_tip = table_min_length ? profile.depth() : pile.tip_depth();
+  const double zone = kTransitionDiameters * std::max(pile.width, 0.0);
   double top = 0.0;
   for (const SoilLayer& layer : profile.layers) {
     const double bottom = top + layer.thickness;
-    check_layer_basics(layer, top, profile, problems);
+    check_layer_basics(layer, problems);
     const bool shaft_layer =
         bottom > pile.head_depth + kDepthTolerance && top < deepest_tip - kDepthTolerance;
-    // A tip on a boundary ends in the layer above it (layer_index).
-    const bool tip_layer =
-        bottom >= shallowest_tip - kDepthTolerance && top < deepest_tip - kDepthTolerance;
+    const bool tip_layer = bottom > pile.head_depth + kDepthTolerance &&
+                           bottom > shallowest_tip - zone + kDepthTolerance &&
+                           top < deepest_tip + zone - kDepthTolerance;
     check_layer_methods(layer, design, shaft_layer, tip_layer, problems);
     top = bottom;
   }
@@ -601,18 +539,21 @@ std::vector<std::string> validate_design(const SoilProfile& profile, const PileG
 
 namespace {
 
-// Tip resistance by the design's method for the bearing layer; fills details and notes.
-TipDetails tip_resistance(const SoilProfile& profile, const PileGeometry& pile,
-                          const PileDesign& design, std::vector<std::string>& notes) {
+// Unit tip resistance of layer `index` for a tip at depth z (m) in it, by the design's
+// method for the layer's kind, after the method's own limit, the default limit where the
+// method's source gives none, and the engineer's max_unit_tip; fills details and notes.
+// meyerhof-spt gives its full value 4·pa·N60 here: its development with penetration,
+// 0.4·pa·N60·Db/D, is Meyerhof's transition, applied in tip_resistance.
+TipDetails layer_tip(const SoilColumn& column, std::size_t index, double z,
+                     const PileGeometry& pile, const PileDesign& design,
+                     std::vector<std::string>& notes) {
   TipDetails d;
-  d.depth = pile.tip_depth();
+  d.depth = z;
   d.area = pile.area();
-  const std::size_t index = layer_index(profile, d.depth);
-  const SoilLayer& layer = profile.layers[index];
-  const double layer_top = boundaries(profile)[index];
+  const SoilLayer& layer = column.layer(index);
   d.layer = layer.name;
   d.kind = layer.kind;
-  d.q_prime = effective_stress(profile, d.depth);
+  d.q_prime = column.effective_stress(d.depth);
   const std::optional<TipMethod> method = tip_method_for(design, layer.kind);
   if (!method) {
     d.method = "none";
@@ -656,6 +597,14 @@ TipDetails tip_resistance(const SoilProfile& profile, const PileGeometry& pile,
             std::max(1.0, vesic_reduced_rigidity_index(*d.rigidity_index, *d.volumetric_strain));
         d.n_sigma = vesic_n_sigma(phi, *d.reduced_rigidity_index);
         q = *d.sigma_o * *d.n_sigma;
+        // Vesić (1977) gives no limiting value. Default: Meyerhof's (1976) limiting unit tip
+        // ql = 0.5·pa·N*q·tanφ, the limit FHWA's Nordlund method also applies to a static
+        // tip in sand (FHWA-HI-97-013, from memory); max_unit_tip replaces it.
+        if (!layer.max_unit_tip) {
+          d.limit = meyerhof_limit(layer.meyerhof_nq.value_or(meyerhof_nq(phi)), phi);
+          d.limit_source = "default: Meyerhof (1976) limit 0.5·pa·N*q·tanφ";
+          d.limit_default = true;
+        }
       } else {
         // Vesić (1977), φ = 0: qp = cu N*c, Irr = Ir = Es/(3 cu). The overburden term σo·1 is
         // left out (net resistance; balanced by the pile's weight, common practice).
@@ -687,6 +636,7 @@ TipDetails tip_resistance(const SoilProfile& profile, const PileGeometry& pile,
         if (phi > 45.0 && !layer.meyerhof_nq)
           add_note(notes, quoted(layer) + ": φ above 45°, N*q held at the chart's 45° value");
         d.limit = meyerhof_limit(*d.n_q, phi);
+        d.limit_source = "Meyerhof (1976) limit 0.5·pa·N*q·tanφ";
         q = d.q_prime * *d.n_q;
       } else {
         d.n_c = 9.0;  // Meyerhof (1976); also Skempton (1951) deep footing
@@ -695,10 +645,13 @@ TipDetails tip_resistance(const SoilProfile& profile, const PileGeometry& pile,
       break;
 
     case TipMethod::meyerhof_spt: {
-      // Meyerhof (1976): qp = 0.4 pa N60 Db/D ≤ 4 pa N60, Db the penetration into the layer.
-      d.penetration = d.depth - std::max(layer_top, pile.head_depth);
+      // Meyerhof (1976): qp = 0.4 pa N60 Db/D ≤ 4 pa N60, Db the penetration into the layer;
+      // the full value here, the development with Db in tip_resistance.
       d.limit = 4.0 * kPa * *layer.spt_n60;
-      q = 0.4 * kPa * *layer.spt_n60 * *d.penetration / pile.width;
+      d.limit_source = "Meyerhof (1976) limit 4·pa·N60";
+      q = *d.limit;
+      d.limited = true;  // reached at Db ≥ 10·D; tip_resistance clears it for a shorter Db
+      d.governed_by = d.limit_source;
       add_note(notes, "Meyerhof SPT tip: N60 of " + quoted(layer) +
                           " used as given (no averaging near the tip, no overburden correction)");
       break;
@@ -723,6 +676,7 @@ TipDetails tip_resistance(const SoilProfile& profile, const PileGeometry& pile,
           add_note(notes, "fhwa tip: base less than 3 diameters deep, reduced by 2/3·(1 + Z/6D)");
         }
         d.limit = kFhwaClayTipLimit;
+        d.limit_source = "AASHTO LRFD 10.8.3.5.1c limit 80 ksf for drilled shafts in clay";
       } else {
         // O'Neill & Reese (1999): qp = 0.6 N60 tsf ≤ 30 tsf; × 1.27/Bb for Bb > 1.27 m.
         const double n60 = *layer.spt_n60;
@@ -730,6 +684,7 @@ TipDetails tip_resistance(const SoilProfile& profile, const PileGeometry& pile,
           add_note(notes, quoted(layer) +
                               ": N60 above 50, outside O'Neill & Reese's sand tip (treat as IGM)");
         d.limit = 30.0 * kTsf;
+        d.limit_source = "O'Neill & Reese (1999) limit 30 tsf";
         q = 0.6 * n60 * kTsf;
         const double factor = oneill_reese_wide_base_factor(pile.width);
         if (factor < 1.0) {
@@ -743,27 +698,123 @@ TipDetails tip_resistance(const SoilProfile& profile, const PileGeometry& pile,
   if (d.limit && q > *d.limit) {
     q = *d.limit;
     d.limited = true;
+    d.governed_by = d.limit_source;
   }
   if (d.reduction && !(layer.kind == SoilKind::clay && *method == TipMethod::fhwa))
     q *= *d.reduction;  // the wide-base factor applies to the limited value
-  if (layer.max_unit_tip && q > *layer.max_unit_tip) {
-    q = *layer.max_unit_tip;
-    d.limited = true;
-    add_note(notes, quoted(layer) + ": unit tip limited to max_unit_tip = " +
-                        pressure_text(*layer.max_unit_tip, pile.units));
+  if (layer.max_unit_tip) {
+    const std::string engineer = engineer_limit("max_unit_tip", layer.max_unit_tip_reason);
+    if (!d.limit || *layer.max_unit_tip < *d.limit) {
+      d.limit = *layer.max_unit_tip;
+      d.limit_source = engineer;
+      d.limit_default = false;
+    }
+    if (q > *layer.max_unit_tip) {
+      q = *layer.max_unit_tip;
+      d.limited = true;
+      d.governed_by = engineer;
+    }
   }
   d.unit_tip = q;
   return d;
 }
 
-// Unit shaft friction f(z), kPa, for the methods that vary continuously with depth.
+// Meyerhof's (1976) transitions near layer boundaries, around the bearing layer's own value:
+//   into a stronger layer   qp = q0 + (q1 − q0)·Db/(10·D) ≤ q1   (Db < 10·D)
+//   above a weaker layer    qp = q2 + (q1 − q2)·H/(10·D)  ≤ q1   (H < 10·D)
+// q1 the bearing layer's unit tip at the tip, q0 the unit tip of the layer above at the
+// boundary (on the shaft only; 0 when it has no tip method), q2 the weaker layer's at its
+// top, Db the penetration into the bearing layer (from the pile head when that lies in
+// it), H the distance from the tip down to the weaker layer. meyerhof-spt always develops
+// from q0 (0 without a layer above on the shaft), which is its own 0.4·pa·N60·Db/D. Both are
+// continuous at the boundaries: a tip on a boundary (in the layer below, by the soil
+// column's rule) gets q0 or q2, the value just above it.
+TipDetails tip_resistance(const SoilColumn& column, const PileGeometry& pile,
+                          const PileDesign& design, std::vector<std::string>& notes) {
+  const double z = pile.tip_depth();
+  const std::size_t k = column.layer_at(z);
+  TipDetails d = layer_tip(column, k, z, pile, design, notes);
+  if (d.method == "none") return d;
+  const UnitSystem u = pile.units;
+  const double zone = kTransitionDiameters * pile.width;
+  const double start = std::max(column.top(k), pile.head_depth);
+  std::vector<std::string> scratch;  // the neighbours' notes are not the bearing layer's
+  double q = d.unit_tip;
+  d.penetration = z - start;
+
+  // A neighbour without a tip method (tip taken as 0 there) gives no transition: the note
+  // on the missing method stands for it.
+  auto has_tip_method = [&](std::size_t i) {
+    const bool has = tip_method_for(design, column.layer(i).kind).has_value();
+    if (!has)
+      add_note(notes, "no tip transition with " + quoted(column.layer(i)) + " (within 10·D of the "
+                      "tip): it has no tip method");
+    return has;
+  };
+  const bool layer_above = k > 0 && column.top(k) > pile.head_depth + kDepthTolerance &&
+                           *d.penetration < zone - kDepthTolerance && has_tip_method(k - 1);
+  const bool spt = d.method == to_string(TipMethod::meyerhof_spt);
+  if (*d.penetration < zone - kDepthTolerance && (layer_above || spt)) {
+    const double q0 =
+        layer_above ? layer_tip(column, k - 1, column.top(k), pile, design, scratch).unit_tip
+                    : 0.0;
+    if (q > q0) {
+      d.layer_unit_tip = q;
+      q = q0 + (q - q0) * *d.penetration / zone;
+      d.limited = false;  // the value lies below the layer's limited value
+      d.governed_by.clear();
+      const std::string from =
+          layer_above ? "the unit tip of " + quoted(column.layer(k - 1)) + " at the boundary"
+                      : "0 (no layer above on the shaft)";
+      d.transition = "tip " + length_text(*d.penetration, u) + " into " + quoted(column.layer(k)) +
+                     ", less than 10·D = " + length_text(zone, u) + ": q_p = q0 + (q1 − q0)·Db/(10·D) = " +
+                     pressure_text(q0, u) + " + (" + pressure_text(*d.layer_unit_tip, u) + " − " +
+                     pressure_text(q0, u) + ")·" + format("%.3f", *d.penetration / zone) + " = " +
+                     pressure_text(q, u) + ", q0 " + from + " (Meyerhof 1976, from memory)";
+      d.transition_short = "Db < 10·D in '" + column.layer(k).name + "'";
+    }
+  }
+
+  double reduced = q;
+  for (std::size_t j = k + 1; j < column.size() && column.top(j) < z + zone - kDepthTolerance;
+       ++j) {
+    const double h = column.top(j) - z;
+    if (!has_tip_method(j)) continue;
+    const double q2 = layer_tip(column, j, column.top(j), pile, design, scratch).unit_tip;
+    if (q2 >= q) continue;
+    const double candidate = q2 + (q - q2) * h / zone;
+    if (candidate >= reduced) continue;
+    reduced = candidate;
+    if (!d.layer_unit_tip) d.layer_unit_tip = q;
+    d.limited = false;
+    d.governed_by.clear();
+    const std::string text =
+        "weaker " + quoted(column.layer(j)) + " " + length_text(h, u) + " below the tip, less than 10·D = " +
+        length_text(zone, u) + ": q_p = q2 + (q1 − q2)·H/(10·D) = " + pressure_text(q2, u) + " + (" +
+        pressure_text(q, u) + " − " + pressure_text(q2, u) + ")·" + format("%.3f", h / zone) + " = " +
+        pressure_text(candidate, u) + " (Meyerhof 1976, from memory)";
+    d.transition = d.transition.empty() ? text : d.transition + "; then " + text;
+    d.transition_short += std::string(d.transition_short.empty() ? "" : "; ") + "weaker '" +
+                          column.layer(j).name + "' < 10·D below";
+  }
+  if (z + zone > column.depth() + kDepthTolerance)
+    add_note(notes, "the soil profile ends " + length_text(column.depth() - z, u) +
+                        " below the tip, less than 10·D: the last layer is taken to continue");
+  d.unit_tip = reduced;
+  if (!d.transition.empty()) add_note(notes, "tip transition: " + d.transition);
+  return d;
+}
+
+
+// Unit shaft friction f(z), kPa, for the methods that vary continuously with depth, before
+// the limit of shaft_limit.
 double unit_shaft(ShaftMethod method, const SoilLayer& layer, double z, const StressField& stress,
-                  const SoilProfile& profile, const PileGeometry& pile, Installation installation) {
+                  const SoilColumn& column, const PileGeometry& pile, Installation installation) {
   switch (method) {
     case ShaftMethod::beta:  // f = K σ'v tanδ
       return *layer.shaft_k * stress(z) * std::tan(radians(*layer.shaft_delta));
     case ShaftMethod::alpha_api: {  // f = α cu, α(ψ), ψ = cu/σ'v
-      const double sigma = effective_stress(profile, z);
+      const double sigma = column.effective_stress(z);
       const double cu = *layer.undrained_strength;
       return api_alpha(sigma > 0.0 ? cu / sigma : INFINITY) * cu;
     }
@@ -772,13 +823,41 @@ double unit_shaft(ShaftMethod method, const SoilLayer& layer, double z, const St
         return 0.0;
       return oneill_reese_alpha(*layer.undrained_strength) * *layer.undrained_strength;
     }
-    case ShaftMethod::beta_fhwa:  // f = β(z) σ'v ≤ 2 tsf
-      return std::min(oneill_reese_beta(z, *layer.spt_n60) * effective_stress(profile, z),
-                      kBetaFhwaLimit);
-    case ShaftMethod::meyerhof_spt: return meyerhof_spt_shaft(*layer.spt_n60, installation);
+    case ShaftMethod::beta_fhwa:  // f = β(z) σ'v
+      return oneill_reese_beta(z, *layer.spt_n60) * column.effective_stress(z);
+    case ShaftMethod::meyerhof_spt:  // f = pa N60/50 (driven), pa N60/100 (bored)
+      return kPa * *layer.spt_n60 / (installation == Installation::driven ? 50.0 : 100.0);
     case ShaftMethod::lambda: break;  // handled over the whole clay penetration
   }
   throw std::logic_error("unit_shaft: method without a depth-wise unit friction");
+}
+
+struct ShaftLimit {
+  std::optional<double> value;  // kPa
+  std::string source;
+  bool is_default = false;
+};
+
+// The limit on unit shaft friction for a method in a layer: the method's own (beta-fhwa
+// 2 tsf, O'Neill & Reese 1999; meyerhof-spt 1 tsf on driven piles, Meyerhof 1976); where
+// the source gives none in sand (beta; meyerhof-spt on bored piles) Meyerhof's 1 tsf by
+// default; max_unit_shaft replaces the default and lowers any other. Clay methods need
+// none: α·cu ≤ cu, and λ is a mean over the clay.
+ShaftLimit shaft_limit(ShaftMethod method, const SoilLayer& layer, Installation installation) {
+  ShaftLimit limit;
+  if (method == ShaftMethod::beta_fhwa) {
+    limit = {kBetaFhwaLimit, "O'Neill & Reese (1999) limit 2 tsf", false};
+  } else if (method == ShaftMethod::meyerhof_spt && installation == Installation::driven) {
+    limit = {kMeyerhofShaftLimit, "Meyerhof (1976) limit 1 tsf for driven piles", false};
+  } else if ((method == ShaftMethod::beta || method == ShaftMethod::meyerhof_spt) &&
+             layer.kind == SoilKind::sand && !layer.max_unit_shaft) {
+    limit = {kMeyerhofShaftLimit,
+             "default: Meyerhof (1976) limit 1 tsf for driven piles in sand, from memory", true};
+  }
+  if (layer.max_unit_shaft && (!limit.value || *layer.max_unit_shaft < *limit.value))
+    limit = {*layer.max_unit_shaft, engineer_limit("max_unit_shaft", layer.max_unit_shaft_reason),
+             false};
+  return limit;
 }
 
 }  // namespace
@@ -793,15 +872,22 @@ CapacityResult pile_capacity(const SoilProfile& profile, const PileGeometry& pil
   const Installation installation = design.installation;
   const double perimeter = pile.perimeter();
   const double head = pile.head_depth, tip = pile.tip_depth();
-  const std::vector<double> z = boundaries(profile);
-  const std::optional<double> water = water_level(profile);
+  const SoilColumn column(profile);
+  const std::vector<double>& z = column.boundaries();
+  const std::optional<double> water = column.water_level();
+  for (const std::string& note : column.weight_substitutions(tip)) add_note(notes, note);
 
   // ---- Tip
-  r.tip_details = tip_resistance(profile, pile, design, notes);
+  r.tip_details = tip_resistance(column, pile, design, notes);
   r.tip = r.tip_details.unit_tip * r.tip_details.area;
+  const UnitSystem u = pile.units;
+  if (r.tip_details.limited)
+    r.limits.push_back("unit tip in " + quoted(column.layer(column.layer_at(tip))) +
+                       " limited to " + pressure_text(*r.tip_details.limit, u) + " (" +
+                       r.tip_details.governed_by + ")");
 
   // ---- Shaft, layer by layer
-  StressField stress{profile, std::nullopt};
+  StressField stress{column, std::nullopt};
   if (design.critical_depth_diameters) {
     stress.critical_depth = *design.critical_depth_diameters * pile.width;
     add_note(notes, "beta shaft: σ'v held constant below the critical depth " +
@@ -819,7 +905,7 @@ CapacityResult pile_capacity(const SoilProfile& profile, const PileGeometry& pil
     if (water) splits.push_back(*water);
     lambda_length += b - a;
     lambda_stress +=
-        integrate_split([&](double x) { return effective_stress(profile, x); }, a, b, splits);
+        integrate_split([&](double x) { return column.effective_stress(x); }, a, b, splits);
     lambda_cu += *layer.undrained_strength * (b - a);
   }
 
@@ -844,7 +930,11 @@ CapacityResult pile_capacity(const SoilProfile& profile, const PileGeometry& pil
     if (is_bored_method(*method) && installation == Installation::driven)
       add_note(notes, std::string("shaft method '") + s.method +
                           "' was developed for drilled shafts; used here on a driven pile");
-    const double limit = layer.max_unit_shaft.value_or(INFINITY);
+    const ShaftLimit shaft_cap = shaft_limit(*method, layer, installation);
+    const double limit = shaft_cap.value.value_or(INFINITY);
+    s.limit = shaft_cap.value;
+    s.limit_source = shaft_cap.source;
+    s.limit_default = shaft_cap.is_default;
     if (*method == ShaftMethod::lambda) {
       const double penetration = pile.length;
       const double lambda = layer.lambda.value_or(vijayvergiya_focht_lambda(penetration));
@@ -878,7 +968,7 @@ CapacityResult pile_capacity(const SoilProfile& profile, const PileGeometry& pil
       bool limited = false;
       const double integral = integrate_split(
           [&](double x) {
-            const double f = unit_shaft(*method, layer, x, stress, profile, pile, installation);
+            const double f = unit_shaft(*method, layer, x, stress, column, pile, installation);
             if (f > limit) {
               limited = true;
               return limit;
@@ -889,9 +979,9 @@ CapacityResult pile_capacity(const SoilProfile& profile, const PileGeometry& pil
       s.shaft = integral * perimeter;
       s.limited = limited;
     }
-    if (s.limited && layer.max_unit_shaft)
-      add_note(notes, quoted(layer) + ": unit shaft friction limited to max_unit_shaft = " +
-                          pressure_text(*layer.max_unit_shaft, pile.units));
+    if (s.limited)
+      r.limits.push_back("unit shaft friction in " + quoted(layer) + " limited to " +
+                         pressure_text(limit, u) + " (" + s.limit_source + ")");
     s.unit_average = s.shaft / (perimeter * (b - a));
     s.uplift_factor = layer.uplift_factor.value_or(default_uplift_factor(layer.kind));
     if (!layer.uplift_factor && layer.kind == SoilKind::sand)
@@ -950,6 +1040,7 @@ CapacityResult pile_capacity(const SoilProfile& profile, const PileGeometry& pil
                         ", from memory; confirm against the edition in force");
   add_note(notes,
            "factored tension excludes the pile's weight, which LRFD counts as a permanent load");
+  for (const std::string& limit : r.limits) add_note(notes, "limit governed: " + limit);
   return r;
 }
 
@@ -967,8 +1058,16 @@ std::vector<DepthRow> capacity_with_depth(const SoilProfile& profile, PileGeomet
     pile.length = min_length + i * step;
     if (pile.length > longest + kDepthTolerance) break;
     const CapacityResult r = pile_capacity(profile, pile, design);
+    const TipDetails& t = r.tip_details;
+    std::string note = t.transition_short;
+    if (t.limited)
+      note += (note.empty() ? "" : "; ") + std::string("tip at its limit (") +
+              (t.limit_default ? "default" : t.governed_by.rfind("max_unit_tip", 0) == 0
+                                                 ? "max_unit_tip"
+                                                 : "method's") +
+              ")";
     rows.push_back({pile.length, pile.tip_depth(), r.tip, r.shaft, r.ultimate_compression,
-                    r.ultimate_tension});
+                    r.ultimate_tension, note});
   }
   return rows;
 }

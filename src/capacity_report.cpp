@@ -45,9 +45,13 @@ std::string tip_line(const TipDetails& t, const Fmt& f) {
   add("N*c", t.n_c, "{:.2f}");
   add("N*q", t.n_q, "{:.1f}");
   add("reduction", t.reduction, "{:.3f}");
-  if (t.limit) text += fmt::format(", limit = {} {}", f.pressure(*t.limit), f.p());
+  if (t.limit) text += fmt::format(", limit = {} {} ({})", f.pressure(*t.limit), f.p(), t.limit_source);
+  if (t.layer_unit_tip)
+    text += fmt::format(", the layer's own q_p = {} {} before the transition near a boundary",
+                        f.pressure(*t.layer_unit_tip), f.p());
   text += fmt::format("; unit tip q_p = {} {}{}", f.pressure(t.unit_tip), f.p(),
-                      t.limited ? " (limited)" : "");
+                      t.limited ? " (limited by " + t.governed_by + ")"
+                                : (t.limit ? " (limit not reached)" : " (no limit)"));
   return text;
 }
 
@@ -75,6 +79,9 @@ json capacities_json(const Project& project, const std::vector<PileTypeCapacity>
                         {"shaft", force(l.shaft)},
                         {"uplift", force(l.uplift)},
                         {"unit_average", pressure(l.unit_average)},
+                        {"limit", opt(l.limit, Quantity::pressure)},
+                        {"limit_source", l.limit_source},
+                        {"limit_default", l.limit_default},
                         {"limited", l.limited}});
     json table = json::array();
     for (const auto& row : c.depth_table)
@@ -82,7 +89,8 @@ json capacities_json(const Project& project, const std::vector<PileTypeCapacity>
                        {"tip", force(row.tip)},
                        {"shaft", force(row.shaft)},
                        {"ultimate", force(row.ultimate)},
-                       {"tension", force(row.tension)}});
+                       {"tension", force(row.tension)},
+                       {"note", row.note}});
     types.push_back(
         {{"id", project.pile_types[c.type].id},
          {"tip", force(r.tip)},
@@ -117,9 +125,15 @@ json capacities_json(const Project& project, const std::vector<PileTypeCapacity>
            {"N_c", t.n_c ? json(*t.n_c) : json(nullptr)},
            {"N_q", t.n_q ? json(*t.n_q) : json(nullptr)},
            {"limit", opt(t.limit, Quantity::pressure)},
+           {"limit_source", t.limit_source},
+           {"limit_default", t.limit_default},
+           {"layer_unit_tip", opt(t.layer_unit_tip, Quantity::pressure)},
+           {"transition", t.transition},
            {"unit_tip", pressure(t.unit_tip)},
-           {"limited", t.limited}}},
+           {"limited", t.limited},
+           {"governed_by", t.governed_by}}},
          {"layers", layers},
+         {"limits_governing", r.limits},
          {"depth_table", table},
          {"notes", r.notes}});
   }
@@ -171,6 +185,11 @@ std::string render_capacities(const Project& project,
     out += render_table(layers, format == Format::markdown ? Format::markdown : Format::text);
     const std::string in = md ? "- " : "  ";
     out += in + "Tip: " + tip_line(r.tip_details, f) + fmt::format("; Q_tip = {} {}\n", f.force(r.tip), f.f());
+    for (const auto& l : r.layers)
+      if (l.limit)
+        out += in + fmt::format("Shaft limit in '{}': unit friction ≤ {} {} ({}); {}\n", l.name,
+                                f.pressure(*l.limit), f.p(), l.limit_source,
+                                l.limited ? "governed" : "not reached");
     out += in + fmt::format("Ultimate compression = tip + shaft = {} + {} = {} {}\n", f.force(r.tip),
                             f.force(r.shaft), f.force(r.ultimate_compression), f.f());
     out += in + fmt::format("Ultimate tension = shaft in tension + effective pile weight = {} + {} = {} {}\n",
@@ -190,11 +209,11 @@ std::string render_capacities(const Project& project,
       t.title = md ? "" : "Capacity with depth (ultimate)";
       t.headers = {fmt::format("length ({})", f.l()), fmt::format("tip ({})", f.f()),
                    fmt::format("shaft ({})", f.f()), fmt::format("compression ({})", f.f()),
-                   fmt::format("tension ({})", f.f())};
-      t.numeric = {true, true, true, true, true};
+                   fmt::format("tension ({})", f.f()), "note"};
+      t.numeric = {true, true, true, true, true, false};
       for (const auto& row : c.depth_table)
         t.rows.push_back({f.length(row.length), f.force(row.tip), f.force(row.shaft),
-                          f.force(row.ultimate), f.force(row.tension)});
+                          f.force(row.ultimate), f.force(row.tension), row.note});
       out += render_table(t, format == Format::markdown ? Format::markdown : Format::text);
     }
   }

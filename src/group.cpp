@@ -161,64 +161,12 @@ std::optional<double> uniform_spacing(const std::vector<Cluster>& lines, double 
 
 // ---- soil column --------------------------------------------------------------------------
 
-// Layer boundaries computed here (SoilProfile::depth lives in another module).
-struct SoilColumn {
-  const SoilProfile& profile;
-  std::vector<double> tops;  // tops[i] of layer i; tops[n] = bottom of the profile
+// Layers, water and stresses come from the soil column (soil.hpp), with its rules for
+// boundaries and missing unit weights.
+using Segment = SoilColumn::Piece;
 
-  explicit SoilColumn(const SoilProfile& soil) : profile(soil) {
-    require(!soil.layers.empty(), "the soil profile has no layers");
-    double depth = 0.0;
-    tops.push_back(depth);
-    for (const SoilLayer& layer : soil.layers) {
-      require(layer.thickness > 0.0, "soil layer thickness must be positive");
-      depth += layer.thickness;
-      tops.push_back(depth);
-    }
-  }
-
-  double bottom() const { return tops.back(); }
-
-  // Layer holding depth z; at a boundary, the layer above (prefer_above) or below.
-  std::size_t layer_at(double z, bool prefer_above) const {
-    const std::size_t n = profile.layers.size();
-    for (std::size_t i = 0; i < n; ++i) {
-      const bool in = prefer_above ? (z > tops[i] + kDepthEpsilon || i == 0) &&
-                                         z <= tops[i + 1] + kDepthEpsilon
-                                   : z >= tops[i] - kDepthEpsilon && z < tops[i + 1] - kDepthEpsilon;
-      if (in) return i;
-    }
-    return z <= tops[0] ? 0 : n - 1;
-  }
-
-  bool below_water(double z) const {
-    return profile.water_table && z > *profile.water_table + kDepthEpsilon;
-  }
-};
-
-struct Segment {
-  std::size_t layer = 0;
-  double top = 0.0;
-  double bottom = 0.0;
-  bool below_water = false;
-};
-
-// [from, to] cut at layer boundaries and (optionally) the water table.
 std::vector<Segment> segments(const SoilColumn& column, double from, double to, bool at_water) {
-  std::vector<double> cuts{from, to};
-  for (double z : column.tops)
-    if (z > from + kDepthEpsilon && z < to - kDepthEpsilon) cuts.push_back(z);
-  if (at_water && column.profile.water_table) {
-    const double w = *column.profile.water_table;
-    if (w > from + kDepthEpsilon && w < to - kDepthEpsilon) cuts.push_back(w);
-  }
-  std::sort(cuts.begin(), cuts.end());
-  std::vector<Segment> result;
-  for (std::size_t i = 1; i < cuts.size(); ++i) {
-    const double mid = 0.5 * (cuts[i - 1] + cuts[i]);
-    result.push_back({column.layer_at(mid, true), cuts[i - 1], cuts[i], column.below_water(mid)});
-  }
-  return result;
+  return column.pieces(from, to, at_water);
 }
 
 std::string layer_label(const SoilLayer& layer) { return "layer '" + layer.name + "'"; }
@@ -231,26 +179,17 @@ void add_missing(std::vector<MissingField>& missing, const SoilLayer& layer, con
                      layer_label(layer) + ": " + field + " is missing; " + purpose});
 }
 
-// γ' of a layer: γ above the water table, γsat − γw below (hydrostatic pore pressure).
-double effective_unit_weight(const SoilLayer& layer, bool below_water,
+// γ' of layer i: γ above the water table, γsat − γw below (hydrostatic pore pressure), by
+// the soil column's weights rule.
+double effective_unit_weight(const SoilColumn& column, std::size_t i, bool below_water,
                              std::vector<MissingField>& missing, std::vector<std::string>& notes) {
-  if (!below_water) {
-    if (layer.unit_weight) return *layer.unit_weight;
-    if (layer.saturated_unit_weight) {
-      add_unique(notes, layer_label(layer) + ": no unit_weight, saturated_unit_weight used above "
-                                             "the water table");
-      return *layer.saturated_unit_weight;
-    }
-  } else {
-    if (layer.saturated_unit_weight) return *layer.saturated_unit_weight - kWaterUnitWeight;
-    if (layer.unit_weight) {
-      add_unique(notes, layer_label(layer) + ": no saturated_unit_weight, unit_weight used below "
-                                             "the water table");
-      return *layer.unit_weight - kWaterUnitWeight;
-    }
+  const std::optional<double> gamma = column.unit_weight(i, below_water);
+  if (!gamma) {
+    add_missing(missing, column.layer(i), "unit_weight", "effective stresses need it");
+    return 0.0;
   }
-  add_missing(missing, layer, "unit_weight", "effective stresses need it");
-  return 0.0;
+  if (auto note = column.weight_substitution(i, below_water)) add_unique(notes, *note);
+  return below_water ? *gamma - kWaterUnitWeight : *gamma;
 }
 
 // σ'v at depth z, kPa: Σ γ'·Δz from the ground surface.
@@ -260,7 +199,7 @@ double vertical_effective_stress(const SoilColumn& column, double z,
   double stress = 0.0;
   if (z <= 0.0) return stress;
   for (const Segment& s : segments(column, 0.0, z, true))
-    stress += effective_unit_weight(column.profile.layers[s.layer], s.below_water, missing, notes) *
+    stress += effective_unit_weight(column, s.layer, s.below_water, missing, notes) *
               (s.bottom - s.top);
   return stress;
 }
@@ -270,10 +209,10 @@ void check_depths(const SoilColumn& column, const BlockPlan& plan, double head_d
   require(plan.width > 0.0 && plan.length > 0.0, "block plan dimensions must be positive");
   require(head_depth >= 0.0, "pile head depth must not be negative");
   require(tip_depth > head_depth, "pile tips must lie below the pile heads");
-  if (tip_depth > column.bottom() + kDepthEpsilon)
+  if (tip_depth > column.depth() + kDepthEpsilon)
     throw std::invalid_argument("pile tips at " + metres(tip_depth) +
                                 " lie below the soil profile, which ends at " +
-                                metres(column.bottom()));
+                                metres(column.depth()));
 }
 
 std::string missing_text(const std::vector<MissingField>& missing) {
@@ -559,10 +498,10 @@ BlockCapacity block_capacity_clay(const SoilProfile& profile, const BlockPlan& p
                                   ": undrained_strength is missing; block failure needs it");
     sum_cu_dl += *layer.undrained_strength * (s.bottom - s.top);
   }
-  if (tip_depth >= column.bottom() - kDepthEpsilon)
+  if (tip_depth >= column.depth() - kDepthEpsilon)
     block.notes.push_back("the profile ends at the pile tips: the last layer is taken to "
                           "continue below them");
-  const SoilLayer& base = profile.layers[column.layer_at(tip_depth, false)];
+  const SoilLayer& base = profile.layers[column.layer_at(tip_depth)];
   if (base.kind != SoilKind::clay) {
     block.notes.push_back("block failure in clay does not apply: " + layer_label(base) +
                           " below the pile tips is sand");
@@ -610,7 +549,7 @@ GroupUplift group_uplift(const SoilProfile& profile, const BlockPlan& plan, doub
   for (const Segment& s : segments(column, head_depth, tip_depth, true)) {
     const SoilLayer& layer = profile.layers[s.layer];
     const double dz = s.bottom - s.top;
-    weight_per_area += effective_unit_weight(layer, s.below_water, missing, uplift.notes) * dz;
+    weight_per_area += effective_unit_weight(column, s.layer, s.below_water, missing, uplift.notes) * dz;
     if (layer.kind == SoilKind::clay) {
       if (layer.undrained_strength) shear_per_length += *layer.undrained_strength * dz;
       else add_missing(missing, layer, "undrained_strength", "group uplift needs it");
@@ -739,8 +678,10 @@ EquivalentFootingSettlement equivalent_footing_settlement(
   result.width = plan.width;
   result.length = plan.length;
   if (options.level == FootingLevel::bearing_stratum) {
-    const std::size_t i = column.layer_at(tip_depth, true);
-    const double top = std::max(column.tops[i], head_depth);
+    // The bearing stratum is the layer the tip ends in, by the soil column's rule (a tip on
+    // a boundary bears on the layer below, with no penetration into it).
+    const std::size_t i = column.layer_at(tip_depth);
+    const double top = std::max(column.top(i), head_depth);
     result.footing_depth = top + 2.0 / 3.0 * (tip_depth - top);
     result.notes.push_back("equivalent footing at 2/3 of the pile length in the bearing stratum " +
                            layer_label(profile.layers[i]) + " (" + metres(top) + " to " +
@@ -753,7 +694,7 @@ EquivalentFootingSettlement equivalent_footing_settlement(
   }
   result.notes.push_back("load spread 2V:1H below the footing: Δσ = Q/((Bg + z)(Lg + z))");
 
-  double end = column.bottom();
+  double end = column.depth();
   if (options.max_depth) end = std::min(end, result.footing_depth + *options.max_depth);
 
   // Sublayer boundaries: layer boundaries and water table, then equal parts ≤ the thickness.
@@ -772,7 +713,7 @@ EquivalentFootingSettlement equivalent_footing_settlement(
     const double top = bounds[k - 1], bottom = bounds[k];
     const double mid = 0.5 * (top + bottom);
     const double z = mid - result.footing_depth;
-    const SoilLayer& layer = profile.layers[column.layer_at(mid, true)];
+    const SoilLayer& layer = profile.layers[column.layer_at(mid)];
     Sublayer sub;
     sub.layer = layer.name;
     sub.kind = layer.kind;
@@ -820,7 +761,7 @@ EquivalentFootingSettlement equivalent_footing_settlement(
     result.sublayers.push_back(sub);
   }
   if (!cut_off) {
-    if (end < column.bottom() - kDepthEpsilon)
+    if (end < column.depth() - kDepthEpsilon)
       result.notes.push_back("summation stopped at the given depth, " + metres(end) + " below ground");
     else
       result.notes.push_back("the soil profile ends at " + metres(end) +

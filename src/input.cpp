@@ -1294,7 +1294,8 @@ class Reader {
       check_keys(l, {"name", "kind", "thickness", "unit_weight", "saturated_unit_weight",
                      "undrained_strength", "friction_angle", "soil_modulus", "poisson_ratio",
                      "volumetric_strain", "shaft_k", "shaft_delta", "spt_n60", "max_unit_shaft",
-                     "max_unit_tip", "meyerhof_nq", "lambda", "uplift_factor",
+                     "max_unit_tip", "max_unit_shaft_reason", "max_unit_tip_reason",
+                     "meyerhof_nq", "lambda", "uplift_factor",
                      "compression_index", "recompression_index", "void_ratio",
                      "preconsolidation", "subgrade_modulus"});
       SoilLayer layer;
@@ -1326,6 +1327,13 @@ class Reader {
       layer.spt_n60 = opt("spt_n60", Quantity::number, Sign::non_negative);
       layer.max_unit_shaft = opt("max_unit_shaft", Quantity::pressure);
       layer.max_unit_tip = opt("max_unit_tip", Quantity::pressure);
+      layer.max_unit_shaft_reason = text(l, "max_unit_shaft_reason", Need::optional);
+      layer.max_unit_tip_reason = text(l, "max_unit_tip_reason", Need::optional);
+      for (const char* key : {"max_unit_shaft", "max_unit_tip"})
+        if (l.child(std::string(key) + "_reason").present() && !l.child(key).present())
+          diag_.error(at(l.child(std::string(key) + "_reason")),
+                      fmt::format("{}.{}_reason: expected {} beside it, got a reason alone", l.path,
+                                  key, key));
       layer.meyerhof_nq = opt("meyerhof_nq", Quantity::number);
       layer.lambda = opt("lambda", Quantity::number);
       layer.uplift_factor = opt("uplift_factor", Quantity::number);

@@ -83,15 +83,9 @@ std::vector<std::optional<LateralCapacity>> lateral_capacities(
   if (!project.soil || project.soil->layers.empty()) return out;
   // The layer at the pile head governs the lateral mechanism near the top.
   const SoilProfile& soil = *project.soil;
-  const SoilLayer* layer = &soil.layers.back();
-  double top = 0.0;
-  for (const auto& l : soil.layers) {
-    if (project.cap.depth < top + l.thickness) {
-      layer = &l;
-      break;
-    }
-    top += l.thickness;
-  }
+  const SoilColumn column(soil);
+  const std::size_t at_head = column.layer_at(project.cap.depth);
+  const SoilLayer* layer = &column.layer(at_head);
   for (std::size_t t = 0; t < project.pile_types.size(); ++t) {
     const PileType& type = project.pile_types[t];
     BromsInput in;
@@ -104,7 +98,7 @@ std::vector<std::optional<LateralCapacity>> lateral_capacities(
       in.undrained_strength = *layer->undrained_strength;
     } else {
       const bool wet = soil.water_table && *soil.water_table <= project.cap.depth;
-      const auto gamma = wet ? layer->saturated_unit_weight : layer->unit_weight;
+      const auto gamma = column.unit_weight(at_head, wet);
       if (!gamma || !layer->friction_angle) continue;
       in.effective_unit_weight = wet ? *gamma - kWaterUnitWeight : *gamma;
       in.friction_angle = *layer->friction_angle;
@@ -192,6 +186,8 @@ std::vector<std::optional<ComputedResistance>> computed_resistances(
     r.factored_compression = c.result.factored_compression;
     r.factored_tension = c.result.factored_tension;
     r.method = method_summary(project.pile_types[c.type].design);
+    for (std::size_t i = 0; i < c.result.limits.size(); ++i)
+      r.method += (i == 0 ? "; limits that governed: " : ", ") + c.result.limits[i];
     out[c.type] = r;
   }
   return out;

@@ -1,5 +1,6 @@
 #include "cairn/stiffness.hpp"
 
+#include <algorithm>
 #include <cmath>
 #include <numbers>
 
@@ -17,15 +18,11 @@ constexpr double kDavissonFactor = 67.0;
 constexpr double kVesicSubgradeFactor = 0.65;
 constexpr double kDefaultPoisson = 0.3;  // common practice when a layer gives none
 
-const SoilLayer* layer_at(const SoilProfile& profile, double depth) {
-  double top = 0.0;
-  for (const auto& layer : profile.layers) {
-    if (depth < top + layer.thickness) return &layer;
-    top += layer.thickness;
-  }
-  return profile.layers.empty() ? nullptr : &profile.layers.back();
-}
-
+// Half-height of the tip's zone of influence, in pile widths: 1.5·D above and below the tip,
+// the zone over which the LCPC method averages the cone resistance for the tip
+// (Bustamante & Gianeselli 1982, from memory). Es and μs at the tip are averaged over it, so
+// the tip's spring and settlement change smoothly as the tip passes a layer boundary.
+constexpr double kTipZoneDiameters = 1.5;
 
 struct Subgrade {
   double kh = 0.0;  // kN/m³
@@ -64,44 +61,36 @@ std::optional<Subgrade> subgrade_modulus(const SoilLayer& layer, const PileType&
 
 std::optional<VesicPile> vesic_pile(const Project& project, std::size_t t,
                                     std::vector<std::string>* missing) {
-  // Es along the shaft is the thickness-weighted mean of the layers it crosses; Es and μs
-  // below the tip are the tip layer's.
+  // Es along the shaft is the thickness-weighted mean over the shaft; Es and μs at the tip
+  // the thickness-weighted means over the tip's zone of influence (below the profile's base
+  // the last layer continues).
   const PileType& type = project.pile_types[t];
-  const SoilProfile& soil = *project.soil;
+  const SoilColumn column(*project.soil);
   VesicPile pile;
   pile.width = type.section.width;
   pile.round = type.section.shape == SectionShape::round;
   pile.length = type.length;
   pile.pile_modulus = type.elastic_modulus;
   const double head = project.cap.depth, tip = head + type.length;
-  double z = 0.0, sum = 0.0;
-  bool ok = true;
-  const SoilLayer* at_tip = nullptr;
-  for (const auto& layer : soil.layers) {
-    const double a = std::max(z, head), b = std::min(z + layer.thickness, tip);
-    if (tip >= z && tip < z + layer.thickness) at_tip = &layer;
-    z += layer.thickness;
-    if (b <= a) continue;
-    if (!layer.soil_modulus) {
-      ok = false;
-      if (missing) missing->push_back(fmt::format("layer '{}' needs soil_modulus", layer.name));
-    } else {
-      sum += *layer.soil_modulus * (b - a);
-    }
-  }
-  if (!at_tip && !soil.layers.empty()) at_tip = &soil.layers.back();
-  if (at_tip && !at_tip->soil_modulus) {
-    ok = false;
-    if (missing) missing->push_back(fmt::format("layer '{}' needs soil_modulus", at_tip->name));
-  }
-  if (type.elastic_modulus <= 0) {
-    ok = false;
-    if (missing) missing->push_back(fmt::format("pile type '{}' needs elastic_modulus", type.id));
-  }
-  if (!ok) return std::nullopt;
-  pile.soil_modulus_shaft = sum / type.length;
-  pile.soil_modulus_tip = *at_tip->soil_modulus;
-  pile.poisson_ratio = at_tip->poisson_ratio.value_or(kDefaultPoisson);
+  const double zone = kTipZoneDiameters * pile.width;
+  std::vector<std::size_t> lacking;
+  auto modulus = [](const SoilLayer& l) { return l.soil_modulus; };
+  const auto shaft = type.length > 0 ? column.mean(head, tip, modulus, &lacking) : std::nullopt;
+  const auto at_tip = pile.width > 0 ? column.mean(tip - zone, tip + zone, modulus, &lacking)
+                                     : std::nullopt;
+  std::sort(lacking.begin(), lacking.end());
+  lacking.erase(std::unique(lacking.begin(), lacking.end()), lacking.end());
+  if (missing)
+    for (std::size_t i : lacking)
+      missing->push_back(fmt::format("layer '{}' needs soil_modulus", column.layer(i).name));
+  if (type.elastic_modulus <= 0 && missing)
+    missing->push_back(fmt::format("pile type '{}' needs elastic_modulus", type.id));
+  if (!shaft || !at_tip || type.elastic_modulus <= 0) return std::nullopt;
+  pile.soil_modulus_shaft = *shaft;
+  pile.soil_modulus_tip = *at_tip;
+  pile.poisson_ratio = *column.mean(tip - zone, tip + zone, [](const SoilLayer& l) {
+    return std::optional<double>(l.poisson_ratio.value_or(kDefaultPoisson));
+  });
   return pile;
 }
 
@@ -159,8 +148,8 @@ std::vector<PileTypeStiffness> pile_type_stiffness(const Project& project,
       s.lateral = 0.0;
       s.lateral_source = "0 (axial-only pile, the classical assumption)";
       if (project.soil && type.elastic_modulus > 0) {
-        const SoilLayer* top = layer_at(*project.soil, project.cap.depth + 1e-9);
-        if (top) {
+        const SoilColumn column(*project.soil);
+        if (const SoilLayer* top = &column.layer(column.layer_at(project.cap.depth))) {
           if (auto kh = subgrade_modulus(*top, type, u)) {
             ElasticPile pile;
             pile.bending_stiffness = type.elastic_modulus * section_inertia(type.section);

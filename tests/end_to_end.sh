@@ -426,6 +426,13 @@ PY
 then ok; else bad "far from the origin: pile forces"; fi
 expect_status "far from the origin, hand check" 0 check "$data/e2e/far_origin.yaml" --explain A
 expect_in "far from the origin, hand check agrees" "$work/out" "= 333.3 + 83.3 + 83.3 = 500.0 kN   (solver: 500.0 kN)"
+# Capacity limits (issue 10): the limit that governed is printed with its source, the
+# engineer's reason is quoted, and a reason without its limit is an input error.
+expect_status "capacity with the engineer's limits" 0 capacity "$data/e2e/soil.yaml"
+expect_in "engineer's reason quoted" "$work/out" "max_unit_tip given, reason: 'fixture: checks the run, not the limit'"
+expect_in "depth table notes the transition" "$work/out" "Db < 10·D in 'dense sand'"
+expect_status "limit reason alone" 2 check "$data/e2e/bad_limit_reason.yaml"
+expect_in "limit reason alone named" "$work/err" "bad_limit_reason.yaml:7:105: error: soil.layers[0].max_unit_tip_reason: expected max_unit_tip beside it, got a reason alone"
 
 echo "$passed passed, $failed failed"
 [ "$failed" -eq 0 ]

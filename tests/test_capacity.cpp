@@ -142,6 +142,9 @@ TEST_CASE("capacity: Vesic sand tip reproduces the worked example", "[capacity][
   SoilProfile profile;
   SoilLayer layer = sand("sand", 12.0, 15.0, 35.0);
   layer.soil_modulus = 60000.0;
+  // The default limit on Vesić's tip (Meyerhof 1976, 5.07 MPa here) would govern: this case
+  // checks Vesić's formula, so the limit is set explicitly above the published value.
+  layer.max_unit_tip = 10000.0;
   profile.layers = {layer};
   PileDesign design;
   design.tip_sand = TipMethod::vesic;
@@ -461,15 +464,19 @@ TEST_CASE("capacity: two sand layers with a water table, worked by hand", "[capa
   lower.soil_modulus = 60000.0;
   lower.poisson_ratio = 0.3;
   lower.volumetric_strain = 0.004;
+  // The default limit on Vesić's tip (Meyerhof 1976) would govern: set explicitly above the
+  // hand-calculated value, which this case checks.
+  lower.max_unit_tip = 10000.0;
   profile.layers = {upper, lower};
   PileDesign design;
   design.tip_sand = TipMethod::vesic;
   design.shaft_sand = ShaftMethod::beta;
 
-  CHECK(effective_stress(profile, 2.0) == rel(36.0));
-  CHECK(effective_stress(profile, 4.0) == rel(56.38));
-  CHECK(effective_stress(profile, 10.0) == rel(114.52));
-  CHECK(pore_pressure(profile, 10.0) == rel(78.48));
+  const SoilColumn column(profile);
+  CHECK(column.effective_stress(2.0) == rel(36.0));
+  CHECK(column.effective_stress(4.0) == rel(56.38));
+  CHECK(column.effective_stress(10.0) == rel(114.52));
+  CHECK(column.pore_pressure(10.0) == rel(78.48));
 
   const CapacityResult r = pile_capacity(profile, round_pile(0.5, 10.0), design);
   REQUIRE(r.layers.size() == 2);
@@ -652,12 +659,18 @@ TEST_CASE("capacity: stresses use the unit weight above and below the water tabl
   layer.saturated_unit_weight = 18.0;
   profile.layers = {layer};
   // σv(3) = 16·1 + 18·2 = 52; u = 9.81·2 = 19.62; σ'v = 32.38 kPa.
-  CHECK(total_stress(profile, 3.0) == Approx(52.0));
-  CHECK(effective_stress(profile, 3.0) == Approx(32.38));
-  CHECK(layer_index(profile, 5.0) == 0);
-  CHECK_THROWS_AS(effective_stress(profile, 6.0), std::invalid_argument);
+  const SoilColumn column(profile);
+  CHECK(column.total_stress(3.0) == Approx(52.0));
+  CHECK(column.effective_stress(3.0) == Approx(32.38));
+  CHECK(column.layer_at(5.0) == 0);
+  CHECK_THROWS_AS(column.effective_stress(6.0), std::invalid_argument);
+  // The soil column's weights rule: without saturated_unit_weight, unit_weight is used
+  // below the water table too (σv(3) = 16·3 = 48 kPa), and a note says so.
   profile.layers[0].saturated_unit_weight.reset();
-  CHECK_THROWS_AS(effective_stress(profile, 3.0), std::invalid_argument);
+  CHECK(column.total_stress(3.0) == Approx(48.0));
+  CHECK(column.weight_substitutions(3.0).size() == 1);
+  profile.layers[0].unit_weight.reset();
+  CHECK_THROWS_AS(column.effective_stress(3.0), std::invalid_argument);
 }
 
 TEST_CASE("capacity: the depth table checks tip properties wherever the tip may end",
@@ -675,7 +688,10 @@ TEST_CASE("capacity: the depth table checks tip properties wherever the tip may 
   REQUIRE(table.size() == 1);
   CHECK(table[0] == "layer 'loose sand': method 'vesic' needs soil_modulus");
   CHECK_THROWS_AS(capacity_with_depth(profile, pile, design, 0.5, 2.0), std::invalid_argument);
-  CHECK(capacity_with_depth(profile, pile, design, 0.5, 4.5).size() == 20);  // 4.5 … 14.0 m
+  // Tips less than 10·D = 5 m into 'dense sand' take Meyerhof's (1976) transition from
+  // 'loose sand', so they need its tip properties too.
+  CHECK_THROWS_AS(capacity_with_depth(profile, pile, design, 0.5, 4.5), std::invalid_argument);
+  CHECK(capacity_with_depth(profile, pile, design, 0.5, 9.0).size() == 11);  // 9.0 … 14.0 m
 }
 
 TEST_CASE("capacity: SPT tips through a profile", "[capacity][published]") {

@@ -6,18 +6,24 @@
 // Inputs: a SoilProfile (depths m from the ground surface, unit weights kN/m³, strengths
 // and moduli kPa, angles degrees), a PileGeometry (m, kN/m³) and a PileDesign (methods,
 // factors). Outputs in kN (forces) and kPa (unit resistances); depths m below the ground.
-// Stresses: σv from the unit weights (γ above the water table, γsat below), u = γw·(z − zw),
-// σ'v = σv − u, piecewise linear in depth.
+// Stresses, layers and boundaries come from the soil column (soil.hpp): a tip on a layer
+// boundary bears on the layer below; σv from the unit weights, u = γw·(z − zw), σ'v = σv − u.
+// Near a boundary the tip follows Meyerhof's (1976) transitions over 10 diameters. Unit tip
+// and shaft resistances are limited by the method's own limits, or by a stated default where
+// the method's source gives none; max_unit_tip / max_unit_shaft are the engineer's override.
 //
 // Methods (each formula is written beside its code in capacity.cpp and in
 // docs/methods-capacity.md):
-//   tip   vesic        Vesić (1977), NCHRP Synthesis 42: cavity expansion, N*σ and N*c
+//   tip   vesic        Vesić (1977), NCHRP Synthesis 42: cavity expansion, N*σ and N*c;
+//                      sand limited by default to Meyerhof's (1976) 0.5·pa·N*q·tanφ
 //         meyerhof     Meyerhof (1976), JGED 102(GT3): q'·N*q ≤ 0.5·pa·N*q·tanφ; clay 9·cu
 //         meyerhof-spt Meyerhof (1976): 0.4·pa·N60·Db/D ≤ 4·pa·N60 (sand)
 //         fhwa         O'Neill & Reese (1999), FHWA-IF-99-025, drilled shafts
 //   shaft beta         f = K·σ'v·tanδ;  alpha-api  API RP 2GEO α(ψ);  lambda  Vijayvergiya
 //                      & Focht (1972);  alpha-fhwa / beta-fhwa  O'Neill & Reese (1999);
-//                      meyerhof-spt  f = pa·N60/50 (driven) or /100 (bored)
+//                      meyerhof-spt  f = pa·N60/50 (driven) or /100 (bored); beta in sand
+//                      and meyerhof-spt limited to 1 tsf (Meyerhof 1976; a default where
+//                      the method's source gives none)
 // Shaft friction is integrated along the shaft with Gauss–Legendre quadrature on short
 // sub-intervals (≤ 5 cm) split at the water table and at every kink the method introduces,
 // so a unit friction proportional to σ'v is integrated exactly.
@@ -68,9 +74,16 @@ struct TipDetails {
   std::optional<double> n_q;                     // N*q (Meyerhof sand)
   std::optional<double> penetration;             // m, penetration into the bearing layer
   std::optional<double> reduction;               // factor applied (shallow base, wide base)
-  std::optional<double> limit;                   // kPa, the method's limiting unit tip
-  double unit_tip = 0.0;  // kPa, unit tip resistance used (after every limit)
-  bool limited = false;   // a limit (the method's or max_unit_tip) governed
+  std::optional<double> limit;                   // kPa, the limiting unit tip applied
+  std::string limit_source;  // where `limit` comes from, in plain words (method, default, engineer)
+  bool limit_default = false;  // `limit` is cairn's default (the method's source gives none)
+  std::string governed_by;     // the limit that governed the unit tip; empty when none did
+  std::optional<double> layer_unit_tip;  // kPa, the bearing layer's own value, when a
+                                         // transition near a boundary changed it
+  std::string transition;        // the transition applied, in plain words; empty when none
+  std::string transition_short;  // the same in a few words, for the capacity-with-depth table
+  double unit_tip = 0.0;  // kPa, unit tip resistance used (after every limit and transition)
+  bool limited = false;   // a limit governed (governed_by says which)
 };
 
 // Shaft resistance of the part of one layer crossed by the shaft.
@@ -86,7 +99,10 @@ struct LayerShaft {
   double unit_average = 0.0;  // kPa, shaft / (perimeter · (bottom − top))
   double phi_shaft = 0.0;     // resistance factor used on `shaft`
   double phi_uplift = 0.0;    // resistance factor used on `uplift`
-  bool limited = false;       // max_unit_shaft or the method's limit governed somewhere
+  std::optional<double> limit;  // kPa, limiting unit shaft friction applied; empty: none
+  std::string limit_source;     // where `limit` comes from, in plain words
+  bool limit_default = false;   // `limit` is cairn's default (the method's source gives none)
+  bool limited = false;         // the limit governed somewhere in the layer
 };
 
 struct CapacityResult {
@@ -108,7 +124,8 @@ struct CapacityResult {
   double phi_uplift = 0.0;  // factor is in `layers`)
   TipDetails tip_details;
   std::vector<LayerShaft> layers;  // from the pile head down
-  std::vector<std::string> notes;  // choices made for the user, in plain words
+  std::vector<std::string> limits;  // every limit that governed, in plain words
+  std::vector<std::string> notes;   // choices made for the user, in plain words
 };
 
 // One row of the capacity-with-depth table.
@@ -119,6 +136,7 @@ struct DepthRow {
   double shaft = 0.0;      // kN, ultimate
   double ultimate = 0.0;   // kN, tip + shaft
   double tension = 0.0;    // kN, ultimate tension (uplift shaft + effective weight)
+  std::string note;        // a transition or tip limit that shapes this row, in a few words
 };
 
 // ---- Profile and design --------------------------------------------------------------
@@ -126,7 +144,8 @@ struct DepthRow {
 // Problems that stop the computation for this profile, pile and design, in plain words
 // naming the layer and the property, e.g. "layer 'dense sand': method 'vesic' needs
 // soil_modulus". Shaft properties are checked in the layers the shaft crosses and tip
-// properties in the layer the tip ends in; with table_min_length (m), for every length of
+// properties in the layer the tip ends in and the layers within 10 D of the tip (Meyerhof's
+// transitions); with table_min_length (m), for every length of
 // capacity_with_depth from that length to the profile's base. Empty when the computation
 // can run.
 std::vector<std::string> validate_design(const SoilProfile& profile, const PileGeometry& pile,
@@ -144,17 +163,8 @@ std::vector<std::string> shaft_method_names();
 std::optional<TipMethod> parse_tip_method(std::string_view name);
 std::optional<ShaftMethod> parse_shaft_method(std::string_view name);
 
-// Index of the layer holding depth z (m); a depth on a boundary belongs to the layer above,
-// z = 0 to the first. Throws std::invalid_argument outside [0, profile depth].
-std::size_t layer_index(const SoilProfile& profile, double z);
-
-// Total vertical stress σv, pore pressure u = γw·max(0, z − zw) and effective stress
-// σ'v = σv − u at depth z, kPa. Uses unit_weight above the water table and
-// saturated_unit_weight below it. Throws std::invalid_argument if the one needed is missing
-// or z lies outside the profile.
-double total_stress(const SoilProfile& profile, double z);
-double pore_pressure(const SoilProfile& profile, double z);
-double effective_stress(const SoilProfile& profile, double z);
+// Layers, water and stresses with depth: SoilColumn (soil.hpp), with its rules for boundaries
+// and missing unit weights.
 
 // ---- Tip building blocks (unit resistances in kPa) ------------------------------------
 

@@ -43,8 +43,10 @@ std::vector<PileSpring> pile_springs(const Project& project,
                                      const std::vector<PileTypeStiffness>& stiffness);
 
 // The pile of type `t` as Vesić's (1977) settlement method sees it: Es along the shaft (the
-// thickness-weighted mean over the layers crossed), Es and μs below the tip (μs 0.3 when the
-// layer gives none, common practice). Absent when data is missing; each missing item is
+// thickness-weighted mean over the layers crossed), Es and μs at the tip as thickness-weighted
+// means over the tip's zone of influence, 1.5·D above and below the tip (the LCPC method's
+// zone, Bustamante & Gianeselli 1982, from memory; μs 0.3 where a layer gives none, common
+// practice), so the spring and settlement change smoothly as the tip passes a boundary. Absent when data is missing; each missing item is
 // then added to `missing` in plain words ("layer 'sand' needs soil_modulus").
 // Requires a soil profile.
 std::optional<VesicPile> vesic_pile(const Project& project, std::size_t t,

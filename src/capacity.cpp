@@ -969,6 +969,10 @@ std::vector<DepthRow> capacity_with_depth(const SoilProfile& profile, PileGeomet
     const CapacityResult r = pile_capacity(profile, pile, design);
     rows.push_back({pile.length, pile.tip_depth(), r.tip, r.shaft, r.ultimate_compression,
                     r.ultimate_tension});
+    rows.back().allowable_compression = r.allowable_compression;
+    rows.back().allowable_tension = r.allowable_tension;
+    rows.back().factored_compression = r.factored_compression;
+    rows.back().factored_tension = r.factored_tension;
   }
   return rows;
 }

@@ -1251,10 +1251,11 @@ class Reader {
 
   std::optional<SoilProfile> read_soil(const Located& n) {
     if (!expect_map(n)) return std::nullopt;
-    check_keys(n, {"water_table", "layers"});
+    check_keys(n, {"water_table", "layers", "ground_level"});
     SoilProfile profile;
     profile.water_table =
         number(n, "water_table", Quantity::length, Need::optional, Sign::non_negative);
+    profile.ground_level = number(n, "ground_level", Quantity::length, Need::optional, Sign::any);
     const Located layers = n.child("layers");
     if (!layers.present() || !layers.node.IsSequence() || layers.node.size() == 0) {
       diag_.error(at(layers.present() ? layers : n),

@@ -350,5 +350,22 @@ expect_status "warning: report" 0 report "$r/unused_case.yaml" --out "$work/warn
 expect_in "warning on stderr (report)" "$work/err" "warning: $unused"
 expect_in "warning in the HTML notes" "$work/warned-html/unused_case.html" "Warning: $unused"
 
+# ---- capacity: allowable and factored with depth, CSV, the length needed, --from -----------
+expect_status "capacity --format csv" 0 capacity "$data/e2e/soil.yaml" --format csv --step 5
+expect_in "capacity csv header" "$work/out" "pile type,length (m),tip depth (m),tip (kN),shaft (kN),ultimate compression (kN),ultimate tension (kN),allowable compression (kN),allowable tension (kN),factored compression (kN),factored tension (kN)"
+expect_in "capacity csv row" "$work/out" "PC45,3.00,4.50,"
+expect_in "capacity csv caution" "$work/out" "# Results are for checking by a qualified engineer"
+expect_status "capacity: length needed" 0 capacity "$data/e2e/soil_datum.yaml" --need-compression 1500 --need-tension 400
+expect_in "length needed answer" "$work/out" "Length needed for 1500.0 kN compression and 400.0 kN tension (allowable): length 16.02 m, tip 17.52 m below the ground (elevation 84.98 m) in 'dense sand'"
+expect_in "tip elevation column" "$work/out" "tip elevation (m)"
+expect_status "capacity: factored need in csv" 0 capacity "$data/e2e/soil.yaml" --format csv --need-compression 900 --need-basis factored
+expect_in "factored need answer" "$work/out" "# PC45: Length needed for 900.0 kN compression (factored): length 8.24 m"
+expect_status "capacity: need beyond the profile" 1 capacity "$data/e2e/soil.yaml" --need-compression 90000
+expect_in "need beyond the profile" "$work/out" "no length within the soil profile meets it"
+expect_status "capacity --from beyond the profile" 2 capacity "$data/e2e/soil.yaml" --from 27
+expect_in "--from beyond the profile message" "$work/err" "--from: expected a pile length whose tip lies within the soil profile (at most 26.5 m: profile 28 m deep, pile heads 1.5 m below the ground), got '27'"
+expect_status "capacity --need-tension negative" 2 capacity "$data/e2e/soil.yaml" --need-tension -5
+expect_in "negative need message" "$work/err" "--need-tension: expected a positive force in kN, got '-5'"
+
 echo "$passed passed, $failed failed"
 [ "$failed" -eq 0 ]

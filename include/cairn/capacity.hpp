@@ -119,6 +119,9 @@ struct DepthRow {
   double shaft = 0.0;      // kN, ultimate
   double ultimate = 0.0;   // kN, tip + shaft
   double tension = 0.0;    // kN, ultimate tension (uplift shaft + effective weight)
+  // The same length on the service and strength bases (CapacityResult's fields), kN.
+  double allowable_compression = 0.0, allowable_tension = 0.0;
+  double factored_compression = 0.0, factored_tension = 0.0;
 };
 
 // ---- Profile and design --------------------------------------------------------------

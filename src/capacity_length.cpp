@@ -1,0 +1,160 @@
+// capacity_length.cpp — the shortest pile length meeting a required capacity (see
+// capacity_length.hpp).
+#include "cairn/capacity_length.hpp"
+
+#include <cmath>
+#include <stdexcept>
+
+#include <fmt/format.h>
+
+#include "cairn/diagnostics.hpp"
+
+namespace cairn {
+namespace {
+
+// Tolerance on depths, m, as in capacity.cpp: a tip within 1 µm of a boundary is on it.
+constexpr double kDepthTolerance = 1e-6;
+
+DepthRow row_at(const SoilProfile& profile, PileGeometry pile, const PileDesign& design,
+                double length) {
+  pile.length = length;
+  const CapacityResult r = pile_capacity(profile, pile, design);
+  DepthRow row{pile.length, pile.tip_depth(), r.tip, r.shaft, r.ultimate_compression,
+               r.ultimate_tension};
+  row.allowable_compression = r.allowable_compression;
+  row.allowable_tension = r.allowable_tension;
+  row.factored_compression = r.factored_compression;
+  row.factored_tension = r.factored_tension;
+  return row;
+}
+
+}  // namespace
+
+double compression_on(const DepthRow& row, CapacityBasis basis) {
+  switch (basis) {
+    case CapacityBasis::allowable: return row.allowable_compression;
+    case CapacityBasis::factored: return row.factored_compression;
+    case CapacityBasis::ultimate: return row.ultimate;
+  }
+  return 0.0;
+}
+
+double tension_on(const DepthRow& row, CapacityBasis basis) {
+  switch (basis) {
+    case CapacityBasis::allowable: return row.allowable_tension;
+    case CapacityBasis::factored: return row.factored_tension;
+    case CapacityBasis::ultimate: return row.tension;
+  }
+  return 0.0;
+}
+
+bool meets(const DepthRow& row, const LengthNeed& need) {
+  if (need.compression && compression_on(row, need.basis) < *need.compression) return false;
+  if (need.tension && tension_on(row, need.basis) < *need.tension) return false;
+  return true;
+}
+
+LengthChoice shortest_length(const SoilProfile& profile, PileGeometry pile,
+                             const PileDesign& design, const LengthNeed& need, double step,
+                             double min_length, double resolution) {
+  if (!need.compression && !need.tension)
+    throw std::invalid_argument("required length: give a compression or a tension");
+  if (!(resolution > 0.0))
+    throw std::invalid_argument("required length: resolution must be positive");
+  pile.length = min_length;
+  const std::vector<DepthRow> rows = capacity_with_depth(profile, pile, design, step, min_length);
+  LengthChoice choice;
+  choice.need = need;
+  choice.resolution = resolution;
+  std::size_t first = 0;
+  while (first < rows.size() && !meets(rows[first], need)) ++first;
+  if (first == rows.size()) return choice;
+
+  DepthRow found = rows[first];
+  if (first == 0) {
+    choice.at_shortest = true;
+  } else {
+    // Bisection on the grid L_short + j·resolution between the row that falls short (j = 0)
+    // and the row that meets the need (j = n): the invariant is "lo falls short, hi meets".
+    const double short_length = rows[first - 1].length;
+    const int n = std::max(1, static_cast<int>(std::ceil((found.length - short_length) /
+                                                          resolution - 1e-9)));
+    auto length_of = [&](int j) {
+      return j >= n ? found.length : short_length + j * resolution;
+    };
+    int lo = 0, hi = n;
+    while (hi - lo > 1) {
+      const int mid = (lo + hi) / 2;
+      const DepthRow row = row_at(profile, pile, design, length_of(mid));
+      if (meets(row, need)) {
+        hi = mid;
+        found = row;
+      } else {
+        lo = mid;
+      }
+    }
+  }
+  choice.length = found.length;
+  choice.at = found;
+
+  // The tip's layer (a tip on a boundary ends in the layer above, as in layer_index) and the
+  // first boundary below it.
+  const std::size_t tip_index = layer_index(profile, found.tip_depth);
+  choice.tip_layer = profile.layers[tip_index].name;
+  double bottom = 0.0;
+  for (std::size_t i = 0; i < profile.layers.size(); ++i) {
+    if (i == tip_index && i > 0) choice.tip_layer_top = bottom;
+    bottom += profile.layers[i].thickness;
+    if (bottom > found.tip_depth + kDepthTolerance && i + 1 < profile.layers.size()) {
+      choice.next_boundary = bottom;
+      choice.next_layer = profile.layers[i + 1].name;
+      break;
+    }
+  }
+  for (std::size_t i = first + 1; i < rows.size(); ++i)
+    if (!meets(rows[i], need)) {
+      choice.falls_short_again = rows[i].length;
+      break;
+    }
+  return choice;
+}
+
+double length_resolution(UnitSystem units) {
+  return units == UnitSystem::SI ? 0.01 : 0.1 * to_si_factor(units, Quantity::length);
+}
+
+std::optional<double> tip_elevation(const SoilProfile& profile, double tip_depth) {
+  if (!profile.ground_level) return std::nullopt;
+  return *profile.ground_level - tip_depth;
+}
+
+std::vector<PileTypeLength> choose_lengths(const Project& project,
+                                           const std::vector<PileTypeCapacity>& capacities,
+                                           const LengthNeed& need, double step,
+                                           double min_length) {
+  std::vector<PileTypeLength> list;
+  if (!project.soil) return list;
+  for (const auto& c : capacities)
+    list.push_back({c.type, shortest_length(*project.soil, c.geometry,
+                                            project.pile_types[c.type].design, need, step,
+                                            min_length, length_resolution(project.units))});
+  return list;
+}
+
+void require_table_within_profile(const Project& project, double min_length,
+                                  const std::string& option) {
+  if (!project.soil || project.soil->layers.empty()) return;
+  const double longest = project.soil->depth() - project.cap.depth;
+  if (min_length <= longest + kDepthTolerance) return;
+  const UnitSystem u = project.units;
+  const char* unit = unit_label(u, Quantity::length);
+  auto length = [&](double v) { return fmt::format("{:g}", from_si(u, Quantity::length, v)); };
+  throw InputError(
+      {}, fmt::format("{}: expected a pile length whose tip lies within the soil profile (at "
+                      "most {} {}: profile {} {} deep, pile heads {} {} below the ground), got "
+                      "'{}'",
+                      option, length(longest), unit, length(project.soil->depth()), unit,
+                      length(project.cap.depth), unit, length(min_length)));
+}
+
+}  // namespace cairn

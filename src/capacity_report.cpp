@@ -45,6 +45,7 @@ std::string tip_line(const TipDetails& t, const Fmt& f) {
   add("N*c", t.n_c, "{:.2f}");
   add("N*q", t.n_q, "{:.1f}");
   add("reduction", t.reduction, "{:.3f}");
+  add("bored", t.bored_factor, "{:.3f}");
   if (t.limit) text += fmt::format(", limit = {} {}", f.pressure(*t.limit), f.p());
   text += fmt::format("; unit tip q_p = {} {}{}", f.pressure(t.unit_tip), f.p(),
                       t.limited ? " (limited)" : "");
@@ -269,6 +270,7 @@ json capacities_json(const Project& project, const std::vector<PileTypeCapacity>
            {"N_c", t.n_c ? json(*t.n_c) : json(nullptr)},
            {"N_q", t.n_q ? json(*t.n_q) : json(nullptr)},
            {"limit", opt(t.limit, Quantity::pressure)},
+           {"bored_factor", t.bored_factor ? json(*t.bored_factor) : json(nullptr)},
            {"unit_tip", pressure(t.unit_tip)},
            {"limited", t.limited}}},
          {"layers", layers},

@@ -708,6 +708,9 @@ class Reader {
                                        "tension: …, lateral: …}} or tip_method and shaft_method "
                                        "with a soil profile",
                                        n.path));
+      // Methods or default resistance factors that belong to the other installation.
+      for (const auto& caution : installation_cautions(design))
+        project.warnings.push_back({at(n), fmt::format("{}: {}", n.path, caution)});
       project.pile_types.push_back(type);
     }
   }

@@ -367,5 +367,11 @@ expect_in "--from beyond the profile message" "$work/err" "--from: expected a pi
 expect_status "capacity --need-tension negative" 2 capacity "$data/e2e/soil.yaml" --need-tension -5
 expect_in "negative need message" "$work/err" "--need-tension: expected a positive force in kN, got '-5'"
 
+# ---- bored piles computed by driven-pile methods: reduced sand tip, cautions -------------
+expect_status "bored pile with driven-pile methods" 0 capacity "$data/e2e/bored.yaml"
+expect_in "bored caution on stderr" "$work/err" "bored.yaml:12:5: warning: pile_types.PC45: tip method 'vesic' (sand) on a bored pile: the method was developed for driven piles; its unit tip is taken as 1/3 of the driven value (Meyerhof 1976)"
+expect_in "bored tip reduced" "$work/out" "bored = 0.333"
+expect_in "bored factors' table named" "$work/out" "10.5.5.2.3-1 (driven piles) or 10.5.5.2.4-1 (drilled shafts), the one that holds each method"
+
 echo "$passed passed, $failed failed"
 [ "$failed" -eq 0 ]

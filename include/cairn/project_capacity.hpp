@@ -34,6 +34,8 @@ std::vector<PileTypeCapacity> compute_capacities(const Project& project, double 
 // long piles, else the short-pile mechanism only), with FS 2.5 for service (common
 // practice) and φ = 1.0 for strength (AASHTO LRFD 10.5.5.2.3, horizontal geotechnical
 // resistance, from memory). Empty optional where there is no soil.
+// In sand γ' is averaged over the depth the mechanism mobilizes (the embedded length; the
+// depth of maximum moment for a long pile), from the profile's layers and water table.
 struct LateralCapacity {
   double ultimate = 0.0, allowable = 0.0, factored = 0.0;  // kN
   std::string method;  // plain words: mode, soil, notes

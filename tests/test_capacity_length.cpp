@@ -33,6 +33,9 @@ SoilLayer beta_sand(double thickness) {
   layer.shaft_k = 1.0;
   layer.shaft_delta = 30.0;
   layer.spt_n60 = 30.0;
+  // The engineer's limit, far above the 10–105 kPa of this sand, so that the hand calculation
+  // (no limit) holds whatever default limit the β method gets.
+  layer.max_unit_shaft = 500.0;
   return layer;
 }
 

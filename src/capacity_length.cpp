@@ -94,6 +94,14 @@ LengthChoice shortest_length(const SoilProfile& profile, PileGeometry pile,
       }
     }
   }
+  // With --from or --step off the resolution's grid, the length found is rounded up to it,
+  // so that the length printed (to the resolution) is never shorter than the one that works.
+  const double rounded = std::ceil(found.length / resolution - 1e-9) * resolution;
+  if (!choice.at_shortest && rounded > found.length + kDepthTolerance &&
+      rounded <= profile.depth() - pile.head_depth + kDepthTolerance) {
+    const DepthRow row = row_at(profile, pile, design, rounded);
+    if (meets(row, need)) found = row;
+  }
   choice.length = found.length;
   choice.at = found;
 

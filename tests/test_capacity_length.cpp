@@ -152,11 +152,19 @@ TEST_CASE("capacity_length: shortest length for a compression, a tension and bot
     CHECK_FALSE(c.length);
     CHECK_FALSE(c.at);
   }
-  SECTION("the resolution is the step when the step is finer") {
+  SECTION("a table off the resolution's grid: the answer is rounded up to it") {
+    // Rows 3.005, 3.505, …: 5.505 m falls short, 6.005 m meets; bisection between them on
+    // 5.505 + j·0.01 finds 5.535 m, rounded up to 5.54 m (as from the grid).
+    need.compression = 100.0;
+    const LengthChoice c = shortest_length(profile, pile(), beta_shaft(), need, 0.5, 3.005, 0.01);
+    REQUIRE(c.length);
+    CHECK(*c.length == Approx(5.54).margin(1e-9));
+  }
+  SECTION("a step finer than the resolution: the row found, rounded up to the resolution") {
     need.compression = 100.0;
     const LengthChoice c = shortest_length(profile, pile(), beta_shaft(), need, 0.25, 3.0, 0.5);
     REQUIRE(c.length);
-    CHECK(*c.length == Approx(5.75));  // the first row of the 0.25 m table with ≥ 100 kN
+    CHECK(*c.length == Approx(6.0));  // 5.75 m, the first 0.25 m row with ≥ 100 kN, → 6.0 m
   }
 }
 

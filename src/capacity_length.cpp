@@ -68,7 +68,10 @@ LengthChoice shortest_length(const SoilProfile& profile, PileGeometry pile,
   choice.resolution = resolution;
   std::size_t first = 0;
   while (first < rows.size() && !meets(rows[first], need)) ++first;
-  if (first == rows.size()) return choice;
+  if (first == rows.size()) {
+    if (!rows.empty()) choice.longest = rows.back();
+    return choice;
+  }
 
   DepthRow found = rows[first];
   if (first == 0) {

@@ -83,7 +83,13 @@ std::vector<std::string> length_lines(const Project& project, const PileType& ty
   const LengthNeed& need = c.need;
   const std::string asked = "Length needed for " + need_text(need, f) + ": ";
   if (!c.length || !c.at) {
-    lines.push_back(asked + "no length within the soil profile meets it");
+    std::string longest;
+    if (c.longest)
+      longest = fmt::format(" (the longest, {} {}, gives {} compression {} {}, tension {} {})",
+                            f.length(c.longest->length), f.l(), to_string(need.basis),
+                            f.force(compression_on(*c.longest, need.basis)), f.f(),
+                            f.force(tension_on(*c.longest, need.basis)), f.f());
+    lines.push_back(asked + "no length within the soil profile meets it" + longest);
     return lines;
   }
   const DepthRow& row = *c.at;

@@ -151,6 +151,8 @@ TEST_CASE("capacity_length: shortest length for a compression, a tension and bot
     const LengthChoice c = shortest_length(profile, pile(), beta_shaft(), need, 0.5, 3.0, 0.01);
     CHECK_FALSE(c.length);
     CHECK_FALSE(c.at);
+    REQUIRE(c.longest);
+    CHECK(c.longest->length == Approx(20.0));
   }
   SECTION("a table off the resolution's grid: the answer is rounded up to it") {
     // Rows 3.005, 3.505, …: 5.505 m falls short, 6.005 m meets; bisection between them on

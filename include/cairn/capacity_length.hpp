@@ -32,6 +32,7 @@ struct LengthChoice {
   std::optional<double> length;  // m, shortest length that meets the need; none: no length
                                  // within the profile does
   std::optional<DepthRow> at;    // the capacities at that length
+  std::optional<DepthRow> longest;  // when no length meets the need: the longest tabulated
   bool at_shortest = false;      // the shortest length searched already meets the need
   double resolution = 0.0;       // m, the bisection's resolution
   std::string tip_layer;         // layer the tip ends in at that length

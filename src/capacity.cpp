@@ -120,6 +120,11 @@ bool is_bored_method(ShaftMethod method) {
   return method == ShaftMethod::alpha_fhwa || method == ShaftMethod::beta_fhwa;
 }
 
+// "tip method 'vesic' (sand)"
+std::string fmt_method(const char* part, const char* method, const char* kind) {
+  return std::string(part) + " method '" + method + "' (" + kind + ")";
+}
+
 bool applies(TipMethod method, SoilKind kind) {
   return !(method == TipMethod::meyerhof_spt && kind == SoilKind::clay);
 }
@@ -357,7 +362,8 @@ double lambda_unit_shaft(double lambda, double mean_effective_stress, double mea
 // (Nordlund/Thurman) 0.45, since the table has no Vesić row. Drilled: clay tip 0.40, sand
 // tip 0.50.
 double aashto_phi_tip(TipMethod method, SoilKind kind, Installation installation) {
-  if (installation == Installation::bored) return kind == SoilKind::clay ? 0.40 : 0.50;
+  if (installation == Installation::bored && aashto_calibrated(method, installation))
+    return kind == SoilKind::clay ? 0.40 : 0.50;
   if (kind == SoilKind::clay) return 0.40;
   if (method == TipMethod::meyerhof_spt || method == TipMethod::fhwa) return 0.30;
   return 0.45;
@@ -365,7 +371,8 @@ double aashto_phi_tip(TipMethod method, SoilKind kind, Installation installation
 
 // Driven: α 0.35, β 0.25, λ 0.40, SPT 0.30. Drilled: side in clay 0.45, side in sand 0.55.
 double aashto_phi_shaft(ShaftMethod method, SoilKind kind, Installation installation) {
-  if (installation == Installation::bored) return kind == SoilKind::clay ? 0.45 : 0.55;
+  if (installation == Installation::bored && aashto_calibrated(method, installation))
+    return kind == SoilKind::clay ? 0.45 : 0.55;
   switch (method) {
     case ShaftMethod::alpha_api:
     case ShaftMethod::alpha_fhwa: return 0.35;
@@ -379,7 +386,8 @@ double aashto_phi_shaft(ShaftMethod method, SoilKind kind, Installation installa
 
 // Uplift. Driven: α 0.25, β 0.20, λ 0.30, SPT 0.25. Drilled: clay 0.35, sand 0.45.
 double aashto_phi_uplift(ShaftMethod method, SoilKind kind, Installation installation) {
-  if (installation == Installation::bored) return kind == SoilKind::clay ? 0.35 : 0.45;
+  if (installation == Installation::bored && aashto_calibrated(method, installation))
+    return kind == SoilKind::clay ? 0.35 : 0.45;
   switch (method) {
     case ShaftMethod::alpha_api:
     case ShaftMethod::alpha_fhwa: return 0.25;
@@ -389,6 +397,40 @@ double aashto_phi_uplift(ShaftMethod method, SoilKind kind, Installation install
     case ShaftMethod::meyerhof_spt: return 0.25;
   }
   return 0.0;
+}
+
+bool aashto_calibrated(TipMethod method, Installation installation) {
+  return is_bored_method(method) == (installation == Installation::bored);
+}
+bool aashto_calibrated(ShaftMethod method, Installation installation) {
+  return is_bored_method(method) == (installation == Installation::bored);
+}
+
+std::vector<std::string> installation_cautions(const PileDesign& design) {
+  std::vector<std::string> cautions;
+  const Installation installation = design.installation;
+  const bool bored = installation == Installation::bored;
+  const char* other = bored ? "driven" : "bored (drilled-shaft)";
+  const char* here = bored ? "a bored" : "a driven";
+  const char* table = bored ? "10.5.5.2.3-1 (driven piles)" : "10.5.5.2.4-1 (drilled shafts)";
+  auto check = [&](const auto& method, const char* part, const char* kind, bool phi_given) {
+    if (!method || aashto_calibrated(*method, installation)) return;
+    std::string text = fmt_method(part, to_string(*method), kind) + " on " + here +
+                       " pile: the method was developed for " + other + " piles";
+    if (bored && std::string(part) == "tip" && std::string(kind) == "sand")
+      text += "; its unit tip is taken as 1/3 of the driven value (Meyerhof 1976)";
+    if (!phi_given)
+      text += std::string("; its default resistance factor comes from AASHTO LRFD Table ") +
+              table + ", calibrated on " + other +
+              " piles, not for this installation; give the resistance factor from a load test "
+              "or local calibration";
+    cautions.push_back(text);
+  };
+  check(design.tip_clay, "tip", "clay", design.phi_tip.has_value());
+  check(design.tip_sand, "tip", "sand", design.phi_tip.has_value());
+  check(design.shaft_clay, "shaft", "clay", design.phi_shaft && design.phi_uplift);
+  check(design.shaft_sand, "shaft", "sand", design.phi_shaft && design.phi_uplift);
+  return cautions;
 }
 
 double default_uplift_factor(SoilKind kind) {
@@ -538,6 +580,33 @@ std::vector<std::string> validate_design(const SoilProfile& profile, const PileG
 // ---- The computation --------------------------------------------------------------------
 
 namespace {
+
+// A bored pile's sand tip by a method derived for driven (displacement) piles: Meyerhof
+// (1976) puts a bored pile's unit tip in sand at about 1/3 of a driven pile's (from memory),
+// applied after the method's own limit. Its base is then held to what it mobilizes at a
+// settlement of about 5 % of the base width, as O'Neill & Reese (1999) do for drilled shafts:
+// for a base wider than 1.27 m (50 in), q × 1.27/Bb (from memory). Clay tips (9cu, Vesić's
+// N*c) are undrained bearing values that hold for bored piles too (Skempton 1959).
+void bored_pile_tip(const PileDesign& design, const SoilLayer& layer, TipMethod method,
+                    const PileGeometry& pile, TipDetails& d, double& q,
+                    std::vector<std::string>& notes) {
+  if (design.installation != Installation::bored || layer.kind != SoilKind::sand ||
+      is_bored_method(method))
+    return;
+  d.bored_factor = kMeyerhofBoredTipFactor;
+  q *= kMeyerhofBoredTipFactor;
+  add_note(notes, std::string("bored pile: the ") + to_string(method) +
+                      " tip in sand (a driven-pile method) is taken as 1/3 of the driven value "
+                      "(Meyerhof 1976, from memory)");
+  const double wide = oneill_reese_wide_base_factor(pile.width);
+  if (wide < 1.0) {
+    d.reduction = wide;
+    q *= wide;
+    add_note(notes, "bored pile: base wider than 1.27 m, tip reduced by 1.27/Bb to what it "
+                    "mobilizes at a settlement of about 5 % of a 1.27 m base (O'Neill & Reese "
+                    "1999, from memory)");
+  }
+}
 
 // Unit tip resistance of layer `index` for a tip at depth z (m) in it, by the design's
 // method for the layer's kind, after the method's own limit, the default limit where the
@@ -702,6 +771,7 @@ TipDetails layer_tip(const SoilColumn& column, std::size_t index, double z,
   }
   if (d.reduction && !(layer.kind == SoilKind::clay && *method == TipMethod::fhwa))
     q *= *d.reduction;  // the wide-base factor applies to the limited value
+  bored_pile_tip(design, layer, *method, pile, d, q, notes);
   if (layer.max_unit_tip) {
     const std::string engineer = engineer_limit("max_unit_tip", layer.max_unit_tip_reason);
     if (!d.limit || *layer.max_unit_tip < *d.limit) {
@@ -1035,12 +1105,16 @@ CapacityResult pile_capacity(const SoilProfile& profile, const PileGeometry& pil
       r.uplift_shaft > 0.0 ? factored_uplift / r.uplift_shaft : design.phi_uplift.value_or(0.0);
   if (!design.phi_tip || !design.phi_shaft || !design.phi_uplift)
     add_note(notes, std::string("resistance factors from AASHTO LRFD Table ") +
-                        (installation == Installation::driven ? "10.5.5.2.3-1 (driven piles)"
-                                                              : "10.5.5.2.4-1 (drilled shafts)") +
+                        (!installation_cautions(design).empty()
+                             ? "10.5.5.2.3-1 (driven piles) or 10.5.5.2.4-1 (drilled shafts), "
+                               "the one that holds each method"
+                         : installation == Installation::driven ? "10.5.5.2.3-1 (driven piles)"
+                                                                : "10.5.5.2.4-1 (drilled shafts)") +
                         ", from memory; confirm against the edition in force");
   add_note(notes,
            "factored tension excludes the pile's weight, which LRFD counts as a permanent load");
   for (const std::string& limit : r.limits) add_note(notes, "limit governed: " + limit);
+  for (auto& caution : installation_cautions(design)) add_note(notes, std::move(caution));
   return r;
 }
 
@@ -1068,6 +1142,10 @@ std::vector<DepthRow> capacity_with_depth(const SoilProfile& profile, PileGeomet
               ")";
     rows.push_back({pile.length, pile.tip_depth(), r.tip, r.shaft, r.ultimate_compression,
                     r.ultimate_tension, note});
+    rows.back().allowable_compression = r.allowable_compression;
+    rows.back().allowable_tension = r.allowable_tension;
+    rows.back().factored_compression = r.factored_compression;
+    rows.back().factored_tension = r.factored_tension;
   }
   return rows;
 }

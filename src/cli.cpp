@@ -14,6 +14,7 @@
 
 #include "cairn/analysis.hpp"
 #include "cairn/cap_solver.hpp"
+#include "cairn/capacity_length.hpp"
 #include "cairn/capacity_report.hpp"
 #include "cairn/checks.hpp"
 #include "cairn/explain.hpp"
@@ -46,6 +47,10 @@ std::string describe_options(const Options& o) {
   std::string text = fmt::format("cairn {} --format {}", name, format_name(o.format));
   if (o.depth_step) text += fmt::format(" --step {:g}", *o.depth_step);
   if (o.min_length) text += fmt::format(" --from {:g}", *o.min_length);
+  if (o.need_compression) text += fmt::format(" --need-compression {:g}", *o.need_compression);
+  if (o.need_tension) text += fmt::format(" --need-tension {:g}", *o.need_tension);
+  if (o.need_compression || o.need_tension)
+    text += fmt::format(" --need-basis {}", to_string(o.need_basis));
   if (o.out_dir) text += " --out " + *o.out_dir;
   if (o.explain_pile) text += " --explain " + *o.explain_pile;
   return text;
@@ -187,8 +192,27 @@ int run_capacity(const Options& options, std::ostream& out, std::ostream& err) {
   const double from = options.min_length ? *options.min_length * to_si_factor(u, Quantity::length)
                                          : table.from;
   if (!(step > 0)) throw InputError({}, "--step: expected a positive length");
+  require_table_within_profile(project, from, "--from");
   const auto capacities = compute_capacities(project, step, from);
-  out << render_capacities(project, capacities, options.format, describe_options(options));
+  std::vector<PileTypeLength> lengths;
+  if (options.need_compression || options.need_tension) {
+    const double force = to_si_factor(u, Quantity::force);
+    for (const auto& [value, name] : {std::pair{options.need_compression, "--need-compression"},
+                                      std::pair{options.need_tension, "--need-tension"}})
+      if (value && !(*value > 0))
+        throw InputError({}, fmt::format("{}: expected a positive force in {}, got '{:g}'", name,
+                                         unit_label(u, Quantity::force), *value));
+    LengthNeed need;
+    if (options.need_compression) need.compression = *options.need_compression * force;
+    if (options.need_tension) need.tension = *options.need_tension * force;
+    need.basis = options.need_basis;
+    lengths = choose_lengths(project, capacities, need, step, from);
+  }
+  out << render_capacities(project, capacities, options.format, describe_options(options),
+                           lengths);
+  // A required capacity that no length within the profile gives is a failed check.
+  for (const auto& l : lengths)
+    if (!l.choice.length) return kExitFail;
   return kExitPass;
 }
 
@@ -318,12 +342,23 @@ int run_command_line(int argc, const char* const* argv, std::ostream& out, std::
   CLI::App* capacity = app.add_subcommand(
       "capacity", "Compute each pile type's capacity from the soil profile, layer by layer and "
                   "with depth");
-  add_files_and_format(capacity, "file", "Project file (YAML)", {"text", "markdown", "json"});
+  add_files_and_format(capacity, "file", "Project file (YAML)", {"text", "csv", "markdown", "json"});
   capacity->add_option("--step", options.depth_step,
                        "Length step of the capacity-with-depth table, in the project's length "
                        "unit (default 0.5 m or 1 ft)");
   capacity->add_option("--from", options.min_length,
                        "Shortest pile length in the table (default 3 m or 10 ft)");
+  capacity->add_option("--need-compression", options.need_compression,
+                       "Find the shortest length carrying this compression, in the project's "
+                       "force unit");
+  capacity->add_option("--need-tension", options.need_tension,
+                       "Find the shortest length carrying this tension, in the project's force "
+                       "unit");
+  std::string need_basis = "allowable";
+  capacity->add_option("--need-basis", need_basis,
+                       "Basis of --need-compression/--need-tension: allowable (service loads, "
+                       "default) or factored (strength loads)")
+      ->check(CLI::IsMember({"allowable", "factored"}));
   CLI::App* springs = app.add_subcommand(
       "springs", "Write each pile's head springs (axial and lateral stiffness) for the global "
                  "structural model");
@@ -357,6 +392,7 @@ int run_command_line(int argc, const char* const* argv, std::ostream& out, std::
   else if (format == "json") options.format = Format::json;
   if (check->parsed()) options.command = Command::check;
   if (capacity->parsed()) options.command = Command::capacity;
+  if (need_basis == "factored") options.need_basis = CapacityBasis::factored;
   if (springs->parsed()) options.command = Command::springs;
   if (report->parsed()) options.command = Command::report;
   return run(options, out, err);

@@ -380,6 +380,11 @@ std::vector<std::string> tip_lines(const Project& p, const TipDetails& d, double
   } else if (d.method == "none") {
     lines.push_back("No tip method for this soil: the tip resistance is taken as 0.");
   }
+  if (d.bored_factor) {
+    lines.push_back(fmt::format("bored pile, driven-pile method in sand: × {:.3f}   (Meyerhof 1976)",
+                                *d.bored_factor));
+    if (d.reduction) lines.push_back(fmt::format("wide base: × 1.27/Bb = × {:.3f}", *d.reduction));
+  }
   if (d.method != "none") {
     if (std::isnan(expression) || std::abs(expression - d.unit_tip) > 1e-6 * std::max(1.0, d.unit_tip))
       lines.push_back(fmt::format("q_p used = {} {}{}", u.pressure(d.unit_tip), kpa,

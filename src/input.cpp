@@ -735,6 +735,9 @@ class Reader {
                                        "tension: …, lateral: …}} or tip_method and shaft_method "
                                        "with a soil profile",
                                        n.path));
+      // Methods or default resistance factors that belong to the other installation.
+      for (const auto& caution : installation_cautions(design))
+        project.warnings.push_back({at(n), fmt::format("{}: {}", n.path, caution)});
       project.pile_types.push_back(type);
     }
   }
@@ -1278,10 +1281,11 @@ class Reader {
 
   std::optional<SoilProfile> read_soil(const Located& n) {
     if (!expect_map(n)) return std::nullopt;
-    check_keys(n, {"water_table", "layers"});
+    check_keys(n, {"water_table", "layers", "ground_level"});
     SoilProfile profile;
     profile.water_table =
         number(n, "water_table", Quantity::length, Need::optional, Sign::non_negative);
+    profile.ground_level = number(n, "ground_level", Quantity::length, Need::optional, Sign::any);
     const Located layers = n.child("layers");
     if (!layers.present() || !layers.node.IsSequence() || layers.node.size() == 0) {
       diag_.error(at(layers.present() ? layers : n),

@@ -2,6 +2,7 @@
 
 #include <algorithm>
 #include <set>
+#include <cmath>
 
 #include <fmt/format.h>
 
@@ -32,6 +33,42 @@ std::string method_summary(const PileDesign& d) {
   auto shaft = [](std::optional<ShaftMethod> m) { return m ? to_string(*m) : "none"; };
   return fmt::format("tip {} (clay) / {} (sand), shaft {} (clay) / {} (sand)", tip(d.tip_clay),
                      tip(d.tip_sand), shaft(d.shaft_clay), shaft(d.shaft_sand));
+}
+
+// Broms in sand with the effective unit weight averaged over the depth the mechanism
+// mobilizes (Broms 1964b: the soil reaction 3·Kp·γ'·z·D acts down to that depth): the whole
+// embedded length for the short and intermediate mechanisms, the depth f of zero shear (the
+// maximum moment, where the hinge forms) for the long one. From the profile's layers and water
+// table, γ'avg = [σ'v(h + d) − σ'v(h)]/d, h the head's depth, d the mobilized depth (cut at the
+// profile's base); iterated from the head layer's value until it changes by less than 1e-6
+// kN/m³ (f depends on γ'). Throws std::invalid_argument when Broms or the stresses do.
+struct SandBroms {
+  BromsResult result;
+  double unit_weight = 0.0;  // kN/m³, γ' used
+  double depth = 0.0;        // m below the head, the mobilized depth it is averaged over
+};
+SandBroms broms_sand_averaged(const SoilColumn& soil, double head, BromsInput in) {
+  SandBroms out;
+  for (int i = 0; i < 50; ++i) {
+    out.result = broms_ultimate_lateral(in);
+    const double mobilized = out.result.mode == BromsMode::long_pile
+                                 ? out.result.reaction_length
+                                 : in.embedded_length;
+    out.depth = std::min(mobilized, soil.depth() - head);
+    out.unit_weight = in.effective_unit_weight;
+    if (!(out.depth > 0.0)) break;
+    double averaged = in.effective_unit_weight;
+    try {
+      averaged =
+          (soil.effective_stress(head + out.depth) - soil.effective_stress(head)) / out.depth;
+    } catch (const std::invalid_argument&) {
+      out.depth = 0.0;  // a layer below lacks its unit weight: the head layer's γ' stays
+      break;
+    }
+    if (std::abs(averaged - in.effective_unit_weight) < 1e-6) break;
+    in.effective_unit_weight = averaged;
+  }
+  return out;
 }
 
 }  // namespace
@@ -115,7 +152,9 @@ std::vector<std::optional<LateralCapacity>> lateral_capacities(
     }
     in.yield_moment = my.value;
     try {
-      const BromsResult b = broms_ultimate_lateral(in);
+      std::optional<SandBroms> sand;  // γ' averaged with the water table
+      if (layer->kind == SoilKind::sand) sand = broms_sand_averaged(column, project.cap.depth, in);
+      const BromsResult b = sand ? sand->result : broms_ultimate_lateral(in);
       LateralCapacity c;
       c.ultimate = b.ultimate_load;
       c.allowable = allowable_lateral_load(b.ultimate_load);
@@ -127,6 +166,15 @@ std::vector<std::optional<LateralCapacity>> lateral_capacities(
                              unit_label(project.units, Quantity::force), kLateralFactorOfSafety,
                              kBromsResistanceFactor);
       c.method += "; " + my.basis;
+      if (sand && sand->depth > 0.0)
+        c.method += fmt::format(
+            "; γ' = {:.2f} {} averaged over the top {:.2f} {} ({}), with the water table",
+            from_si(project.units, Quantity::unit_weight, sand->unit_weight),
+            unit_label(project.units, Quantity::unit_weight),
+            from_si(project.units, Quantity::length, sand->depth),
+            unit_label(project.units, Quantity::length),
+            sand->result.mode == BromsMode::long_pile ? "to the maximum moment"
+                                                      : "the embedded length");
       out[t] = c;
     } catch (const std::invalid_argument&) {
       // Not enough data for Broms: the lateral check then needs a typed-in capacity.

@@ -434,5 +434,30 @@ expect_in "depth table notes the transition" "$work/out" "Db < 10·D in 'dense s
 expect_status "limit reason alone" 2 check "$data/e2e/bad_limit_reason.yaml"
 expect_in "limit reason alone named" "$work/err" "bad_limit_reason.yaml:7:105: error: soil.layers[0].max_unit_tip_reason: expected max_unit_tip beside it, got a reason alone"
 
+# ---- capacity: allowable and factored with depth, CSV, the length needed, --from -----------
+expect_status "capacity --format csv" 0 capacity "$data/e2e/soil.yaml" --format csv --step 5
+expect_in "capacity csv header" "$work/out" "pile type,length (m),tip depth (m),tip (kN),shaft (kN),ultimate compression (kN),ultimate tension (kN),allowable compression (kN),allowable tension (kN),factored compression (kN),factored tension (kN)"
+expect_in "capacity csv row" "$work/out" "PC45,3.00,4.50,"
+expect_in "capacity csv caution" "$work/out" "# Results are for checking by a qualified engineer"
+expect_status "capacity: length needed" 0 capacity "$data/e2e/soil_datum.yaml" --need-compression 1500 --need-tension 400
+expect_in "length needed answer" "$work/out" "Length needed for 1500.0 kN compression and 400.0 kN tension (allowable): length "
+expect_in "length needed: tip elevation" "$work/out" "m below the ground (elevation "
+expect_in "length needed: bisection" "$work/out" "found in the table, then refined by bisection to 0.01 m"
+expect_in "tip elevation column" "$work/out" "tip elevation (m)"
+expect_status "capacity: factored need in csv" 0 capacity "$data/e2e/soil.yaml" --format csv --need-compression 900 --need-basis factored
+expect_in "factored need answer" "$work/out" "# PC45: Length needed for 900.0 kN compression (factored): length "
+expect_status "capacity: need beyond the profile" 1 capacity "$data/e2e/soil.yaml" --need-compression 90000
+expect_in "need beyond the profile" "$work/out" "no length within the soil profile meets it"
+expect_status "capacity --from beyond the profile" 2 capacity "$data/e2e/soil.yaml" --from 27
+expect_in "--from beyond the profile message" "$work/err" "--from: expected a pile length whose tip lies within the soil profile (at most 26.5 m: profile 28 m deep, pile heads 1.5 m below the ground), got '27'"
+expect_status "capacity --need-tension negative" 2 capacity "$data/e2e/soil.yaml" --need-tension -5
+expect_in "negative need message" "$work/err" "--need-tension: expected a positive force in kN, got '-5'"
+
+# ---- bored piles computed by driven-pile methods: reduced sand tip, cautions -------------
+expect_status "bored pile with driven-pile methods" 0 capacity "$data/e2e/bored.yaml"
+expect_in "bored caution on stderr" "$work/err" "bored.yaml:12:5: warning: pile_types.PC45: tip method 'vesic' (sand) on a bored pile: the method was developed for driven piles; its unit tip is taken as 1/3 of the driven value (Meyerhof 1976)"
+expect_in "bored tip reduced" "$work/out" "bored = 0.333"
+expect_in "bored factors' table named" "$work/out" "10.5.5.2.3-1 (driven piles) or 10.5.5.2.4-1 (drilled shafts), the one that holds each method"
+
 echo "$passed passed, $failed failed"
 [ "$failed" -eq 0 ]

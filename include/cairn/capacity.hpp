@@ -84,6 +84,8 @@ struct TipDetails {
   std::string transition_short;  // the same in a few words, for the capacity-with-depth table
   double unit_tip = 0.0;  // kPa, unit tip resistance used (after every limit and transition)
   bool limited = false;   // a limit governed (governed_by says which)
+  std::optional<double> bored_factor;            // bored pile, sand tip by a driven-pile
+                                                 // method: Meyerhof's (1976) 1/3
 };
 
 // Shaft resistance of the part of one layer crossed by the shaft.
@@ -137,6 +139,9 @@ struct DepthRow {
   double ultimate = 0.0;   // kN, tip + shaft
   double tension = 0.0;    // kN, ultimate tension (uplift shaft + effective weight)
   std::string note;        // a transition or tip limit that shapes this row, in a few words
+  // The same length on the service and strength bases (CapacityResult's fields), kN.
+  double allowable_compression = 0.0, allowable_tension = 0.0;
+  double factored_compression = 0.0, factored_tension = 0.0;
 };
 
 // ---- Profile and design --------------------------------------------------------------
@@ -230,6 +235,23 @@ double lambda_unit_shaft(double lambda, double mean_effective_stress, double mea
 double aashto_phi_tip(TipMethod method, SoilKind kind, Installation installation);
 double aashto_phi_shaft(ShaftMethod method, SoilKind kind, Installation installation);
 double aashto_phi_uplift(ShaftMethod method, SoilKind kind, Installation installation);
+
+// Whether AASHTO LRFD calibrated a resistance factor for this method on this installation:
+// the drilled-shaft table (10.5.5.2.4-1) holds O'Neill & Reese's (1999) methods (fhwa,
+// alpha-fhwa, beta-fhwa) only, the driven-pile table (10.5.5.2.3-1) the others. Where it did
+// not, aashto_phi_* return the factor of the table that holds the method (from memory).
+bool aashto_calibrated(TipMethod method, Installation installation);
+bool aashto_calibrated(ShaftMethod method, Installation installation);
+
+// Cautions on a pile type whose methods were developed for the other installation, or whose
+// default resistance factors were calibrated for another method or installation, in plain
+// words ("tip method 'vesic' (sand) on a bored pile: …"). Empty when there is nothing to say.
+std::vector<std::string> installation_cautions(const PileDesign& design);
+
+// Meyerhof (1976): a bored pile's unit tip in sand is about 1/3 of a driven pile's, its unit
+// shaft friction about 1/2 (from memory). The 1/3 is applied to sand tips computed on a
+// bored pile by vesic, meyerhof or meyerhof-spt; the 1/2 is in meyerhof_spt_shaft.
+inline constexpr double kMeyerhofBoredTipFactor = 1.0 / 3.0;
 
 // Shaft resistance in tension / in compression when the layer gives none: 1.0 for clay,
 // 2/3 for sand (common practice, from memory).

@@ -26,6 +26,11 @@ struct Options {
   // 0.5 m or 1 ft for the step, 3 m or 10 ft for the shortest length.
   std::optional<double> depth_step;
   std::optional<double> min_length;
+  // capacity: the shortest length carrying these forces (project's force unit) on the
+  // allowable or factored basis (capacity_length.hpp).
+  std::optional<double> need_compression;
+  std::optional<double> need_tension;
+  CapacityBasis need_basis = CapacityBasis::allowable;
   // report: also the plan alone as SVG, and the tables as CSV and Markdown.
   bool plan_svg = false;
   bool tables = false;

@@ -38,6 +38,8 @@ std::vector<PileTypeCapacity> compute_capacities(const Project& project, double 
 // `axial` range (indexed like Project::pile_types; empty = P = 0); without one there is no
 // Broms value at all (`missing` says why) — never the short-pile mechanism alone, which can
 // overstate the capacity of a long pile several times.
+// In sand γ' is averaged over the depth the mechanism mobilizes (the embedded length; the
+// depth of maximum moment for a long pile), from the profile's layers and water table.
 struct LateralCapacity {
   double ultimate = 0.0, allowable = 0.0, factored = 0.0;  // kN (0 when `missing`)
   std::string method;   // plain words: mode, soil, yield moment and where it came from

@@ -64,6 +64,9 @@ struct SoilLayer {
 struct SoilProfile {
   std::optional<double> water_table;  // depth below the ground surface, m; none = no water
   std::vector<SoilLayer> layers;      // from the ground surface down
+  // Elevation of the ground surface on the project's datum, m (positive up); none = tip
+  // elevations are not shown. Depths stay measured from the ground surface.
+  std::optional<double> ground_level;
   double depth() const;               // m, total thickness
 };
 

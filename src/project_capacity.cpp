@@ -118,6 +118,7 @@ std::vector<std::optional<ComputedResistance>> computed_resistances(
     ComputedResistance r;
     r.allowable_lateral = lateral[t]->allowable;
     r.factored_lateral = lateral[t]->factored;
+    r.ultimate_lateral = lateral[t]->ultimate;
     r.lateral_method = lateral[t]->method;
     out[t] = r;
   }
@@ -128,6 +129,11 @@ std::vector<std::optional<ComputedResistance>> computed_resistances(
     r.factored_compression = c.result.factored_compression;
     r.factored_tension = c.result.factored_tension;
     r.method = method_summary(project.pile_types[c.type].design);
+    r.ultimate_tip = c.result.tip;
+    r.ultimate_shaft = c.result.shaft;
+    r.ultimate_uplift = c.result.uplift_shaft;
+    const PileDesign& d = project.pile_types[c.type].design;
+    r.aashto_phi = !d.phi_tip || !d.phi_shaft || !d.phi_uplift;
     out[c.type] = r;
   }
   return out;

@@ -178,6 +178,15 @@ Resistance code_set_resistance(const Project& project, std::size_t type, Resista
   return r;
 }
 
+double code_set_soil_divisor(const Project& project, const PileType& type, ResistanceSet set,
+                             bool tension) {
+  if (set == ResistanceSet::aashto_extreme)
+    return 1.0 / (tension ? kAashtoExtremePhiUplift : kAashtoExtremePhi);
+  const En1997PileFactors f = en1997_pile_factors(en1997_pile_kind(project, type), set);
+  return (tension ? f.shaft_tension : f.total) * en1997_correlation_factor(project.en1997) *
+         en1997_model_factor(project.en1997);
+}
+
 std::vector<std::string> code_resistance_assumptions(
     const Project& project, const std::vector<PileTypeResistance>& resistances) {
   std::vector<std::string> list;

@@ -287,5 +287,26 @@ expect_in "generated combinations listed" "$work/out" "generated: asce7-lrfd"
 expect_status "unknown generator" 2 check "$data/e2e/bad_generator.yaml"
 expect_in "valid generators listed" "$work/err" "asce7-asd"
 
+
+# ---- Code combinations that can govern piles: EN 1997 design approach 1 with its
+# resistance sets, AASHTO LRFD with extreme-event resistance factors, ASCE 7 without SDS.
+expect_status "EN 1997 DA1" 0 check "$data/e2e/en1997.yaml"
+expect_in "DA1 combination 2 generated" "$work/out" "DA1-C2-L+W(Wx)   strength    1.0·G + 1.3·Q + 0.78·Wx"
+expect_in "R4 factors of CFA piles stated" "$work/out" "EN 1997 R4 resistances: cfa pile factors (EN 1997-1 Table A.8); computed from the soil: base ÷ γb 1.45, shaft ÷ γs 1.3, tension shaft ÷ γs;t 1.6"
+expect_in "ξ3 with the rigid cap stated" "$work/out" "ξ = max(ξ3 1.33, ξ4 1.23) ÷ 1.1 for the rigid cap"
+expect_status "EN 1997 DA1 --format json" 0 check "$data/e2e/en1997.yaml" --format json
+if python3 - "$work/out" <<'PY'
+import json, sys
+doc = json.load(open(sys.argv[1]))
+ids = [c["id"] for c in doc["combinations"]]
+assert "DA1-C1-G" in ids and "DA1-C2-W(Wx)-inf" in ids, ids
+PY
+then ok; else bad "EN 1997 combinations missing from the json"; fi
+expect_status "AASHTO LRFD" 0 check "$data/e2e/aashto.yaml"
+expect_in "Extreme Event I with minimum γp" "$work/out" "EXT-I-min(EQ)   strength    0.9·DC + 0.65·DW + 0.5·LL + 1.0·EQ"
+expect_in "extreme-event φ stated" "$work/out" "Pile type HP: AASHTO extreme event resistances: ultimate given × φ 1 (compression, lateral), 0.8 (uplift)"
+expect_status "ASCE 7 seismic without SDS" 2 check "$data/e2e/bad_sds.yaml"
+expect_in "SDS asked for, located" "$work/err" "bad_sds.yaml:14:13: error: combinations.generate.sds: missing; expected SDS (in g) for the vertical seismic effect Ev = 0.2·SDS·D of ASCE/SEI 7-16 §12.4.2.2, because load case 'E' is seismic"
+
 echo "$passed passed, $failed failed"
 [ "$failed" -eq 0 ]

@@ -70,6 +70,12 @@ Resistance code_set_resistance(const Project& project, std::size_t type, Resista
                                const std::optional<ComputedResistance>& computed,
                                const Resistance& factored);
 
+// What a resistance of the whole group computed from the soil (block failure, block uplift)
+// is divided by in set `set`: EN 1997 γt·ξ·γRd in compression, γs;t·ξ·γRd in tension (the
+// block taken like one pile of `type`'s kind); AASHTO extreme event 1/φ.
+double code_set_soil_divisor(const Project& project, const PileType& type, ResistanceSet set,
+                             bool tension);
+
 // Plain-words assumptions for the resistance sets in use, and where load factors of one code
 // meet resistance factors of another (e.g. ASCE 7 loads with AASHTO φ).
 std::vector<std::string> code_resistance_assumptions(

@@ -1091,6 +1091,24 @@ class Reader {
       for (std::size_t i = 0; i < codes.node.size(); ++i) names.push_back(codes.item(i));
     else
       names.push_back(codes);
+    if (n.node.IsMap()) {
+      // A key that no listed generator reads is a mistake (a misplaced code, say), not a no-op.
+      const std::vector<std::pair<std::string, std::string>> owners = {
+          {"sds", "asce7-"},          {"earth_permanent", "asce7-"}, {"gamma_eq", "aashto-"},
+          {"pile_kind", "en1997-"},   {"test_profiles", "en1997-"},  {"rigid_cap", "en1997-"},
+          {"model_factor", "en1997-"}};
+      for (const auto& [key, prefix] : owners) {
+        const Located k = n.child(key);
+        if (!k.present()) continue;
+        const bool read = std::any_of(names.begin(), names.end(), [&](const Located& c) {
+          return c.node.IsScalar() && c.node.Scalar().rfind(prefix, 0) == 0;
+        });
+        if (!read)
+          diag_.error(at(k), fmt::format("{}: applies to the {}* generators only, and codes lists "
+                                         "none of them",
+                                         k.path, prefix));
+      }
+    }
     std::vector<CaseToCombine> cases;
     for (const auto& lc : project.load_cases) cases.push_back({lc.id, lc.kind, lc.direction});
     const auto seismic = std::find_if(project.load_cases.begin(), project.load_cases.end(),
@@ -1139,7 +1157,7 @@ class Reader {
                                                    {"bored", En1997PileKind::bored},
                                                    {"cfa", En1997PileKind::cfa}});
     }
-    if (auto profiles = number(n, "test_profiles", Quantity::number, Need::optional)) {
+    if (auto profiles = number(n, "test_profiles", Quantity::number, Need::optional, Sign::any)) {
       if (*profiles < 1 || *profiles != std::floor(*profiles))
         diag_.error(at(n.child("test_profiles")),
                     fmt::format("{}.test_profiles: expected a whole number of profiles of ground "

@@ -15,6 +15,7 @@
 #include "cairn/checks.hpp"
 #include "cairn/code_resistance.hpp"
 #include "cairn/combinations.hpp"
+#include "cairn/input.hpp"
 
 using cairn::CaseToCombine;
 using cairn::CombinationSettings;
@@ -436,4 +437,36 @@ TEST_CASE("code combinations: checks use the combination's resistance set",
   REQUIRE(problems.size() == 2);
   CHECK(problems[0].message.find("combinations.DA1-C2-G: a combination checked with EN 1997 R4 "
                                  "resistances") == 0);
+}
+
+TEST_CASE("code combinations: generator keys are read from the file and checked",
+          "[code_combinations]") {
+  const std::string data = CAIRN_TEST_DATA;
+  try {
+    cairn::read_project(data + "/bad_generate_keys.yaml");
+    FAIL("expected an InputError");
+  } catch (const cairn::InputError& e) {
+    const std::string text = e.what();
+    const std::string file = data + "/bad_generate_keys.yaml";
+    CHECK_THAT(text, Catch::Contains(file + ":18:46: error: combinations.generate.pile_kind: "
+                                            "expected one of bored, cfa, driven, got 'screw'"));
+    CHECK_THAT(text, Catch::Contains(file + ":18:68: error: combinations.generate.test_profiles: "
+                                            "expected a whole number of profiles of ground tests "
+                                            "(1 or more), got '0'"));
+    CHECK_THAT(text, Catch::Contains(file + ":18:85: error: combinations.generate.model_factor: "
+                                            "expected a factor of 1.0 or more, got '0.9'"));
+    CHECK_THAT(text, Catch::Contains(file + ":18:100: error: combinations.generate.gamma_eq: "
+                                            "applies to the aashto-* generators only, and codes "
+                                            "lists none of them"));
+    CHECK_THAT(text, Catch::Contains("combinations.generate.sds: applies to the asce7-*"));
+  }
+  // The map form carries its settings into the project and the combinations.
+  const auto project = cairn::read_project(data + "/e2e/en1997.yaml");
+  CHECK(project.en1997.pile_kind == En1997PileKind::cfa);
+  CHECK(project.en1997.test_profiles == 3);
+  CHECK(project.en1997.rigid_cap);
+  CHECK_FALSE(project.en1997.model_factor);
+  std::set<ResistanceSet> sets;
+  for (const auto& c : project.combinations) sets.insert(c.resistance_set);
+  CHECK(sets == std::set<ResistanceSet>{ResistanceSet::en1997_r1, ResistanceSet::en1997_r4});
 }

@@ -11,6 +11,10 @@
 //                   8–10 (allowable stress design) → LimitState::service
 //   asce7-lrfd      ASCE/SEI 7-16 §2.3.1 combinations 1–5 and §2.3.6 seismic combinations
 //                   6–7 (strength design) → LimitState::strength
+//                   Both: the vertical seismic effect Ev = 0.2·SDS·D (§12.4.2.2) added to D
+//                   where it adds (6; 8, 9) and subtracted where it relieves (7; 10); earth
+//                   pressure H adding (1.6 / 1.0) and, in a second set of ids ending '-Hr',
+//                   resisting (0.9 / 0.6 if permanent, else 0)
 //   en1990-str-geo  EN 1990:2002 eq. 6.10 with Table A1.2(B) (γG = 1.35 / 1.0, γQ = 1.5) and
 //                   ψ0 from Table A1.1, each variable action leading in turn → strength; plus
 //                   the characteristic combination eq. 6.14b → service

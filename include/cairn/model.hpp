@@ -213,6 +213,14 @@ struct GroupSettings {
   SourceLocation where;
 };
 
+// Something in the input that is valid but probably not what the engineer meant (a load
+// case no combination uses). Carried to stderr and to the notes of every output; never
+// changes the exit status.
+struct Warning {
+  SourceLocation where;
+  std::string message;  // "<key path>: <what was found>; <its consequence>"
+};
+
 struct Project {
   std::string file;  // path of the project file as given
   std::string title;
@@ -228,6 +236,7 @@ struct Project {
   GroupSettings group;
   std::vector<std::string> notes;  // choices made while reading (e.g. by a combination generator)
   En1997Settings en1997;           // used by combinations with an EN 1997 resistance set
+  std::vector<Warning> warnings;   // cautions found while reading, in the order found
 };
 
 const char* to_string(LimitState);

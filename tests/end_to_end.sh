@@ -364,6 +364,29 @@ ids = [c["id"] for c in doc["combinations"]]
 assert "DA1-C1-G" in ids and "DA1-C2-W(Wx)-inf" in ids, ids
 PY
 then ok; else bad "EN 1997 combinations missing from the json"; fi
+cp "$work/out" "$work/en1997.json"
+expect_status "EN 1997 capacity --format json" 0 capacity "$data/e2e/en1997.yaml" --format json
+# R_c;d = (R_b/γb + R_s/γs)/ξ with CFA R1 (γb 1.1, γs 1.0) and R4 (γb 1.45, γs 1.3), ξ = 1.33/1.1
+# (EN 1997-1:2004 eq. 7.6, Tables A.8 and A.10, from memory), against axial/utilization.
+if python3 - "$work/out" "$work/en1997.json" <<'PY'
+import json, math, sys
+cap = json.load(open(sys.argv[1]))["pile_types"][0]
+check = json.load(open(sys.argv[2]))
+xi = 1.33 / 1.1
+want = {"DA1-C1-G": (cap["tip"] / 1.1 + cap["shaft"] / 1.0) / xi,
+        "DA1-C2-G": (cap["tip"] / 1.45 + cap["shaft"] / 1.3) / xi}
+seen = 0
+for c in check["combinations"]:
+    if c["id"] in want:
+        seen += 1
+        p = c["piles"][0]
+        got = p["axial"] / p["utilization"]
+        if not math.isclose(got, want[c["id"]], rel_tol=1e-9):
+            sys.exit(f"{c['id']}: resistance {got} != {want[c['id']]}")
+if seen != 2:
+    sys.exit("DA1-C1-G or DA1-C2-G missing")
+PY
+then ok; else bad "EN 1997 design resistance differs from (R_b/γb + R_s/γs)/ξ"; fi
 expect_status "AASHTO LRFD" 0 check "$data/e2e/aashto.yaml"
 expect_in "Extreme Event I with minimum γp" "$work/out" "EXT-I-min(EQ)   strength    0.9·DC + 0.65·DW + 0.5·LL + 1.0·EQ"
 expect_in "extreme-event φ stated" "$work/out" "Pile type HP: AASHTO extreme event resistances: ultimate given × φ 1 (compression, lateral), 0.8 (uplift)"

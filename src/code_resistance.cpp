@@ -206,8 +206,18 @@ std::vector<std::string> code_resistance_assumptions(
       if (t >= resistances.size()) continue;
       const auto it = resistances[t].by_set.find(set);
       if (it == resistances[t].by_set.end()) continue;
-      list.push_back(fmt::format("Pile type {}: {} resistances: {}.", project.pile_types[t].id,
-                                 to_string(set), it->second.source));
+      const Resistance& r = it->second;
+      const UnitSystem u = project.units;
+      std::string values;
+      for (const auto& [name, value] : {std::pair{"compression", r.compression},
+                                        std::pair{"tension", r.tension},
+                                        std::pair{"lateral", r.lateral}}) {
+        if (!value) continue;
+        values += fmt::format("{}{} {:.1f} {}", values.empty() ? "" : ", ", name,
+                              from_si(u, Quantity::force, *value), unit_label(u, Quantity::force));
+      }
+      list.push_back(fmt::format("Pile type {}: {} resistances{}: {}.", project.pile_types[t].id,
+                                 to_string(set), values.empty() ? "" : " " + values, r.source));
     }
   }
   if (any_en) {

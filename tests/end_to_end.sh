@@ -354,7 +354,7 @@ expect_in "warning in the HTML notes" "$work/warned-html/unused_case.html" "Warn
 # resistance sets, AASHTO LRFD with extreme-event resistance factors, ASCE 7 without SDS.
 expect_status "EN 1997 DA1" 0 check "$data/e2e/en1997.yaml"
 expect_in "DA1 combination 2 generated" "$work/out" "DA1-C2-L+W(Wx)   strength    1.0·G + 1.3·Q + 0.78·Wx"
-expect_in "R4 factors of CFA piles stated" "$work/out" "EN 1997 R4 resistances: cfa pile factors (EN 1997-1 Table A.8); computed from the soil: base ÷ γb 1.45, shaft ÷ γs 1.3, tension shaft ÷ γs;t 1.6"
+expect_in "R4 factors of CFA piles stated" "$work/out" "cfa pile factors (EN 1997-1 Table A.8); computed from the soil: base ÷ γb 1.45, shaft ÷ γs 1.3, tension shaft ÷ γs;t 1.6"
 expect_in "ξ3 with the rigid cap stated" "$work/out" "ξ = max(ξ3 1.33, ξ4 1.23) ÷ 1.1 for the rigid cap"
 expect_status "EN 1997 DA1 --format json" 0 check "$data/e2e/en1997.yaml" --format json
 if python3 - "$work/out" <<'PY'
@@ -389,7 +389,7 @@ PY
 then ok; else bad "EN 1997 design resistance differs from (R_b/γb + R_s/γs)/ξ"; fi
 expect_status "AASHTO LRFD" 0 check "$data/e2e/aashto.yaml"
 expect_in "Extreme Event I with minimum γp" "$work/out" "EXT-I-min(EQ)   strength    0.9·DC + 0.65·DW + 0.5·LL + 1.0·EQ"
-expect_in "extreme-event φ stated" "$work/out" "Pile type HP: AASHTO extreme event resistances: ultimate given × φ 1 (compression, lateral), 0.8 (uplift)"
+expect_in "extreme-event φ stated" "$work/out" "Pile type HP: AASHTO extreme event resistances compression 2400.0 kN, tension 720.0 kN, lateral 300.0 kN: ultimate given × φ 1 (compression, lateral), 0.8 (uplift)"
 expect_status "ASCE 7 seismic without SDS" 2 check "$data/e2e/bad_sds.yaml"
 expect_in "SDS asked for, located" "$work/err" "bad_sds.yaml:14:13: error: combinations.generate.sds: missing; expected SDS (in g) for the vertical seismic effect Ev = 0.2·SDS·D of ASCE/SEI 7-16 §12.4.2.2, because load case 'E' is seismic"
 

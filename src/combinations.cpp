@@ -518,8 +518,11 @@ std::vector<GeneratedCombination> en1990(const SortedCases& c, const ActionSet& 
       uls.add(prefix + "-" + id, std::move(ultimate));
       sls.add("EN-6.14b-" + id, std::move(service));
     }
-    uls.add(prefix + "-" + lead.name + "-inf",
-            {{set.gamma_g_inf, "G", permanent_ids}, {set.gamma_q, lead.symbol, lead.ids}});
+    // With γG,inf = γG,sup (set A2) and nothing accompanying, '-inf' would repeat the above.
+    const bool alone = others.empty() && winds.size() == 1 && winds.front() == nullptr;
+    if (!(alone && set.gamma_g_inf == set.gamma_g_sup))
+      uls.add(prefix + "-" + lead.name + "-inf",
+              {{set.gamma_g_inf, "G", permanent_ids}, {set.gamma_q, lead.symbol, lead.ids}});
   }
   auto out = uls.take();
   if (!set.service) return out;

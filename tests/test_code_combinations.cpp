@@ -170,6 +170,13 @@ TEST_CASE("code combinations: EN 1997 design approach 1, combinations 1 and 2",
   }
   CHECK(g.combinations.size() == 2 * 5);  // G, L+W, W, L-inf, W-inf in each
 
+  // Set A2 has γG,inf = γG,sup: with nothing accompanying, '-inf' would repeat the combination.
+  const auto alone = cairn::generate_combinations(
+      "en1997-da1", {{"G", LoadKind::dead, ""}, {"Q", LoadKind::live, ""}});
+  CHECK(has(alone, "DA1-C1-L-inf"));
+  CHECK_FALSE(has(alone, "DA1-C2-L-inf"));
+  CHECK(alone.combinations.size() == 5);
+
   const auto da2 = cairn::generate_combinations("en1997-da2", cases);
   // EN 1997-1 §2.4.7.3.4.3: A1 + M1 + R2.
   check_factors(da2, "DA2-L+W(W)", {{"G", 1.35}, {"Q", 1.5}, {"W", 0.9}});

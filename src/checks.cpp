@@ -150,11 +150,21 @@ std::vector<Diagnostic> missing_resistances(const Project& project,
         if (it != resistances[t].by_set.end() && it->second.compression) continue;
         problems.push_back(
             {combo.where,
-             fmt::format("combinations.{}: a combination checked with {} resistances, but pile "
-                         "type '{}' has no ultimate compression capacity to derive them from; "
-                         "give capacity with basis: ultimate (taken as characteristic), or "
-                         "tip_method and shaft_method with a soil profile",
-                         combo.id, to_string(combo.resistance_set), project.pile_types[t].id)});
+             combo.resistance_set == ResistanceSet::en1997_r3
+                 ? fmt::format("combinations.{}: a combination of design approach 3 (EN 1997 R3), "
+                               "but pile type '{}' has no capacity computed from the soil with "
+                               "the soil's strength factored (set M2): give tip_method and "
+                               "shaft_method that work from friction_angle and "
+                               "undrained_strength (not the SPT methods), with friction angles "
+                               "that stay within the method's range after M2",
+                               combo.id, project.pile_types[t].id)
+                 : fmt::format("combinations.{}: a combination checked with {} resistances, but "
+                               "pile type '{}' has no ultimate compression capacity to derive "
+                               "them from; give capacity with basis: ultimate (taken as "
+                               "characteristic), or tip_method and shaft_method with a soil "
+                               "profile",
+                               combo.id, to_string(combo.resistance_set),
+                               project.pile_types[t].id)});
       }
       continue;
     }

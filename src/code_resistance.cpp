@@ -3,6 +3,7 @@
 #include "cairn/code_resistance.hpp"
 
 #include <algorithm>
+#include <cmath>
 #include <array>
 #include <set>
 #include <stdexcept>
@@ -137,6 +138,32 @@ Resistance code_set_resistance(const Project& project, std::size_t type, Resista
 
   const En1997PileKind kind = en1997_pile_kind(project, pile_type);
   const En1997PileFactors f = en1997_pile_factors(kind, set);
+  if (set == ResistanceSet::en1997_r3) {
+    // Design approach 3: the resistance is computed with the soil's strength factored (M2);
+    // a typed-in characteristic resistance has no M2 in it and is not used.
+    if (computed && computed->m2_tip && computed->m2_shaft) {
+      const double divisor = en1997_correlation_factor(project.en1997) *
+                             en1997_model_factor(project.en1997);
+      r.compression = (*computed->m2_tip / f.base + *computed->m2_shaft / f.shaft) / divisor;
+      if (computed->m2_uplift) r.tension = *computed->m2_uplift / (f.shaft_tension * divisor);
+      // Broms from the unfactored soil ÷ 1.4: exact M2 for clay (linear in cu), on the safe side
+      // for sand (Kp and its cube root fall by less than 1.4 when tan φ' ÷ 1.25).
+      if (computed->ultimate_lateral)
+        r.lateral = *computed->ultimate_lateral / (kEn1997GammaCu * f.total);
+      r.source = fmt::format(
+          "{} pile factors (EN 1997-1 Table {}); computed from the soil with set M2 (tan φ' and "
+          "tan δ ÷ 1.25, cu ÷ 1.4): base ÷ γb {:g}, shaft ÷ γs {:g}, tension shaft ÷ γs;t {:g}, "
+          "each ÷ ξ {:.3g} × γRd {:g}{}",
+          to_string(kind),
+          kind == En1997PileKind::driven ? "A.6" : kind == En1997PileKind::bored ? "A.7" : "A.8",
+          f.base, f.shaft, f.shaft_tension, en1997_correlation_factor(project.en1997),
+          en1997_model_factor(project.en1997),
+          r.lateral ? fmt::format("; lateral (Broms) ÷ 1.4 for M2 ÷ γt {:g}", f.total) : "");
+    } else {
+      r.source = "design approach 3 needs the capacity computed from the soil with set M2";
+    }
+    return r;
+  }
   if (typed) {
     r.compression = scaled(typed->compression, 1.0 / f.total);
     r.tension = scaled(typed->tension, 1.0 / f.shaft_tension);
@@ -178,12 +205,38 @@ Resistance code_set_resistance(const Project& project, std::size_t type, Resista
   return r;
 }
 
+SoilProfile en1997_m2_profile(const SoilProfile& profile) {
+  constexpr double kDegree = 3.14159265358979323846 / 180.0;
+  auto factored_angle = [&](double degrees) {
+    return std::atan(std::tan(degrees * kDegree) / kEn1997GammaPhi) / kDegree;
+  };
+  SoilProfile m2 = profile;
+  for (SoilLayer& layer : m2.layers) {
+    if (layer.friction_angle) layer.friction_angle = factored_angle(*layer.friction_angle);
+    if (layer.shaft_delta) layer.shaft_delta = factored_angle(*layer.shaft_delta);
+    if (layer.undrained_strength) layer.undrained_strength = *layer.undrained_strength / kEn1997GammaCu;
+  }
+  return m2;
+}
+
+bool en1997_m2_applies(const PileDesign& design) {
+  const bool spt_tip = design.tip_sand == TipMethod::meyerhof_spt || design.tip_sand == TipMethod::fhwa;
+  const bool spt_shaft = design.shaft_sand == ShaftMethod::beta_fhwa ||
+                         design.shaft_sand == ShaftMethod::meyerhof_spt ||
+                         design.shaft_clay == ShaftMethod::meyerhof_spt;
+  return !spt_tip && !spt_shaft;
+}
+
 double code_set_soil_divisor(const Project& project, const PileType& type, ResistanceSet set,
                              bool tension) {
   if (set == ResistanceSet::aashto_extreme)
     return 1.0 / (tension ? kAashtoExtremePhiUplift : kAashtoExtremePhi);
   const En1997PileFactors f = en1997_pile_factors(en1997_pile_kind(project, type), set);
-  return (tension ? f.shaft_tension : f.total) * en1997_correlation_factor(project.en1997) *
+  // R3 (design approach 3) goes with M2: the clay block (cu·perimeter + 9cu·area) is linear in
+  // cu, so ÷ 1.4 is M2 exactly; the uplift block's whole resistance ÷ 1.25 errs on the safe
+  // side (its weight needs no factor).
+  const double m2 = set != ResistanceSet::en1997_r3 ? 1.0 : tension ? kEn1997GammaPhi : kEn1997GammaCu;
+  return m2 * (tension ? f.shaft_tension : f.total) * en1997_correlation_factor(project.en1997) *
          en1997_model_factor(project.en1997);
 }
 

@@ -442,6 +442,9 @@ struct ActionSet {
   std::string prefix;  // "EN-6.10", "DA1-C1", …
   ResistanceSet resistance_set = ResistanceSet::basis;
   bool service = true;  // also the characteristic combinations eq. 6.14b
+  // Earth pressure's own γG (unfavourable and favourable) when it differs from the other
+  // permanent actions: design approach 3 takes geotechnical actions at A2 (γG = 1.0).
+  std::optional<double> gamma_earth;
 };
 
 // EN 1997-1:2004 Table A.4, set A2 (from memory): γG = 1.0 unfavourable and favourable,
@@ -466,7 +469,11 @@ std::vector<GeneratedCombination> en1990(const SortedCases& c, const ActionSet& 
     notes.push_back("wearing surfaces and the weight of soil (kinds wearing_surface, "
                     "vertical_earth) taken as permanent actions (γG)");
   std::vector<std::string> permanent_ids = dead_ids(c);
-  for (const auto& id : c.ids(LoadKind::earth)) permanent_ids.push_back(id);
+  if (!set.gamma_earth)
+    for (const auto& id : c.ids(LoadKind::earth)) permanent_ids.push_back(id);
+  // Geotechnical permanent actions at their own factor (design approach 3), else none.
+  const Term earth{set.gamma_earth.value_or(0.0), "H", set.gamma_earth ? c.ids(LoadKind::earth)
+                                                                       : std::vector<std::string>{}};
 
   std::vector<VariableAction> actions;
   const auto add_kind = [&](LoadKind kind, const char* symbol, double psi0) {
@@ -484,7 +491,7 @@ std::vector<GeneratedCombination> en1990(const SortedCases& c, const ActionSet& 
   Builder uls(LimitState::strength, set.resistance_set);
   Builder sls(LimitState::service);
   const std::string& prefix = set.prefix;
-  uls.add(prefix + "-G", {{set.gamma_g_sup, "G", permanent_ids}});
+  uls.add(prefix + "-G", {{set.gamma_g_sup, "G", permanent_ids}, earth});
   sls.add("EN-6.14b-G", {{1.0, "G", permanent_ids}});
 
   for (const auto& lead : actions) {
@@ -506,7 +513,7 @@ std::vector<GeneratedCombination> en1990(const SortedCases& c, const ActionSet& 
     }
     for (const VariableAction* wind : winds) {
       const std::string id = lead.name + (wind ? "+" + wind->name : "");
-      std::vector<Term> ultimate{{set.gamma_g_sup, "G", permanent_ids},
+      std::vector<Term> ultimate{{set.gamma_g_sup, "G", permanent_ids}, earth,
                                  {set.gamma_q, lead.symbol, lead.ids}};
       std::vector<Term> service{{1.0, "G", permanent_ids}, {1.0, lead.symbol, lead.ids}};
       auto accompanying = others;
@@ -522,7 +529,7 @@ std::vector<GeneratedCombination> en1990(const SortedCases& c, const ActionSet& 
     const bool alone = others.empty() && winds.size() == 1 && winds.front() == nullptr;
     if (!(alone && set.gamma_g_inf == set.gamma_g_sup))
       uls.add(prefix + "-" + lead.name + "-inf",
-              {{set.gamma_g_inf, "G", permanent_ids}, {set.gamma_q, lead.symbol, lead.ids}});
+              {{set.gamma_g_inf, "G", permanent_ids}, earth, {set.gamma_q, lead.symbol, lead.ids}});
   }
   auto out = uls.take();
   if (!set.service) return out;
@@ -661,7 +668,8 @@ std::vector<GeneratedCombination> aashto(const SortedCases& c, const Combination
 }  // namespace
 
 std::vector<std::string> generator_names() {
-  return {"asce7-asd", "asce7-lrfd", "en1990-str-geo", "en1997-da1", "en1997-da2", "aashto-lrfd"};
+  return {"asce7-asd",  "asce7-lrfd", "en1990-str-geo",
+          "en1997-da1", "en1997-da2", "en1997-da3", "aashto-lrfd"};
 }
 
 GeneratedCombinations generate_combinations(std::string_view generator,
@@ -728,10 +736,18 @@ GeneratedCombinations generate_combinations(std::string_view generator,
     return out;
   }
   if (generator == "en1997-da3") {
-    throw std::invalid_argument(
-        "generator 'en1997-da3' is not available: design approach 3 factors the soil's "
-        "strength (set M2) before the pile resistance is computed, which cairn does not do; "
-        "use en1997-da1 or en1997-da2");
+    require_kinds(generator, cases, kEnKinds, kEnHint);
+    const SortedCases sorted = sort_cases(cases);
+    out.notes.push_back(
+        "EN 1997-1:2004 §2.4.7.3.4.4 design approach 3 for piles (DA3): A1 on structural actions "
+        "(γG = 1.35 unfavourable, 1.0 favourable, γQ = 1.5, Table A.3) and A2 on geotechnical "
+        "actions (earth pressure γG = 1.0, Table A.4) + M2 + R3; values recommended in the "
+        "standards, as recalled — a national annex may change them");
+    out.notes.push_back("variable actions are left out where they are favourable (γQ = 0)");
+    ActionSet set{kGammaGSup, kGammaGInf, kGammaQ, "DA3", ResistanceSet::en1997_r3, false};
+    set.gamma_earth = kGammaGA2;
+    out.combinations = en1990(sorted, set, out.notes);
+    return out;
   }
   if (generator == "aashto-lrfd") {
     require_kinds(generator, cases, kAashtoKinds, kAashtoHint);

@@ -1,7 +1,10 @@
 #include "cairn/project_capacity.hpp"
 
+#include <algorithm>
+
 #include <fmt/format.h>
 
+#include "cairn/code_resistance.hpp"
 #include "cairn/diagnostics.hpp"
 #include "cairn/lateral.hpp"
 
@@ -134,6 +137,19 @@ std::vector<std::optional<ComputedResistance>> computed_resistances(
     r.ultimate_uplift = c.result.uplift_shaft;
     const PileDesign& d = project.pile_types[c.type].design;
     r.aashto_phi = !d.phi_tip || !d.phi_shaft || !d.phi_uplift;
+    // EN 1997 design approach 3: the capacity again with set M2 (code_resistance.hpp).
+    const bool m2_needed = std::any_of(
+        project.combinations.begin(), project.combinations.end(),
+        [](const Combination& combo) { return combo.resistance_set == ResistanceSet::en1997_r3; });
+    if (m2_needed && project.soil && en1997_m2_applies(d)) {
+      const SoilProfile m2 = en1997_m2_profile(*project.soil);
+      if (validate_design(m2, c.geometry, d).empty()) {
+        const CapacityResult m2_result = pile_capacity(m2, c.geometry, d);
+        r.m2_tip = m2_result.tip;
+        r.m2_shaft = m2_result.shaft;
+        r.m2_uplift = m2_result.uplift_shaft;
+      }
+    }
     out[c.type] = r;
   }
   return out;

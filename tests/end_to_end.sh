@@ -387,6 +387,9 @@ if seen != 2:
     sys.exit("DA1-C1-G or DA1-C2-G missing")
 PY
 then ok; else bad "EN 1997 design resistance differs from (R_b/γb + R_s/γs)/ξ"; fi
+expect_status "EN 1997 DA3" 0 check "$data/e2e/en1997_da3.yaml"
+expect_in "DA3: earth pressure at A2" "$work/out" "DA3-L       strength    1.35·G + 1.0·H + 1.5·Q"
+expect_in "DA3: R3 with M2 stated" "$work/out" "driven pile factors (EN 1997-1 Table A.6); computed from the soil with set M2 (tan φ' and tan δ ÷ 1.25, cu ÷ 1.4): base ÷ γb 1, shaft ÷ γs 1, tension shaft ÷ γs;t 1.1, each ÷ ξ 1 × γRd 1.4"
 expect_status "AASHTO LRFD" 0 check "$data/e2e/aashto.yaml"
 expect_in "Extreme Event I with minimum γp" "$work/out" "EXT-I-min(EQ)   strength    0.9·DC + 0.65·DW + 0.5·LL + 1.0·EQ"
 expect_in "extreme-event φ stated" "$work/out" "Pile type HP: AASHTO extreme event resistances compression 2400.0 kN, tension 720.0 kN, lateral 300.0 kN: ultimate given × φ 1 (compression, lateral), 0.8 (uplift)"

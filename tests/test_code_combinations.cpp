@@ -182,9 +182,13 @@ TEST_CASE("code combinations: EN 1997 design approach 1, combinations 1 and 2",
   check_factors(da2, "DA2-L+W(W)", {{"G", 1.35}, {"Q", 1.5}, {"W", 0.9}});
   for (const auto& c : da2.combinations) CHECK(c.resistance_set == ResistanceSet::en1997_r2);
 
-  // Design approach 3 needs factored soil strength (M2): refused with the reason.
-  CHECK_THROWS_WITH(cairn::generate_combinations("en1997-da3", cases),
-                    Catch::Contains("set M2"));
+  // Design approach 3 (§2.4.7.3.4.4): A1 on structural actions, A2 on geotechnical ones (earth
+  // pressure at γG = 1.0, Table A.4), checked with R3.
+  const auto da3 = cairn::generate_combinations(
+      "en1997-da3", {{"G", LoadKind::dead, ""}, {"H", LoadKind::earth, ""}, {"Q", LoadKind::live, ""}});
+  check_factors(da3, "DA3-L", {{"G", 1.35}, {"H", 1.0}, {"Q", 1.5}});
+  check_factors(da3, "DA3-L-inf", {{"G", 1.0}, {"H", 1.0}, {"Q", 1.5}});
+  for (const auto& c : da3.combinations) CHECK(c.resistance_set == ResistanceSet::en1997_r3);
   // Seismic is not an EN 1990 eq. 6.10 action.
   CHECK_THROWS_AS(cairn::generate_combinations("en1997-da1", {{"E", LoadKind::seismic, ""}}),
                   std::invalid_argument);
@@ -271,6 +275,53 @@ cairn::Project one_pile_type(cairn::Installation installation) {
 }
 
 }  // namespace
+
+TEST_CASE("code combinations: EN 1997 set M2 factors the soil's strength for design approach 3",
+          "[code_combinations][published]") {
+  cairn::SoilProfile profile;
+  cairn::SoilLayer sand;
+  sand.kind = cairn::SoilKind::sand;
+  sand.friction_angle = 35.0;
+  sand.shaft_delta = 26.0;
+  sand.spt_n60 = 30.0;
+  cairn::SoilLayer clay;
+  clay.kind = cairn::SoilKind::clay;
+  clay.undrained_strength = 100.0;
+  profile.layers = {sand, clay};
+  const auto m2 = cairn::en1997_m2_profile(profile);
+  // Source: EN 1997-1:2004 Table A.4, set M2 (from memory): γφ' = 1.25 on tan φ', γcu = 1.4.
+  // atan(tan 35° / 1.25) = 29.256°; atan(tan 26° / 1.25) = 21.315°; 100/1.4 = 71.43 kPa (hand).
+  CHECK(*m2.layers[0].friction_angle == Approx(29.2561).epsilon(1e-5));
+  CHECK(*m2.layers[0].shaft_delta == Approx(21.3150).epsilon(1e-5));
+  CHECK(*m2.layers[0].spt_n60 == 30.0);  // not a strength parameter of M2
+  CHECK(*m2.layers[1].undrained_strength == Approx(100.0 / 1.4).epsilon(kQuotient));
+  // SPT-based methods have no φ' or cu to factor.
+  cairn::PileDesign design;
+  design.tip_sand = cairn::TipMethod::vesic;
+  design.shaft_sand = cairn::ShaftMethod::beta;
+  CHECK(cairn::en1997_m2_applies(design));
+  design.shaft_sand = cairn::ShaftMethod::beta_fhwa;
+  CHECK_FALSE(cairn::en1997_m2_applies(design));
+
+  // R3 takes the M2 components; a typed-in resistance is not used (it holds no M2).
+  auto project = one_pile_type(cairn::Installation::driven);
+  cairn::ComputedResistance computed;
+  computed.m2_tip = 800.0;
+  computed.m2_shaft = 1200.0;
+  computed.m2_uplift = 990.0;
+  const auto r = cairn::code_set_resistance(project, 0, ResistanceSet::en1997_r3, computed,
+                                            cairn::Resistance{});
+  // Table A.6 R3 (from memory): γb = γs = 1.0, γs;t = 1.1; γRd 1.4 (no test profiles).
+  CHECK(*r.compression == Approx(2000.0 / 1.4).epsilon(kQuotient));
+  CHECK(*r.tension == Approx(990.0 / (1.1 * 1.4)).epsilon(kQuotient));
+  cairn::CapacitySet typed;
+  typed.basis = cairn::CapacityBasis::ultimate;
+  typed.compression = 3000.0;
+  project.pile_types[0].capacities.push_back(typed);
+  CHECK_FALSE(cairn::code_set_resistance(project, 0, ResistanceSet::en1997_r3, std::nullopt,
+                                         cairn::Resistance{})
+                  .compression);
+}
 
 TEST_CASE("code combinations: EN 1997 design resistances from the soil and typed in",
           "[code_combinations][published]") {

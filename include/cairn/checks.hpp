@@ -56,6 +56,8 @@ struct ComputedResistance {
   std::string lateral_method;
   // Ultimate (unfactored) values, for code resistance sets (code_resistance.hpp).
   std::optional<double> ultimate_tip, ultimate_shaft, ultimate_uplift, ultimate_lateral;
+  // The same with the soil's strength factored by EN 1997-1 set M2 (design approach 3).
+  std::optional<double> m2_tip, m2_shaft, m2_uplift;
   bool aashto_phi = false;  // factored_* use AASHTO φ defaults (no phi_* given)
 };
 

@@ -72,9 +72,23 @@ Resistance code_set_resistance(const Project& project, std::size_t type, Resista
 
 // What a resistance of the whole group computed from the soil (block failure, block uplift)
 // is divided by in set `set`: EN 1997 γt·ξ·γRd in compression, γs;t·ξ·γRd in tension (the
-// block taken like one pile of `type`'s kind); AASHTO extreme event 1/φ.
+// block taken like one pile of `type`'s kind), and for R3 also 1.4 (compression, clay block)
+// or 1.25 (tension) for set M2; AASHTO extreme event 1/φ.
 double code_set_soil_divisor(const Project& project, const PileType& type, ResistanceSet set,
                              bool tension);
+
+// EN 1997-1:2004 Table A.4, set M2 (from memory): γφ' = 1.25 on tan φ' (and on tan δ of the
+// shaft), γcu = 1.4 on cu; unit weights unchanged (γγ = 1.0).
+inline constexpr double kEn1997GammaPhi = 1.25;
+inline constexpr double kEn1997GammaCu = 1.4;
+
+// The profile with set M2 applied: φ'd = atan(tan φ' / 1.25), δd = atan(tan δ / 1.25),
+// cu,d = cu / 1.4; every other property as given.
+SoilProfile en1997_m2_profile(const SoilProfile& profile);
+
+// Whether a design computes its capacity from φ' and cu only, so that set M2 can factor it
+// (false for the SPT-based methods: meyerhof-spt, the fhwa tip and beta-fhwa in sand).
+bool en1997_m2_applies(const PileDesign& design);
 
 // Plain-words assumptions for the resistance sets in use, and where load factors of one code
 // meet resistance factors of another (e.g. ASCE 7 loads with AASHTO φ).

@@ -17,6 +17,8 @@
 // strong piles (§7.6.2.3(7)). Without test profiles, the characteristic resistance comes
 // from the soil parameters directly (§7.6.2.3(8)) and a model factor γRd corrects it
 // (default 1.4: UK National Annex to BS EN 1997-1, A.3.3.2, from memory).
+// R3 (design approach 3) applies to the capacity computed with set M2 (tan φ' ÷ 1.25,
+// cu ÷ 1.4), never to a typed-in resistance.
 // AASHTO LRFD 7th ed. (2014) §10.5.5.3.3 (from memory): extreme event φ = 1.0 on the
 // ultimate resistance, except 0.80 in uplift.
 #pragma once

@@ -22,6 +22,9 @@
 //                   (A1 + M1 + R1) and combination 2 (A2 + M1 + R4), eq. 6.10 with the action
 //                   factors of Table A.3 → strength, checked with resistance set R1 / R4
 //   en1997-da2      design approach 2 (A1 + M1 + R2) → strength, resistance set R2
+//   en1997-da3      design approach 3: A1 on structural actions, A2 (γG 1.0) on earth
+//                   pressure, + M2 + R3 → strength, resistance set R3 (code_resistance.hpp
+//                   computes the capacity again with the soil's strength factored by M2)
 //   aashto-lrfd     AASHTO LRFD Bridge Design Specifications (7th ed., 2014) Tables 3.4.1-1
 //                   and 3.4.1-2: Strength I, III, V (strength), Service I (service), Extreme
 //                   Event I and II (strength, extreme-event resistance factors), each with all

@@ -7,6 +7,7 @@
 
 #include <fmt/format.h>
 
+#include "cairn/code_resistance.hpp"
 #include "cairn/lateral.hpp"
 #include "cairn/section_moment.hpp"
 
@@ -156,6 +157,15 @@ std::vector<PileTypeResistance> resolve_resistances(
       if (!had_lateral && c.allowable_lateral) add(r.allowable.source, "lateral by " + c.lateral_method);
       if (!had_factored_lateral && c.factored_lateral)
         add(r.factored.source, "lateral by " + c.lateral_method);
+      r.aashto_phi = !had_factored && c.aashto_phi;
+    }
+    // Code resistance sets (EN 1997 R1–R4, AASHTO extreme event): code_resistance.hpp.
+    for (const Combination& combo : project.combinations) {
+      if (combo.resistance_set == ResistanceSet::basis || r.by_set.count(combo.resistance_set))
+        continue;
+      const auto none = std::optional<ComputedResistance>{};
+      r.by_set[combo.resistance_set] = code_set_resistance(
+          project, t, combo.resistance_set, t < computed.size() ? computed[t] : none, r.factored);
     }
   }
   return result;
@@ -168,6 +178,30 @@ std::vector<Diagnostic> missing_resistances(const Project& project,
   for (const Pile& pile : project.piles) used.insert(pile.type);
   for (const Combination& combo : project.combinations) {
     const bool service = combo.limit_state == LimitState::service;
+    if (combo.resistance_set != ResistanceSet::basis) {
+      for (std::size_t t : used) {
+        const auto it = resistances[t].by_set.find(combo.resistance_set);
+        if (it != resistances[t].by_set.end() && it->second.compression) continue;
+        problems.push_back(
+            {combo.where,
+             combo.resistance_set == ResistanceSet::en1997_r3
+                 ? fmt::format("combinations.{}: a combination of design approach 3 (EN 1997 R3), "
+                               "but pile type '{}' has no capacity computed from the soil with "
+                               "the soil's strength factored (set M2): give tip_method and "
+                               "shaft_method that work from friction_angle and "
+                               "undrained_strength (not the SPT methods), with friction angles "
+                               "that stay within the method's range after M2",
+                               combo.id, project.pile_types[t].id)
+                 : fmt::format("combinations.{}: a combination checked with {} resistances, but "
+                               "pile type '{}' has no ultimate compression capacity to derive "
+                               "them from; give capacity with basis: ultimate (taken as "
+                               "characteristic), or tip_method and shaft_method with a soil "
+                               "profile",
+                               combo.id, to_string(combo.resistance_set),
+                               project.pile_types[t].id)});
+      }
+      continue;
+    }
     for (std::size_t t : used) {
       const Resistance& r = service ? resistances[t].allowable : resistances[t].factored;
       if (r.compression) continue;
@@ -213,7 +247,9 @@ CheckResults check_piles(const Project& project, const std::vector<CapSolution>&
       }
       const PileForce& force = check.solution.piles[i];
       const Pile& pile = project.piles[i];
-      const Resistance& r = combo.limit_state == LimitState::service
+      const Resistance& r = combo.resistance_set != ResistanceSet::basis
+                                ? resistances[pile.type].by_set.at(combo.resistance_set)
+                            : combo.limit_state == LimitState::service
                                 ? resistances[pile.type].allowable
                                 : resistances[pile.type].factored;
       p.axial = force.axial;
@@ -356,6 +392,7 @@ std::vector<std::string> assumptions(
   list.push_back("Service combinations are checked against allowable capacities, strength "
                  "combinations against factored resistances.");
   for (const auto& note : project.notes) list.push_back("Combinations " + note);
+  for (auto& text : code_resistance_assumptions(project, resistances)) list.push_back(std::move(text));
   return list;
 }
 

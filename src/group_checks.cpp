@@ -1,5 +1,7 @@
 #include "cairn/group_checks.hpp"
 
+#include "cairn/code_resistance.hpp"
+
 #include <algorithm>
 #include <cmath>
 #include <map>
@@ -164,6 +166,7 @@ GroupResults evaluate_group(const Project& project, const CheckResults& results,
   double sum_allowable = 0.0, sum_factored = 0.0;
   bool have_allowable = true, have_factored = true;
   bool split_known = true;
+  std::vector<double> pile_factors;  // 1 − share·(1 − η), per pile
   for (const Pile& p : project.piles) {
     const auto& r = resistances[p.type];
     double share = 1.0;  // fraction of the capacity η reduces
@@ -174,6 +177,7 @@ GroupResults evaluate_group(const Project& project, const CheckResults& results,
         split_known = false;
     }
     const double factor = 1.0 - share * (1.0 - eta);
+    pile_factors.push_back(factor);
     if (r.allowable.compression) sum_allowable += factor * *r.allowable.compression;
     else have_allowable = false;
     if (r.factored.compression) sum_factored += factor * *r.factored.compression;
@@ -243,6 +247,24 @@ GroupResults evaluate_group(const Project& project, const CheckResults& results,
     const auto& rot = cc.solution.movement.rotation;
     gc.tilt = std::hypot(rot[0], rot[1]);
     gc.capacity = service ? out.capacity_allowable : out.capacity_factored;
+    const ResistanceSet set = combo.resistance_set;
+    if (set != ResistanceSet::basis) {
+      // A code resistance set (code_resistance.hpp): η·Σ of the set's pile resistances, and
+      // the block with the set's factors.
+      gc.capacity.reset();
+      double sum = 0.0;
+      bool complete = true;
+      for (std::size_t i = 0; i < project.piles.size(); ++i) {
+        const auto& by_set = resistances[project.piles[i].type].by_set;
+        const auto it = by_set.find(set);
+        if (it == by_set.end() || !it->second.compression) complete = false;
+        else sum += pile_factors[i] * *it->second.compression;
+      }
+      if (complete) gc.capacity = sum;
+      if (complete && out.block)
+        gc.capacity = std::min(sum, out.block->capacity /
+                                        code_set_soil_divisor(project, type, set, false));
+    }
     if (gc.capacity && *gc.capacity > 0) {
       gc.utilization = gc.compression / *gc.capacity;
       if (*gc.utilization > 1.0) gc.pass = false;
@@ -251,7 +273,10 @@ GroupResults evaluate_group(const Project& project, const CheckResults& results,
       try {
         const GroupUplift uplift =
             group_uplift(*project.soil, out.plan, project.cap.depth, tip, gc.tension);
-        gc.uplift_capacity = service ? uplift.resistance / uplift_fs : uplift.resistance * uplift_phi;
+        gc.uplift_capacity = set != ResistanceSet::basis
+                                 ? uplift.resistance / code_set_soil_divisor(project, type, set, true)
+                             : service ? uplift.resistance / uplift_fs
+                                       : uplift.resistance * uplift_phi;
         gc.uplift_utilization = gc.tension / *gc.uplift_capacity;
         if (*gc.uplift_utilization > 1.0) gc.pass = false;
       } catch (const std::invalid_argument&) {

@@ -79,7 +79,8 @@ const std::map<std::string, LoadKind> kLoadKinds = {
     {"rain", LoadKind::rain},         {"wind", LoadKind::wind},
     {"seismic", LoadKind::seismic},   {"earth", LoadKind::earth},
     {"fluid", LoadKind::fluid},       {"temperature", LoadKind::temperature},
-    {"other", LoadKind::other}};
+    {"other", LoadKind::other},       {"wearing_surface", LoadKind::wearing_surface},
+    {"vertical_earth", LoadKind::vertical_earth}, {"collision", LoadKind::collision}};
 
 std::string list_of(const std::vector<std::string>& names) {
   std::string text;
@@ -1244,26 +1245,78 @@ class Reader {
     return state;
   }
 
-  // `combinations: {generate: asce7-lrfd}` (or a list of generator names): code
+  // `combinations: {generate: asce7-lrfd}` (or a list of generator names), or
+  // `generate: {codes: …, sds: …, …}` with the values some generators need: code
   // combinations built from the load cases' kinds (combinations.hpp).
   void generate_combinations_for(const Entry& entry, Project& project) {
     const Located& n = entry.value;
+    // (A Located is built, never assigned: assigning a YAML::Node writes into the document.)
+    const Located codes = n.node.IsMap() ? n.child("codes") : n;
+    CombinationSettings settings;
+    if (n.node.IsMap()) {
+      check_keys(n, {"codes", "sds", "earth_permanent", "gamma_eq", "pile_kind", "test_profiles",
+                     "rigid_cap", "model_factor"});
+      if (!codes.present()) {
+        diag_.error(at(n), fmt::format("{}.codes: missing; expected a generator name or a list "
+                                       "({})",
+                                       n.path, list_of(generator_names())));
+        return;
+      }
+      settings.sds = number(n, "sds", Quantity::number, Need::optional, Sign::non_negative);
+      if (auto permanent = flag(n, "earth_permanent")) settings.earth_permanent = *permanent;
+      if (auto g = number(n, "gamma_eq", Quantity::number, Need::optional, Sign::non_negative))
+        settings.gamma_eq = *g;
+      read_en1997_settings(n, project.en1997);
+    }
     std::vector<Located> names;
-    if (n.node.IsSequence())
-      for (std::size_t i = 0; i < n.node.size(); ++i) names.push_back(n.item(i));
+    if (codes.node.IsSequence())
+      for (std::size_t i = 0; i < codes.node.size(); ++i) names.push_back(codes.item(i));
     else
-      names.push_back(n);
+      names.push_back(codes);
+    if (n.node.IsMap()) {
+      // A key that no listed generator reads is a mistake (a misplaced code, say), not a no-op.
+      const std::vector<std::pair<std::string, std::string>> owners = {
+          {"sds", "asce7-"},          {"earth_permanent", "asce7-"}, {"gamma_eq", "aashto-"},
+          {"pile_kind", "en1997-"},   {"test_profiles", "en1997-"},  {"rigid_cap", "en1997-"},
+          {"model_factor", "en1997-"}};
+      for (const auto& [key, prefix] : owners) {
+        const Located k = n.child(key);
+        if (!k.present()) continue;
+        const bool read = std::any_of(names.begin(), names.end(), [&](const Located& c) {
+          return c.node.IsScalar() && c.node.Scalar().rfind(prefix, 0) == 0;
+        });
+        if (!read)
+          diag_.error(at(k), fmt::format("{}: applies to the {}* generators only, and codes lists "
+                                         "none of them",
+                                         k.path, prefix));
+      }
+    }
     std::vector<CaseToCombine> cases;
     for (const auto& lc : project.load_cases) cases.push_back({lc.id, lc.kind, lc.direction});
+    const auto seismic = std::find_if(project.load_cases.begin(), project.load_cases.end(),
+                                      [](const LoadCase& lc) { return lc.kind == LoadKind::seismic; });
+    const auto is_asce = [](const std::string& g) { return g.rfind("asce7-", 0) == 0; };
+    std::vector<std::string> asce;
+    for (const auto& name : names)
+      if (name.node.IsScalar() && is_asce(name.node.Scalar())) asce.push_back(name.node.Scalar());
+    const bool sds_missing = !asce.empty() && seismic != project.load_cases.end() && !settings.sds;
+    if (sds_missing)
+      diag_.error(at(n), fmt::format("{}.sds: missing; expected SDS (in g) for the vertical "
+                                     "seismic effect Ev = 0.2·SDS·D of ASCE/SEI 7-16 §12.4.2.2, "
+                                     "because load case '{}' is seismic (write generate: "
+                                     "{{codes: [{}], sds: …}}; sds: 0 leaves Ev out)",
+                                     n.path, seismic->id, list_of(asce)));
     for (const auto& name : names) {
       const std::string generator = name.node.IsScalar() ? name.node.Scalar() : scalar_text(name.node);
+      if (sds_missing && is_asce(generator)) continue;
       try {
-        const auto generated = generate_combinations(generator, cases);
+        const auto generated = generate_combinations(generator, cases, settings);
         for (const auto& g : generated.combinations) {
           Combination combo;
           combo.id = g.id;
           combo.where = at(name);
           combo.limit_state = g.limit_state;
+          combo.resistance_set = g.resistance_set;
           combo.generator = generator;
           for (const auto& [case_id, factor] : g.factors) {
             for (std::size_t i = 0; i < project.load_cases.size(); ++i)
@@ -1276,6 +1329,33 @@ class Reader {
       } catch (const std::invalid_argument& e) {
         diag_.error(at(name), fmt::format("combinations.generate: {}", e.what()));
       }
+    }
+  }
+
+  // The EN 1997-1 keys of `combinations.generate` (how design resistances are obtained).
+  void read_en1997_settings(const Located& n, En1997Settings& en) {
+    if (auto kind = n.child("pile_kind"); kind.present()) {
+      en.pile_kind = choice<En1997PileKind>(kind, {{"driven", En1997PileKind::driven},
+                                                   {"bored", En1997PileKind::bored},
+                                                   {"cfa", En1997PileKind::cfa}});
+    }
+    if (auto profiles = number(n, "test_profiles", Quantity::number, Need::optional, Sign::any)) {
+      if (*profiles < 1 || *profiles != std::floor(*profiles))
+        diag_.error(at(n.child("test_profiles")),
+                    fmt::format("{}.test_profiles: expected a whole number of profiles of ground "
+                                "tests (1 or more), got '{}'",
+                                n.path, n.child("test_profiles").node.Scalar()));
+      else
+        en.test_profiles = static_cast<int>(*profiles);
+    }
+    if (auto rigid = flag(n, "rigid_cap")) en.rigid_cap = *rigid;
+    if (auto factor = number(n, "model_factor", Quantity::number, Need::optional)) {
+      if (*factor < 1.0)
+        diag_.error(at(n.child("model_factor")),
+                    fmt::format("{}.model_factor: expected a factor of 1.0 or more, got '{}'",
+                                n.path, n.child("model_factor").node.Scalar()));
+      else
+        en.model_factor = *factor;
     }
   }
 

@@ -113,6 +113,30 @@ const char* to_string(LoadKind k) {
     case LoadKind::fluid: return "fluid";
     case LoadKind::temperature: return "temperature";
     case LoadKind::other: return "other";
+    case LoadKind::wearing_surface: return "wearing_surface";
+    case LoadKind::vertical_earth: return "vertical_earth";
+    case LoadKind::collision: return "collision";
+  }
+  return "?";
+}
+
+const char* to_string(ResistanceSet r) {
+  switch (r) {
+    case ResistanceSet::basis: return "basis";
+    case ResistanceSet::en1997_r1: return "EN 1997 R1";
+    case ResistanceSet::en1997_r2: return "EN 1997 R2";
+    case ResistanceSet::en1997_r3: return "EN 1997 R3";
+    case ResistanceSet::en1997_r4: return "EN 1997 R4";
+    case ResistanceSet::aashto_extreme: return "AASHTO extreme event";
+  }
+  return "?";
+}
+
+const char* to_string(En1997PileKind k) {
+  switch (k) {
+    case En1997PileKind::driven: return "driven";
+    case En1997PileKind::bored: return "bored";
+    case En1997PileKind::cfa: return "cfa";
   }
   return "?";
 }

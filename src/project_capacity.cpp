@@ -6,6 +6,7 @@
 
 #include <fmt/format.h>
 
+#include "cairn/code_resistance.hpp"
 #include "cairn/diagnostics.hpp"
 #include "cairn/lateral.hpp"
 
@@ -224,6 +225,7 @@ std::vector<std::optional<ComputedResistance>> computed_resistances(
     ComputedResistance r;
     r.allowable_lateral = lateral[t]->allowable;
     r.factored_lateral = lateral[t]->factored;
+    r.ultimate_lateral = lateral[t]->ultimate;
     r.lateral_method = lateral[t]->method;
     out[t] = r;
   }
@@ -236,6 +238,24 @@ std::vector<std::optional<ComputedResistance>> computed_resistances(
     r.method = method_summary(project.pile_types[c.type].design);
     for (std::size_t i = 0; i < c.result.limits.size(); ++i)
       r.method += (i == 0 ? "; limits that governed: " : ", ") + c.result.limits[i];
+    r.ultimate_tip = c.result.tip;
+    r.ultimate_shaft = c.result.shaft;
+    r.ultimate_uplift = c.result.uplift_shaft;
+    const PileDesign& d = project.pile_types[c.type].design;
+    r.aashto_phi = !d.phi_tip || !d.phi_shaft || !d.phi_uplift;
+    // EN 1997 design approach 3: the capacity again with set M2 (code_resistance.hpp).
+    const bool m2_needed = std::any_of(
+        project.combinations.begin(), project.combinations.end(),
+        [](const Combination& combo) { return combo.resistance_set == ResistanceSet::en1997_r3; });
+    if (m2_needed && project.soil && en1997_m2_applies(d)) {
+      const SoilProfile m2 = en1997_m2_profile(*project.soil);
+      if (validate_design(m2, c.geometry, d).empty()) {
+        const CapacityResult m2_result = pile_capacity(m2, c.geometry, d);
+        r.m2_tip = m2_result.tip;
+        r.m2_shaft = m2_result.shaft;
+        r.m2_uplift = m2_result.uplift_shaft;
+      }
+    }
     out[c.type] = r;
   }
   return out;

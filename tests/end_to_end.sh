@@ -459,5 +459,51 @@ expect_in "bored caution on stderr" "$work/err" "bored.yaml:12:5: warning: pile_
 expect_in "bored tip reduced" "$work/out" "bored = 0.333"
 expect_in "bored factors' table named" "$work/out" "10.5.5.2.3-1 (driven piles) or 10.5.5.2.4-1 (drilled shafts), the one that holds each method"
 
+# ---- Code combinations that can govern piles: EN 1997 design approach 1 with its
+# resistance sets, AASHTO LRFD with extreme-event resistance factors, ASCE 7 without SDS.
+expect_status "EN 1997 DA1" 0 check "$data/e2e/en1997.yaml"
+expect_in "DA1 combination 2 generated" "$work/out" "DA1-C2-L+W(Wx)   strength    1.0·G + 1.3·Q + 0.78·Wx"
+expect_in "R4 factors of CFA piles stated" "$work/out" "cfa pile factors (EN 1997-1 Table A.8); computed from the soil: base ÷ γb 1.45, shaft ÷ γs 1.3, tension shaft ÷ γs;t 1.6"
+expect_in "ξ3 with the rigid cap stated" "$work/out" "ξ = max(ξ3 1.33, ξ4 1.23) ÷ 1.1 for the rigid cap"
+expect_status "EN 1997 DA1 --format json" 0 check "$data/e2e/en1997.yaml" --format json
+if python3 - "$work/out" <<'PY'
+import json, sys
+doc = json.load(open(sys.argv[1]))
+ids = [c["id"] for c in doc["combinations"]]
+assert "DA1-C1-G" in ids and "DA1-C2-W(Wx)-inf" in ids, ids
+PY
+then ok; else bad "EN 1997 combinations missing from the json"; fi
+cp "$work/out" "$work/en1997.json"
+expect_status "EN 1997 capacity --format json" 0 capacity "$data/e2e/en1997.yaml" --format json
+# R_c;d = (R_b/γb + R_s/γs)/ξ with CFA R1 (γb 1.1, γs 1.0) and R4 (γb 1.45, γs 1.3), ξ = 1.33/1.1
+# (EN 1997-1:2004 eq. 7.6, Tables A.8 and A.10, from memory), against axial/utilization.
+if python3 - "$work/out" "$work/en1997.json" <<'PY'
+import json, math, sys
+cap = json.load(open(sys.argv[1]))["pile_types"][0]
+check = json.load(open(sys.argv[2]))
+xi = 1.33 / 1.1
+want = {"DA1-C1-G": (cap["tip"] / 1.1 + cap["shaft"] / 1.0) / xi,
+        "DA1-C2-G": (cap["tip"] / 1.45 + cap["shaft"] / 1.3) / xi}
+seen = 0
+for c in check["combinations"]:
+    if c["id"] in want:
+        seen += 1
+        p = c["piles"][0]
+        got = p["axial"] / p["utilization"]
+        if not math.isclose(got, want[c["id"]], rel_tol=1e-9):
+            sys.exit(f"{c['id']}: resistance {got} != {want[c['id']]}")
+if seen != 2:
+    sys.exit("DA1-C1-G or DA1-C2-G missing")
+PY
+then ok; else bad "EN 1997 design resistance differs from (R_b/γb + R_s/γs)/ξ"; fi
+expect_status "EN 1997 DA3" 0 check "$data/e2e/en1997_da3.yaml"
+expect_in "DA3: earth pressure at A2" "$work/out" "DA3-L       strength    1.35·G + 1.0·H + 1.5·Q"
+expect_in "DA3: R3 with M2 stated" "$work/out" "driven pile factors (EN 1997-1 Table A.6); computed from the soil with set M2 (tan φ' and tan δ ÷ 1.25, cu ÷ 1.4): base ÷ γb 1, shaft ÷ γs 1, tension shaft ÷ γs;t 1.1, each ÷ ξ 1 × γRd 1.4"
+expect_status "AASHTO LRFD" 0 check "$data/e2e/aashto.yaml"
+expect_in "Extreme Event I with minimum γp" "$work/out" "EXT-I-min(EQ)   strength    0.9·DC + 0.65·DW + 0.5·LL + 1.0·EQ"
+expect_in "extreme-event φ stated" "$work/out" "Pile type HP: AASHTO extreme event resistances compression 2400.0 kN, tension 720.0 kN, lateral 300.0 kN: ultimate given × φ 1 (compression, lateral), 0.8 (uplift)"
+expect_status "ASCE 7 seismic without SDS" 2 check "$data/e2e/bad_sds.yaml"
+expect_in "SDS asked for, located" "$work/err" "bad_sds.yaml:14:13: error: combinations.generate.sds: missing; expected SDS (in g) for the vertical seismic effect Ev = 0.2·SDS·D of ASCE/SEI 7-16 §12.4.2.2, because load case 'E' is seismic"
+
 echo "$passed passed, $failed failed"
 [ "$failed" -eq 0 ]

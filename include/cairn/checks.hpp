@@ -17,6 +17,7 @@
 #pragma once
 
 #include <cstddef>
+#include <map>
 #include <optional>
 #include <string>
 #include <vector>
@@ -38,6 +39,11 @@ struct Resistance {
 struct PileTypeResistance {
   Resistance allowable;  // for service combinations
   Resistance factored;   // for strength combinations
+  // For combinations a code generator tagged with a resistance set (code_resistance.hpp).
+  std::map<ResistanceSet, Resistance> by_set;
+  // The factored resistance uses cairn's AASHTO LRFD φ defaults (computed from the soil, no
+  // phi_* given): load factors of another code meet AASHTO's resistance factors.
+  bool aashto_phi = false;
 };
 
 // Capacity computed from the soil for one pile type (see capacity.hpp), kN.
@@ -48,6 +54,11 @@ struct ComputedResistance {
   // Lateral by Broms (1964) from the soil at the pile head, when computed.
   std::optional<double> allowable_lateral, factored_lateral;
   std::string lateral_method;
+  // Ultimate (unfactored) values, for code resistance sets (code_resistance.hpp).
+  std::optional<double> ultimate_tip, ultimate_shaft, ultimate_uplift, ultimate_lateral;
+  // The same with the soil's strength factored by EN 1997-1 set M2 (design approach 3).
+  std::optional<double> m2_tip, m2_shaft, m2_uplift;
+  bool aashto_phi = false;  // factored_* use AASHTO φ defaults (no phi_* given)
 };
 
 // Default factors of safety for capacities given as ultimate (common practice: 2.5 in
@@ -60,7 +71,8 @@ inline constexpr double kDefaultSafetyTension = 3.0;
 std::vector<PileTypeResistance> resolve_resistances(
     const Project& project, const std::vector<std::optional<ComputedResistance>>& computed);
 
-// Combinations that need a basis some pile type in use lacks; empty when all can be checked.
+// Combinations that need a basis (or a code resistance set) some pile type in use lacks;
+// empty when all can be checked.
 std::vector<Diagnostic> missing_resistances(const Project& project,
                                             const std::vector<PileTypeResistance>& resistances);
 

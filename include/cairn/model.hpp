@@ -162,8 +162,11 @@ struct Column {
   std::string support;         // support name in the imported reactions
 };
 
+// wearing_surface (AASHTO DW), vertical_earth (AASHTO EV) and collision (AASHTO CT/CV) are
+// for the AASHTO generator; ASCE 7 and EN 1990 take the first two as dead load.
 enum class LoadKind {
-  dead, live, roof_live, snow, rain, wind, seismic, earth, fluid, temperature, other
+  dead, live, roof_live, snow, rain, wind, seismic, earth, fluid, temperature, other,
+  wearing_surface, vertical_earth, collision
 };
 
 struct LoadCase {
@@ -174,10 +177,29 @@ struct LoadCase {
   std::vector<PointLoad> loads;
 };
 
+// The resistances a combination is compared with. `basis`: the limit state's own basis
+// (allowable for service, factored for strength). The others belong to code-generated
+// combinations (code_resistance.hpp): EN 1997-1 resistance sets R1–R4 (Annex A, Tables
+// A.6–A.8), and AASHTO LRFD's extreme-event resistance factors (§10.5.5.3.3).
+enum class ResistanceSet { basis, en1997_r1, en1997_r2, en1997_r3, en1997_r4, aashto_extreme };
+
+// Pile kinds of EN 1997-1 Annex A (Tables A.6 driven, A.7 bored, A.8 continuous flight auger).
+enum class En1997PileKind { driven, bored, cfa };
+
+// How EN 1997-1 design resistances are obtained (`combinations.generate` keys; defaults in
+// code_resistance.hpp, every one printed as an assumption).
+struct En1997Settings {
+  std::optional<En1997PileKind> pile_kind;  // all pile types; default: from each installation
+  std::optional<int> test_profiles;         // n of Table A.10: ξ3/ξ4 apply when given
+  bool rigid_cap = false;                   // ξ ÷ 1.1, EN 1997-1 §7.6.2.3(7)
+  std::optional<double> model_factor;       // γRd on resistances computed from the soil
+};
+
 struct Combination {
   std::string id;
   SourceLocation where;
   LimitState limit_state = LimitState::service;
+  ResistanceSet resistance_set = ResistanceSet::basis;
   std::vector<std::pair<std::size_t, double>> factors;  // (load case index, factor)
   std::string generator;  // the code generator that built it ("asce7-asd"), or empty
 };
@@ -217,12 +239,15 @@ struct Project {
   std::string loads_file;  // reactions CSV the loads came from, if any
   GroupSettings group;
   std::vector<std::string> notes;  // choices made while reading (e.g. by a combination generator)
+  En1997Settings en1997;           // used by combinations with an EN 1997 resistance set
   std::vector<Warning> warnings;   // cautions found while reading, in the order found
 };
 
 const char* to_string(LimitState);
 const char* to_string(CapacityBasis);
 const char* to_string(LoadKind);
+const char* to_string(ResistanceSet);
+const char* to_string(En1997PileKind);
 const char* to_string(SectionShape);
 
 // Sum of all loads in a case, as a wrench about the global origin (0, 0, 0).

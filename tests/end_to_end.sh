@@ -287,5 +287,32 @@ expect_in "generated combinations listed" "$work/out" "generated: asce7-lrfd"
 expect_status "unknown generator" 2 check "$data/e2e/bad_generator.yaml"
 expect_in "valid generators listed" "$work/err" "asce7-asd"
 
+# ---- Robustness: inputs that once crashed or hung are located input errors (exit 2).
+robust="$data/robust"
+expect_status "alias cycle" 2 check "$robust/alias_cycle.yaml"
+expect_in "alias cycle named" "$work/err" "alias_cycle.yaml:3:8: error: x.a: an alias refers to a map or list that contains it (a cycle)"
+expect_status "alias bomb" 2 check "$robust/alias_bomb.yaml"
+expect_in "alias bomb refused" "$work/err" "alias_bomb.yaml:6:5: error: a4: aliases expand this to more than 102636 values"
+python3 -c 'import sys; n=100000; open(sys.argv[1], "w").write("x: " + "[" * n + "]" * n + "\n")' "$work/deep.yaml"
+expect_status "100,000 nested lists" 2 check "$work/deep.yaml"
+expect_in "nesting limit named" "$work/err" "deep.yaml:1:203: error: lists and maps nested deeper than 200 levels"
+python3 -c 'import sys; n=100000; open(sys.argv[1], "w").write("x: " + "{a: " * n + "1" + "}" * n + "\n")' "$work/deep.yaml"
+expect_status "100,000 nested maps" 2 check "$work/deep.yaml"
+expect_status "key that is a list" 2 check "$robust/list_key.yaml"
+expect_in "list key located" "$work/err" "list_key.yaml:3:3: error: expected a name as a key, got a list"
+expect_status "column without at" 2 check "$robust/column_without_at.yaml"
+expect_in "column without at located" "$work/err" "column_without_at.yaml:24:5: error: columns[0].at: expected [x, y] or [x, y, z] in m, got nothing"
+expect_status "huge loads" 2 check "$robust/huge_loads.yaml"
+expect_in "1e308 kip refused" "$work/err" "huge_loads.yaml:20:44: error: load_cases.L.loads[0].Fz: expected a force in kN no larger than 1e+12 in magnitude, got '-1e308 kip'"
+expect_status "tab in indentation" 2 check "$robust/tab_indent.yaml"
+expect_in "tab named" "$work/err" "tab_indent.yaml:5:1: error: tab character in indentation; YAML indents with spaces"
+for step in 1e-9 0 -1 nan inf; do
+  expect_status "capacity --step $step" 2 capacity "$data/e2e/soil.yaml" --step "$step"
+done
+expect_in "a table too long is refused" "$work/err" "--step: expected a positive length in m no larger than 1e+07, got 'inf'"
+run capacity "$data/e2e/soil.yaml" --step 1e-9
+expect_in "rows counted, shortest step given" "$work/err" "would have 25000001001 rows, more than 10000; use a step of at least 0.0025 m"
+expect_status "capacity --from inf" 2 capacity "$data/e2e/soil.yaml" --from inf
+
 echo "$passed passed, $failed failed"
 [ "$failed" -eq 0 ]

@@ -3,6 +3,7 @@
 #include <algorithm>
 #include <cmath>
 #include <limits>
+#include <map>
 #include <set>
 
 #include <fmt/format.h>
@@ -132,18 +133,28 @@ std::vector<Diagnostic> missing_resistances(const Project& project,
   std::vector<Diagnostic> problems;
   std::set<std::size_t> used;
   for (const Pile& pile : project.piles) used.insert(pile.type);
-  for (const Combination& combo : project.combinations) {
-    const bool service = combo.limit_state == LimitState::service;
+  // One problem per limit state and pile type, at the first combination it concerns and
+  // naming the others: a missing capacity is reported once, not once per combination.
+  std::map<LimitState, std::vector<const Combination*>> by_state;
+  for (const Combination& combo : project.combinations) by_state[combo.limit_state].push_back(&combo);
+  for (const auto& [state, combos] : by_state) {
+    const bool service = state == LimitState::service;
     for (std::size_t t : used) {
       const Resistance& r = service ? resistances[t].allowable : resistances[t].factored;
       if (r.compression) continue;
+      constexpr std::size_t kNamed = 3;
+      std::string names = combos.front()->id;
+      for (std::size_t i = 1; i < std::min(combos.size(), kNamed); ++i) names += ", " + combos[i]->id;
+      if (combos.size() > kNamed) names += fmt::format(" and {} more", combos.size() - kNamed);
+      const std::string what =
+          combos.size() == 1 ? fmt::format("a {} combination is", to_string(state))
+                             : fmt::format("{} {} combinations are", combos.size(), to_string(state));
       problems.push_back(
-          {combo.where,
-           fmt::format("combinations.{}: a {} combination is compared with {} capacities, but "
+          {combos.front()->where,
+           fmt::format("combinations.{}: {} compared with {} capacities, but "
                        "pile type '{}' has no {} compression capacity; give capacity with "
                        "basis: {}{}",
-                       combo.id, to_string(combo.limit_state),
-                       service ? "allowable" : "factored", project.pile_types[t].id,
+                       names, what, service ? "allowable" : "factored", project.pile_types[t].id,
                        service ? "allowable" : "factored", service ? "allowable" : "factored",
                        service ? " (or basis: ultimate, divided by a factor of safety)"
                                : " (or basis: ultimate with resistance_factor)")});

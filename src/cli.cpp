@@ -334,6 +334,23 @@ int run_command_line(int argc, const char* const* argv, std::ostream& out, std::
   report->add_flag("--svg", options.plan_svg, "Also write the cap plan alone as SVG");
   report->add_flag("--tables", options.tables,
                    "Also write the tables as CSV and Markdown (report.md, *.csv per cap)");
+  // CLI11 takes an unknown command for a stray argument ("A subcommand is required");
+  // name it and suggest the nearest command instead.
+  if (argc > 1 && argv[1][0] != '-') {
+    std::vector<std::string> names;
+    for (const CLI::App* command : {check, capacity, springs, report})
+      names.push_back(command->get_name());
+    const std::string given = argv[1];
+    if (std::find(names.begin(), names.end(), given) == names.end()) {
+      const std::string near = closest_match(given, names);
+      std::string list;
+      for (const auto& name : names) list += (list.empty() ? "" : ", ") + name;
+      err << "cairn: error: unknown command '" << given << "'; "
+          << (near.empty() ? "expected one of: " + list : "did you mean '" + near + "'?") << "\n"
+          << "Run 'cairn --help' for usage.\n";
+      return kExitBadInput;
+    }
+  }
   try {
     app.parse(argc, argv);
   } catch (const CLI::CallForHelp& e) {

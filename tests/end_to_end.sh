@@ -314,5 +314,14 @@ run capacity "$data/e2e/soil.yaml" --step 1e-9
 expect_in "rows counted, shortest step given" "$work/err" "would have 25000001001 rows, more than 10000; use a step of at least 0.0025 m"
 expect_status "capacity --from inf" 2 capacity "$data/e2e/soil.yaml" --from inf
 
+python3 -c 'import sys; open(sys.argv[1], "w").write(open(sys.argv[2]).read().replace("  - {id: A2, x: 1.35, y: -1.35, type: PC45}\n", "  - {id: A0, x: 0, y: 0, type: PC45}\n" * 5000))' "$work/same.yaml" "$data/base.yaml"
+expect_status "5,000 piles at one point" 2 check "$work/same.yaml"
+expect_in "the rest counted" "$work/err" "error: piles: … and 4994 more piles at positions already used"
+if [ "$(wc -l <"$work/err")" -le 12 ]; then ok; else bad "same position: $(wc -l <"$work/err") lines of messages"; fi
+expect_status "missing capacity, generated combinations" 2 check "$robust/missing_factored_once.yaml"
+if [ "$(wc -l <"$work/err")" -eq 1 ]; then ok; else bad "missing capacity reported $(wc -l <"$work/err") times"; fi
+expect_status "unknown command" 2 chek "$data/base.yaml"
+expect_in "nearest command suggested" "$work/err" "cairn: error: unknown command 'chek'; did you mean 'check'?"
+
 echo "$passed passed, $failed failed"
 [ "$failed" -eq 0 ]

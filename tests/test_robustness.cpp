@@ -10,6 +10,7 @@
 #include <fstream>
 #include <string>
 
+#include "cairn/analysis.hpp"
 #include "cairn/capacity.hpp"
 #include "cairn/input.hpp"
 #include "cairn/units.hpp"
@@ -155,4 +156,44 @@ TEST_CASE("robustness: the capacity-with-depth table is bounded", "[robustness]"
   CHECK(depth_table_rows(28.0, 0.5, 3.0) == 51.0);
   CHECK(depth_table_rows(28.0, 1e-9, 3.0) > static_cast<double>(kMaxDepthRows));
   CHECK(depth_table_rows(28.0, 0.5, 30.0) == 0.0);
+}
+
+TEST_CASE("robustness: piles at one position are reported a few at a time, counted after",
+          "[robustness]") {
+  // 5,000 piles at one point once printed 12.5 million lines, one per pair.
+  std::string text =
+      "title: One point\nunits: SI\ncap: {thickness: 1.2}\npile_types:\n"
+      "  P: {section: {shape: square, width: 0.45}, length: 18, elastic_modulus: 3.0e7, "
+      "capacity: {compression: 1400}}\npiles:\n";
+  for (int i = 0; i < 5000; ++i) text += "  - {id: P" + std::to_string(i) + ", x: 0, y: 0, type: P}\n";
+  text += "load_cases:\n  D: {kind: dead, loads: [{at: [0, 0], Fz: -100}]}\n"
+          "combinations:\n  S1: {limit_state: service, factors: {D: 1.0}}\n";
+  const TemporaryFile f("same.yaml", text);
+  try {
+    read_project(f.name());
+    FAIL("expected an InputError");
+  } catch (const InputError& e) {
+    const auto& list = e.diagnostics();
+    REQUIRE(list.size() == 6);
+    CHECK(list[0].format() == f.name() + ":8:5: error: piles[1]: pile 'P1' is at the same "
+                                         "position as pile 'P0'");
+    CHECK(list[5].format() == f.name() + ":7:3: error: piles: … and 4994 more piles at "
+                                         "positions already used");
+  }
+}
+
+TEST_CASE("robustness: a missing capacity is one problem, not one per combination",
+          "[robustness]") {
+  // asce7-lrfd gives two strength combinations of D and L (ASCE 7-16, section 2.3.1).
+  std::string message;
+  try {
+    analyse_project(kRobust + "missing_factored_once.yaml");
+  } catch (const InputError& e) {
+    message = e.what();
+  }
+  CHECK(message ==
+        kRobust + "missing_factored_once.yaml:23:13: error: combinations.LRFD-1, LRFD-2: 2 "
+                  "strength combinations are compared with factored capacities, but pile type "
+                  "'PC45' has no factored compression capacity; give capacity with basis: "
+                  "factored (or basis: ultimate with resistance_factor)");
 }

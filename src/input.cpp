@@ -185,6 +185,9 @@ struct Entry {
 struct Merged {
   std::map<std::string, Entry> sections;
   std::map<std::string, std::vector<Entry>> named;  // pile_types, load_cases, combinations
+  // Position of each entry in `named`, by section and name: merging stays linear in the
+  // number of entries (a search of the list for each made 500,000 load cases a hang).
+  std::map<std::string, std::unordered_map<std::string, std::size_t>> named_index;
   std::map<std::string, UnitSystem> file_units;
   std::set<std::string> files;  // keeps the file names alive for Located::file
 };
@@ -325,19 +328,20 @@ class Reader {
       const SourceLocation where = location_of(it->first, file);
       if (kNamedSections.count(name) && value.node.IsMap()) {
         auto& entries = merged.named[name];
+        auto& index = merged.named_index[name];
         for (auto e = value.node.begin(); e != value.node.end(); ++e) {
           const std::string entry_name = e->first.as<std::string>();
           Entry entry{entry_name, {e->second, &file, name + "." + entry_name},
                       location_of(e->first, file)};
-          auto same = std::find_if(entries.begin(), entries.end(),
-                                   [&](const Entry& x) { return x.name == entry_name; });
-          if (same != entries.end()) *same = entry;
-          else entries.push_back(entry);
+          const auto [same, fresh] = index.emplace(entry_name, entries.size());
+          if (fresh) entries.push_back(entry);
+          else entries[same->second] = entry;
         }
         merged.sections[name] = {name, value, where};
       } else {
         merged.sections[name] = {name, value, where};
         merged.named.erase(name);
+        merged.named_index.erase(name);
       }
     }
   }

@@ -63,13 +63,11 @@ TEST_CASE("robustness: aliases are walked once, never in a cycle or beyond a bud
                     "contains it (a cycle); an alias may only repeat a complete earlier value");
   }
   SECTION("ten nested aliases of ten (10^10 values in 659 bytes)") {
-    const auto start = std::chrono::steady_clock::now();
+    // Refused while walking, not after expanding (expanding would take hours).
     CHECK(error_for(kRobust + "alias_bomb.yaml") ==
           kRobust + "alias_bomb.yaml:6:5: error: a4: aliases expand this to more than 102636 "
                     "values, the limit for a file of 659 bytes; write the values out or nest "
                     "fewer aliases");
-    // Refused while walking, not after expanding: well under a second on any machine.
-    CHECK(std::chrono::steady_clock::now() - start < std::chrono::seconds(5));
   }
   SECTION("an alias used as intended reads as the value it repeats") {
     const Project p = read_project(kRobust + "alias_ok.yaml");

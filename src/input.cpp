@@ -500,7 +500,13 @@ class Reader {
 
   std::optional<double> number(const Located& parent, const std::string& key, Quantity q,
                                Need need = Need::required, Sign sign = Sign::positive) {
-    const Located n = parent.child(key);
+    return number_at(parent, parent.child(key), q, need, sign);
+  }
+
+  // number() for a child `n` of `parent` already found (yaml-cpp looks a key up by a
+  // linear search, so a loop over a map's entries passes each entry's node).
+  std::optional<double> number_at(const Located& parent, const Located& n, Quantity q,
+                                  Need need = Need::required, Sign sign = Sign::positive) {
     const UnitSystem units = units_of(parent);
     const std::string sign_word = sign == Sign::positive       ? "a positive "
                                   : sign == Sign::non_negative ? "a non-negative "
@@ -1149,7 +1155,8 @@ class Reader {
       }
       for (auto it = factors.node.begin(); it != factors.node.end(); ++it) {
         const std::string name = it->first.Scalar();
-        const auto factor = number(factors, name, Quantity::number, Need::required, Sign::any);
+        const Located entry{it->second, factors.file, factors.path + "." + name, factors.mark()};
+        const auto factor = number_at(factors, entry, Quantity::number, Need::required, Sign::any);
         auto found = case_index.find(name);
         if (found == case_index.end()) {
           const std::string near = closest_match(name, keys_of(case_index));

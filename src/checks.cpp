@@ -254,6 +254,7 @@ std::vector<std::string> assumptions(
     const Project& project, const std::vector<PileTypeResistance>& resistances,
     const std::vector<std::pair<std::string, std::string>>& stiffness_sources) {
   std::vector<std::string> list;
+  for (const auto& warning : project.warnings) list.push_back(warning_note(warning));
   list.push_back("The cap is rigid: it moves as one body with six degrees of freedom.");
   list.push_back("Pile heads act on the cap as an axial spring along the pile and a lateral "
                  "spring across it; no moment is transferred to the cap.");

@@ -92,9 +92,14 @@ CapSummaryRow summary_row(const CheckRun& run) {
   return row;
 }
 
+// Warnings never change the exit status: they go to stderr (and into the reports' notes).
+void print_warnings(const Project& project, std::ostream& err) {
+  for (const auto& w : project.warnings) err << "cairn: " << format_warning(w) << "\n";
+}
+
 // Several caps: every file is checked (in parallel), then one summary table. Input
 // problems in any file stop the run before anything is written.
-int run_batch(const Options& options, std::ostream& out) {
+int run_batch(const Options& options, std::ostream& out, std::ostream& err) {
   if (options.explain_pile) throw InputError({}, "--explain: give a single project file");
   const auto outcomes = analyse_all(options.files);
   std::vector<CapSummaryRow> rows;
@@ -102,6 +107,7 @@ int run_batch(const Options& options, std::ostream& out) {
   bool pass = true;
   std::set<std::string> stems;
   const std::string described = describe_options(options);
+  for (const auto& o : outcomes) print_warnings(o.run->project, err);
   for (const auto& o : outcomes) {
     rows.push_back(summary_row(*o.run));
     pass = pass && rows.back().pass;
@@ -122,12 +128,13 @@ int run_batch(const Options& options, std::ostream& out) {
   return pass ? kExitPass : kExitFail;
 }
 
-int run_check(const Options& options, std::ostream& out) {
+int run_check(const Options& options, std::ostream& out, std::ostream& err) {
   // Several files, or a foundation file listing caps: the batch summary.
-  if (options.files.size() != 1) return run_batch(options, out);
+  if (options.files.size() != 1) return run_batch(options, out, err);
   const auto caps = expand_foundation(options.files.front());
-  if (caps.size() != 1 || caps.front() != options.files.front()) return run_batch(options, out);
+  if (caps.size() != 1 || caps.front() != options.files.front()) return run_batch(options, out, err);
   const CheckRun run = analyse_project(options.files.front());
+  print_warnings(run.project, err);
   const CheckReport report = make_check_report(run, describe_options(options), options.explain_pile);
   const std::string rendered = render_check(report, options.format);
   if (options.out_dir) write_files_atomically(*options.out_dir, check_files(report));
@@ -174,9 +181,10 @@ void check_depth_table(const Project& project, const Options& options, double st
                                    from_si(u, Quantity::length, shortest_step), unit));
 }
 
-int run_capacity(const Options& options, std::ostream& out) {
+int run_capacity(const Options& options, std::ostream& out, std::ostream& err) {
   if (options.files.size() != 1) throw InputError({}, "capacity: expected one project file");
   const Project project = read_project(options.files.front());
+  print_warnings(project, err);
   const UnitSystem u = project.units;
   const DepthTable table = default_depth_table(u);
   const double step = options.depth_step ? *options.depth_step * to_si_factor(u, Quantity::length)
@@ -209,9 +217,10 @@ std::string group_section_html(const CheckReport& report) {
 
 // The calculation package: one self-contained HTML file per cap (plus, when asked, the
 // plan alone as SVG and the tables as CSV and Markdown), all written at once.
-int run_report(const Options& options, std::ostream& out) {
+int run_report(const Options& options, std::ostream& out, std::ostream& err) {
   if (!options.out_dir) throw InputError({}, "report: expected --out DIR for the report files");
   const auto outcomes = analyse_all(options.files);
+  for (const auto& o : outcomes) print_warnings(o.run->project, err);
   const std::string described = describe_options(options);
   std::vector<std::pair<std::string, std::string>> written;
   bool pass = true;
@@ -245,9 +254,10 @@ int run_report(const Options& options, std::ostream& out) {
   return pass ? kExitPass : kExitFail;
 }
 
-int run_springs(const Options& options, std::ostream& out) {
+int run_springs(const Options& options, std::ostream& out, std::ostream& err) {
   if (options.files.size() != 1) throw InputError({}, "springs: expected one project file");
   const Project project = read_project(options.files.front());
+  print_warnings(project, err);
   const auto stiffness = pile_type_stiffness(project, compute_capacities(project));
   out << render_springs(project, stiffness, options.format, describe_options(options));
   return kExitPass;
@@ -258,10 +268,10 @@ int run_springs(const Options& options, std::ostream& out) {
 int run(const Options& options, std::ostream& out, std::ostream& err) {
   try {
     switch (options.command) {
-      case Command::check: return run_check(options, out);
-      case Command::capacity: return run_capacity(options, out);
-      case Command::springs: return run_springs(options, out);
-      case Command::report: return run_report(options, out);
+      case Command::check: return run_check(options, out, err);
+      case Command::capacity: return run_capacity(options, out, err);
+      case Command::springs: return run_springs(options, out, err);
+      case Command::report: return run_report(options, out, err);
     }
     return kExitBadInput;
   } catch (const InputError& e) {

@@ -30,13 +30,23 @@ std::size_t edit_distance(const std::string& a, const std::string& b) {
   return row[b.size()];
 }
 
-}  // namespace
-
-std::string Diagnostic::format() const {
+std::string located(const SourceLocation& where) {
   std::string text = where.file.empty() ? std::string("<input>") : where.file;
   if (where.line > 0) text += ":" + std::to_string(where.line);
   if (where.column > 0) text += ":" + std::to_string(where.column);
-  return text + ": error: " + message;
+  return text;
+}
+
+}  // namespace
+
+std::string Diagnostic::format() const { return located(where) + ": error: " + message; }
+
+std::string format_warning(const Warning& warning) {
+  return located(warning.where) + ": warning: " + warning.message;
+}
+
+std::string warning_note(const Warning& warning) {
+  return "Warning: " + warning.message + " (" + located(warning.where) + ")";
 }
 
 InputError::InputError(std::vector<Diagnostic> diagnostics)

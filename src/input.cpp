@@ -17,6 +17,7 @@
 #include "cairn/capacity.hpp"
 #include "cairn/combinations.hpp"
 #include "cairn/group.hpp"
+#include "cairn/reactions_csv.hpp"
 
 namespace cairn {
 namespace {
@@ -647,12 +648,18 @@ class Reader {
                                                 section("pile_types")->value, project);
     if (const Entry* piles = required("piles")) read_piles(piles->value, project);
     if (const Entry* columns = section("columns")) read_columns(columns->value, project);
-    if (required("load_cases"))
+    // Reactions imported as combinations (loads_from.combinations) may be all the loads.
+    const Entry* from = section("loads_from");
+    const bool imports_combinations =
+        from && from->value.node.IsMap() && from->value.child("combinations").present();
+    if (imports_combinations ? section("load_cases") != nullptr : required("load_cases") != nullptr)
       read_load_cases(merged.named["load_cases"], section("load_cases")->value, project);
-    if (const Entry* from = section("loads_from")) read_reactions(from->value, project);
-    if (required("combinations"))
+    if (imports_combinations ? section("combinations") != nullptr
+                             : required("combinations") != nullptr)
       read_combinations(merged.named["combinations"], section("combinations")->value, project);
+    if (from) read_reactions(from->value, project);
     if (diag_.empty()) add_self_weight(project);
+    if (diag_.empty()) warn_unused_load_cases(project);
     diag_.raise_if_any();
     return project;
   }
@@ -1203,11 +1210,12 @@ class Reader {
     }
   }
 
-  // Column reactions exported from the structural model: one row per support and load
-  // case, header `support,case,Fx,Fy,Fz,Mx,My,Mz` in any order (extra columns ignored).
+  // Column reactions exported from the structural model (the file is read by
+  // reactions_csv.hpp): one row per support and load case, or — with `combinations` — per
+  // support and already-factored combination.
   void read_reactions(const Located& n, Project& project) {
     if (!expect_map(n)) return;
-    check_keys(n, {"file", "sign", "units"});
+    check_keys(n, {"file", "sign", "units", "headers", "delimiter", "decimal", "combinations"});
     const auto file = text(n, "file");
     const auto sign = text(n, "sign");
     if (!file || !sign) return;
@@ -1220,13 +1228,36 @@ class Reader {
                                                    *sign));
       return;
     }
-    UnitSystem units = units_of(n);
+    ReactionsLayout layout;
+    layout.units = units_of(n);
     if (auto u = text(n, "units", Need::optional)) {
-      if (*u == "SI") units = UnitSystem::SI;
-      else if (*u == "US") units = UnitSystem::US;
+      if (*u == "SI") layout.units = UnitSystem::SI;
+      else if (*u == "US") layout.units = UnitSystem::US;
       else
         diag_.error(at(n.child("units")),
                     fmt::format("loads_from.units: expected 'SI' or 'US', got '{}'", *u));
+    }
+    if (auto d = text(n, "delimiter", Need::optional)) {
+      if (*d == "," || *d == ";") layout.delimiter = d->front();
+      else if (*d == "tab" || *d == "\t") layout.delimiter = '\t';
+      else
+        diag_.error(at(n.child("delimiter")),
+                    fmt::format("loads_from.delimiter: expected ',', ';' or tab, got '{}'", *d));
+    }
+    if (auto d = text(n, "decimal", Need::optional)) {
+      if (*d == "." || *d == ",") layout.decimal = d->front();
+      else
+        diag_.error(at(n.child("decimal")),
+                    fmt::format("loads_from.decimal: expected '.' or ',', got '{}'", *d));
+      if (layout.decimal == ',' && layout.delimiter == ',')
+        diag_.error(at(n.child("decimal")),
+                    "loads_from.decimal: a decimal comma needs another delimiter; set "
+                    "loads_from.delimiter: ';'");
+    }
+    if (const Located headers = n.child("headers"); headers.present() && expect_map(headers)) {
+      check_keys(headers, {kReactionColumns.begin(), kReactionColumns.end()});
+      for (const char* ours : kReactionColumns)
+        if (auto theirs = text(headers, ours, Need::optional)) layout.headers[ours] = *theirs;
     }
     if (project.columns.empty()) {
       diag_.error(at(n), "loads_from: needs columns: [{id, at, support}] to place the reactions");
@@ -1239,84 +1270,65 @@ class Reader {
       diag_.error(at(n.child("file")), fmt::format("loads_from.file: cannot open '{}'", path));
       return;
     }
+    std::stringstream content;
+    content << in.rdbuf();
     const std::string& csv_name = *files_->insert(path).first;
-    std::string line;
-    std::vector<std::string> header;
-    if (!std::getline(in, line)) {
-      diag_.error({csv_name, 1, 1}, "the reactions file is empty; expected a header row "
-                                    "support,case,Fx,Fy,Fz,Mx,My,Mz");
-      return;
-    }
-    header = split_csv(line);
-    const std::vector<std::string> wanted = {"support", "case", "Fx", "Fy", "Fz", "Mx", "My", "Mz"};
-    std::map<std::string, std::size_t> where;
-    for (std::size_t i = 0; i < header.size(); ++i) where[header[i]] = i;
-    bool complete = true;
-    for (const auto& w : wanted)
-      if (!where.count(w)) {
-        diag_.error({csv_name, 1, 1}, fmt::format("header: missing column '{}'; expected support, "
-                                                  "case, Fx, Fy, Fz, Mx, My, Mz (any order)",
-                                                  w));
-        complete = false;
-      }
-    if (!complete) return;
-    std::map<std::string, std::size_t> column_of, case_of;
+    const std::size_t problems_before = diag_.list().size();
+    const auto rows = read_reactions_csv(content.str(), csv_name, layout, diag_);
+    const bool file_read = diag_.list().size() == problems_before;
+
+    std::map<std::string, std::size_t> column_of;
     for (std::size_t i = 0; i < project.columns.size(); ++i)
       column_of[project.columns[i].support] = i;
-    for (std::size_t i = 0; i < project.load_cases.size(); ++i)
-      case_of[project.load_cases[i].id] = i;
+    const Located combinations = n.child("combinations");
+    const char* what = combinations.present() ? "combination" : "load case";
+    std::vector<ReactionRow> mapped;  // rows of this cap's supports
     std::set<std::string> seen_supports;
     std::map<std::pair<std::string, std::string>, int> seen_rows;  // (support, case) → row
-    int row = 1;
-    while (std::getline(in, line)) {
-      ++row;
-      if (line.find_first_not_of(" \t\r,") == std::string::npos) continue;
-      const auto cells = split_csv(line);
-      auto cell = [&](const std::string& name) -> std::string {
-        const std::size_t i = where[name];
-        return i < cells.size() ? cells[i] : std::string();
-      };
-      const std::string support = cell("support");
-      auto column = column_of.find(support);
-      if (column == column_of.end()) continue;  // another cap's support
-      seen_supports.insert(support);
-      const std::string case_id = cell("case");
-      auto lc = case_of.find(case_id);
-      if (lc == case_of.end()) {
-        diag_.error({csv_name, row, 0},
-                    fmt::format("row {}: load case '{}' is not listed under load_cases; add it "
-                                "with its kind (e.g. {}: {{kind: dead}})",
-                                row, case_id, case_id));
-        continue;
-      }
-      auto [earlier, fresh] = seen_rows.emplace(std::make_pair(support, case_id), row);
+    for (const auto& row : rows) {
+      if (!column_of.count(row.support)) continue;  // another cap's support
+      seen_supports.insert(row.support);
+      auto [earlier, fresh] = seen_rows.emplace(std::make_pair(row.support, row.load_case),
+                                                row.where.line);
       if (!fresh) {
-        diag_.error({csv_name, row, 0},
-                    fmt::format("row {}: support '{}' and load case '{}' were already given in "
-                                "row {}; expected one row per support and load case",
-                                row, support, case_id, earlier->second));
+        diag_.error(row.where,
+                    fmt::format("row {}: support '{}' and {} '{}' were already given in "
+                                "row {}; expected one row per support and {}",
+                                row.where.line, row.support, what, row.load_case,
+                                earlier->second, what));
         continue;
       }
+      mapped.push_back(row);
+    }
+    auto load_of = [&](const ReactionRow& row) {
+      const Column& column = project.columns[column_of[row.support]];
       PointLoad load;
-      load.where = {csv_name, row, 0};
-      load.at = project.columns[column->second].at;
-      load.note = "column " + project.columns[column->second].id;
-      bool ok = true;
-      for (std::size_t c = 0; c < 6; ++c) {
-        const std::string text_value = cell(kWrenchNames[c]);
-        const Quantity q = c < 3 ? Quantity::force : Quantity::moment;
-        const auto parsed = parse_quantity(text_value, q, units);
-        if (!parsed.si || text_value.find_first_not_of("0123456789.+-eE ") != std::string::npos) {
-          diag_.error({csv_name, row, 0},
-                      fmt::format("row {}, column '{}': expected a number ({}), got '{}'", row,
-                                  kWrenchNames[c], describe(q, units), text_value));
-          ok = false;
+      load.where = row.where;
+      load.at = column.at;
+      load.note = "column " + column.id;
+      for (std::size_t c = 0; c < 6; ++c) load.load[c] = factor * row.values[c];
+      return load;
+    };
+    if (combinations.present()) {
+      import_combinations(combinations, mapped, load_of, project);
+    } else {
+      std::map<std::string, std::size_t> case_of;
+      for (std::size_t i = 0; i < project.load_cases.size(); ++i)
+        case_of[project.load_cases[i].id] = i;
+      for (const auto& row : mapped) {
+        auto lc = case_of.find(row.load_case);
+        if (lc == case_of.end()) {
+          diag_.error(row.where,
+                      fmt::format("row {}: load case '{}' is not listed under load_cases; add it "
+                                  "with its kind (e.g. {}: {{kind: dead}}), or import the file's "
+                                  "cases as combinations (loads_from.combinations)",
+                                  row.where.line, row.load_case, row.load_case));
           continue;
         }
-        load.load[c] = factor * *parsed.si;
+        project.load_cases[lc->second].loads.push_back(load_of(row));
       }
-      if (ok) project.load_cases[lc->second].loads.push_back(load);
     }
+    if (!file_read) return;  // a support in a row with a problem is not missing
     for (const auto& column : project.columns)
       if (!column.support.empty() && !seen_supports.count(column.support))
         diag_.error(column.where, fmt::format("columns: support '{}' of column '{}' does not "
@@ -1324,34 +1336,174 @@ class Reader {
                                               column.support, column.id, path));
   }
 
-  static std::vector<std::string> split_csv(const std::string& line) {
-    std::vector<std::string> cells(1);
-    bool quoted = false;
-    for (std::size_t i = 0; i < line.size(); ++i) {
-      const char c = line[i];
-      if (quoted) {
-        if (c == '"' && i + 1 < line.size() && line[i + 1] == '"') {
-          cells.back() += '"';
-          ++i;
-        } else if (c == '"') {
-          quoted = false;
-        } else {
-          cells.back() += c;
+  // `loads_from.combinations`: each case of the CSV is an already-factored combination. It
+  // becomes a load case holding the reactions (factor 1) and a combination of that case plus
+  // the load cases typed in the file (the cap's self-weight among them), each with the factor
+  // the engineer gives for the combination's limit state. No factor is assumed.
+  template <typename LoadOf>
+  void import_combinations(const Located& n, const std::vector<ReactionRow>& rows,
+                           const LoadOf& load_of, Project& project) {
+    if (!expect_map(n)) return;
+    check_keys(n, {"limit_state", "factors"});
+    const std::map<std::string, LimitState> states = {
+        {"service", LimitState::service},
+        {"strength", LimitState::strength},
+        {"seismic-overstrength", LimitState::seismic_overstrength}};
+    struct Rule {
+      std::string pattern;
+      LimitState state;
+    };
+    std::vector<Rule> rules;  // exact names and patterns, in the file's order
+    std::optional<LimitState> for_all;
+    const Located ls = n.child("limit_state");
+    if (!ls.present()) {
+      diag_.error(at(n), fmt::format("{}.limit_state: missing; expected service, strength or "
+                                     "seismic-overstrength for every imported combination, or a "
+                                     "map of combination name or pattern to limit state, e.g. "
+                                     "{{\"ULS*\": strength, \"SLS*\": service}}",
+                                     n.path));
+      return;
+    }
+    if (ls.node.IsMap()) {
+      for (auto it = ls.node.begin(); it != ls.node.end(); ++it) {
+        const std::string key = it->first.Scalar();
+        if (auto v = choice<LimitState>(ls.child(key), states)) rules.push_back({key, *v});
+      }
+    } else if (auto v = choice<LimitState>(ls, states)) {
+      for_all = *v;
+    } else {
+      return;
+    }
+    constexpr std::size_t kNone = static_cast<std::size_t>(-1);  // a combination not built
+    const std::size_t typed = project.load_cases.size();  // cases typed in the YAML
+    std::map<std::string, std::size_t> typed_index, combination_of;
+    for (std::size_t i = 0; i < typed; ++i) typed_index[project.load_cases[i].id] = i;
+    std::set<std::string> existing;
+    for (const auto& c : project.combinations) existing.insert(c.id);
+    std::set<LimitState> occurring;
+    for (const auto& row : rows) {
+      auto found = combination_of.find(row.load_case);
+      if (found == combination_of.end()) {
+        combination_of[row.load_case] = kNone;
+        if (typed_index.count(row.load_case) || existing.count(row.load_case)) {
+          diag_.error(row.where,
+                      fmt::format("row {}: combination '{}' has the name of a {} typed in the "
+                                  "file; with loads_from.combinations the CSV's cases are "
+                                  "combinations, so the names must differ",
+                                  row.where.line, row.load_case,
+                                  typed_index.count(row.load_case) ? "load case" : "combination"));
+          continue;
         }
-      } else if (c == '"') {
-        quoted = true;
-      } else if (c == ',') {
-        cells.emplace_back();
-      } else if (c != '\r') {
-        cells.back() += c;
+        const auto state = limit_state_of(row, for_all, rules, ls);
+        if (!state) continue;
+        LoadCase lc;
+        lc.id = row.load_case;
+        lc.where = row.where;
+        lc.kind = LoadKind::other;
+        project.load_cases.push_back(lc);
+        Combination combo;
+        combo.id = row.load_case;
+        combo.where = row.where;
+        combo.limit_state = *state;
+        combo.factors.emplace_back(project.load_cases.size() - 1, 1.0);
+        combination_of[row.load_case] = project.combinations.size();
+        project.combinations.push_back(combo);
+        occurring.insert(*state);
+        found = combination_of.find(row.load_case);
+      }
+      if (found->second == kNone) continue;
+      const std::size_t own_case = project.combinations[found->second].factors.front().first;
+      project.load_cases[own_case].loads.push_back(load_of(row));
+    }
+
+    // The factors of the typed cases, per limit state that occurs.
+    const Located factors = n.child("factors");
+    if (factors.present() && !expect_map(factors)) return;
+    if (factors.present()) check_keys(factors, keys_of(states));
+    std::vector<std::string> typed_names;
+    for (std::size_t i = 0; i < typed; ++i) typed_names.push_back(project.load_cases[i].id);
+    std::vector<std::string> imported, added_text;
+    for (const auto& [id, index] : combination_of)
+      if (index != kNone) imported.push_back(id);
+    for (const auto& [name, state] : states) {
+      const Located given = factors.present() ? factors.child(name) : Located{};
+      if (!occurring.count(state)) {
+        if (given.present())
+          project.warnings.push_back(
+              {at(given), fmt::format("{}: no imported combination is a {} combination; these "
+                                      "factors are not used",
+                                      given.path, name)});
+        continue;
+      }
+      if (typed == 0) continue;
+      if (!given.present()) {
+        std::string example;
+        for (const auto& id : typed_names) example += (example.empty() ? "" : ", ") + id + ": …";
+        diag_.error(at(factors.present() ? factors : n),
+                    fmt::format("{}.factors.{}: missing; the imported {} combinations need a "
+                                "factor for each load case typed in the file, e.g. {}: {{{}}}; "
+                                "write 0 to leave a case out",
+                                n.path, name, name, name, example));
+        continue;
+      }
+      if (!expect_map(given)) continue;
+      check_keys(given, typed_names);
+      std::vector<std::pair<std::size_t, double>> added;
+      std::string text;
+      for (std::size_t i = 0; i < typed; ++i) {
+        const auto f = number(given, typed_names[i], Quantity::number, Need::required,
+                              Sign::non_negative);
+        if (f && *f != 0.0) added.emplace_back(i, *f);
+        if (f) text += fmt::format("{}{:g}·{}", text.empty() ? "" : " + ", *f, typed_names[i]);
+      }
+      added_text.push_back(fmt::format("{} combination: {}", name, text));
+      for (auto& combo : project.combinations) {
+        auto own = combination_of.find(combo.id);
+        if (combo.limit_state == state && own != combination_of.end() && own->second != kNone)
+          combo.factors.insert(combo.factors.end(), added.begin(), added.end());
       }
     }
-    for (auto& cell : cells) {
-      const auto a = cell.find_first_not_of(" \t");
-      const auto b = cell.find_last_not_of(" \t");
-      cell = a == std::string::npos ? std::string() : cell.substr(a, b - a + 1);
+    if (imported.empty()) return;
+    std::string note = fmt::format("{} imported from {} as already factored (reactions at 1.0)",
+                                   list_of(imported), rows.front().where.file);
+    for (const auto& t : added_text) note += "; added to each " + t;
+    project.notes.push_back(note + ".");
+  }
+
+  // The limit state of an imported combination: the one given for all, else the entry with
+  // its exact name, else every matching pattern (which must agree).
+  template <typename Rules>
+  std::optional<LimitState> limit_state_of(const ReactionRow& row,
+                                           const std::optional<LimitState>& for_all,
+                                           const Rules& rules, const Located& ls) {
+    if (for_all) return for_all;
+    for (const auto& r : rules)
+      if (r.pattern == row.load_case) return r.state;
+    std::optional<LimitState> state;
+    std::string first;
+    for (const auto& r : rules) {
+      if (!matches_pattern(r.pattern, row.load_case)) continue;
+      if (state && *state != r.state) {
+        diag_.error(row.where, fmt::format("row {}: combination '{}' matches '{}' ({}) and '{}' "
+                                           "({}) in {}; make the patterns exclusive or name the "
+                                           "combination",
+                                           row.where.line, row.load_case, first,
+                                           to_string(*state), r.pattern, to_string(r.state),
+                                           ls.path));
+        return std::nullopt;
+      }
+      if (!state) first = r.pattern;
+      state = r.state;
     }
-    return cells;
+    if (!state) {
+      std::vector<std::string> patterns;
+      for (const auto& r : rules) patterns.push_back(r.pattern);
+      diag_.error(row.where, fmt::format("row {}: combination '{}' matches nothing in {} ({}); "
+                                         "add its name or a pattern with its limit state",
+                                         row.where.line, row.load_case, ls.path,
+                                         list_of(patterns)));
+    }
+    return state;
   }
 
   // `combinations: {generate: asce7-lrfd}` (or a list of generator names): code
@@ -1462,6 +1614,21 @@ class Reader {
       profile.layers.push_back(layer);
     }
     return profile;
+  }
+
+  // A load case no combination takes (with a factor other than 0) is never checked: say so.
+  static void warn_unused_load_cases(Project& project) {
+    std::vector<bool> used(project.load_cases.size(), false);
+    for (const auto& combo : project.combinations)
+      for (const auto& [index, factor] : combo.factors)
+        if (factor != 0.0) used[index] = true;
+    for (std::size_t i = 0; i < project.load_cases.size(); ++i)
+      if (!used[i])
+        project.warnings.push_back(
+            {project.load_cases[i].where,
+             fmt::format("load_cases.{}: no combination uses this load case; its loads are not "
+                         "checked",
+                         project.load_cases[i].id)});
   }
 
   // The cap's own weight, added to its load case at the outline's centroid, mid-thickness.

@@ -742,7 +742,12 @@ json check_json(const CheckReport& r) {
     }
     doc["explain"] = {{"pile", p.piles[*r.explain_pile].id}, {"combinations", hand}};
   }
-  doc["assumptions"] = r.assumptions;
+  doc["assumptions"] = r.assumptions;  // the warnings among them, as notes
+  nlohmann::json warnings = nlohmann::json::array();
+  for (const auto& w : p.warnings)
+    warnings.push_back({{"file", w.where.file}, {"line", w.where.line},
+                        {"column", w.where.column}, {"message", w.message}});
+  doc["warnings"] = warnings;
   doc["caution"] = kCaution;
   return doc;
 }

@@ -249,10 +249,10 @@ expect_in "reactions: absent support named" "$work/err" "bad_unmapped.yaml:12:5:
 expect_status "reactions: support mapped twice" 2 check "$data/reactions/bad_twice.yaml"
 expect_in "reactions: twice named" "$work/err" "bad_twice.yaml:12:39: error: columns[1].support: support '101' is mapped twice (columns 'C1' and 'C9')"
 expect_status "reactions: non-numeric value" 2 check "$data/reactions/bad_value.yaml"
-expect_in "reactions: file, row and column named" "$work/err" "bad_value.csv:3: error: row 3, column 'Fy': expected a number (a force in kN), got 'x1'"
+expect_in "reactions: file, row and column named" "$work/err" "bad_value.csv:3:9: error: row 3, column 'Fy': expected a number (a force in kN), got 'x1'"
 
 expect_status "reactions: a row given twice" 2 check "$data/reactions/bad_repeated.yaml"
-expect_in "reactions: repeated row named" "$work/err" "bad_repeated.csv:3: error: row 3: support '101' and load case 'D' were already given in row 2"
+expect_in "reactions: repeated row named" "$work/err" "bad_repeated.csv:3:1: error: row 3: support '101' and load case 'D' were already given in row 2"
 expect_status "factors out of range" 2 check "$data/e2e/bad_factors.yaml"
 expect_in "factor of safety below 1" "$work/err" "pile_types.PC45.factor_of_safety: expected a factor of safety of at least 1, got '0.8'"
 expect_in "resistance factor above 1" "$work/err" "pile_types.PC45.resistance_factor_tip: expected a resistance factor φ from 0 to 1, got '1.5'"
@@ -286,6 +286,69 @@ expect_status "generated combinations" 0 check "$data/e2e/generated.yaml"
 expect_in "generated combinations listed" "$work/out" "generated: asce7-lrfd"
 expect_status "unknown generator" 2 check "$data/e2e/bad_generator.yaml"
 expect_in "valid generators listed" "$work/err" "asce7-asd"
+
+# ---- Reactions CSV: no number lost silently; the file's own names; factored combinations;
+# warnings on stderr and in every output, never in the exit status.
+r="$data/reactions"
+# same_forces A.json B.json: every pile's axial and lateral force agree, combination by combination.
+same_forces() {
+  python3 - "$1" "$2" <<'PY'
+import json, math, sys
+a, b = (json.load(open(f)) for f in sys.argv[1:3])
+if len(a["combinations"]) != len(b["combinations"]):
+    sys.exit("different numbers of combinations")
+for ca, cb in zip(a["combinations"], b["combinations"]):
+    if ca["id"] != cb["id"]:
+        sys.exit(f"combination {ca['id']} != {cb['id']}")
+    for pa, pb in zip(ca["piles"], cb["piles"]):
+        for key in ("axial", "lateral"):
+            if not math.isclose(pa[key], pb[key], rel_tol=1e-9, abs_tol=1e-9):
+                sys.exit(f"{ca['id']} {pa['id']} {key}: {pa[key]} != {pb[key]}")
+PY
+}
+expect_status "reactions: direct loads" 0 check "$r/direct.yaml" --format json
+cp "$work/out" "$work/direct.json"
+for name in mapped semicolon; do
+  expect_status "reactions: $name.yaml passes" 0 check "$r/$name.yaml" --format json
+  if same_forces "$work/out" "$work/direct.json" 2>"$work/err"; then ok; else bad "reactions: $name.yaml forces differ from direct.yaml"; fi
+done
+expect_status "reactions: combinations typed in" 0 check "$r/combos_direct.yaml" --format json
+cp "$work/out" "$work/combos_direct.json"
+expect_status "reactions: combinations imported" 0 check "$r/combos.yaml" --format json
+if same_forces "$work/out" "$work/combos_direct.json" 2>"$work/err"; then ok; else bad "reactions: imported combinations differ from typed ones"; fi
+expect_in "reactions: imported combination has its limit state" "$work/out" '"limit_state": "strength"'
+# Each bad file: exit 2, the message located in the CSV (file:row:column) or the YAML.
+while IFS='|' read -r name message; do
+  expect_status "reactions: $name" 2 check "$r/$name.yaml"
+  expect_in "reactions: $name message" "$work/err" "$message"
+done <<'EOF_BAD'
+bad_thousands|bad_thousands.csv:2:11: error: row 2: found 9 cells, expected 8 as in the header; '1,850.0' looks like one number written with a thousands separator
+bad_2400|bad_2400.csv:2:11: error: row 2: found 9 cells, expected 8 as in the header; '2,400' looks like one number written with a thousands separator
+bad_trailing_comma|bad_trailing_comma.csv:3:22: error: row 3: found 9 cells, expected 8 as in the header; the row ends with a trailing ','
+bad_short_row|bad_short_row.csv:3:1: error: row 3: found 7 cells, expected 8 as in the header; a cell is missing
+bad_quoted_thousands|bad_quoted_thousands.csv:2:11: error: row 2, column 'Fz': expected a number (a force in kN), got '1,850.0'; a number with a thousands separator (or a decimal comma) is not read
+bad_semicolon|semicolon.csv:1:1: error: header: the columns are separated by ';', not ','; set loads_from.delimiter: ';'
+bad_decimal_comma|semicolon.csv:2:7: error: row 2, column 'Fz': expected a number (a force in kN), got '2400,0'; a decimal comma is not read with loads_from.decimal '.'
+bad_missing_column|mapped.csv:1:1: error: header: missing column 'FZ' (for Fz, loads_from.headers); found: Load Case, NODE, FZ (kN), FX (kN), FY (kN), MX (kNm), MY (kNm), MZ (kNm), Comment
+bad_combination_factor|bad_combination_factor.yaml:28:7: error: loads_from.combinations.factors.strength: missing; the imported strength combinations need a factor for each load case typed in the file, e.g. strength: {SW: …, PIPE: …}
+bad_combination_pattern|combos.csv:8:1: error: row 8: combination 'SLS-CHAR' matches nothing in loads_from.combinations.limit_state (ULS-*, SLS-1)
+EOF_BAD
+# A load case in no combination: a warning on stderr and in the notes of every output.
+unused="load_cases.W: no combination uses this load case; its loads are not checked"
+expect_status "warning: exit status unchanged" 0 check "$r/unused_case.yaml"
+expect_in "warning on stderr" "$work/err" "unused_case.yaml:17:3: warning: $unused"
+expect_in "warning in the text notes" "$work/out" "Warning: $unused"
+for format in markdown csv json; do
+  expect_status "warning: --format $format" 0 check "$r/unused_case.yaml" --format "$format"
+  expect_in "warning in the $format notes" "$work/out" "Warning: $unused"
+done
+expect_status "warning: --out" 0 check "$r/unused_case.yaml" --out "$work/warned"
+for file in report.txt report.md results.json summary.csv envelope.csv; do
+  expect_in "warning in $file" "$work/warned/$file" "Warning: $unused"
+done
+expect_status "warning: report" 0 report "$r/unused_case.yaml" --out "$work/warned-html"
+expect_in "warning on stderr (report)" "$work/err" "warning: $unused"
+expect_in "warning in the HTML notes" "$work/warned-html/unused_case.html" "Warning: $unused"
 
 # ---- Robustness: inputs that once crashed or hung are located input errors (exit 2).
 robust="$data/robust"

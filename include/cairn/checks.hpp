@@ -124,7 +124,8 @@ CheckResults check_piles(const Project& project, const std::vector<CapSolution>&
                          const std::vector<PileTypeResistance>& resistances,
                          const std::vector<double>& head_moment_per_shear = {});
 
-// The assumptions behind the results, in plain words, for every output.
+// The assumptions behind the results, in plain words, for every output; the warnings found
+// while reading (project.warnings) come first, as "Warning: … (file:line:col)".
 // `stiffness` gives each pile type's springs and their sources (stiffness.hpp); it is
 // declared there, so only the sources are passed here: (axial source, lateral source).
 std::vector<std::string> assumptions(

@@ -45,6 +45,12 @@ class Diagnostics {
   std::vector<Diagnostic> list_;
 };
 
+// A warning as the terminal shows it: "file:line:col: warning: message".
+std::string format_warning(const Warning& warning);
+
+// A warning as the notes of a report show it: "Warning: message (file:line:col)".
+std::string warning_note(const Warning& warning);
+
 // The closest of `candidates` to `word` (edit distance ≤ 2), or "" when none is close.
 std::string closest_match(const std::string& word, const std::vector<std::string>& candidates);
 

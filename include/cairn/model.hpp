@@ -191,6 +191,14 @@ struct GroupSettings {
   SourceLocation where;
 };
 
+// Something in the input that is valid but probably not what the engineer meant (a load
+// case no combination uses). Carried to stderr and to the notes of every output; never
+// changes the exit status.
+struct Warning {
+  SourceLocation where;
+  std::string message;  // "<key path>: <what was found>; <its consequence>"
+};
+
 struct Project {
   std::string file;  // path of the project file as given
   std::string title;
@@ -205,6 +213,7 @@ struct Project {
   std::string loads_file;  // reactions CSV the loads came from, if any
   GroupSettings group;
   std::vector<std::string> notes;  // choices made while reading (e.g. by a combination generator)
+  std::vector<Warning> warnings;   // cautions found while reading, in the order found
 };
 
 const char* to_string(LimitState);

@@ -1118,6 +1118,11 @@ CapacityResult pile_capacity(const SoilProfile& profile, const PileGeometry& pil
   return r;
 }
 
+double depth_table_rows(double longest, double step, double min_length) {
+  if (min_length > longest + kDepthTolerance) return 0.0;
+  return std::floor((longest + kDepthTolerance - min_length) / step) + 1.0;
+}
+
 std::vector<DepthRow> capacity_with_depth(const SoilProfile& profile, PileGeometry pile,
                                           const PileDesign& design, double step,
                                           double min_length) {
@@ -1128,6 +1133,9 @@ std::vector<DepthRow> capacity_with_depth(const SoilProfile& profile, PileGeomet
     throw std::invalid_argument(problems.front());
   std::vector<DepthRow> rows;
   const double longest = profile.depth() - pile.head_depth;
+  if (depth_table_rows(longest, step, min_length) > static_cast<double>(kMaxDepthRows))
+    throw std::invalid_argument("capacity with depth: more than " +
+                                std::to_string(kMaxDepthRows) + " rows; use a longer step");
   for (int i = 0;; ++i) {
     pile.length = min_length + i * step;
     if (pile.length > longest + kDepthTolerance) break;

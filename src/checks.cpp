@@ -3,6 +3,7 @@
 #include <algorithm>
 #include <cmath>
 #include <limits>
+#include <map>
 #include <set>
 
 #include <fmt/format.h>
@@ -176,42 +177,59 @@ std::vector<Diagnostic> missing_resistances(const Project& project,
   std::vector<Diagnostic> problems;
   std::set<std::size_t> used;
   for (const Pile& pile : project.piles) used.insert(pile.type);
+  // Combinations checked with a code's resistance set (EN 1997, AASHTO extreme event): one
+  // problem per set and pile type, at the first combination it concerns.
+  std::set<std::pair<ResistanceSet, std::size_t>> reported;
+  // The others: one problem per limit state and pile type, at the first combination it
+  // concerns and naming the others: a missing capacity is reported once, not once per
+  // combination.
+  std::map<LimitState, std::vector<const Combination*>> by_state;
   for (const Combination& combo : project.combinations) {
-    const bool service = combo.limit_state == LimitState::service;
-    if (combo.resistance_set != ResistanceSet::basis) {
-      for (std::size_t t : used) {
-        const auto it = resistances[t].by_set.find(combo.resistance_set);
-        if (it != resistances[t].by_set.end() && it->second.compression) continue;
-        problems.push_back(
-            {combo.where,
-             combo.resistance_set == ResistanceSet::en1997_r3
-                 ? fmt::format("combinations.{}: a combination of design approach 3 (EN 1997 R3), "
-                               "but pile type '{}' has no capacity computed from the soil with "
-                               "the soil's strength factored (set M2): give tip_method and "
-                               "shaft_method that work from friction_angle and "
-                               "undrained_strength (not the SPT methods), with friction angles "
-                               "that stay within the method's range after M2",
-                               combo.id, project.pile_types[t].id)
-                 : fmt::format("combinations.{}: a combination checked with {} resistances, but "
-                               "pile type '{}' has no ultimate compression capacity to derive "
-                               "them from; give capacity with basis: ultimate (taken as "
-                               "characteristic), or tip_method and shaft_method with a soil "
-                               "profile",
-                               combo.id, to_string(combo.resistance_set),
-                               project.pile_types[t].id)});
-      }
+    if (combo.resistance_set == ResistanceSet::basis) {
+      by_state[combo.limit_state].push_back(&combo);
       continue;
     }
     for (std::size_t t : used) {
-      const Resistance& r = service ? resistances[t].allowable : resistances[t].factored;
-      if (r.compression) continue;
+      const auto it = resistances[t].by_set.find(combo.resistance_set);
+      if (it != resistances[t].by_set.end() && it->second.compression) continue;
+      if (!reported.insert({combo.resistance_set, t}).second) continue;
       problems.push_back(
           {combo.where,
-           fmt::format("combinations.{}: a {} combination is compared with {} capacities, but "
+           combo.resistance_set == ResistanceSet::en1997_r3
+               ? fmt::format("combinations.{}: a combination of design approach 3 (EN 1997 R3), "
+                             "but pile type '{}' has no capacity computed from the soil with "
+                             "the soil's strength factored (set M2): give tip_method and "
+                             "shaft_method that work from friction_angle and "
+                             "undrained_strength (not the SPT methods), with friction angles "
+                             "that stay within the method's range after M2",
+                             combo.id, project.pile_types[t].id)
+               : fmt::format("combinations.{}: a combination checked with {} resistances, but "
+                             "pile type '{}' has no ultimate compression capacity to derive "
+                             "them from; give capacity with basis: ultimate (taken as "
+                             "characteristic), or tip_method and shaft_method with a soil "
+                             "profile",
+                             combo.id, to_string(combo.resistance_set),
+                             project.pile_types[t].id)});
+    }
+  }
+  for (const auto& [state, combos] : by_state) {
+    const bool service = state == LimitState::service;
+    for (std::size_t t : used) {
+      const Resistance& r = service ? resistances[t].allowable : resistances[t].factored;
+      if (r.compression) continue;
+      constexpr std::size_t kNamed = 3;
+      std::string names = combos.front()->id;
+      for (std::size_t i = 1; i < std::min(combos.size(), kNamed); ++i) names += ", " + combos[i]->id;
+      if (combos.size() > kNamed) names += fmt::format(" and {} more", combos.size() - kNamed);
+      const std::string what =
+          combos.size() == 1 ? fmt::format("a {} combination is", to_string(state))
+                             : fmt::format("{} {} combinations are", combos.size(), to_string(state));
+      problems.push_back(
+          {combos.front()->where,
+           fmt::format("combinations.{}: {} compared with {} capacities, but "
                        "pile type '{}' has no {} compression capacity; give capacity with "
                        "basis: {}{}",
-                       combo.id, to_string(combo.limit_state),
-                       service ? "allowable" : "factored", project.pile_types[t].id,
+                       names, what, service ? "allowable" : "factored", project.pile_types[t].id,
                        service ? "allowable" : "factored", service ? "allowable" : "factored",
                        service ? " (or basis: ultimate, divided by a factor of safety)"
                                : " (or basis: ultimate with resistance_factor)")});

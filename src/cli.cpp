@@ -181,6 +181,36 @@ DepthTable default_depth_table(UnitSystem u) {
   return u == UnitSystem::SI ? DepthTable{0.5, 3.0} : DepthTable{0.3048, 3.048};
 }
 
+// Refuses a --step or --from that is not a plausible length, or a table longer than
+// kMaxDepthRows rows (a step of 1e-9 m would otherwise run for days).
+void check_depth_table(const Project& project, const Options& options, double step, double from) {
+  const UnitSystem u = project.units;
+  const char* unit = unit_label(u, Quantity::length);
+  const double largest = largest_plausible(Quantity::length);
+  if (!(step > 0) || !(step <= largest))
+    throw InputError({}, fmt::format("--step: expected a positive length in {} no larger than "
+                                     "{:g}, got '{:g}'",
+                                     unit, from_si(u, Quantity::length, largest),
+                                     *options.depth_step));
+  if (!(from > 0) || !(from <= largest))
+    throw InputError({}, fmt::format("--from: expected a positive length in {} no larger than "
+                                     "{:g}, got '{:g}'",
+                                     unit, from_si(u, Quantity::length, largest),
+                                     *options.min_length));
+  if (!project.soil) return;
+  const double longest = project.soil->depth();
+  const double rows = depth_table_rows(longest, step, from);
+  if (rows <= static_cast<double>(kMaxDepthRows)) return;
+  const double shortest_step = (longest - from) / static_cast<double>(kMaxDepthRows - 1);
+  throw InputError({}, fmt::format("--step: a table from {:g} {} to the base of the soil at "
+                                   "{:g} {} in steps of {:g} {} would have {:.0f} rows, more "
+                                   "than {}; use a step of at least {:.3g} {}",
+                                   from_si(u, Quantity::length, from), unit,
+                                   from_si(u, Quantity::length, longest), unit,
+                                   from_si(u, Quantity::length, step), unit, rows, kMaxDepthRows,
+                                   from_si(u, Quantity::length, shortest_step), unit));
+}
+
 int run_capacity(const Options& options, std::ostream& out, std::ostream& err) {
   if (options.files.size() != 1) throw InputError({}, "capacity: expected one project file");
   const Project project = read_project(options.files.front());
@@ -191,7 +221,7 @@ int run_capacity(const Options& options, std::ostream& out, std::ostream& err) {
                                          : table.step;
   const double from = options.min_length ? *options.min_length * to_si_factor(u, Quantity::length)
                                          : table.from;
-  if (!(step > 0)) throw InputError({}, "--step: expected a positive length");
+  check_depth_table(project, options, step, from);
   require_table_within_profile(project, from, "--from");
   const auto capacities = compute_capacities(project, step, from);
   std::vector<PileTypeLength> lengths;
@@ -251,7 +281,10 @@ int run_report(const Options& options, std::ostream& out, std::ostream& err) {
     const UnitSystem u = run.project.units;
     // Capacities again, with the capacity-with-depth table for the chart.
     const DepthTable table = default_depth_table(u);
-    const auto capacities = compute_capacities(run.project, table.step, table.from);
+    // A soil profile kilometres deep gets a longer step, not millions of rows.
+    const double longest = run.project.soil ? run.project.soil->depth() : 0.0;
+    const double step = std::max(table.step, (longest - table.from) / (kMaxDepthRows - 1));
+    const auto capacities = compute_capacities(run.project, step, table.from);
     HtmlReportInput input;
     input.check = &report;
     input.capacities = &capacities;
@@ -371,6 +404,23 @@ int run_command_line(int argc, const char* const* argv, std::ostream& out, std::
   report->add_flag("--svg", options.plan_svg, "Also write the cap plan alone as SVG");
   report->add_flag("--tables", options.tables,
                    "Also write the tables as CSV and Markdown (report.md, *.csv per cap)");
+  // CLI11 takes an unknown command for a stray argument ("A subcommand is required");
+  // name it and suggest the nearest command instead.
+  if (argc > 1 && argv[1][0] != '-') {
+    std::vector<std::string> names;
+    for (const CLI::App* command : {check, capacity, springs, report})
+      names.push_back(command->get_name());
+    const std::string given = argv[1];
+    if (std::find(names.begin(), names.end(), given) == names.end()) {
+      const std::string near = closest_match(given, names);
+      std::string list;
+      for (const auto& name : names) list += (list.empty() ? "" : ", ") + name;
+      err << "cairn: error: unknown command '" << given << "'; "
+          << (near.empty() ? "expected one of: " + list : "did you mean '" + near + "'?") << "\n"
+          << "Run 'cairn --help' for usage.\n";
+      return kExitBadInput;
+    }
+  }
   try {
     app.parse(argc, argv);
   } catch (const CLI::CallForHelp& e) {

@@ -1,5 +1,6 @@
 #include "cairn/input.hpp"
 
+#include <yaml-cpp/depthguard.h>
 #include <yaml-cpp/yaml.h>
 
 #include <algorithm>
@@ -9,6 +10,7 @@
 #include <map>
 #include <set>
 #include <sstream>
+#include <unordered_map>
 
 #include <fmt/format.h>
 
@@ -22,27 +24,43 @@ namespace {
 
 namespace fs = std::filesystem;
 
-// A YAML node with the file it came from and its key path ("piles[3].x").
+// A YAML node with the file it came from and its key path ("piles[3].x"). A key that is
+// absent has no mark of its own; it is located at the nearest parent that is present
+// (STYLE: a missing key is reported at its parent's location).
 struct Located {
   YAML::Node node;
   const std::string* file = nullptr;
   std::string path;
+  YAML::Mark parent_mark = YAML::Mark::null_mark();
 
   bool present() const { return node.IsDefined() && !node.IsNull(); }
+  YAML::Mark mark() const { return node.IsDefined() ? node.Mark() : parent_mark; }
   Located child(const std::string& key) const {
     const YAML::Node& self = node;
-    return {self[key], file, path.empty() ? key : path + "." + key};
+    return {self.IsMap() ? valid(self[key]) : absent(), file, joined(key), mark()};
   }
   Located item(std::size_t index) const {
     const YAML::Node& self = node;
-    return {self[index], file, fmt::format("{}[{}]", path, index)};
+    return {self.IsSequence() ? valid(self[index]) : absent(), file,
+            fmt::format("{}[{}]", path, index), mark()};
   }
+
+ private:
+  std::string joined(const std::string& key) const { return path.empty() ? key : path + "." + key; }
+  // yaml-cpp answers a lookup of an absent key with a node on which every question but
+  // IsDefined() throws; an undefined node answers them all.
+  static YAML::Node absent() { return YAML::Node(YAML::NodeType::Undefined); }
+  static YAML::Node valid(const YAML::Node& found) { return found.IsDefined() ? found : absent(); }
 };
 
-SourceLocation location_of(const YAML::Node& node, const std::string& file) {
-  const YAML::Mark mark = node.Mark();
+SourceLocation location_of(const YAML::Mark& mark, const std::string& file) {
   if (mark.line < 0) return {file, 0, 0};
   return {file, mark.line + 1, mark.column + 1};
+}
+
+SourceLocation location_of(const YAML::Node& node, const std::string& file) {
+  if (!node.IsDefined()) return {file, 0, 0};
+  return location_of(node.Mark(), file);
 }
 
 std::string scalar_text(const YAML::Node& node) {
@@ -50,6 +68,110 @@ std::string scalar_text(const YAML::Node& node) {
   if (node.IsSequence()) return "a list";
   if (node.IsMap()) return "a map";
   return "nothing";
+}
+
+// Limits on the shape of a project file (docs/input.md, "Limits"). A project nests about
+// six levels deep; yaml-cpp 0.7 itself stops at about 500 levels (its depth guard), so the
+// limit is ours and is named in the message.
+constexpr int kMaxNesting = 200;
+// Nodes a document may stand for with its aliases written out: a base that no hand-written
+// file reaches, plus a few per byte, so that the work of every reader stays proportional
+// to the size of the file.
+constexpr std::size_t kAliasBudgetBase = 100000;
+constexpr std::size_t kAliasBudgetPerByte = 4;
+// Messages of one kind about the piles (same id, same position, overlap) shown before the
+// rest are counted in one line: 5,000 copies of one pile need not print 5,000 lines.
+constexpr std::size_t kShownConflicts = 5;
+
+// Where the nesting of lists and maps first goes deeper than kMaxNesting, if it does: a
+// scan of the text before yaml-cpp sees it. Block nesting is counted by indentation
+// (and by each '- ' of a compact list), flow nesting by open brackets outside quotes and
+// comments; block scalars (| and >) are skipped. The count is close to, never far above,
+// yaml-cpp's own, which is what matters for a limit this far above real files.
+std::optional<SourceLocation> too_deep(const std::string& text, const std::string& file) {
+  std::vector<std::size_t> indents;  // block levels open
+  int flow = 0;                      // brackets open
+  char quote = 0;                    // inside '…' or "…" (may span lines in flow)
+  constexpr std::size_t kNone = std::string::npos;
+  std::size_t literal_indent = kNone;  // inside a block scalar opened at this indent
+  int line_number = 0;
+  std::size_t begin = 0;
+  while (begin < text.size()) {
+    std::size_t end = text.find('\n', begin);
+    if (end == std::string::npos) end = text.size();
+    const std::string_view line(text.data() + begin, end - begin);
+    begin = end + 1;
+    ++line_number;
+    const std::size_t indent = std::min(line.find_first_not_of(' '), line.size());
+    const bool blank = line.find_first_not_of(" \t\r") == std::string_view::npos;
+    if (literal_indent != kNone) {
+      if (blank || indent > literal_indent) continue;
+      literal_indent = kNone;
+    }
+    std::size_t i = indent;
+    if (flow == 0 && quote == 0 && !blank && line[indent] != '#') {
+      while (!indents.empty() && indents.back() >= indent) indents.pop_back();
+      indents.push_back(indent);
+      // A compact list: '- - x' opens a level per dash.
+      while (i + 1 < line.size() && line[i] == '-' && line[i + 1] == ' ') {
+        i += 2;
+        while (i < line.size() && line[i] == ' ') ++i;
+        indents.push_back(i);
+      }
+    }
+    if (static_cast<int>(indents.size()) + flow > kMaxNesting)
+      return SourceLocation{file, line_number, static_cast<int>(i) + 1};
+    for (; i < line.size(); ++i) {
+      const char c = line[i];
+      if (quote == '"') {
+        if (c == '\\') ++i;
+        else if (c == '"') quote = 0;
+        continue;
+      }
+      if (quote == '\'') {
+        if (c == '\'') quote = 0;  // '' inside reopens at once: the escape of a quote
+        continue;
+      }
+      const bool after_space = i == 0 || line[i - 1] == ' ' || line[i - 1] == '\t';
+      const bool starts_value = i == 0 || std::string_view(" \t[{,:").find(line[i - 1]) !=
+                                              std::string_view::npos;
+      if (c == '#' && after_space) break;
+      if ((c == '"' || c == '\'') && starts_value) quote = c;
+      else if (c == '[' || c == '{') {
+        if (static_cast<int>(indents.size()) + ++flow > kMaxNesting)
+          return SourceLocation{file, line_number, static_cast<int>(i) + 1};
+      } else if ((c == ']' || c == '}') && flow > 0) --flow;
+      else if ((c == '|' || c == '>') && flow == 0 && starts_value) {
+        const std::string_view rest = line.substr(i + 1);
+        if (rest.find_first_not_of("+-0123456789 \t\r") == std::string_view::npos ||
+            rest.find_first_not_of("+-0123456789 \t") == rest.find('#'))
+          literal_indent = indent;
+      }
+    }
+  }
+  return std::nullopt;
+}
+
+// The first tab in the indentation of a line up to `last_line` (1-based), if any: yaml-cpp
+// reports a tab there as "illegal map value" or "end of map not found".
+std::optional<SourceLocation> tab_in_indentation(const std::string& text, int last_line,
+                                                 const std::string& file) {
+  int line_number = 1;
+  bool at_start = true;
+  int column = 1;
+  for (const char c : text) {
+    if (line_number > last_line) break;
+    if (c == '\n') {
+      ++line_number;
+      at_start = true;
+      column = 1;
+      continue;
+    }
+    if (at_start && c == '\t') return SourceLocation{file, line_number, column};
+    if (c != ' ') at_start = false;
+    ++column;
+  }
+  return std::nullopt;
 }
 
 // One top-level entry of the merged document, remembering its file.
@@ -64,6 +186,9 @@ struct Entry {
 struct Merged {
   std::map<std::string, Entry> sections;
   std::map<std::string, std::vector<Entry>> named;  // pile_types, load_cases, combinations
+  // Position of each entry in `named`, by section and name: merging stays linear in the
+  // number of entries (a search of the list for each made 500,000 load cases a hang).
+  std::map<std::string, std::unordered_map<std::string, std::size_t>> named_index;
   std::map<std::string, UnitSystem> file_units;
   std::set<std::string> files;  // keeps the file names alive for Located::file
 };
@@ -131,12 +256,27 @@ class Reader {
                                 "pile_types, piles, load_cases, combinations)");
       return;
     }
+    if (const auto deep = too_deep(text, file)) {
+      diag_.error(*deep, fmt::format("lists and maps nested deeper than {} levels; a project "
+                                     "needs fewer than ten",
+                                     kMaxNesting));
+      return;
+    }
     YAML::Node root;
     try {
       root = YAML::Load(text);
-    } catch (const YAML::ParserException& e) {
+    } catch (const YAML::DeepRecursion& e) {
       diag_.error({file, e.mark.line + 1, e.mark.column + 1},
-                  fmt::format("malformed YAML: {}", e.msg));
+                  fmt::format("lists and maps nested deeper than {} levels; a project needs "
+                              "fewer than ten",
+                              kMaxNesting));
+      return;
+    } catch (const YAML::ParserException& e) {
+      if (const auto tab = tab_in_indentation(text, e.mark.line + 1, file))
+        diag_.error(*tab, "tab character in indentation; YAML indents with spaces");
+      else
+        diag_.error({file, e.mark.line + 1, e.mark.column + 1},
+                    fmt::format("malformed YAML: {}", e.msg));
       return;
     }
     if (root.IsNull()) {  // nothing but comments
@@ -150,7 +290,7 @@ class Reader {
                                             scalar_text(root)));
       return;
     }
-    check_unique_keys(root, file, "");
+    if (!check_structure(root, file, text)) return;
     const Located top{root, &file, ""};
     check_keys(top, kTopKeys);
     if (auto units = top.child("units"); units.present()) {
@@ -190,52 +330,146 @@ class Reader {
       const SourceLocation where = location_of(it->first, file);
       if (kNamedSections.count(name) && value.node.IsMap()) {
         auto& entries = merged.named[name];
+        auto& index = merged.named_index[name];
         for (auto e = value.node.begin(); e != value.node.end(); ++e) {
           const std::string entry_name = e->first.as<std::string>();
           Entry entry{entry_name, {e->second, &file, name + "." + entry_name},
                       location_of(e->first, file)};
-          auto same = std::find_if(entries.begin(), entries.end(),
-                                   [&](const Entry& x) { return x.name == entry_name; });
-          if (same != entries.end()) *same = entry;
-          else entries.push_back(entry);
+          const auto [same, fresh] = index.emplace(entry_name, entries.size());
+          if (fresh) entries.push_back(entry);
+          else entries[same->second] = entry;
         }
         merged.sections[name] = {name, value, where};
       } else {
         merged.sections[name] = {name, value, where};
         merged.named.erase(name);
+        merged.named_index.erase(name);
       }
     }
   }
 
-  // YAML 1.2 (section 3.2.1.1) requires the keys of a mapping to be unique, but yaml-cpp
-  // accepts a repeated key and a lookup then finds the first value while the entry-by-entry
-  // merge keeps the last: either way one value is silently dropped, so a repeat is an error.
-  void check_unique_keys(const YAML::Node& node, const std::string& file,
-                         const std::string& path) {
-    if (node.IsSequence()) {
-      for (std::size_t i = 0; i < node.size(); ++i)
-        check_unique_keys(node[i], file, fmt::format("{}[{}]", path, i));
-      return;
-    }
-    if (!node.IsMap()) return;
-    std::map<std::string, int> first_line;
-    for (auto it = node.begin(); it != node.end(); ++it) {
-      if (!it->first.IsScalar()) continue;
-      const std::string key = it->first.Scalar();
-      const std::string where = path.empty() ? key : path + "." + key;
-      const SourceLocation here = location_of(it->first, file);
-      const auto [seen, added] = first_line.emplace(key, here.line);
-      if (!added) {
-        diag_.error(here, fmt::format("{}: given twice (first at line {})", where, seen->second));
-        continue;
-      }
-      check_unique_keys(it->second, file, where);
-    }
+  // The shape of a document, checked before any value is read (STYLE: user data never
+  // reaches yaml-cpp's own exceptions):
+  // - every key of a mapping is a name (a scalar): `? [a, b]` is refused;
+  // - keys are unique: YAML 1.2 (section 3.2.1.1) requires it, but yaml-cpp accepts a
+  //   repeated key and a lookup then finds the first value while the entry-by-entry merge
+  //   keeps the last; either way one value would be silently dropped;
+  // - an alias never names a node that contains it (`x: &p {a: *p}`), and aliases written
+  //   out stand for at most a budget of nodes proportional to the file's size, so that
+  //   ten nested aliases of ten (575 bytes, 10¹⁰ nodes) are refused, not expanded.
+  // An anchored node is walked once however many aliases name it; its size with aliases
+  // written out is remembered. The walk is therefore linear in the size of the text.
+  // Returns false when the document cannot be read further.
+  bool check_structure(const YAML::Node& root, const std::string& file, const std::string& text) {
+    StructureWalk walk{diag_, file, text, kAliasBudgetBase + kAliasBudgetPerByte * text.size(),
+                       false, {}};
+    walk.walk(root, "", location_of(root, file), 0);
+    return !walk.fatal;
   }
+
+  struct StructureWalk {
+    Diagnostics& diag;
+    const std::string& file;
+    const std::string& text;
+    std::size_t budget;  // nodes, with every alias written out
+    bool fatal = false;
+    // Anchored nodes by their offset in the text: expanded size, or kWalking while the walk
+    // is inside them (meeting one then is a cycle). Only anchored nodes can be aliased.
+    std::unordered_map<int, std::vector<std::pair<YAML::Node, std::size_t>>> anchored;
+    static constexpr std::size_t kWalking = static_cast<std::size_t>(-1);
+
+    // yaml-cpp marks a node where its properties begin, so an anchored node starts with '&'
+    // (or with a tag '!' that may precede the anchor).
+    // yaml-cpp does not count a UTF-8 byte-order mark in its offsets.
+    bool is_anchored(const YAML::Node& node) const {
+      const std::size_t bom = text.rfind("\xEF\xBB\xBF", 0) == 0 ? 3 : 0;
+      const int pos = node.Mark().pos;
+      if (pos < 0 || static_cast<std::size_t>(pos) + bom >= text.size()) return false;
+      const char c = text[static_cast<std::size_t>(pos) + bom];
+      return c == '&' || c == '!';
+    }
+
+    // The number of nodes `node` stands for with its aliases written out (0 after a fatal
+    // problem). `reached_at` locates the key or list that leads to it.
+    std::size_t walk(const YAML::Node& node, const std::string& path,
+                     const SourceLocation& reached_at, int depth) {
+      if (fatal) return 0;
+      if (!node.IsMap() && !node.IsSequence()) return 1;
+      const std::string shown = path.empty() ? "the top level" : path;
+      // A cycle the anchor test missed still ends here; the nesting pre-scan keeps real
+      // documents far shallower.
+      if (depth > kMaxNesting) {
+        diag.error(reached_at, fmt::format("lists and maps nested deeper than {} levels "
+                                           "through aliases (does an alias name a map or list "
+                                           "that contains it?)", kMaxNesting));
+        fatal = true;
+        return 0;
+      }
+      const bool remember = is_anchored(node);
+      const int pos = node.Mark().pos;
+      if (remember) {
+        for (const auto& [known, size] : anchored[pos]) {
+          if (!known.is(node)) continue;
+          if (size == kWalking) {
+            diag.error(reached_at, fmt::format("{}: an alias refers to a map or list that "
+                                               "contains it (a cycle); an alias may only "
+                                               "repeat a complete earlier value", shown));
+            fatal = true;
+            return 0;
+          }
+          return size;
+        }
+        anchored[pos].emplace_back(node, kWalking);
+      }
+      std::size_t total = 1;
+      if (node.IsSequence()) {
+        const SourceLocation here = location_of(node, file);
+        for (std::size_t i = 0; i < node.size() && !fatal; ++i) {
+          total += walk(node[i], fmt::format("{}[{}]", path, i), here, depth + 1);
+          if (over_budget(total, node, shown)) return 0;
+        }
+      } else {
+        std::unordered_map<std::string, int> first_line;
+        for (auto it = node.begin(); it != node.end() && !fatal; ++it) {
+          const SourceLocation here = location_of(it->first, file);
+          if (!it->first.IsScalar()) {
+            diag.error(here, fmt::format("{}expected a name as a key, got {}",
+                                         path.empty() ? "" : path + ": ", scalar_text(it->first)));
+            fatal = true;
+            return 0;
+          }
+          const std::string key = it->first.Scalar();
+          const std::string where = path.empty() ? key : path + "." + key;
+          const auto [seen, added] = first_line.emplace(key, here.line);
+          if (!added) {
+            diag.error(here, fmt::format("{}: given twice (first at line {})", where, seen->second));
+            continue;
+          }
+          total += 1 + walk(it->second, where, here, depth + 1);
+          if (over_budget(total, node, shown)) return 0;
+        }
+      }
+      if (remember)
+        for (auto& [known, size] : anchored[pos])
+          if (known.is(node)) size = total;
+      return total;
+    }
+
+    bool over_budget(std::size_t total, const YAML::Node& node, const std::string& shown) {
+      if (fatal) return true;
+      if (total <= budget) return false;
+      diag.error(location_of(node, file),
+                 fmt::format("{}: aliases expand this to more than {} values, the limit for a "
+                             "file of {} bytes; write the values out or nest fewer aliases",
+                             shown, budget, text.size()));
+      fatal = true;
+      return true;
+    }
+  };
 
   // ---- values -----------------------------------------------------------------------
 
-  SourceLocation at(const Located& n) const { return location_of(n.node, *n.file); }
+  SourceLocation at(const Located& n) const { return location_of(n.mark(), *n.file); }
 
   UnitSystem units_of(const Located& n) const {
     auto it = file_units_->find(*n.file);
@@ -268,7 +502,13 @@ class Reader {
 
   std::optional<double> number(const Located& parent, const std::string& key, Quantity q,
                                Need need = Need::required, Sign sign = Sign::positive) {
-    const Located n = parent.child(key);
+    return number_at(parent, parent.child(key), q, need, sign);
+  }
+
+  // number() for a child `n` of `parent` already found (yaml-cpp looks a key up by a
+  // linear search, so a loop over a map's entries passes each entry's node).
+  std::optional<double> number_at(const Located& parent, const Located& n, Quantity q,
+                                  Need need = Need::required, Sign sign = Sign::positive) {
     const UnitSystem units = units_of(parent);
     const std::string sign_word = sign == Sign::positive       ? "a positive "
                                   : sign == Sign::non_negative ? "a non-negative "
@@ -294,6 +534,13 @@ class Reader {
     if ((sign == Sign::positive && !(v > 0)) || (sign == Sign::non_negative && v < 0)) {
       diag_.error(at(n),
                   fmt::format("{}: expected {}, got '{}'", n.path, expected, n.node.Scalar()));
+      return std::nullopt;
+    }
+    if (sign == Sign::positive && v < smallest_plausible(q)) {
+      const double shown = q == Quantity::angle ? smallest_plausible(q)
+                                                : from_si(units, q, smallest_plausible(q));
+      diag_.error(at(n), fmt::format("{}: expected {} of at least {:g}, got '{}'", n.path,
+                                     expected, shown, n.node.Scalar()));
       return std::nullopt;
     }
     return v;
@@ -753,6 +1000,7 @@ class Reader {
     for (std::size_t i = 0; i < project.pile_types.size(); ++i)
       type_index[project.pile_types[i].id] = i;
     std::set<std::string> ids;
+    std::size_t repeated_ids = 0;
     std::vector<std::size_t> item_of;  // index in the file's list of each pile read
     for (std::size_t i = 0; i < n.node.size(); ++i) {
       const Located p = n.item(i);
@@ -761,7 +1009,7 @@ class Reader {
       Pile pile;
       pile.where = at(p);
       pile.id = text(p, "id").value_or(fmt::format("#{}", i + 1));
-      if (!ids.insert(pile.id).second)
+      if (!ids.insert(pile.id).second && ++repeated_ids <= kShownConflicts)
         diag_.error(at(p.child("id")), fmt::format("{}.id: pile '{}' is listed twice", p.path,
                                                    pile.id));
       pile.x = number(p, "x", Quantity::length, Need::required, Sign::any).value_or(0.0);
@@ -790,33 +1038,76 @@ class Reader {
       project.piles.push_back(pile);
       item_of.push_back(i);
     }
+    if (repeated_ids > kShownConflicts)
+      diag_.error(at(n), fmt::format("piles: … and {} more piles with an id already used",
+                                     repeated_ids - kShownConflicts));
     if (project.piles.empty())
       diag_.error(at(n), "piles: the list is empty; expected at least one pile");
-    // Two piles at one position, or closer than their widths allow.
-    for (std::size_t i = 0; i < project.piles.size(); ++i) {
-      for (std::size_t j = i + 1; j < project.piles.size(); ++j) {
-        const Pile& a = project.piles[i];
-        const Pile& b = project.piles[j];
-        if (a.type >= project.pile_types.size() || b.type >= project.pile_types.size()) continue;
-        const double distance = std::hypot(a.x - b.x, a.y - b.y);
-        const double touching = 0.5 * (project.pile_types[a.type].section.width +
-                                       project.pile_types[b.type].section.width);
-        if (distance < touching - 1e-9) {
-          const UnitSystem u = project.units;
-          const std::string key = fmt::format("piles[{}]", item_of[j]);
-          if (distance < 1e-9)
-            diag_.error(b.where, fmt::format("{}: pile '{}' is at the same position as pile '{}'",
-                                             key, b.id, a.id));
-          else
-            diag_.error(b.where, fmt::format(
-                "{}: piles '{}' and '{}' overlap: centres {:.3f} {} apart, closer than their "
-                "width ({:.3f} {})",
-                key, a.id, b.id, from_si(u, Quantity::length, distance),
-                unit_label(u, Quantity::length), from_si(u, Quantity::length, touching),
-                unit_label(u, Quantity::length)));
+    report_overlapping_piles(n, project, item_of);
+  }
+
+  // Two piles at one position, or closer than their widths allow. Each pile is compared
+  // only with the earlier piles in the 3 × 3 cells of a grid as wide as the widest pile
+  // (a spatial hash), and reports its first conflict; after kShownConflicts of each kind the
+  // rest are counted in one line. 5,000 piles at one point once gave 12.5 million lines.
+  void report_overlapping_piles(const Located& list, const Project& project,
+                                const std::vector<std::size_t>& item_of) {
+    double cell = 0.0;
+    for (const auto& type : project.pile_types) cell = std::max(cell, type.section.width);
+    if (!(cell > 0.0)) return;
+    auto key = [&](long long cx, long long cy) { return std::make_pair(cx, cy); };
+    std::map<std::pair<long long, long long>, std::vector<std::size_t>> cells;
+    std::size_t same = 0, overlapping = 0;
+    const UnitSystem u = project.units;
+    for (std::size_t j = 0; j < project.piles.size(); ++j) {
+      const Pile& b = project.piles[j];
+      if (b.type >= project.pile_types.size()) continue;
+      const auto cx = static_cast<long long>(std::floor(b.x / cell));
+      const auto cy = static_cast<long long>(std::floor(b.y / cell));
+      std::optional<std::size_t> first;  // the earliest pile b conflicts with
+      for (long long dx = -1; dx <= 1; ++dx)
+        for (long long dy = -1; dy <= 1; ++dy) {
+          auto found = cells.find(key(cx + dx, cy + dy));
+          if (found == cells.end()) continue;
+          for (const std::size_t i : found->second) {
+            if (first && i > *first) break;
+            const Pile& a = project.piles[i];
+            const double distance = std::hypot(a.x - b.x, a.y - b.y);
+            const double touching = 0.5 * (project.pile_types[a.type].section.width +
+                                           project.pile_types[b.type].section.width);
+            if (distance < touching - 1e-9) {
+              first = i;
+              break;
+            }
+          }
         }
+      cells[key(cx, cy)].push_back(j);
+      if (!first) continue;
+      const Pile& a = project.piles[*first];
+      const double distance = std::hypot(a.x - b.x, a.y - b.y);
+      const std::string where = fmt::format("piles[{}]", item_of[j]);
+      if (distance < 1e-9) {
+        if (++same <= kShownConflicts)
+          diag_.error(b.where, fmt::format("{}: pile '{}' is at the same position as pile '{}'",
+                                           where, b.id, a.id));
+        continue;
       }
+      if (++overlapping > kShownConflicts) continue;
+      const double touching = 0.5 * (project.pile_types[a.type].section.width +
+                                     project.pile_types[b.type].section.width);
+      diag_.error(b.where, fmt::format(
+          "{}: piles '{}' and '{}' overlap: centres {:.3f} {} apart, closer than their "
+          "width ({:.3f} {})",
+          where, a.id, b.id, from_si(u, Quantity::length, distance),
+          unit_label(u, Quantity::length), from_si(u, Quantity::length, touching),
+          unit_label(u, Quantity::length)));
     }
+    if (same > kShownConflicts)
+      diag_.error(at(list), fmt::format("piles: … and {} more piles at positions already used",
+                                        same - kShownConflicts));
+    if (overlapping > kShownConflicts)
+      diag_.error(at(list), fmt::format("piles: … and {} more piles overlapping an earlier pile",
+                                        overlapping - kShownConflicts));
   }
 
   void read_load_cases(const std::vector<Entry>& entries, const Located& whole, Project& project) {
@@ -902,7 +1193,8 @@ class Reader {
       }
       for (auto it = factors.node.begin(); it != factors.node.end(); ++it) {
         const std::string name = it->first.Scalar();
-        const auto factor = number(factors, name, Quantity::number, Need::required, Sign::any);
+        const Located entry{it->second, factors.file, factors.path + "." + name, factors.mark()};
+        const auto factor = number_at(factors, entry, Quantity::number, Need::required, Sign::any);
         auto found = case_index.find(name);
         if (found == case_index.end()) {
           const std::string near = closest_match(name, keys_of(case_index));

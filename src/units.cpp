@@ -6,6 +6,8 @@
 #include <stdexcept>
 #include <string_view>
 
+#include <fmt/format.h>
+
 namespace cairn {
 namespace {
 
@@ -143,6 +145,40 @@ const char* kind_name(int force, int length) {
 
 }  // namespace
 
+double largest_plausible(Quantity quantity) {
+  switch (quantity) {
+    case Quantity::length:
+    case Quantity::small_length: return 1e7;  // m: survey grid coordinates (UTM northings < 1e7 m)
+    case Quantity::force: return 1e12;        // kN
+    case Quantity::moment: return 1e15;       // kN·m: the largest force at 1 km
+    case Quantity::pressure: return 1e9;      // kPa: 5000 × the modulus of steel
+    case Quantity::unit_weight: return 1e9;   // kN/m³ (also subgrade moduli)
+    case Quantity::stiffness: return 1e15;    // kN/m
+    case Quantity::rotational_stiffness: return 1e18;  // kN·m/rad
+    case Quantity::area: return 1e6;          // m²
+    case Quantity::angle: return 3600.0;      // degrees: ten turns
+    case Quantity::number: return 1e9;        // factors, ratios, counts
+  }
+  return 0.0;
+}
+
+double smallest_plausible(Quantity quantity) {
+  switch (quantity) {
+    case Quantity::length: return 1e-3;                // m: 1 mm
+    case Quantity::small_length: return 1e-6;          // m: 1 µm
+    case Quantity::force: return 1e-6;                 // kN: 1 mN
+    case Quantity::moment: return 1e-6;                // kN·m
+    case Quantity::pressure: return 1e-3;              // kPa: 1 Pa
+    case Quantity::unit_weight: return 1e-3;           // kN/m³
+    case Quantity::stiffness: return 1e-3;             // kN/m
+    case Quantity::rotational_stiffness: return 1e-3;  // kN·m/rad
+    case Quantity::area: return 1e-8;                  // m²: 0.01 mm²
+    case Quantity::angle: return 1e-3;                 // degrees
+    case Quantity::number: return 1e-6;
+  }
+  return 0.0;
+}
+
 double to_si_factor(UnitSystem system, Quantity quantity) {
   if (system == UnitSystem::SI) {
     return quantity == Quantity::small_length ? 1e-3 : 1.0;
@@ -204,6 +240,20 @@ std::string describe(Quantity quantity, UnitSystem system) {
   return "a number";
 }
 
+namespace {
+
+// The value, or an error when it is beyond largest_plausible() in size (checked in SI, so
+// that a conversion which overflows, "1e308 kip", is caught as well).
+ParsedQuantity bounded(double si, const std::string& text, Quantity quantity, UnitSystem system) {
+  const double limit = largest_plausible(quantity);
+  if (std::isfinite(si) && std::abs(si) <= limit) return {si, {}};
+  const double shown = quantity == Quantity::angle ? limit : from_si(system, quantity, limit);
+  return {std::nullopt, fmt::format("expected {} no larger than {:g} in magnitude, got '{}'",
+                                    describe(quantity, system), shown, text)};
+}
+
+}  // namespace
+
 ParsedQuantity parse_quantity(const std::string& text, Quantity quantity, UnitSystem system) {
   std::string_view s = trim(text);
   if (s.empty()) return {std::nullopt, "expected " + describe(quantity, system) + ", got nothing"};
@@ -218,9 +268,9 @@ ParsedQuantity parse_quantity(const std::string& text, Quantity quantity, UnitSy
     return {std::nullopt, "expected " + describe(quantity, system) + ", got '" + copy + "'"};
   }
   std::string_view unit = trim(s.substr(used));
-  if (unit.empty()) return {value * to_si_factor(system, quantity), {}};
+  if (unit.empty()) return bounded(value * to_si_factor(system, quantity), copy, quantity, system);
   if (quantity == Quantity::angle) {
-    if (unit == "deg" || unit == "°" || unit == "degrees") return {value, {}};
+    if (unit == "deg" || unit == "°" || unit == "degrees") return bounded(value, copy, quantity, system);
     return {std::nullopt, "expected an angle in degrees ('deg'), got unit '" + std::string(unit) + "'"};
   }
   if (quantity == Quantity::number) {
@@ -240,7 +290,7 @@ ParsedQuantity parse_quantity(const std::string& text, Quantity quantity, UnitSy
                               kind_name(dim->force, dim->length) + " unit '" + std::string(unit) +
                               "'"};
   }
-  return {value * dim->factor, {}};
+  return bounded(value * dim->factor, copy, quantity, system);
 }
 
 }  // namespace cairn

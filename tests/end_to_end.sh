@@ -505,5 +505,41 @@ expect_in "extreme-event φ stated" "$work/out" "Pile type HP: AASHTO extreme ev
 expect_status "ASCE 7 seismic without SDS" 2 check "$data/e2e/bad_sds.yaml"
 expect_in "SDS asked for, located" "$work/err" "bad_sds.yaml:14:13: error: combinations.generate.sds: missing; expected SDS (in g) for the vertical seismic effect Ev = 0.2·SDS·D of ASCE/SEI 7-16 §12.4.2.2, because load case 'E' is seismic"
 
+# ---- Robustness: inputs that once crashed or hung are located input errors (exit 2).
+robust="$data/robust"
+expect_status "alias cycle" 2 check "$robust/alias_cycle.yaml"
+expect_in "alias cycle named" "$work/err" "alias_cycle.yaml:3:8: error: x.a: an alias refers to a map or list that contains it (a cycle)"
+expect_status "alias bomb" 2 check "$robust/alias_bomb.yaml"
+expect_in "alias bomb refused" "$work/err" "alias_bomb.yaml:6:5: error: a4: aliases expand this to more than 102636 values"
+python3 -c 'import sys; n=100000; open(sys.argv[1], "w").write("x: " + "[" * n + "]" * n + "\n")' "$work/deep.yaml"
+expect_status "100,000 nested lists" 2 check "$work/deep.yaml"
+expect_in "nesting limit named" "$work/err" "deep.yaml:1:203: error: lists and maps nested deeper than 200 levels"
+python3 -c 'import sys; n=100000; open(sys.argv[1], "w").write("x: " + "{a: " * n + "1" + "}" * n + "\n")' "$work/deep.yaml"
+expect_status "100,000 nested maps" 2 check "$work/deep.yaml"
+expect_status "key that is a list" 2 check "$robust/list_key.yaml"
+expect_in "list key located" "$work/err" "list_key.yaml:3:3: error: expected a name as a key, got a list"
+expect_status "column without at" 2 check "$robust/column_without_at.yaml"
+expect_in "column without at located" "$work/err" "column_without_at.yaml:24:5: error: columns[0].at: expected [x, y] or [x, y, z] in m, got nothing"
+expect_status "huge loads" 2 check "$robust/huge_loads.yaml"
+expect_in "1e308 kip refused" "$work/err" "huge_loads.yaml:20:44: error: load_cases.L.loads[0].Fz: expected a force in kN no larger than 1e+12 in magnitude, got '-1e308 kip'"
+expect_status "tab in indentation" 2 check "$robust/tab_indent.yaml"
+expect_in "tab named" "$work/err" "tab_indent.yaml:5:1: error: tab character in indentation; YAML indents with spaces"
+for step in 1e-9 0 -1 nan inf; do
+  expect_status "capacity --step $step" 2 capacity "$data/e2e/soil.yaml" --step "$step"
+done
+expect_in "a table too long is refused" "$work/err" "--step: expected a positive length in m no larger than 1e+07, got 'inf'"
+run capacity "$data/e2e/soil.yaml" --step 1e-9
+expect_in "rows counted, shortest step given" "$work/err" "would have 25000001001 rows, more than 10000; use a step of at least 0.0025 m"
+expect_status "capacity --from inf" 2 capacity "$data/e2e/soil.yaml" --from inf
+
+python3 -c 'import sys; open(sys.argv[1], "w").write(open(sys.argv[2]).read().replace("  - {id: A2, x: 1.35, y: -1.35, type: PC45}\n", "  - {id: A0, x: 0, y: 0, type: PC45}\n" * 5000))' "$work/same.yaml" "$data/base.yaml"
+expect_status "5,000 piles at one point" 2 check "$work/same.yaml"
+expect_in "the rest counted" "$work/err" "error: piles: … and 4994 more piles at positions already used"
+if [ "$(wc -l <"$work/err")" -le 12 ]; then ok; else bad "same position: $(wc -l <"$work/err") lines of messages"; fi
+expect_status "missing capacity, generated combinations" 2 check "$robust/missing_factored_once.yaml"
+if [ "$(wc -l <"$work/err")" -eq 1 ]; then ok; else bad "missing capacity reported $(wc -l <"$work/err") times"; fi
+expect_status "unknown command" 2 chek "$data/base.yaml"
+expect_in "nearest command suggested" "$work/err" "cairn: error: unknown command 'chek'; did you mean 'check'?"
+
 echo "$passed passed, $failed failed"
 [ "$failed" -eq 0 ]

@@ -264,9 +264,17 @@ double default_uplift_factor(SoilKind kind);
 CapacityResult pile_capacity(const SoilProfile& profile, const PileGeometry& pile,
                              const PileDesign& design);
 
+// The most rows a capacity-with-depth table may have: a table for reading, and a bound on
+// the work a step typed on the command line can ask for.
+inline constexpr std::size_t kMaxDepthRows = 10000;
+
+// The number of rows of a capacity-with-depth table from `min_length` in steps of `step`
+// down to `longest` (all m): 0 when min_length > longest. Requires step > 0.
+double depth_table_rows(double longest, double step, double min_length);
+
 // pile_capacity for lengths min_length, min_length + step, … up to the profile's base
-// (tip ≤ profile depth). Requires step > 0, min_length > 0 and an empty
-// validate_design(profile, pile, design, min_length); throws std::invalid_argument.
+// (tip ≤ profile depth). Requires step > 0, min_length > 0, at most kMaxDepthRows rows and
+// an empty validate_design(profile, pile, design, min_length); throws std::invalid_argument.
 std::vector<DepthRow> capacity_with_depth(const SoilProfile& profile, PileGeometry pile,
                                           const PileDesign& design, double step, double min_length);
 

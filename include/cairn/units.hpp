@@ -53,9 +53,20 @@ struct ParsedQuantity {
   std::string error;         // otherwise what went wrong, in plain words
 };
 
+// The largest magnitude, in SI, that a value of `quantity` may have in a project: far
+// beyond any foundation (1e7 m, 1e12 kN, 1e15 kN·m, 1e9 kPa, …; docs/input.md, "Limits"),
+// and small enough that products of such values stay finite in double precision.
+double largest_plausible(Quantity quantity);
+
+// The smallest SI value a quantity that must be positive may have (1 mm for a length, 1 Pa
+// for a pressure, 1e-6 for a plain number, …): a pile 1e-30 m long is a typo, and its
+// stiffness E·A/L would overflow.
+double smallest_plausible(Quantity quantity);
+
 // Parses "<number> <unit>" (or a bare number, taken in the project's default unit) as a
 // `quantity` and returns the value in SI. Errors: not a number, unknown unit, unit of the
-// wrong kind ("expected a length, got a force unit 'kip'").
+// wrong kind ("expected a length, got a force unit 'kip'"), a value larger in magnitude
+// than largest_plausible(), before or after conversion ("1e308 kip").
 ParsedQuantity parse_quantity(const std::string& text, Quantity quantity, UnitSystem system);
 
 // Plain name of a quantity for messages: "a length in m".

@@ -76,21 +76,24 @@ inline bool known_defect_shape(std::string_view text) {
     if (c == ']' || c == '}') --depth;
     if (c == '\n') dashes = 0;
     if (c == '-' && i + 1 < text.size() && text[i + 1] == ' ') deepest = std::max(deepest, ++dashes);
-    // An exponent of three digits, or of two when the number may be multiplied further.
-    if ((c == 'e' || c == 'E') && i > 0 && (std::isdigit(static_cast<unsigned char>(text[i - 1])) ||
-                                            text[i - 1] == '.')) {
+    // A decimal exponent of 30 or more in size (a binary one, of hexadecimal numbers, of 100):
+    // 1e30 and 1e-30 are already beyond any quantity of a foundation, and products overflow.
+    const bool binary = c == 'p' || c == 'P';
+    if ((c == 'e' || c == 'E' || binary) && i > 0 &&
+        (std::isxdigit(static_cast<unsigned char>(text[i - 1])) || text[i - 1] == '.')) {
       std::size_t j = i + 1;
       if (j < text.size() && (text[j] == '+' || text[j] == '-')) ++j;
-      std::size_t digits = 0;
-      while (j < text.size() && std::isdigit(static_cast<unsigned char>(text[j]))) ++j, ++digits;
-      if (digits >= 2) return true;
+      int exponent = 0;
+      while (j < text.size() && std::isdigit(static_cast<unsigned char>(text[j])) && exponent < 1000)
+        exponent = exponent * 10 + (text[j++] - '0');
+      if (exponent >= (binary ? 100 : 30)) return true;
     }
   }
   // Long runs of digits are huge numbers too.
   std::size_t run = 0;
   for (const char c : text) {
     run = std::isdigit(static_cast<unsigned char>(c)) ? run + 1 : 0;
-    if (run > 20) return true;
+    if (run > 30) return true;
   }
   return deepest > 100;
 }

@@ -270,6 +270,12 @@ void write_files_atomically(const std::string& folder_name,
     }
     remove_stale_temporaries(dir);
   }
+  // Also the folders of earlier runs' files, which this run may not write into.
+  for (const auto& name : ours) {
+    const fs::path dir = (folder / name).parent_path();
+    if (!folders.contains(dir) && fs::is_directory(fs::symlink_status(dir, ec)))
+      remove_stale_temporaries(dir);
+  }
 
   // 3. Every file in full under its temporary name.
   for (const auto& [name, content] : files) {

@@ -170,6 +170,10 @@ TEST_CASE("output_files: stale temporaries of runs that are gone are removed", "
   TempFolder tmp;
   const fs::path out = tmp.path / "out";
   fs::create_directories(out / "cap-a");
+  // A folder of an earlier run's files, which this run does not write into.
+  write_files_atomically(out.string(), {{"cap-b/table.csv", "earlier"}});
+  write(out / "cap-b" / ".cairn-tmp-999999999-table.csv", "stale");
+
   // pid 999999999 is above Linux's largest pid (4194304), so no such process exists.
   write(out / ".cairn-tmp-999999999-report.txt", "stale");
   write(out / "cap-a" / ".cairn-tmp-999999999-table.csv", "stale");
@@ -187,7 +191,8 @@ TEST_CASE("output_files: stale temporaries of runs that are gone are removed", "
 
   write_files_atomically(out.string(), {{"report.txt", "new"}, {"cap-a/table.csv", "new"}});
   std::vector<std::string> left = {".cairn-tmp-notes.txt", live, "cairn-manifest.json",
-                                   "cairn-tmp-1-x", "cap-a", "cap-a/table.csv", "report.txt"};
+                                   "cairn-tmp-1-x", "cap-a", "cap-a/table.csv", "cap-b",
+                                   "cap-b/table.csv", "report.txt"};
   std::sort(left.begin(), left.end());
   CHECK(listing(out) == left);
 }

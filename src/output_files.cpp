@@ -235,6 +235,14 @@ void write_files_atomically(const std::string& folder_name,
   for (const auto& file : files)
     if (!names.insert(file.first).second || file.first == kManifestName)
       throw std::logic_error("output file '" + file.first + "' named twice, or as the manifest");
+  // A name that is also the folder of another ("a.txt" and "a.txt/b.csv", from a project
+  // file named a.txt.yaml) would fail among the renames.
+  for (const auto& name : names)
+    for (fs::path dir = fs::path(name).parent_path(); !dir.empty(); dir = dir.parent_path())
+      if (names.contains(dir.string()))
+        throw OutputError(fmt::format("'{}' would be both a file and the folder of '{}'; rename "
+                                      "one of the inputs; nothing was written",
+                                      dir.string(), name));
   const fs::path folder(folder_name);
   std::error_code ec;
 

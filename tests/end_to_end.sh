@@ -359,8 +359,21 @@ expect_status "report of 40 caps" 0 report "$atomic/caps"/cap*.yaml --out "$atom
 elapsed=$(( ($(date +%s%N) - start) / 1000000 ))
 for percent in 30 60 80 90 95 100; do
   delay=$(python3 -c "print(max(0.01, $elapsed * $percent / 100000))")
-  (timeout -s KILL "$delay" "$cairn" report "$atomic/caps"/cap*.yaml --out "$atomic/pkg" >/dev/null 2>&1) 2>/dev/null
+  (timeout --foreground -s KILL "$delay" "$cairn" report "$atomic/caps"/cap*.yaml --out "$atomic/pkg" >/dev/null 2>&1) 2>/dev/null
   if check_set "$atomic/pkg" 2>"$work/err"; then ok; else bad "killed after ${delay}s: the manifest vouches for a mixed set"; fi
+done
+# And killed as soon as the manifest says "complete": false, i.e. among the renames.
+for trial in 1 2 3; do
+  "$cairn" report "$atomic/caps"/cap*.yaml --out "$atomic/pkg" --svg >/dev/null 2>&1 &
+  pid=$!
+  while kill -0 "$pid" 2>/dev/null; do
+    if grep -q '"complete": false' "$atomic/pkg/cairn-manifest.json" 2>/dev/null; then
+      kill -KILL "$pid" 2>/dev/null
+      break
+    fi
+  done
+  wait "$pid" 2>/dev/null
+  if check_set "$atomic/pkg" 2>"$work/err"; then ok; else bad "killed among the renames: the manifest vouches for a mixed set"; fi
 done
 expect_status "report of 40 caps after the kills" 0 report "$atomic/caps"/cap*.yaml --out "$atomic/pkg"
 if check_set "$atomic/pkg" 2>"$work/err" &&

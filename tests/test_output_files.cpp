@@ -133,6 +133,10 @@ TEST_CASE("output_files: refuses before writing anything", "[output_files]") {
                       Catch::Contains("was not written by cairn"));
     CHECK(read(out / "c.txt") == "the user's");
   }
+  SECTION("a name that is also another's folder") {
+    CHECK_THROWS_WITH(write_files_atomically(out.string(), {{"a.txt", "new"}, {"a.txt/c.csv", "new"}}),
+                      Catch::Contains("both a file and the folder"));
+  }
   SECTION("a manifest that is not cairn's") {
     write(out / cairn::kManifestName, "{\"files\": [\"a.txt\"]}");
     CHECK_THROWS_WITH(write_files_atomically(out.string(), {{"a.txt", "new"}}),

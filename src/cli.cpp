@@ -272,6 +272,7 @@ int run_report(const Options& options, std::ostream& out, std::ostream& err) {
   for (const auto& o : outcomes) print_warnings(o.run->project, err);
   const std::string described = describe_options(options);
   std::vector<std::pair<std::string, std::string>> written;
+  std::string listing;
   bool pass = true;
   std::set<std::string> stems;
   for (const auto& o : outcomes) {
@@ -296,10 +297,12 @@ int run_report(const Options& options, std::ostream& out, std::ostream& err) {
                            render_plan_svg(run.project, &run.results, &run.resistances));
     if (options.tables)
       for (auto& [name, content] : check_files(report)) written.emplace_back(stem + "/" + name, content);
-    out << fmt::format("{}: {} — {}\n", o.file, summary_line(report),
-                       (std::filesystem::path(*options.out_dir) / (stem + ".html")).string());
+    listing += fmt::format("{}: {} — {}\n", o.file, summary_line(report),
+                           (std::filesystem::path(*options.out_dir) / (stem + ".html")).string());
   }
+  // Nothing is said about the files until all of them are in place.
   write_files_atomically(*options.out_dir, written);
+  out << listing;
   return pass ? kExitPass : kExitFail;
 }
 

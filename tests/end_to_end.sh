@@ -637,7 +637,6 @@ if [ -z "$(find "$atomic/pkg" -name '*cairn-tmp*')" ]; then ok; else
 fi
 
 # ---- Inputs the fuzz targets found (scripts/fuzz): each runs to a verdict or a located error.
-# tests/data/fuzz-regressions/pending/ holds those not fixed yet; they are not replayed.
 fuzz_replay() {  # fuzz_replay NAME ARGS...
   local name=$1
   shift

@@ -24,7 +24,10 @@ std::string number(double value, int decimals = 3) {
   return buffer;
 }
 
-std::string metres(double value) { return number(value) + " m"; }
+// A length (m) in the project's units with its unit, for notes and reasons.
+std::string length_text(double metres, UnitSystem units) {
+  return number(from_si(units, Quantity::length, metres)) + " " + unit_label(units, Quantity::length);
+}
 
 void add_unique(std::vector<std::string>& notes, const std::string& note) {
   if (std::find(notes.begin(), notes.end(), note) == notes.end()) notes.push_back(note);
@@ -143,7 +146,7 @@ std::size_t nearest(const std::vector<Cluster>& clusters, double value) {
 
 // Uniform spacing of consecutive lines: returns the mean spacing, or explains why not.
 std::optional<double> uniform_spacing(const std::vector<Cluster>& lines, double tolerance,
-                                      const char* axis, std::string& reason) {
+                                      const char* axis, std::string& reason, UnitSystem units) {
   if (lines.size() < 2) return 0.0;
   double low = std::numeric_limits<double>::infinity(), high = 0.0;
   for (std::size_t i = 1; i < lines.size(); ++i) {
@@ -152,8 +155,8 @@ std::optional<double> uniform_spacing(const std::vector<Cluster>& lines, double 
     high = std::max(high, gap);
   }
   if (high - low > tolerance) {
-    reason = std::string("spacing along ") + axis + " is not uniform (" + metres(low) + " to " +
-             metres(high) + ")";
+    reason = std::string("spacing along ") + axis + " is not uniform (" + length_text(low, units) +
+             " to " + length_text(high, units) + ")";
     return std::nullopt;
   }
   return (lines.back().centre - lines.front().centre) / static_cast<double>(lines.size() - 1);
@@ -210,9 +213,9 @@ void check_depths(const SoilColumn& column, const BlockPlan& plan, double head_d
   require(head_depth >= 0.0, "pile head depth must not be negative");
   require(tip_depth > head_depth, "pile tips must lie below the pile heads");
   if (tip_depth > column.depth() + kDepthEpsilon)
-    throw std::invalid_argument("pile tips at " + metres(tip_depth) +
+    throw std::invalid_argument("pile tips at " + length_text(tip_depth, UnitSystem::SI) +
                                 " lie below the soil profile, which ends at " +
-                                metres(column.depth()));
+                                length_text(column.depth(), UnitSystem::SI));
 }
 
 std::string missing_text(const std::vector<MissingField>& missing) {
@@ -246,7 +249,7 @@ double consolidation(double cc, double cr, double e0, double sigma_p, double sig
 
 // ---- layout -------------------------------------------------------------------------------
 
-GridLayout detect_grid(const std::vector<PilePlan>& piles, double tolerance) {
+GridLayout detect_grid(const std::vector<PilePlan>& piles, double tolerance, UnitSystem units) {
   require(!piles.empty(), "no piles to arrange in a grid");
   require(tolerance > 0.0, "grid tolerance must be positive");
   GridLayout grid;
@@ -262,8 +265,8 @@ GridLayout detect_grid(const std::vector<PilePlan>& piles, double tolerance) {
   for (const auto* lines : {&columns, &rows})
     for (const Cluster& c : *lines)
       if (c.spread > tolerance) {
-        grid.reason = "piles on one line scatter by " + metres(c.spread) +
-                      ", more than the tolerance of " + metres(tolerance);
+        grid.reason = "piles on one line scatter by " + length_text(c.spread, units) +
+                      ", more than the tolerance of " + length_text(tolerance, units);
         return grid;
       }
   if (rows.size() * columns.size() != piles.size()) {
@@ -282,9 +285,9 @@ GridLayout detect_grid(const std::vector<PilePlan>& piles, double tolerance) {
     }
     occupant[cell] = k;
   }
-  const auto sx = uniform_spacing(columns, tolerance, "x", grid.reason);
+  const auto sx = uniform_spacing(columns, tolerance, "x", grid.reason, units);
   if (!sx) return grid;
-  const auto sy = uniform_spacing(rows, tolerance, "y", grid.reason);
+  const auto sy = uniform_spacing(rows, tolerance, "y", grid.reason, units);
   if (!sy) return grid;
   grid.spacing_x = *sx;
   grid.spacing_y = *sy;
@@ -293,7 +296,7 @@ GridLayout detect_grid(const std::vector<PilePlan>& piles, double tolerance) {
 }
 
 SpacingCheck check_spacing(const std::vector<PilePlan>& piles, double factor,
-                           double absolute_minimum) {
+                           double absolute_minimum, UnitSystem units) {
   require(factor > 0.0, "spacing factor must be positive");
   require(absolute_minimum >= 0.0, "minimum spacing must not be negative");
   SpacingCheck check;
@@ -309,7 +312,7 @@ SpacingCheck check_spacing(const std::vector<PilePlan>& piles, double factor,
   check.smallest = piles.size() < 2 ? 0.0 : smallest;
   check.notes.push_back("minimum spacing " + number(factor, 2) +
                         " × pile width (larger width of each pair)" +
-                        (absolute_minimum > 0.0 ? ", at least " + metres(absolute_minimum) : ""));
+                        (absolute_minimum > 0.0 ? ", at least " + length_text(absolute_minimum, units) : ""));
   return check;
 }
 
@@ -370,7 +373,7 @@ std::optional<EfficiencyMethod> efficiency_method_from_string(const std::string&
 namespace {
 
 Efficiency efficiency_on_grid(EfficiencyMethod method, const std::vector<PilePlan>& piles,
-                              const GridLayout& grid, double tolerance) {
+                              const GridLayout& grid, double tolerance, UnitSystem units) {
   Efficiency result{method, std::nullopt, {}};
   if (method == EfficiencyMethod::none) {
     result.value = 1.0;
@@ -401,7 +404,7 @@ Efficiency efficiency_on_grid(EfficiencyMethod method, const std::vector<PilePla
   if (grid.spacing_x > 0.0 && grid.spacing_y > 0.0) {
     spacing = std::min(grid.spacing_x, grid.spacing_y);
     if (std::abs(grid.spacing_x - grid.spacing_y) > tolerance)
-      result.note = "spacings differ along x and y: the smaller, " + metres(spacing) + ", is used";
+      result.note = "spacings differ along x and y: the smaller, " + length_text(spacing, units) + ", is used";
   } else {
     spacing = std::max(grid.spacing_x, grid.spacing_y);
   }
@@ -448,17 +451,18 @@ Efficiency efficiency_on_grid(EfficiencyMethod method, const std::vector<PilePla
 }  // namespace
 
 Efficiency group_efficiency(EfficiencyMethod method, const std::vector<PilePlan>& piles,
-                            double tolerance) {
-  return efficiency_on_grid(method, piles, detect_grid(piles, tolerance), tolerance);
+                            double tolerance, UnitSystem units) {
+  return efficiency_on_grid(method, piles, detect_grid(piles, tolerance, units), tolerance, units);
 }
 
-EfficiencySummary all_efficiencies(const std::vector<PilePlan>& piles, double tolerance) {
+EfficiencySummary all_efficiencies(const std::vector<PilePlan>& piles, double tolerance,
+                                   UnitSystem units) {
   EfficiencySummary summary;
-  summary.grid = detect_grid(piles, tolerance);
+  summary.grid = detect_grid(piles, tolerance, units);
   for (EfficiencyMethod m : {EfficiencyMethod::none, EfficiencyMethod::converse_labarre,
                              EfficiencyMethod::los_angeles, EfficiencyMethod::feld,
                              EfficiencyMethod::block_perimeter})
-    summary.all.push_back(efficiency_on_grid(m, piles, summary.grid, tolerance));
+    summary.all.push_back(efficiency_on_grid(m, piles, summary.grid, tolerance, units));
   return summary;
 }
 
@@ -684,13 +688,13 @@ EquivalentFootingSettlement equivalent_footing_settlement(
     const double top = std::max(column.top(i), head_depth);
     result.footing_depth = top + 2.0 / 3.0 * (tip_depth - top);
     result.notes.push_back("equivalent footing at 2/3 of the pile length in the bearing stratum " +
-                           layer_label(profile.layers[i]) + " (" + metres(top) + " to " +
-                           metres(tip_depth) + "): " + metres(result.footing_depth) +
+                           layer_label(profile.layers[i]) + " (" + length_text(top, options.units) + " to " +
+                           length_text(tip_depth, options.units) + "): " + length_text(result.footing_depth, options.units) +
                            " below ground (FHWA 1996)");
   } else {
     result.footing_depth = head_depth + 2.0 / 3.0 * (tip_depth - head_depth);
     result.notes.push_back("equivalent footing at 2/3 of the embedded length: " +
-                           metres(result.footing_depth) + " below ground");
+                           length_text(result.footing_depth, options.units) + " below ground");
   }
   result.notes.push_back("load spread 2V:1H below the footing: Δσ = Q/((Bg + z)(Lg + z))");
 
@@ -723,7 +727,7 @@ EquivalentFootingSettlement equivalent_footing_settlement(
     sub.added_stress = spread_stress(load, plan, z);
     if (sub.added_stress < options.stress_ratio_cutoff * sub.initial_stress) {
       result.bottom = top;
-      result.notes.push_back("summation stopped at " + metres(top) + " below ground, where Δσ "
+      result.notes.push_back("summation stopped at " + length_text(top, options.units) + " below ground, where Δσ "
                              "falls below " + number(100.0 * options.stress_ratio_cutoff, 0) +
                              " % of σ'v0");
       cut_off = true;
@@ -762,9 +766,9 @@ EquivalentFootingSettlement equivalent_footing_settlement(
   }
   if (!cut_off) {
     if (end < column.depth() - kDepthEpsilon)
-      result.notes.push_back("summation stopped at the given depth, " + metres(end) + " below ground");
+      result.notes.push_back("summation stopped at the given depth, " + length_text(end, options.units) + " below ground");
     else
-      result.notes.push_back("the soil profile ends at " + metres(end) +
+      result.notes.push_back("the soil profile ends at " + length_text(end, options.units) +
                              ": the ground below is taken as incompressible");
   }
   result.notes.push_back("sand: Δs = Δσ·h/Es; pile shortening above the footing is not included");
@@ -776,15 +780,18 @@ EquivalentFootingSettlement equivalent_footing_settlement(
   return result;
 }
 
-SettlementCheck check_settlement(double settlement, std::optional<double> limit) {
+SettlementCheck check_settlement(double settlement, std::optional<double> limit,
+                                 UnitSystem units) {
   require(settlement >= 0.0, "settlement must not be negative");
   require(!limit || *limit > 0.0, "tolerable settlement must be positive");
   SettlementCheck check;
   check.settlement = settlement;
   check.limit = limit.value_or(kTolerableSettlement);
   if (!limit)
-    check.notes.push_back("tolerable settlement 25 mm (common practice, Terzaghi & Peck); not "
-                          "given in the project");
+    check.notes.push_back("tolerable settlement " +
+                          number(from_si(units, Quantity::small_length, kTolerableSettlement), 1) +
+                          " " + unit_label(units, Quantity::small_length) +
+                          " (25 mm; common practice, Terzaghi & Peck); not given in the project");
   check.ok = settlement <= check.limit;
   return check;
 }

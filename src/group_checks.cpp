@@ -90,16 +90,18 @@ std::vector<Diagnostic> group_input_problems(const Project& project,
   const GroupSettings& g = project.group;
   if (auto method = efficiency_method_from_string(g.efficiency);
       method && *method != EfficiencyMethod::none) {
-    const Efficiency e = group_efficiency(*method, plans);
+    const Efficiency e = group_efficiency(*method, plans, kGridTolerance, project.units);
     if (!e.value)
       problems.push_back({g.where, fmt::format("group.efficiency: '{}' {}", g.efficiency, e.note)});
   }
   if (project.cap.outline) {
     for (const Pile& p : project.piles)
       if (!project.cap.outline->contains(p.x, p.y))
-        problems.push_back({p.where, fmt::format("piles: pile '{}' at ({:g}, {:g}) lies outside "
+        problems.push_back({p.where, fmt::format("piles: pile '{}' at ({:g}, {:g}) {} lies outside "
                                                  "the cap outline",
-                                                 p.id, p.x, p.y)});
+                                                 p.id, from_si(project.units, Quantity::length, p.x),
+                                                 from_si(project.units, Quantity::length, p.y),
+                                                 unit_label(project.units, Quantity::length))});
   }
   if (g.settlement) {
     if (!project.soil) {
@@ -124,9 +126,11 @@ std::vector<Diagnostic> group_input_problems(const Project& project,
       for (const Combination& combo : project.combinations)
         if (combo.limit_state == LimitState::service)
           largest = std::max(largest, -combination_load(project, combo)[2]);
+      EquivalentFootingOptions options;
+      options.units = project.units;
       const auto footing = equivalent_footing_settlement(*project.soil, block_plan(plans),
                                                          project.cap.depth, tip,
-                                                         std::max(largest, 1.0));
+                                                         std::max(largest, 1.0), options);
       for (const auto& m : footing.missing) missing.push_back(m.message);
     }
     std::sort(missing.begin(), missing.end());
@@ -144,16 +148,16 @@ GroupResults evaluate_group(const Project& project, const CheckResults& results,
   const GroupSettings& g = project.group;
   const auto plans = plans_of(project);
   out.plan = block_plan(plans);
-  out.efficiencies = all_efficiencies(plans);
+  out.efficiencies = all_efficiencies(plans, kGridTolerance, project.units);
   const EfficiencyMethod method =
       efficiency_method_from_string(g.efficiency).value_or(EfficiencyMethod::none);
-  out.applied = group_efficiency(method, plans);
+  out.applied = group_efficiency(method, plans, kGridTolerance, project.units);
   const std::string context = no_reduction_context(project);
   for (Efficiency& e : out.efficiencies.all)
     if (e.method == EfficiencyMethod::none) e.note += context;
   if (method == EfficiencyMethod::none) out.applied.note += context;
   const double eta = out.applied.value.value_or(1.0);
-  out.spacing = check_spacing(plans, g.min_spacing_factor, g.min_spacing);
+  out.spacing = check_spacing(plans, g.min_spacing_factor, g.min_spacing, project.units);
   for (SpacingViolation& v : battered_spacing_violations(project))
     out.spacing.violations.push_back(std::move(v));
   if (!out.spacing.violations.empty()) out.pass = false;
@@ -226,7 +230,10 @@ GroupResults evaluate_group(const Project& project, const CheckResults& results,
   out.settlement_asked = g.settlement && project.soil.has_value();
   out.settlement_limit = g.settlement_limit.value_or(kDefaultSettlementLimit);
   if (out.settlement_asked && !g.settlement_limit)
-    out.notes.push_back("Tolerable settlement 25 mm (default; common practice for buildings).");
+    out.notes.push_back(fmt::format(
+        "Tolerable settlement {:.1f} {} (default, 25 mm; common practice for buildings).",
+        from_si(project.units, Quantity::small_length, kDefaultSettlementLimit),
+        unit_label(project.units, Quantity::small_length)));
   std::optional<VesicPile> single;
   if (out.settlement_asked) single = vesic_pile(project, t, nullptr);
   if (out.settlement_asked && project.pile_types.size() > 1)
@@ -298,8 +305,10 @@ GroupResults evaluate_group(const Project& project, const CheckResults& results,
         const double s = vesic_settlement(*single, split).total;
         gc.single_settlement = s;
         gc.group_settlement = vesic_group_settlement(s, out.plan.width, type.section.width);
+        EquivalentFootingOptions options;
+        options.units = project.units;
         const auto footing = equivalent_footing_settlement(*project.soil, out.plan,
-                                                           project.cap.depth, tip, vertical);
+                                                           project.cap.depth, tip, vertical, options);
         gc.footing_settlement = footing.total;
         gc.settlement = std::max(*gc.group_settlement, footing.total.value_or(0.0));
         if (*gc.settlement > out.settlement_limit) gc.pass = false;

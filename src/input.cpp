@@ -1571,7 +1571,9 @@ class Reader {
           {"sds", "asce7-"},          {"earth_permanent", "asce7-"}, {"gamma_eq", "aashto-"},
           {"pile_kind", "en1997-"},   {"test_profiles", "en1997-"},  {"rigid_cap", "en1997-"},
           {"model_factor", "en1997-"}};
-      for (const auto& [key, prefix] : owners) {
+      for (const auto& owner : owners) {
+        const std::string& key = owner.first;
+        const std::string& prefix = owner.second;  // a plain reference: lambdas may capture it
         const Located k = n.child(key);
         if (!k.present()) continue;
         const bool read = std::any_of(names.begin(), names.end(), [&](const Located& c) {

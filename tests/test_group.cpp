@@ -516,3 +516,21 @@ TEST_CASE("group: missing consolidation data names the layer and the field", "[g
   CHECK(result.missing[1].field == "void_ratio");
   CHECK(result.missing[2].field == "preconsolidation");
 }
+
+TEST_CASE("group: notes quote lengths and the default settlement limit in the project's units",
+          "[group]") {
+  // A 2 × 2 grid at 1.2 m by 1.5 m: the smaller spacing is used and quoted.
+  std::vector<PilePlan> piles;
+  for (double x : {0.0, 1.2})
+    for (double y : {0.0, 1.5}) piles.push_back({"P", x, y, 0.4, true});
+  const cairn::Efficiency si = cairn::group_efficiency(cairn::EfficiencyMethod::converse_labarre, piles);
+  CHECK(si.note == "spacings differ along x and y: the smaller, 1.200 m, is used");
+  const cairn::Efficiency us =
+      cairn::group_efficiency(cairn::EfficiencyMethod::converse_labarre, piles, cairn::kGridTolerance, cairn::UnitSystem::US);
+  // 1.2 m = 3.937 ft (1 ft = 0.3048 m exactly, NIST SP 811 2008).
+  CHECK(us.note == "spacings differ along x and y: the smaller, 3.937 ft, is used");
+  // Default tolerable settlement 25 mm = 0.98 in, printed 1.0 in (common practice value).
+  const cairn::SettlementCheck s = cairn::check_settlement(0.010, std::nullopt, cairn::UnitSystem::US);
+  REQUIRE(s.notes.size() == 1);
+  CHECK(s.notes[0].starts_with("tolerable settlement 1.0 in (25 mm;"));
+}

@@ -219,7 +219,14 @@ TEST_CASE("group_checks: input problems only the group checks can see", "[group_
     const auto problems = group_input_problems(p, {});
     REQUIRE(problems.size() == 1);
     CHECK(problems[0].where.line == 12);
-    CHECK(problems[0].message == "piles: pile 'P9' at (2.4, 1.2) lies outside the cap outline");
+    CHECK(problems[0].message == "piles: pile 'P9' at (2.4, 1.2) m lies outside the cap outline");
+    SECTION("in a US project the position is quoted in ft") {
+      p.units = UnitSystem::US;
+      const auto us = group_input_problems(p, {});
+      REQUIRE(us.size() == 1);
+      // 2.4 m = 7.87402 ft, 1.2 m = 3.93701 ft (1 ft = 0.3048 m exactly, NIST SP 811 2008).
+      CHECK(us[0].message == "piles: pile 'P9' at (7.87402, 3.93701) ft lies outside the cap outline");
+    }
   }
   SECTION("settlement without the soil's modulus names layer and field") {
     Project p = grid(0.4, 1.2, 15.0, {0, 0, -5400.0, 0, 0, 0});

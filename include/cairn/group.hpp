@@ -23,6 +23,7 @@
 #include <vector>
 
 #include "cairn/soil.hpp"
+#include "cairn/units.hpp"
 
 namespace cairn {
 
@@ -68,7 +69,9 @@ struct GridLayout {
 // Detects a full rectangular grid aligned with x and y: every row/column crossing holds
 // exactly one pile and spacings are uniform, all within `tolerance` (m). Grids rotated in
 // plan are reported as irregular. Throws std::invalid_argument for no piles or tolerance ≤ 0.
-GridLayout detect_grid(const std::vector<PilePlan>& piles, double tolerance = kGridTolerance);
+// `units`: the system the notes and reasons quote lengths in (computation stays in SI).
+GridLayout detect_grid(const std::vector<PilePlan>& piles, double tolerance = kGridTolerance,
+                       UnitSystem units = UnitSystem::SI);
 
 struct SpacingViolation {
   std::string first, second;  // pile ids
@@ -88,7 +91,8 @@ struct SpacingCheck {
 // Checks every pair against required = max(factor · max(wi, wj), absolute_minimum), the
 // larger width of the two governing. Requires factor > 0, absolute_minimum ≥ 0.
 SpacingCheck check_spacing(const std::vector<PilePlan>& piles,
-                           double factor = kMinSpacingFactor, double absolute_minimum = 0.0);
+                           double factor = kMinSpacingFactor, double absolute_minimum = 0.0,
+                           UnitSystem units = UnitSystem::SI);
 
 struct EdgeDistance {
   std::string id;
@@ -150,11 +154,12 @@ struct EfficiencySummary {
 //   block-perimeter   η = min(1, 2(Bg + Lg) / (n·p)), p = perimeter of one pile
 // With unequal x and y spacings the smaller spacing is used (noted).
 Efficiency group_efficiency(EfficiencyMethod method, const std::vector<PilePlan>& piles,
-                            double tolerance = kGridTolerance);
+                            double tolerance = kGridTolerance, UnitSystem units = UnitSystem::SI);
 
 // Every method side by side, with the grid they were computed on.
 EfficiencySummary all_efficiencies(const std::vector<PilePlan>& piles,
-                                   double tolerance = kGridTolerance);
+                                   double tolerance = kGridTolerance,
+                                   UnitSystem units = UnitSystem::SI);
 
 // Which part of the single-pile capacity η reduces.
 enum class EfficiencyApplies { whole, shaft_only };
@@ -298,6 +303,7 @@ struct EquivalentFootingOptions {
   // Stop where Δσ < cutoff·σ'v0 at a sublayer's middle (common practice, 10 %); 0 = never.
   double stress_ratio_cutoff = 0.10;
   std::optional<double> max_depth;  // m below the footing; absent = bottom of the profile
+  UnitSystem units = UnitSystem::SI;  // the system the notes quote depths in
 };
 
 struct Sublayer {
@@ -349,7 +355,8 @@ struct SettlementCheck {
 
 // Compares a settlement with the tolerable value; without a limit, 25 mm is used and noted.
 // Requires settlement ≥ 0 and limit > 0.
-SettlementCheck check_settlement(double settlement, std::optional<double> limit = std::nullopt);
+SettlementCheck check_settlement(double settlement, std::optional<double> limit = std::nullopt,
+                                 UnitSystem units = UnitSystem::SI);
 
 // ---------------------------------------------------------------------------------------
 // Axial pile-head stiffness

@@ -61,11 +61,11 @@ TEST_CASE("capacity: Vesic closed form gives the check values for N*sigma and N*
           "[capacity][published]") {
   // Source: Vesić (1977), NCHRP Synthesis 42, closed form for N*σ with tan²(45° + φ/2);
   // values computed from Vesić (1977)'s closed form.
-  CHECK(vesic_n_sigma(30.0, 100.0) == rel(51.02));  // row 1.1
-  CHECK(vesic_n_c(30.0, 100.0) == rel(86.64));      // row 1.1
-  CHECK(vesic_n_sigma(35.0, 100.0) == rel(83.78));  // row 1.2
-  CHECK(vesic_n_c(0.0, 100.0) == rel(10.044));      // row 1.3
-  CHECK(vesic_n_sigma(0.0, 100.0) == rel(1.0));     // row 1.3
+  CHECK(vesic_n_sigma(30.0, 100.0) == rel(51.02));
+  CHECK(vesic_n_c(30.0, 100.0) == rel(86.64));
+  CHECK(vesic_n_sigma(35.0, 100.0) == rel(83.78));
+  CHECK(vesic_n_c(0.0, 100.0) == rel(10.044));
+  CHECK(vesic_n_sigma(0.0, 100.0) == rel(1.0));
   // φ = 35°, Irr = 40: the issue's example, N*σ ≈ 53.7; computed from Vesić (1977)'s closed form: 53.67.
   CHECK(vesic_n_sigma(35.0, 40.0) == rel(53.67));
 }
@@ -151,15 +151,15 @@ TEST_CASE("capacity: Vesic sand tip reproduces the worked example", "[capacity][
   const CapacityResult r = pile_capacity(profile, round_pile(0.5, 10.0), design);
   const TipDetails& d = r.tip_details;
   CHECK(d.q_prime == rel(150.0));                   // 15 kN/m³ × 10 m
-  CHECK(*d.poisson_ratio == rel(0.25));             // row 1.6
-  CHECK(*d.rigidity_index == rel(228.50));          // row 1.7
-  CHECK(*d.volumetric_strain == rel(0.003701));     // row 1.7
-  CHECK(*d.reduced_rigidity_index == rel(123.80));  // row 1.7
-  CHECK(*d.sigma_o == rel(92.642));                 // row 1.7; σ'o/q' = 0.6176 (row 1.4)
-  CHECK(*d.n_sigma == rel(92.94));                  // row 1.7
-  CHECK(d.unit_tip == rel(8610.0));                 // row 1.7
-  CHECK(r.tip == rel(1690.6));                      // row 1.7: qp·π·0.25²
-  CHECK(d.unit_tip / d.q_prime == rel(57.40));      // row 1.7: equivalent N*q
+  CHECK(*d.poisson_ratio == rel(0.25));
+  CHECK(*d.rigidity_index == rel(228.50));
+  CHECK(*d.volumetric_strain == rel(0.003701));
+  CHECK(*d.reduced_rigidity_index == rel(123.80));
+  CHECK(*d.sigma_o == rel(92.642));                 // σ'o/q' = 0.6176
+  CHECK(*d.n_sigma == rel(92.94));
+  CHECK(d.unit_tip == rel(8610.0));
+  CHECK(r.tip == rel(1690.6));                      // qp·π·0.25²
+  CHECK(d.unit_tip / d.q_prime == rel(57.40));      // equivalent N*q
   CHECK(contains(r.notes, "μs = 0.1 + 0.3"));
   CHECK(contains(r.notes, "Δ = 0.005"));
 
@@ -196,7 +196,7 @@ TEST_CASE("capacity: Vesic clay tip from Es or from the fitted Ir", "[capacity][
   SECTION("no Es: the fit, noted") {
     profile.layers = {clay("clay", 20.0, 18.0, 50.66)};  // cu/pa = 0.5
     const CapacityResult r = pile_capacity(profile, round_pile(0.5, 10.0), design);
-    CHECK(*r.tip_details.rigidity_index == Approx(140.5).epsilon(2e-3));  // row 1.11
+    CHECK(*r.tip_details.rigidity_index == Approx(140.5).epsilon(2e-3));
     CHECK(contains(r.notes, "Ir = 347·(cu/pa) − 33"));
   }
   SECTION("no Es and cu/pa below 0.25: refused, naming the layer and property") {
@@ -229,9 +229,9 @@ TEST_CASE("capacity: the clay Ir fit is clamped and not used below cu/pa = 0.25"
 
 TEST_CASE("capacity: Meyerhof limiting tip in sand", "[capacity][published]") {
   // Source: Meyerhof (1976), JGED 102(GT3), ql = 0.5·pa·N*q·tanφ; values computed from it.
-  CHECK(meyerhof_limit(100.0, 35.0) == rel(3547.4));  // row 2.1
-  CHECK(meyerhof_limit(50.0, 30.0) == rel(1462.5));   // row 2.2
-  CHECK(meyerhof_limit(200.0, 40.0) == rel(8502.2));  // row 2.3
+  CHECK(meyerhof_limit(100.0, 35.0) == rel(3547.4));
+  CHECK(meyerhof_limit(50.0, 30.0) == rel(1462.5));
+  CHECK(meyerhof_limit(200.0, 40.0) == rel(8502.2));
 }
 
 TEST_CASE("capacity: Meyerhof sand tip takes the limit when it governs", "[capacity][published]") {
@@ -274,10 +274,10 @@ TEST_CASE("capacity: Meyerhof clay tip is 9 cu", "[capacity][published]") {
 
 TEST_CASE("capacity: Meyerhof SPT tip and shaft", "[capacity][published]") {
   // Source: Meyerhof (1976); FHWA-HI-97-013; values computed from their formulas.
-  CHECK(meyerhof_spt_tip(20.0, 25.0 * 0.4, 0.4) == rel(8106.0));        // row 2.6: cap governs
-  CHECK(meyerhof_spt_tip(20.0, 5.0 * 0.4, 0.4) == rel(4053.0));         // row 2.7
-  CHECK(meyerhof_spt_shaft(20.0, Installation::driven) == rel(40.53));  // row 2.8
-  CHECK(meyerhof_spt_shaft(20.0, Installation::bored) == Approx(20.27).epsilon(2e-3));  // row 2.8
+  CHECK(meyerhof_spt_tip(20.0, 25.0 * 0.4, 0.4) == rel(8106.0));        // cap governs
+  CHECK(meyerhof_spt_tip(20.0, 5.0 * 0.4, 0.4) == rel(4053.0));
+  CHECK(meyerhof_spt_shaft(20.0, Installation::driven) == rel(40.53));
+  CHECK(meyerhof_spt_shaft(20.0, Installation::bored) == Approx(20.27).epsilon(2e-3));
 }
 
 // ---- Shaft ------------------------------------------------------------------------------
@@ -310,13 +310,13 @@ TEST_CASE("capacity: beta shaft unit friction is K sigma'v tan delta", "[capacit
 TEST_CASE("capacity: API alpha against psi", "[capacity][published]") {
   // Source: API RP 2GEO α (Randolph & Murphy 1985, OTC 4883), from memory (high confidence);
   // values computed from it. A public version without the 0.5 is twice as high.
-  CHECK(api_alpha(0.5) == rel(0.70711));  // row 3.3
-  CHECK(api_alpha(1.0) == rel(0.5));      // row 3.4, both branches
+  CHECK(api_alpha(0.5) == rel(0.70711));
+  CHECK(api_alpha(1.0) == rel(0.5));      // both branches
   CHECK(api_alpha(1.0 - 1e-9) == rel(0.5));
-  CHECK(api_alpha(2.0) == rel(0.42045));  // row 3.5
-  CHECK(api_alpha(3.0) == rel(0.37992));  // row 3.6
-  CHECK(api_alpha(0.2) == 1.0);           // row 3.7: raw 1.118, capped
-  CHECK(api_alpha(0.25) == rel(1.0));     // row 3.8
+  CHECK(api_alpha(2.0) == rel(0.42045));
+  CHECK(api_alpha(3.0) == rel(0.37992));
+  CHECK(api_alpha(0.2) == 1.0);           // raw 1.118, capped
+  CHECK(api_alpha(0.25) == rel(1.0));
 }
 
 TEST_CASE("capacity: API alpha shaft is integrated continuously with depth",
@@ -339,19 +339,19 @@ TEST_CASE("capacity: API alpha shaft is integrated continuously with depth",
 TEST_CASE("capacity: O'Neill and Reese alpha and beta", "[capacity][published]") {
   // Source: O'Neill & Reese (1999), FHWA-IF-99-025, α for drilled shafts in clay (as given in the
   // open textbook Fundamentals of Foundation Engineering, §6.14); values computed from it.
-  CHECK(oneill_reese_alpha(100.0) == rel(0.55));     // row 3.9
-  CHECK(oneill_reese_alpha(200.0) == rel(0.50262));  // row 3.10
-  CHECK(oneill_reese_alpha(250.0) == rel(0.45327));  // row 3.11
+  CHECK(oneill_reese_alpha(100.0) == rel(0.55));
+  CHECK(oneill_reese_alpha(200.0) == rel(0.50262));
+  CHECK(oneill_reese_alpha(250.0) == rel(0.45327));
   // Source: O'Neill & Reese (1999), β = 1.5 − 0.245√z, 0.25 ≤ β ≤ 1.2 (from memory);
   // values computed from it.
-  CHECK(oneill_reese_beta(1.0, 20.0) == rel(1.2));       // row 3.12, capped from 1.255
-  CHECK(oneill_reese_beta(5.0, 20.0) == rel(0.95216));   // row 3.12
-  CHECK(oneill_reese_beta(10.0, 20.0) == rel(0.72524));  // row 3.12
-  CHECK(oneill_reese_beta(20.0, 20.0) == rel(0.40433));  // row 3.12
-  CHECK(oneill_reese_beta(30.0, 20.0) == rel(0.25));     // row 3.12, floor
-  CHECK(oneill_reese_beta(1.4994, 15.0) == rel(1.2));    // row 3.13
-  CHECK(oneill_reese_beta(26.031, 15.0) == rel(0.25));   // row 3.13
-  CHECK(oneill_reese_beta(5.0, 10.0) == rel(0.63478));   // row 3.14, × N60/15
+  CHECK(oneill_reese_beta(1.0, 20.0) == rel(1.2));       // capped from 1.255
+  CHECK(oneill_reese_beta(5.0, 20.0) == rel(0.95216));
+  CHECK(oneill_reese_beta(10.0, 20.0) == rel(0.72524));
+  CHECK(oneill_reese_beta(20.0, 20.0) == rel(0.40433));
+  CHECK(oneill_reese_beta(30.0, 20.0) == rel(0.25));     // floor
+  CHECK(oneill_reese_beta(1.4994, 15.0) == rel(1.2));
+  CHECK(oneill_reese_beta(26.031, 15.0) == rel(0.25));
+  CHECK(oneill_reese_beta(5.0, 10.0) == rel(0.63478));   // × N60/15
 }
 
 TEST_CASE(
@@ -392,12 +392,12 @@ TEST_CASE("capacity: lambda method mean unit friction", "[capacity][published]")
 TEST_CASE("capacity: O'Neill and Reese clay N*c", "[capacity][published]") {
   // Source: O'Neill & Reese (1999), N*c = 1.33(ln Ir + 1) ≤ 9 (Fundamentals of Foundation Engineering
   // §6.14); values computed from it.
-  CHECK(oneill_reese_n_c(50.0) == rel(6.533));   // row 4.1
-  CHECK(oneill_reese_n_c(150.0) == rel(7.994));  // row 4.1
-  CHECK(oneill_reese_n_c(250.0) == rel(8.674));  // row 4.1
-  CHECK(oneill_reese_n_c(300.0) == rel(8.916));  // row 4.1
-  CHECK(oneill_reese_n_c(319.55) == rel(9.0));   // row 4.2
-  CHECK(oneill_reese_n_c(1000.0) == 9.0);        // row 4.2, capped
+  CHECK(oneill_reese_n_c(50.0) == rel(6.533));
+  CHECK(oneill_reese_n_c(150.0) == rel(7.994));
+  CHECK(oneill_reese_n_c(250.0) == rel(8.674));
+  CHECK(oneill_reese_n_c(300.0) == rel(8.916));
+  CHECK(oneill_reese_n_c(319.55) == rel(9.0));
+  CHECK(oneill_reese_n_c(1000.0) == 9.0);        // capped
 }
 
 TEST_CASE("capacity: drilled-shaft clay tip is limited to 3.83 MPa", "[capacity][published]") {
@@ -545,20 +545,20 @@ TEST_CASE("capacity: AASHTO resistance factors per method and installation",
   // Source: AASHTO LRFD Bridge Design Specifications, Table 10.5.5.2.3-1 (driven) /
   // 10.5.5.2.4-1 (drilled shafts), from memory.
   const auto driven = Installation::driven, bored = Installation::bored;
-  CHECK(aashto_phi_shaft(ShaftMethod::alpha_api, SoilKind::clay, driven) == 0.35);     // 9.15
-  CHECK(aashto_phi_shaft(ShaftMethod::beta, SoilKind::sand, driven) == 0.25);          // 9.15
-  CHECK(aashto_phi_shaft(ShaftMethod::lambda, SoilKind::clay, driven) == 0.40);        // 9.15
-  CHECK(aashto_phi_shaft(ShaftMethod::meyerhof_spt, SoilKind::sand, driven) == 0.30);  // 9.15
-  CHECK(aashto_phi_tip(TipMethod::meyerhof_spt, SoilKind::sand, driven) == 0.30);      // 9.15
-  CHECK(aashto_phi_uplift(ShaftMethod::alpha_api, SoilKind::clay, driven) == 0.25);    // 9.16
-  CHECK(aashto_phi_uplift(ShaftMethod::beta, SoilKind::sand, driven) == 0.20);         // 9.16
-  CHECK(aashto_phi_uplift(ShaftMethod::lambda, SoilKind::clay, driven) == 0.30);       // 9.16
-  CHECK(aashto_phi_shaft(ShaftMethod::alpha_fhwa, SoilKind::clay, bored) == 0.45);     // 9.18
-  CHECK(aashto_phi_tip(TipMethod::fhwa, SoilKind::clay, bored) == 0.40);               // 9.18
-  CHECK(aashto_phi_shaft(ShaftMethod::beta_fhwa, SoilKind::sand, bored) == 0.55);      // 9.18
-  CHECK(aashto_phi_tip(TipMethod::fhwa, SoilKind::sand, bored) == 0.50);               // 9.18
-  CHECK(aashto_phi_uplift(ShaftMethod::alpha_fhwa, SoilKind::clay, bored) == 0.35);    // 9.18
-  CHECK(aashto_phi_uplift(ShaftMethod::beta_fhwa, SoilKind::sand, bored) == 0.45);     // 9.18
+  CHECK(aashto_phi_shaft(ShaftMethod::alpha_api, SoilKind::clay, driven) == 0.35);     // driven, compression
+  CHECK(aashto_phi_shaft(ShaftMethod::beta, SoilKind::sand, driven) == 0.25);          // driven, compression
+  CHECK(aashto_phi_shaft(ShaftMethod::lambda, SoilKind::clay, driven) == 0.40);        // driven, compression
+  CHECK(aashto_phi_shaft(ShaftMethod::meyerhof_spt, SoilKind::sand, driven) == 0.30);  // driven, compression
+  CHECK(aashto_phi_tip(TipMethod::meyerhof_spt, SoilKind::sand, driven) == 0.30);      // driven, compression
+  CHECK(aashto_phi_uplift(ShaftMethod::alpha_api, SoilKind::clay, driven) == 0.25);    // driven, uplift
+  CHECK(aashto_phi_uplift(ShaftMethod::beta, SoilKind::sand, driven) == 0.20);         // driven, uplift
+  CHECK(aashto_phi_uplift(ShaftMethod::lambda, SoilKind::clay, driven) == 0.30);       // driven, uplift
+  CHECK(aashto_phi_shaft(ShaftMethod::alpha_fhwa, SoilKind::clay, bored) == 0.45);     // drilled shaft
+  CHECK(aashto_phi_tip(TipMethod::fhwa, SoilKind::clay, bored) == 0.40);               // drilled shaft
+  CHECK(aashto_phi_shaft(ShaftMethod::beta_fhwa, SoilKind::sand, bored) == 0.55);      // drilled shaft
+  CHECK(aashto_phi_tip(TipMethod::fhwa, SoilKind::sand, bored) == 0.50);               // drilled shaft
+  CHECK(aashto_phi_uplift(ShaftMethod::alpha_fhwa, SoilKind::clay, bored) == 0.35);    // drilled shaft
+  CHECK(aashto_phi_uplift(ShaftMethod::beta_fhwa, SoilKind::sand, bored) == 0.45);     // drilled shaft
 }
 
 TEST_CASE("capacity: factored resistance sums phi times each part; overrides win", "[capacity]") {

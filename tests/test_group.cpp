@@ -198,25 +198,25 @@ TEST_CASE("group: Converse-Labarre efficiency for several grids", "[group][publi
   const auto cl = EfficiencyMethod::converse_labarre;
   // Source: Converse–Labarre formula (from memory); values computed
   // from it. D = 0.4 m, s = 2.5D / 3D / 4D.
-  CHECK(efficiency(cl, grid_piles(3, 3, 1.0, 1.0, 0.4)) == Approx(0.6770).epsilon(1e-3));  // 5.1
-  CHECK(efficiency(cl, grid_piles(3, 3, 1.2, 1.2, 0.4)) == Approx(0.7269).epsilon(1e-3));  // 5.1
-  CHECK(efficiency(cl, grid_piles(3, 3, 1.6, 1.6, 0.4)) == Approx(0.7921).epsilon(1e-3));  // 5.1
-  CHECK(efficiency(cl, grid_piles(2, 4, 1.0, 1.0, 0.4)) == Approx(0.6972).epsilon(1e-3));  // 5.2
-  CHECK(efficiency(cl, grid_piles(2, 4, 1.2, 1.2, 0.4)) == Approx(0.7440).epsilon(1e-3));  // 5.2
-  CHECK(efficiency(cl, grid_piles(2, 4, 1.6, 1.6, 0.4)) == Approx(0.8051).epsilon(1e-3));  // 5.2
-  CHECK(efficiency(cl, grid_piles(2, 2, 1.2, 1.2, 0.4)) == Approx(0.7952).epsilon(1e-3));  // 5.3
-  CHECK(efficiency(cl, grid_piles(4, 4, 1.2, 1.2, 0.4)) == Approx(0.6928).epsilon(1e-3));  // 5.3
+  CHECK(efficiency(cl, grid_piles(3, 3, 1.0, 1.0, 0.4)) == Approx(0.6770).epsilon(1e-3));
+  CHECK(efficiency(cl, grid_piles(3, 3, 1.2, 1.2, 0.4)) == Approx(0.7269).epsilon(1e-3));
+  CHECK(efficiency(cl, grid_piles(3, 3, 1.6, 1.6, 0.4)) == Approx(0.7921).epsilon(1e-3));
+  CHECK(efficiency(cl, grid_piles(2, 4, 1.0, 1.0, 0.4)) == Approx(0.6972).epsilon(1e-3));
+  CHECK(efficiency(cl, grid_piles(2, 4, 1.2, 1.2, 0.4)) == Approx(0.7440).epsilon(1e-3));
+  CHECK(efficiency(cl, grid_piles(2, 4, 1.6, 1.6, 0.4)) == Approx(0.8051).epsilon(1e-3));
+  CHECK(efficiency(cl, grid_piles(2, 2, 1.2, 1.2, 0.4)) == Approx(0.7952).epsilon(1e-3));
+  CHECK(efficiency(cl, grid_piles(4, 4, 1.2, 1.2, 0.4)) == Approx(0.6928).epsilon(1e-3));
 }
 
 TEST_CASE("group: Los Angeles efficiency for several grids", "[group][published]") {
   const auto la = cairn::EfficiencyMethod::los_angeles;
   // Source: Los Angeles Group Action formula (from memory), computed.
-  CHECK(efficiency(la, grid_piles(3, 3, 1.0, 1.0, 0.4)) == Approx(0.7502).epsilon(1e-3));  // 5.4
-  CHECK(efficiency(la, grid_piles(3, 3, 1.2, 1.2, 0.4)) == Approx(0.7918).epsilon(1e-3));  // 5.4
-  CHECK(efficiency(la, grid_piles(3, 3, 1.6, 1.6, 0.4)) == Approx(0.8439).epsilon(1e-3));  // 5.4
-  CHECK(efficiency(la, grid_piles(2, 4, 1.0, 1.0, 0.4)) == Approx(0.7733).epsilon(1e-3));  // 5.5
-  CHECK(efficiency(la, grid_piles(2, 4, 1.2, 1.2, 0.4)) == Approx(0.8111).epsilon(1e-3));  // 5.5
-  CHECK(efficiency(la, grid_piles(2, 4, 1.6, 1.6, 0.4)) == Approx(0.8583).epsilon(1e-3));  // 5.5
+  CHECK(efficiency(la, grid_piles(3, 3, 1.0, 1.0, 0.4)) == Approx(0.7502).epsilon(1e-3));
+  CHECK(efficiency(la, grid_piles(3, 3, 1.2, 1.2, 0.4)) == Approx(0.7918).epsilon(1e-3));
+  CHECK(efficiency(la, grid_piles(3, 3, 1.6, 1.6, 0.4)) == Approx(0.8439).epsilon(1e-3));
+  CHECK(efficiency(la, grid_piles(2, 4, 1.0, 1.0, 0.4)) == Approx(0.7733).epsilon(1e-3));
+  CHECK(efficiency(la, grid_piles(2, 4, 1.2, 1.2, 0.4)) == Approx(0.8111).epsilon(1e-3));
+  CHECK(efficiency(la, grid_piles(2, 4, 1.6, 1.6, 0.4)) == Approx(0.8583).epsilon(1e-3));
 }
 
 TEST_CASE("group: Feld's rule counts orthogonal and diagonal neighbours", "[group][published]") {
@@ -263,12 +263,12 @@ TEST_CASE("group: efficiency on the shaft only leaves the tip whole", "[group]")
 TEST_CASE("group: Skempton's Nc with the depth ratio capped at 2.5", "[group][published]") {
   // Source: Skempton (1951), reported in Smith, Elements of Soil Mechanics;
   // values computed from it.
-  CHECK(cairn::skempton_nc(1.0, 0.0) == Approx(6.0).epsilon(1e-9));   // 5.8
-  CHECK(cairn::skempton_nc(1.0, 1.0) == Approx(7.2).epsilon(1e-9));   // 5.8
-  CHECK(cairn::skempton_nc(1.0, 2.5) == Approx(9.0).epsilon(1e-9));   // 5.8
-  CHECK(cairn::skempton_nc(1.0, 5.0) == Approx(9.0).epsilon(1e-9));   // 5.8
-  CHECK(cairn::skempton_nc(0.5, 5.0) == Approx(8.25).epsilon(1e-9));  // 5.9
-  CHECK(cairn::skempton_nc(0.0, 5.0) == Approx(7.5).epsilon(1e-9));   // 5.9
+  CHECK(cairn::skempton_nc(1.0, 0.0) == Approx(6.0).epsilon(1e-9));
+  CHECK(cairn::skempton_nc(1.0, 1.0) == Approx(7.2).epsilon(1e-9));
+  CHECK(cairn::skempton_nc(1.0, 2.5) == Approx(9.0).epsilon(1e-9));
+  CHECK(cairn::skempton_nc(1.0, 5.0) == Approx(9.0).epsilon(1e-9));
+  CHECK(cairn::skempton_nc(0.5, 5.0) == Approx(8.25).epsilon(1e-9));
+  CHECK(cairn::skempton_nc(0.0, 5.0) == Approx(7.5).epsilon(1e-9));
 }
 
 TEST_CASE("group: block failure in clay and which capacity governs", "[group][published]") {

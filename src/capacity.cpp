@@ -29,7 +29,7 @@ constexpr double kTsf = 2000.0 * 4.4482216152605 / (0.3048 * 0.3048) / 1000.0;
 // 1 tsf (FHWA-HI-97-013 quotes it as 2 ksf), from memory. cairn applies it by default to
 // shaft methods whose source gives no limit in sand (beta; meyerhof-spt on bored piles).
 constexpr double kMeyerhofShaftLimit = 1.0 * kTsf;
-// Default factors of safety (common practice, check-values 9.20): compression, tension.
+// Default factors of safety (common practice): compression, tension.
 constexpr double kDefaultSafetyCompression = 2.5;
 constexpr double kDefaultSafetyTension = 3.0;
 // Shaft uplift in sand / compression shaft when the layer gives none (common practice,
@@ -41,7 +41,7 @@ constexpr double kAlphaFhwaTopExclusion = 1.5;
 // memory).
 constexpr double kBetaFhwaLimit = 2.0 * kTsf;
 // AASHTO LRFD 10.8.3.5.1c limit on drilled-shaft unit tip in clay, 80 ksf = 3.83 MPa (from
-// memory; check-values 4.4).
+// memory).
 constexpr double kFhwaClayTipLimit = 40.0 * kTsf;
 // Longest sub-interval of the shaft quadrature, m.
 constexpr double kQuadratureStep = 0.05;
@@ -205,7 +205,7 @@ std::optional<ShaftMethod> parse_shaft_method(std::string_view name) {
 // ---- Vesić (1977), NCHRP Synthesis 42 ---------------------------------------------------
 
 // N*σ = 3/(3 − sinφ) · exp[(π/2 − φ) tanφ] · tan²(45° + φ/2) · Irr^(4 sinφ / [3(1 + sinφ)]).
-// The tan² factor is what makes (N*σ − 1)·cotφ tend to the φ = 0 form (check-values 1.2).
+// The tan² factor is what makes (N*σ − 1)·cotφ tend to the φ = 0 form (limit of Vesić's (1977) closed form).
 double vesic_n_sigma(double phi_deg, double irr) {
   if (!(phi_deg >= 0.0 && phi_deg < 90.0))
     throw std::invalid_argument("vesic: φ must lie in [0°, 90°)");
@@ -248,15 +248,16 @@ double sand_volumetric_strain(double phi_deg, double q_prime) {
   return 0.005 * (1.0 - rel) * q_prime / kPa;
 }
 
-// Ir = 347 (cu/pa) − 33 ≤ 300: a fit to O'Neill & Reese's (1999) table (check-values 1.10,
-// 1.11: within ±8 % of the table for cu/pa 0.25–1.0; negative below cu = 9.6 kPa).
+// Ir = 347 (cu/pa) − 33 ≤ 300: a fit to O'Neill & Reese's (1999) table (computed from the
+// fit: within ±8 % of the table for cu/pa 0.25–1.0; negative below cu = 9.6 kPa).
 double clay_rigidity_index_fit(double cu) {
   if (!(cu / kPa >= 0.25 - 1e-12))
     throw std::invalid_argument("the Ir fit is not used below cu/pa = 0.25 (give soil_modulus)");
   return std::min(347.0 * cu / kPa - 33.0, 300.0);
 }
 
-// O'Neill & Reese (1999), Table of Ir against su (from memory, check-values 1.11/§4):
+// O'Neill & Reese (1999), Table of Ir against su (from memory; also
+// Brown et al. (2010), FHWA NHI-10-016 GEC-10):
 // su/pa 0.25 → 50, 0.5 → 150, ≥ 1.0 → 250–300; the upper value 300 is taken because the
 // table prints N*c = 9.0 there.
 double clay_rigidity_index_table(double cu) {
@@ -293,7 +294,7 @@ double meyerhof_spt_tip(double n60, double penetration, double width) {
 }
 
 // f = pa N60/50 displacement piles, pa N60/100 non-displacement (Meyerhof 1976); driven
-// limited to 2 ksf = 1 tsf (FHWA-HI-97-013, check-values S11).
+// limited to 2 ksf = 1 tsf (FHWA-HI-97-013).
 double meyerhof_spt_shaft(double n60, Installation installation) {
   if (installation == Installation::driven) return std::min(kPa * n60 / 50.0, kTsf);
   return kPa * n60 / 100.0;
@@ -307,8 +308,8 @@ double oneill_reese_n_c(double ir) {
   return std::min(1.33 * (std::log(ir) + 1.0), 9.0);
 }
 
-// qp = 0.6 N60 tsf ≤ 30 tsf (O'Neill & Reese 1999, from memory, check-values §4). The
-// quoted form 0.057·pa·N60 is ten times low (check-values flag F8).
+// qp = 0.6 N60 tsf ≤ 30 tsf (O'Neill & Reese 1999, from memory). The
+// quoted form 0.057·pa·N60 is ten times low (0.057·N60 MPa is the SI form).
 double oneill_reese_sand_tip(double n60) { return std::min(0.6 * n60, 30.0) * kTsf; }
 
 // qp,reduced = (1.27/Bb) qp for Bb > 1.27 m (50 in).
@@ -357,7 +358,7 @@ double lambda_unit_shaft(double lambda, double mean_effective_stress, double mea
 // ---- Factors ----------------------------------------------------------------------------
 
 // AASHTO LRFD Table 10.5.5.2.3-1 (driven piles) and 10.5.5.2.4-1 (drilled shafts), from
-// memory (check-values 9.15, 9.16, 9.18). Driven: end bearing in clay (Skempton) 0.40;
+// memory. Driven: end bearing in clay (Skempton) 0.40;
 // SPT method 0.30; sand tips by φ (Vesić, Meyerhof) take the φ-based static analysis row
 // (Nordlund/Thurman) 0.45, since the table has no Vesić row. Drilled: clay tip 0.40, sand
 // tip 0.50.

@@ -28,7 +28,7 @@ std::vector<std::string> formatted(const InputError& e) {
 TEST_CASE("analysis: a passing cap, end to end", "[analysis][published]") {
   const CheckRun run = analyse_project(kData + "pass.yaml");
   REQUIRE(run.results.combinations.size() == 2);
-  // Rigid cap with equal vertical piles (common practice, check-values §8, converted to
+  // Rigid cap with equal vertical piles (common practice, e.g. Poulos & Davis 1980; converted to
   // cairn's signs): P = V/n + My·x/Σx². S1: 3000/4 ± 180·1.35/7.29 = 750 ± 33.333 kN;
   // S2: 1000 ± 33.333 kN, and Fx = 40 kN shared equally by the lateral springs: 10 kN.
   const auto& s1 = run.results.combinations[0];

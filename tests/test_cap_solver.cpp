@@ -187,24 +187,24 @@ void check_equilibrium(const std::vector<PileSpring>& springs, const CapSolution
 }  // namespace
 
 // ---------------------------------------------------------------------------------------
-// 1. Closed forms for vertical piles and the rows of check-values.md §8
+// 1. Closed forms for vertical piles and rigid-cap statics (Poulos & Davis 1980; Hrennikoff 1949)
 // ---------------------------------------------------------------------------------------
 
 TEST_CASE("cap_solver: a 3x3 grid under load and moment gives P/n ± M·y/Σy² (rows 8.1, 8.2)",
           "[cap_solver][published]") {
   // Rigid cap on equal vertical piles: P_i = P/n + M_y·x_i/Σx² − M_x·y_i/Σy² in cairn's
   // signs. Source: USACE EM 1110-2-2906 (1991) ch. 4 and Poulos & Davis (1980), the elastic
-  // rigid-cap formula (common practice; formula from memory), values worked in
-  // check-values.md rows 8.1 and 8.2.
+  // rigid-cap formula (common practice; formula from memory), values computed
+  // from the formula.
   std::vector<cairn::Pile> piles = grid({-1.2, 0.0, 1.2}, {-1.2, 0.0, 1.2});
-  SECTION("row 8.1: P = 5400 kN, table Mx = 720 kN·m from a horizontal load on the cap top") {
+  SECTION("P = 5400 kN, table Mx = 720 kN·m from a horizontal load on the cap top") {
     // Table Mx = 720 (load grows with y) is cairn Mx = −720 kN·m. It comes from Fy = 480 kN at
     // the top of the 1.5 m cap: Mx = −z·Fy = −1.5·480 = −720 kN·m at the pile heads.
     const Project project = one_case_project({pile_type("V", 2e5, 1e4)}, piles,
                                              {on_top(0, 0, {0, 0, -5400}), on_top(0, 0, {0, 480, 0})});
     const CapSolution s = solve_project(project);
     for (double x : {-1.2, 0.0, 1.2}) {
-      // Source: USACE EM 1110-2-2906 / Poulos & Davis (1980), check-values.md row 8.1:
+      // Source: USACE EM 1110-2-2906 / Poulos & Davis (1980), computed:
       // rows y = +1.2 / 0 / −1.2 carry 700 / 600 / 500 kN.
       CHECK(s.piles[at(project, x, 1.2)].axial == close(700.0, 1e-9));
       CHECK(s.piles[at(project, x, 0.0)].axial == close(600.0, 1e-9));
@@ -213,14 +213,14 @@ TEST_CASE("cap_solver: a 3x3 grid under load and moment gives P/n ± M·y/Σy² 
     // Equal lateral springs share the shear equally: 480/9 kN each (common practice).
     for (const auto& p : s.piles) CHECK(p.lateral == close(480.0 / 9.0, 1e-9));
   }
-  SECTION("row 8.2: the same with My = 360 kN·m from Fx = 240 kN on the cap top") {
+  SECTION("the same with My = 360 kN·m from Fx = 240 kN on the cap top") {
     // My = z·Fx = 1.5·240 = 360 kN·m: same sign in the table and in cairn (it compresses +x).
     const Project project =
         one_case_project({pile_type("V", 2e5, 1e4)}, piles,
                          {on_top(0, 0, {0, 0, -5400}), on_top(0, 0, {0, 480, 0}),
                           on_top(0, 0, {240, 0, 0})});
     const CapSolution s = solve_project(project);
-    // Source: USACE EM 1110-2-2906 / Poulos & Davis (1980), check-values.md row 8.2.
+    // Source: USACE EM 1110-2-2906 / Poulos & Davis (1980), computed from the formula.
     const std::vector<std::array<double, 3>> expected = {
         {-1.2, 1.2, 650}, {0, 1.2, 700},  {1.2, 1.2, 750},  {-1.2, 0, 550},  {0, 0, 600},
         {1.2, 0, 650},    {-1.2, -1.2, 450}, {0, -1.2, 500}, {1.2, -1.2, 550}};
@@ -244,7 +244,7 @@ TEST_CASE("cap_solver: a 2x4 group under an eccentric column load (row 8.3)",
   const std::array<double, 4> upper = {460, 520, 580, 640};
   const std::array<double, 4> lower = {360, 420, 480, 540};
   for (std::size_t i = 0; i < 4; ++i) {
-    // Source: USACE EM 1110-2-2906 / Poulos & Davis (1980), check-values.md row 8.3
+    // Source: USACE EM 1110-2-2906 / Poulos & Davis (1980), computed from the formula
     // (Σx² = 22.5, Σy² = 4.5 m²).
     CHECK(s.piles[at(project, xs[i], 0.75)].axial == close(upper[i], 1e-9));
     CHECK(s.piles[at(project, xs[i], -0.75)].axial == close(lower[i], 1e-9));
@@ -253,17 +253,17 @@ TEST_CASE("cap_solver: a 2x4 group under an eccentric column load (row 8.3)",
 
 TEST_CASE("cap_solver: unequal axial stiffness and a pile with no stiffness (rows 8.4, 8.5)",
           "[cap_solver][published]") {
-  // General rigid cap on axial springs (check-values.md §8, derived from equilibrium and
+  // General rigid cap on axial springs (derived from equilibrium and
   // compatibility; Hrennikoff 1949, Saul 1968): Σk_i[1, y_i, x_i]ᵀ[1, y_i, x_i]·(w, a, b) =
   // (P, Mx, My), w_i = w + a·y_i + b·x_i downward.
   constexpr double k = 1e5;  // kN/m, the unit stiffness of the table
-  SECTION("row 8.4: k = 1, 1, 1, 2 at (−1,−1), (1,−1), (−1,1), (1,1); P = 1000 kN at (0,0)") {
+  SECTION("k = 1, 1, 1, 2 at (−1,−1), (1,−1), (−1,1), (1,1); P = 1000 kN at (0,0)") {
     const std::vector<PileSpring> springs = {spring(-1, -1, k), spring(1, -1, k),
                                              spring(-1, 1, k), spring(1, 1, 2 * k)};
     const CapSolver solver(springs);
     const Wrench load = {0, 0, -1000, 0, 0, 0};
     const CapSolution s = solver.solve_linear(load);
-    // Source: check-values.md row 8.4 (derivation from the rigid-cap equations above, after
+    // Source: computed from the rigid-cap equations above (equilibrium and compatibility, after
     // Hrennikoff 1949): R = 285.714, 214.286, 214.286, 285.714 kN (rounded to 6 digits).
     CHECK(s.piles[0].axial == close(285.714, 2e-6));
     CHECK(s.piles[1].axial == close(214.286, 2e-6));
@@ -276,8 +276,8 @@ TEST_CASE("cap_solver: unequal axial stiffness and a pile with no stiffness (row
     CHECK(s.movement.rotation[1] == close(-35.714 / k, 2e-5));
     check_equilibrium(springs, s, load, 1.0, 1e-9);
   }
-  SECTION("row 8.5: the pile at (1,1) lost") {
-    // Source: check-values.md row 8.5 (statically determinate three-pile cap):
+  SECTION("the pile at (1,1) lost") {
+    // Source: statics, computed (statically determinate three-pile cap):
     // R = 0, 500, 500, 0 kN — the diagonal pair carries all.
     SECTION("pile removed") {
       const CapSolver solver({spring(-1, -1, k), spring(1, -1, k), spring(-1, 1, k)});
@@ -310,8 +310,8 @@ TEST_CASE("cap_solver: an as-built 3x3 group with a product of inertia (row 8.6)
       one_case_project({pile_type("V", 2.5e5)}, piles, {on_top(0, 0, {0, 0, -5400})});
   const CapSolution s = solve_project(project);
   // Source: USACE EM 1110-2-2906 / Poulos & Davis (1980), the formula with the Ixy term,
-  // values worked in check-values.md row 8.6 (rows y = 1.2, 0, −1.2; x ascending). The table
-  // gives 3 decimals: half a unit of the last place is < 1e-6 of these values.
+  // values computed from it (rows y = 1.2, 0, −1.2; x ascending). The values
+  // have 3 decimals: half a unit of the last place is < 1e-6 of these values.
   const std::array<double, 9> expected = {606.226, 600.106, 593.604, 606.162, 600.042,
                                           593.923, 606.098, 599.979, 593.859};
   for (std::size_t i = 0; i < 9; ++i) {
@@ -327,7 +327,7 @@ TEST_CASE("cap_solver: two battered piles meeting at one point share V and H by 
           "[cap_solver][published]") {
   // Heads at x = ±0.375 m, each battered 1H:4V outward, so the axes meet at (0, 0, 1.5): the
   // top of the cap, where V = 1000 kN and H = 100 kN act. Axial only.
-  // Statics (check-values.md §8, battered piles): (N1 + N2)·cos α = V, (N1 − N2)·sin α = H,
+  // Statics (battered pin-headed piles, axial only): (N1 + N2)·cos α = V, (N1 − N2)·sin α = H,
   // sin α = 1/√17, cos α = 4/√17 → N1 = 175·√17 = 721.543, N2 = 75·√17 = 309.233 kN.
   const Project project = one_case_project(
       {pile_type("B", 2e5)},
@@ -337,7 +337,7 @@ TEST_CASE("cap_solver: two battered piles meeting at one point share V and H by 
   const auto expected_axis = batter_axis(4.0, 0.0);
   for (std::size_t j = 0; j < 3; ++j) CHECK(springs[0].axis[j] == close(expected_axis[j], 1e-12));
   const CapSolution s = solve_project(project);
-  // Source: check-values.md row 8.7 (statically determinate; values to 2 decimals):
+  // Source: statics, computed (statically determinate; values to 2 decimals):
   // N1 = 721.54, N2 = 309.23 kN compression.
   CHECK(s.piles[0].axial == close(721.54, 2e-5));
   CHECK(s.piles[1].axial == close(309.23, 2e-5));
@@ -358,7 +358,7 @@ TEST_CASE("cap_solver: with no lateral stiffness the battered pile takes all of 
       {pile(-1.0, 0.0), pile(1.0, 0.0), pile(0.0, 0.0, 0, cairn::Batter{4.0, 0.0})},
       {on_top(0, 0, {60, 0, 0}), on_top(-0.1, 0, {0, 0, -900})});
   const CapSolution s = solve_project(project);
-  // Source: check-values.md row 8.8 (statics of a rigid cap with a battered pile):
+  // Source: statics of a rigid cap with a battered pile, computed:
   // N = 330.0, 330.0 and 60·√17 = 247.386 kN.
   CHECK(s.piles[0].axial == close(330.0, 1e-9));
   CHECK(s.piles[1].axial == close(330.0, 1e-9));
@@ -374,7 +374,7 @@ TEST_CASE("cap_solver: with no lateral stiffness the battered pile takes all of 
 TEST_CASE("cap_solver: four piles, two battered 1H:3V, under V, H and M match a hand "
           "calculation",
           "[cap_solver][published]") {
-  // Method: rigid cap on pin-headed axial springs (check-values.md §8, battered piles; after
+  // Method: rigid cap on pin-headed axial springs (battered piles; after
   // Hrennikoff 1949). Plane x–z, z down in this hand calculation, unknowns u (x), w (down), θ.
   // Pile i shortens δ_i = u·s_i + (w + θ·x_i)·c_i with (s_i, c_i) its axis (horizontal,
   // vertical); N_i = k·δ_i; K = k·Σ v_i·v_iᵀ with v_i = (s_i, c_i, c_i·x_i).
@@ -414,7 +414,7 @@ TEST_CASE("cap_solver: four piles, two battered 1H:3V, under V, H and M match a 
   column.load = {100, 0, -1900, 0, 0, 0};
   project.load_cases[0].loads = {column};
   const CapSolution s = solve_project(project);
-  // Source: hand calculation above (method: check-values.md §8, Hrennikoff 1949).
+  // Source: hand calculation above (method: Hrennikoff 1949).
   CHECK(s.piles[0].axial == close(1000.0 / std::sqrt(10.0), 1e-9));
   CHECK(s.piles[1].axial == close(470.0, 1e-9));
   CHECK(s.piles[2].axial == close(530.0, 1e-9));
@@ -572,7 +572,7 @@ TEST_CASE("cap_solver: solve_combinations agrees with solving each combination d
 
 TEST_CASE("cap_solver: compression-only piles lift off and the rest carry the load",
           "[cap_solver][published]") {
-  // Method: rigid cap on equal vertical springs that take no tension (check-values.md §8
+  // Method: rigid cap on equal vertical springs that take no tension (common-practice
   // elastic formula; a lifted pile carries nothing and the formula is applied to the rest).
   constexpr double k = 2e5;
   SECTION("2x2 group: a biaxial eccentricity lifts the far corner") {

@@ -1,6 +1,6 @@
 // Tests of the single-pile axial capacity (capacity.hpp). Published values are cited beside
-// each check with the underlying source; "check-values" is ../shared/reference/check-values.md
-// where the number was computed or recorded. Unless said otherwise the tolerance is
+// each check with the underlying source (author, year, equation or table; "computed from" where
+// the number was worked from a published formula, "from memory" where recalled). Unless said otherwise the tolerance is
 // relative 1e-3: the published numbers are rounded to 4–5 significant figures.
 #include <catch2/catch.hpp>
 #include <cmath>
@@ -60,19 +60,19 @@ bool contains(const std::vector<std::string>& lines, const std::string& text) {
 TEST_CASE("capacity: Vesic closed form gives the check values for N*sigma and N*c",
           "[capacity][published]") {
   // Source: Vesić (1977), NCHRP Synthesis 42, closed form for N*σ with tan²(45° + φ/2);
-  // values computed in check-values rows 1.1–1.3.
-  CHECK(vesic_n_sigma(30.0, 100.0) == rel(51.02));  // row 1.1
-  CHECK(vesic_n_c(30.0, 100.0) == rel(86.64));      // row 1.1
-  CHECK(vesic_n_sigma(35.0, 100.0) == rel(83.78));  // row 1.2
-  CHECK(vesic_n_c(0.0, 100.0) == rel(10.044));      // row 1.3
-  CHECK(vesic_n_sigma(0.0, 100.0) == rel(1.0));     // row 1.3
-  // φ = 35°, Irr = 40: the issue's example, N*σ ≈ 53.7; check-values 1.3 grid: 53.67.
+  // values computed from Vesić (1977)'s closed form.
+  CHECK(vesic_n_sigma(30.0, 100.0) == rel(51.02));
+  CHECK(vesic_n_c(30.0, 100.0) == rel(86.64));
+  CHECK(vesic_n_sigma(35.0, 100.0) == rel(83.78));
+  CHECK(vesic_n_c(0.0, 100.0) == rel(10.044));
+  CHECK(vesic_n_sigma(0.0, 100.0) == rel(1.0));
+  // φ = 35°, Irr = 40: the issue's example, N*σ ≈ 53.7; computed from Vesić (1977)'s closed form: 53.67.
   CHECK(vesic_n_sigma(35.0, 40.0) == rel(53.67));
 }
 
 TEST_CASE("capacity: Vesic N*sigma reproduces the closed-form grid over phi and Irr",
           "[capacity][published]") {
-  // Source: Vesić (1977), NCHRP Synthesis 42, closed form; grid in check-values §1.3
+  // Source: Vesić (1977), NCHRP Synthesis 42, closed form; grid computed from it
   // (2 decimals, so the margin is 0.006 absolute plus 1e-4 relative).
   const double irr[] = {10, 20, 40, 60, 80, 100, 200, 300, 400, 500};
   const double phi[] = {20, 25, 30, 35, 40, 45};
@@ -88,7 +88,7 @@ TEST_CASE("capacity: Vesic N*sigma reproduces the closed-form grid over phi and 
       CAPTURE(phi[i], irr[j]);
       CHECK(vesic_n_sigma(phi[i], irr[j]) == Approx(grid[i][j]).margin(0.006).epsilon(1e-4));
     }
-  // φ = 0 N*c row: Vesić's (1977) published table, from memory (check-values §1.3, c, M);
+  // φ = 0 N*c row: Vesić's (1977) published table, from memory;
   // identical to the closed form.
   const double n_c_row[] = {6.97, 7.90, 8.82, 9.36, 9.75, 10.04, 10.97, 11.51, 11.89, 12.19};
   for (int j = 0; j < 10; ++j) {
@@ -99,16 +99,16 @@ TEST_CASE("capacity: Vesic N*sigma reproduces the closed-form grid over phi and 
 
 TEST_CASE("capacity: Vesic N*c tends to the phi = 0 form as phi goes to zero",
           "[capacity][published]") {
-  // Source: Vesić (1977); consistency proof in check-values §1.2: (N*σ − 1)cotφ → 4/3(ln Irr + 1)
+  // Source: Vesić (1977); the limit of the closed form: (N*σ − 1)cotφ → 4/3(ln Irr + 1)
   // + π/2 + 1 only with the tan² factor. φ = 0.02° is near the limit (difference ≈ 1e-3).
   CHECK(vesic_n_c(0.02, 100.0) == Approx(vesic_n_c(0.0, 100.0)).epsilon(2e-3));
 }
 
 TEST_CASE("capacity: sand rigidity index and its correlations", "[capacity][published]") {
-  // Source: Vesić (1977), Ir = Es/[2(1 + μs) q' tanφ]; check-values row 1.5: 274.64.
+  // Source: Vesić (1977), Ir = Es/[2(1 + μs) q' tanφ]; computed from Vesić (1977)'s formula: 274.64.
   CHECK(vesic_rigidity_index_sand(50000.0, 0.3, 100.0, 35.0) == rel(274.64));
-  // Source: Chen & Kulhawy (1994), EPRI TR-104601, correlations from memory; check-values
-  // row 1.6 (b from a c correlation).
+  // Source: Chen & Kulhawy (1994), EPRI TR-104601, correlations from memory; values
+  // computed from them.
   const double phi[] = {25, 30, 35, 40, 45};
   const double mu[] = {0.10, 0.175, 0.25, 0.325, 0.40};
   const double delta[] = {0.004935, 0.003701, 0.002467, 0.001234, 0.0};
@@ -137,7 +137,7 @@ TEST_CASE("capacity: typical sands give a rigidity index of about 75 to 150",
 }
 
 TEST_CASE("capacity: Vesic sand tip reproduces the worked example", "[capacity][published]") {
-  // Source: Vesić (1977) formulas; worked sand tip in check-values row 1.7: D = 0.5 m,
+  // Source: computed from Vesić (1977)'s formulas for a worked sand tip: D = 0.5 m,
   // q' = 150 kPa, φ = 35°, Es = 60 MPa, μs and Δ from the correlations.
   SoilProfile profile;
   SoilLayer layer = sand("sand", 12.0, 15.0, 35.0);
@@ -151,19 +151,19 @@ TEST_CASE("capacity: Vesic sand tip reproduces the worked example", "[capacity][
   const CapacityResult r = pile_capacity(profile, round_pile(0.5, 10.0), design);
   const TipDetails& d = r.tip_details;
   CHECK(d.q_prime == rel(150.0));                   // 15 kN/m³ × 10 m
-  CHECK(*d.poisson_ratio == rel(0.25));             // row 1.6
-  CHECK(*d.rigidity_index == rel(228.50));          // row 1.7
-  CHECK(*d.volumetric_strain == rel(0.003701));     // row 1.7
-  CHECK(*d.reduced_rigidity_index == rel(123.80));  // row 1.7
-  CHECK(*d.sigma_o == rel(92.642));                 // row 1.7; σ'o/q' = 0.6176 (row 1.4)
-  CHECK(*d.n_sigma == rel(92.94));                  // row 1.7
-  CHECK(d.unit_tip == rel(8610.0));                 // row 1.7
-  CHECK(r.tip == rel(1690.6));                      // row 1.7: qp·π·0.25²
-  CHECK(d.unit_tip / d.q_prime == rel(57.40));      // row 1.7: equivalent N*q
+  CHECK(*d.poisson_ratio == rel(0.25));
+  CHECK(*d.rigidity_index == rel(228.50));
+  CHECK(*d.volumetric_strain == rel(0.003701));
+  CHECK(*d.reduced_rigidity_index == rel(123.80));
+  CHECK(*d.sigma_o == rel(92.642));                 // σ'o/q' = 0.6176
+  CHECK(*d.n_sigma == rel(92.94));
+  CHECK(d.unit_tip == rel(8610.0));
+  CHECK(r.tip == rel(1690.6));                      // qp·π·0.25²
+  CHECK(d.unit_tip / d.q_prime == rel(57.40));      // equivalent N*q
   CHECK(contains(r.notes, "μs = 0.1 + 0.3"));
   CHECK(contains(r.notes, "Δ = 0.005"));
 
-  // σ'o/q' = (1 + 2K0)/3 = 0.6667 at φ = 30° (check-values row 1.4).
+  // σ'o/q' = (1 + 2K0)/3 = 0.6667 at φ = 30° (computed from Vesić (1977)'s σ'o with K0 = 1 − sinφ).
   profile.layers[0].friction_angle = 30.0;
   const CapacityResult r30 = pile_capacity(profile, round_pile(0.5, 10.0), design);
   CHECK(*r30.tip_details.sigma_o / r30.tip_details.q_prime == rel(0.6667));
@@ -174,7 +174,7 @@ TEST_CASE("capacity: Vesic clay tip from Es or from the fitted Ir", "[capacity][
   design.tip_clay = TipMethod::vesic;
   SoilProfile profile;
   SECTION("Es = 30 MPa, cu = 100 kPa") {
-    // Source: Vesić (1977), φ = 0; check-values row 1.8: Ir = 100, N*c = 10.044, 1004.4 kPa.
+    // Source: Vesić (1977), φ = 0, computed from its formula: Ir = 100, N*c = 10.044, 1004.4 kPa.
     SoilLayer layer = clay("clay", 20.0, 18.0, 100.0);
     layer.soil_modulus = 30000.0;
     profile.layers = {layer};
@@ -184,7 +184,7 @@ TEST_CASE("capacity: Vesic clay tip from Es or from the fitted Ir", "[capacity][
     CHECK(r.tip_details.unit_tip == rel(1004.4));
   }
   SECTION("Es = 45 MPa, cu = 50 kPa") {
-    // Source: Vesić (1977), φ = 0; check-values row 1.9: Ir = 300, N*c = 11.509, 575.5 kPa.
+    // Source: Vesić (1977), φ = 0, computed from its formula: Ir = 300, N*c = 11.509, 575.5 kPa.
     SoilLayer layer = clay("clay", 20.0, 18.0, 50.0);
     layer.soil_modulus = 45000.0;
     profile.layers = {layer};
@@ -196,7 +196,7 @@ TEST_CASE("capacity: Vesic clay tip from Es or from the fitted Ir", "[capacity][
   SECTION("no Es: the fit, noted") {
     profile.layers = {clay("clay", 20.0, 18.0, 50.66)};  // cu/pa = 0.5
     const CapacityResult r = pile_capacity(profile, round_pile(0.5, 10.0), design);
-    CHECK(*r.tip_details.rigidity_index == Approx(140.5).epsilon(2e-3));  // row 1.11
+    CHECK(*r.tip_details.rigidity_index == Approx(140.5).epsilon(2e-3));
     CHECK(contains(r.notes, "Ir = 347·(cu/pa) − 33"));
   }
   SECTION("no Es and cu/pa below 0.25: refused, naming the layer and property") {
@@ -211,15 +211,15 @@ TEST_CASE("capacity: Vesic clay tip from Es or from the fitted Ir", "[capacity][
 TEST_CASE("capacity: the clay Ir fit is clamped and not used below cu/pa = 0.25",
           "[capacity][published]") {
   const double pa = kAtmosphericPressure;
-  // Source: fit Ir ≈ 347(cu/pa) − 33 to O'Neill & Reese (1999) table; check-values rows
-  // 1.10–1.11 (table from memory): 53.75 at 0.25, 140.5 at 0.5, 300 reached at 0.9597.
+  // Source: fit Ir ≈ 347(cu/pa) − 33 to O'Neill & Reese (1999) table; computed from
+  // the fit (table from memory): 53.75 at 0.25, 140.5 at 0.5, 300 reached at 0.9597.
   CHECK(clay_rigidity_index_fit(0.25 * pa) == rel(53.75));
   CHECK(clay_rigidity_index_fit(0.5 * pa) == rel(140.5));
   CHECK(clay_rigidity_index_fit(0.9597 * pa) == Approx(300.0).epsilon(2e-4));
   CHECK(clay_rigidity_index_fit(1.0 * pa) == 300.0);  // raw 314, clamped
   CHECK(clay_rigidity_index_fit(1.5 * pa) == 300.0);  // raw 487.5, clamped
   CHECK_THROWS_AS(clay_rigidity_index_fit(0.2 * pa), std::invalid_argument);
-  // O'Neill & Reese (1999) table itself, from memory (check-values 1.11): 50 / 150 / 300.
+  // O'Neill & Reese (1999) table itself, from memory: 50 / 150 / 300.
   CHECK(clay_rigidity_index_table(0.25 * pa) == rel(50.0));
   CHECK(clay_rigidity_index_table(0.5 * pa) == rel(150.0));
   CHECK(clay_rigidity_index_table(2.0 * pa) == rel(300.0));
@@ -228,14 +228,14 @@ TEST_CASE("capacity: the clay Ir fit is clamped and not used below cu/pa = 0.25"
 // ---- Meyerhof (1976) --------------------------------------------------------------------
 
 TEST_CASE("capacity: Meyerhof limiting tip in sand", "[capacity][published]") {
-  // Source: Meyerhof (1976), JGED 102(GT3), ql = 0.5·pa·N*q·tanφ; check-values 2.1–2.3.
-  CHECK(meyerhof_limit(100.0, 35.0) == rel(3547.4));  // row 2.1
-  CHECK(meyerhof_limit(50.0, 30.0) == rel(1462.5));   // row 2.2
-  CHECK(meyerhof_limit(200.0, 40.0) == rel(8502.2));  // row 2.3
+  // Source: Meyerhof (1976), JGED 102(GT3), ql = 0.5·pa·N*q·tanφ; values computed from it.
+  CHECK(meyerhof_limit(100.0, 35.0) == rel(3547.4));
+  CHECK(meyerhof_limit(50.0, 30.0) == rel(1462.5));
+  CHECK(meyerhof_limit(200.0, 40.0) == rel(8502.2));
 }
 
 TEST_CASE("capacity: Meyerhof sand tip takes the limit when it governs", "[capacity][published]") {
-  // Source: Meyerhof (1976); check-values row 2.4: q' = 150, φ = 35°, N*q = 100 →
+  // Source: computed from Meyerhof (1976)'s limit: q' = 150, φ = 35°, N*q = 100 →
   // q'·N*q = 15000 > ql = 3547.4 kPa.
   SoilProfile profile;
   SoilLayer layer = sand("sand", 12.0, 15.0, 35.0);
@@ -260,7 +260,8 @@ TEST_CASE("capacity: Meyerhof N*q chart values", "[capacity][published]") {
 }
 
 TEST_CASE("capacity: Meyerhof clay tip is 9 cu", "[capacity][published]") {
-  // Source: Meyerhof (1976) / Skempton (1951), qp = 9cu; check-values row 2.5 (S20):
+  // Source: Meyerhof (1976) / Skempton (1951), qp = 9cu (also Rajapakse, Geotechnical Engineering
+  // Calculations and Rules of Thumb, ch. 32):
   // cu = 100 kPa, D = 0.4 m → qp = 900 kPa, Qp = 113.10 kN.
   SoilProfile profile;
   profile.layers = {clay("clay", 15.0, 18.0, 100.0)};
@@ -272,11 +273,11 @@ TEST_CASE("capacity: Meyerhof clay tip is 9 cu", "[capacity][published]") {
 }
 
 TEST_CASE("capacity: Meyerhof SPT tip and shaft", "[capacity][published]") {
-  // Source: Meyerhof (1976); FHWA-HI-97-013 (S11). check-values rows 2.6–2.8.
-  CHECK(meyerhof_spt_tip(20.0, 25.0 * 0.4, 0.4) == rel(8106.0));        // row 2.6: cap governs
-  CHECK(meyerhof_spt_tip(20.0, 5.0 * 0.4, 0.4) == rel(4053.0));         // row 2.7
-  CHECK(meyerhof_spt_shaft(20.0, Installation::driven) == rel(40.53));  // row 2.8
-  CHECK(meyerhof_spt_shaft(20.0, Installation::bored) == Approx(20.27).epsilon(2e-3));  // row 2.8
+  // Source: Meyerhof (1976); FHWA-HI-97-013; values computed from their formulas.
+  CHECK(meyerhof_spt_tip(20.0, 25.0 * 0.4, 0.4) == rel(8106.0));        // cap governs
+  CHECK(meyerhof_spt_tip(20.0, 5.0 * 0.4, 0.4) == rel(4053.0));
+  CHECK(meyerhof_spt_shaft(20.0, Installation::driven) == rel(40.53));
+  CHECK(meyerhof_spt_shaft(20.0, Installation::bored) == Approx(20.27).epsilon(2e-3));
 }
 
 // ---- Shaft ------------------------------------------------------------------------------
@@ -288,16 +289,16 @@ TEST_CASE("capacity: beta shaft unit friction is K sigma'v tan delta", "[capacit
   SoilLayer layer = sand("sand", 12.0, 20.0, 30.0);
   PileDesign design;
   design.shaft_sand = ShaftMethod::beta;
-  SECTION("check-values row 3.1") {
-    // Source: β = K tanδ (S12, S15 Eq. 6-6); row 3.1: K = 0.5, δ = 20° → fs(100) = 18.20 kPa.
+  SECTION("β method, K = K0 = 0.5, δ = 20°") {
+    // Source: β = K tanδ (FHWA NHI-10-016 GEC-10 §13.3.5.1; UFC 3-220-20 Eq. 6-6): K = 0.5, δ = 20° → fs(100) = 18.20 kPa.
     layer.shaft_k = 0.5;
     layer.shaft_delta = 20.0;
     profile.layers = {layer};
     const CapacityResult r = pile_capacity(profile, round_pile(0.5, 10.0), design);
     CHECK(r.layers.at(0).unit_average == rel(18.20));
   }
-  SECTION("check-values row 3.2") {
-    // Source: as above; row 3.2: φ = 35°, K0 = 0.42642, δ = 0.75φ → fs(100) = 21.03 kPa.
+  SECTION("β method, φ = 35°, K = K0, δ = 0.75φ") {
+    // Source: as above, computed: φ = 35°, K0 = 0.42642, δ = 0.75φ → fs(100) = 21.03 kPa.
     layer.shaft_k = 0.42642;
     layer.shaft_delta = 0.75 * 35.0;
     profile.layers = {layer};
@@ -307,15 +308,15 @@ TEST_CASE("capacity: beta shaft unit friction is K sigma'v tan delta", "[capacit
 }
 
 TEST_CASE("capacity: API alpha against psi", "[capacity][published]") {
-  // Source: API RP 2GEO α (Randolph & Murphy 1985, OTC 4883), from memory (c, H);
-  // check-values rows 3.3–3.8. Flag F7: a public version without the 0.5 is twice as high.
-  CHECK(api_alpha(0.5) == rel(0.70711));  // row 3.3
-  CHECK(api_alpha(1.0) == rel(0.5));      // row 3.4, both branches
+  // Source: API RP 2GEO α (Randolph & Murphy 1985, OTC 4883), from memory (high confidence);
+  // values computed from it. A public version without the 0.5 is twice as high.
+  CHECK(api_alpha(0.5) == rel(0.70711));
+  CHECK(api_alpha(1.0) == rel(0.5));      // both branches
   CHECK(api_alpha(1.0 - 1e-9) == rel(0.5));
-  CHECK(api_alpha(2.0) == rel(0.42045));  // row 3.5
-  CHECK(api_alpha(3.0) == rel(0.37992));  // row 3.6
-  CHECK(api_alpha(0.2) == 1.0);           // row 3.7: raw 1.118, capped
-  CHECK(api_alpha(0.25) == rel(1.0));     // row 3.8
+  CHECK(api_alpha(2.0) == rel(0.42045));
+  CHECK(api_alpha(3.0) == rel(0.37992));
+  CHECK(api_alpha(0.2) == 1.0);           // raw 1.118, capped
+  CHECK(api_alpha(0.25) == rel(1.0));
 }
 
 TEST_CASE("capacity: API alpha shaft is integrated continuously with depth",
@@ -336,28 +337,28 @@ TEST_CASE("capacity: API alpha shaft is integrated continuously with depth",
 }
 
 TEST_CASE("capacity: O'Neill and Reese alpha and beta", "[capacity][published]") {
-  // Source: O'Neill & Reese (1999), FHWA-IF-99-025, α for drilled shafts in clay (S7);
-  // check-values rows 3.9–3.11.
-  CHECK(oneill_reese_alpha(100.0) == rel(0.55));     // row 3.9
-  CHECK(oneill_reese_alpha(200.0) == rel(0.50262));  // row 3.10
-  CHECK(oneill_reese_alpha(250.0) == rel(0.45327));  // row 3.11
-  // Source: O'Neill & Reese (1999), β = 1.5 − 0.245√z, 0.25 ≤ β ≤ 1.2 (from memory, c H);
-  // check-values rows 3.12–3.14.
-  CHECK(oneill_reese_beta(1.0, 20.0) == rel(1.2));       // row 3.12, capped from 1.255
-  CHECK(oneill_reese_beta(5.0, 20.0) == rel(0.95216));   // row 3.12
-  CHECK(oneill_reese_beta(10.0, 20.0) == rel(0.72524));  // row 3.12
-  CHECK(oneill_reese_beta(20.0, 20.0) == rel(0.40433));  // row 3.12
-  CHECK(oneill_reese_beta(30.0, 20.0) == rel(0.25));     // row 3.12, floor
-  CHECK(oneill_reese_beta(1.4994, 15.0) == rel(1.2));    // row 3.13
-  CHECK(oneill_reese_beta(26.031, 15.0) == rel(0.25));   // row 3.13
-  CHECK(oneill_reese_beta(5.0, 10.0) == rel(0.63478));   // row 3.14, × N60/15
+  // Source: O'Neill & Reese (1999), FHWA-IF-99-025, α for drilled shafts in clay (as given in the
+  // open textbook Fundamentals of Foundation Engineering, §6.14); values computed from it.
+  CHECK(oneill_reese_alpha(100.0) == rel(0.55));
+  CHECK(oneill_reese_alpha(200.0) == rel(0.50262));
+  CHECK(oneill_reese_alpha(250.0) == rel(0.45327));
+  // Source: O'Neill & Reese (1999), β = 1.5 − 0.245√z, 0.25 ≤ β ≤ 1.2 (from memory);
+  // values computed from it.
+  CHECK(oneill_reese_beta(1.0, 20.0) == rel(1.2));       // capped from 1.255
+  CHECK(oneill_reese_beta(5.0, 20.0) == rel(0.95216));
+  CHECK(oneill_reese_beta(10.0, 20.0) == rel(0.72524));
+  CHECK(oneill_reese_beta(20.0, 20.0) == rel(0.40433));
+  CHECK(oneill_reese_beta(30.0, 20.0) == rel(0.25));     // floor
+  CHECK(oneill_reese_beta(1.4994, 15.0) == rel(1.2));
+  CHECK(oneill_reese_beta(26.031, 15.0) == rel(0.25));
+  CHECK(oneill_reese_beta(5.0, 10.0) == rel(0.63478));   // × N60/15
 }
 
 TEST_CASE(
     "capacity: O'Neill and Reese alpha shaft leaves out the top 1.5 m and the bottom diameter",
     "[capacity][published]") {
-  // Source: O'Neill & Reese (1999): α = 0.55 for cu/pa ≤ 1.5 (S7); exclusion zones from
-  // memory (check-values §3, c H). Bored, D = 1.0 m, L = 10 m, cu = 100 kPa:
+  // Source: O'Neill & Reese (1999): α = 0.55 for cu/pa ≤ 1.5 (Fundamentals of Foundation Engineering
+  // §6.14); exclusion zones from memory. Bored, D = 1.0 m, L = 10 m, cu = 100 kPa:
   //   contributing length 10 − 1.5 − 1.0 = 7.5 m; Qs = 0.55·100·π·1.0·7.5 = 1295.9 kN.
   SoilProfile profile;
   profile.layers = {clay("clay", 15.0, 18.0, 100.0)};
@@ -369,7 +370,7 @@ TEST_CASE(
 }
 
 TEST_CASE("capacity: lambda method mean unit friction", "[capacity][published]") {
-  // Source: Vijayvergiya & Focht (1972), f_av = λ(σ̄'v + 2c̄u); check-values row 3.17:
+  // Source: Vijayvergiya & Focht (1972), f_av = λ(σ̄'v + 2c̄u), computed:
   // λ = 0.2, σ̄'v = 75, c̄u = 40 → 31.0 kPa.
   CHECK(lambda_unit_shaft(0.2, 75.0, 40.0) == rel(31.0));
   // The same through a profile: dry clay γ = 15, 0–10 m → σ̄'v = 75 kPa.
@@ -389,17 +390,18 @@ TEST_CASE("capacity: lambda method mean unit friction", "[capacity][published]")
 // ---- Drilled-shaft tip (O'Neill & Reese 1999) -------------------------------------------
 
 TEST_CASE("capacity: O'Neill and Reese clay N*c", "[capacity][published]") {
-  // Source: O'Neill & Reese (1999), N*c = 1.33(ln Ir + 1) ≤ 9 (S7); check-values 4.1–4.2.
-  CHECK(oneill_reese_n_c(50.0) == rel(6.533));   // row 4.1
-  CHECK(oneill_reese_n_c(150.0) == rel(7.994));  // row 4.1
-  CHECK(oneill_reese_n_c(250.0) == rel(8.674));  // row 4.1
-  CHECK(oneill_reese_n_c(300.0) == rel(8.916));  // row 4.1
-  CHECK(oneill_reese_n_c(319.55) == rel(9.0));   // row 4.2
-  CHECK(oneill_reese_n_c(1000.0) == 9.0);        // row 4.2, capped
+  // Source: O'Neill & Reese (1999), N*c = 1.33(ln Ir + 1) ≤ 9 (Fundamentals of Foundation Engineering
+  // §6.14); values computed from it.
+  CHECK(oneill_reese_n_c(50.0) == rel(6.533));
+  CHECK(oneill_reese_n_c(150.0) == rel(7.994));
+  CHECK(oneill_reese_n_c(250.0) == rel(8.674));
+  CHECK(oneill_reese_n_c(300.0) == rel(8.916));
+  CHECK(oneill_reese_n_c(319.55) == rel(9.0));
+  CHECK(oneill_reese_n_c(1000.0) == 9.0);        // capped
 }
 
 TEST_CASE("capacity: drilled-shaft clay tip is limited to 3.83 MPa", "[capacity][published]") {
-  // Source: AASHTO LRFD 10.8.3.5.1c, qp ≤ 80 ksf (from memory); check-values row 4.4:
+  // Source: AASHTO LRFD 10.8.3.5.1c, qp ≤ 80 ksf (from memory), computed:
   // su = 500 kPa, Nc = 9 → 4500 → 3830 kPa.
   SoilProfile profile;
   SoilLayer layer = clay("hard clay", 15.0, 20.0, 500.0);
@@ -414,17 +416,17 @@ TEST_CASE("capacity: drilled-shaft clay tip is limited to 3.83 MPa", "[capacity]
 }
 
 TEST_CASE("capacity: O'Neill and Reese sand tip in the right units", "[capacity][published]") {
-  // Source: O'Neill & Reese (1999), qp = 0.6 N60 tsf ≤ 30 tsf (from memory, c H);
-  // check-values row 4.5: 574.6 / 1149.1 / 1723.7 / 2872.8 / 2872.8 kPa.
+  // Source: O'Neill & Reese (1999), qp = 0.6 N60 tsf ≤ 30 tsf (from memory), computed:
+  // 574.6 / 1149.1 / 1723.7 / 2872.8 / 2872.8 kPa.
   const double n60[] = {10, 20, 30, 50, 60};
   const double expected[] = {574.6, 1149.1, 1723.7, 2872.8, 2872.8};
   for (int i = 0; i < 5; ++i) {
     CAPTURE(n60[i]);
     CHECK(oneill_reese_sand_tip(n60[i]) == rel(expected[i]));
   }
-  // Flag F8 (check-values §4): 0.057·pa·N60 would give 115.5 kPa at N60 = 20, ten times low.
+  // A form sometimes quoted, 0.057·pa·N60, would give 115.5 kPa at N60 = 20, ten times low.
   CHECK(oneill_reese_sand_tip(20.0) > 1000.0);
-  // Source: O'Neill & Reese (1999), 1.27/Bb for Bb > 1.27 m (from memory, c M); row 4.7.
+  // Source: O'Neill & Reese (1999), 1.27/Bb for Bb > 1.27 m (from memory), computed.
   CHECK(oneill_reese_wide_base_factor(1.5) == rel(0.8467));
   CHECK(oneill_reese_wide_base_factor(2.0) == rel(0.635));
   CHECK(oneill_reese_wide_base_factor(3.0) == rel(0.4233));
@@ -434,7 +436,7 @@ TEST_CASE("capacity: O'Neill and Reese sand tip in the right units", "[capacity]
 // ---- A two-layer profile with a water table, by hand ------------------------------------
 
 TEST_CASE("capacity: two sand layers with a water table, worked by hand", "[capacity][published]") {
-  // Hand calculation (formulas: β method, Vesić 1977; check-values §1.1 and §3):
+  // Hand calculation (formulas: β method, Vesić 1977 closed form):
   // Water table 2.0 m. Layer 1 'medium sand' 0–4 m: γ = 18, γsat = 20, K = 1.0, δ = 24°.
   // Layer 2 'dense sand' 4–16 m: γsat = 19.5, φ = 36°, K = 0.8, δ = 27°, Es = 60 MPa,
   // μs = 0.3, Δ = 0.004. Round pile D = 0.5 m (p = 1.5708 m, A = 0.19635 m²), head at the
@@ -520,7 +522,7 @@ TEST_CASE("capacity: two sand layers with a water table, worked by hand", "[capa
 
 TEST_CASE("capacity: allowable capacity is ultimate over the factor of safety",
           "[capacity][published]") {
-  // Source: common practice (check-values row 9.23): Qult = 1000 kN → 500 / 400 / 333.33
+  // Source: common practice, computed: Qult = 1000 kN → 500 / 400 / 333.33
   // for FS = 2.0 / 2.5 / 3.0. Tip only: 9·cu·A = 9·111.111·1.0 = 1000 kN (square 1 m).
   SoilProfile profile;
   profile.layers = {clay("clay", 15.0, 18.0, 1000.0 / 9.0)};
@@ -541,22 +543,22 @@ TEST_CASE("capacity: allowable capacity is ultimate over the factor of safety",
 TEST_CASE("capacity: AASHTO resistance factors per method and installation",
           "[capacity][published]") {
   // Source: AASHTO LRFD Bridge Design Specifications, Table 10.5.5.2.3-1 (driven) /
-  // 10.5.5.2.4-1 (drilled shafts), from memory (check-values 9.15, 9.16, 9.18).
+  // 10.5.5.2.4-1 (drilled shafts), from memory.
   const auto driven = Installation::driven, bored = Installation::bored;
-  CHECK(aashto_phi_shaft(ShaftMethod::alpha_api, SoilKind::clay, driven) == 0.35);     // 9.15
-  CHECK(aashto_phi_shaft(ShaftMethod::beta, SoilKind::sand, driven) == 0.25);          // 9.15
-  CHECK(aashto_phi_shaft(ShaftMethod::lambda, SoilKind::clay, driven) == 0.40);        // 9.15
-  CHECK(aashto_phi_shaft(ShaftMethod::meyerhof_spt, SoilKind::sand, driven) == 0.30);  // 9.15
-  CHECK(aashto_phi_tip(TipMethod::meyerhof_spt, SoilKind::sand, driven) == 0.30);      // 9.15
-  CHECK(aashto_phi_uplift(ShaftMethod::alpha_api, SoilKind::clay, driven) == 0.25);    // 9.16
-  CHECK(aashto_phi_uplift(ShaftMethod::beta, SoilKind::sand, driven) == 0.20);         // 9.16
-  CHECK(aashto_phi_uplift(ShaftMethod::lambda, SoilKind::clay, driven) == 0.30);       // 9.16
-  CHECK(aashto_phi_shaft(ShaftMethod::alpha_fhwa, SoilKind::clay, bored) == 0.45);     // 9.18
-  CHECK(aashto_phi_tip(TipMethod::fhwa, SoilKind::clay, bored) == 0.40);               // 9.18
-  CHECK(aashto_phi_shaft(ShaftMethod::beta_fhwa, SoilKind::sand, bored) == 0.55);      // 9.18
-  CHECK(aashto_phi_tip(TipMethod::fhwa, SoilKind::sand, bored) == 0.50);               // 9.18
-  CHECK(aashto_phi_uplift(ShaftMethod::alpha_fhwa, SoilKind::clay, bored) == 0.35);    // 9.18
-  CHECK(aashto_phi_uplift(ShaftMethod::beta_fhwa, SoilKind::sand, bored) == 0.45);     // 9.18
+  CHECK(aashto_phi_shaft(ShaftMethod::alpha_api, SoilKind::clay, driven) == 0.35);     // driven, compression
+  CHECK(aashto_phi_shaft(ShaftMethod::beta, SoilKind::sand, driven) == 0.25);          // driven, compression
+  CHECK(aashto_phi_shaft(ShaftMethod::lambda, SoilKind::clay, driven) == 0.40);        // driven, compression
+  CHECK(aashto_phi_shaft(ShaftMethod::meyerhof_spt, SoilKind::sand, driven) == 0.30);  // driven, compression
+  CHECK(aashto_phi_tip(TipMethod::meyerhof_spt, SoilKind::sand, driven) == 0.30);      // driven, compression
+  CHECK(aashto_phi_uplift(ShaftMethod::alpha_api, SoilKind::clay, driven) == 0.25);    // driven, uplift
+  CHECK(aashto_phi_uplift(ShaftMethod::beta, SoilKind::sand, driven) == 0.20);         // driven, uplift
+  CHECK(aashto_phi_uplift(ShaftMethod::lambda, SoilKind::clay, driven) == 0.30);       // driven, uplift
+  CHECK(aashto_phi_shaft(ShaftMethod::alpha_fhwa, SoilKind::clay, bored) == 0.45);     // drilled shaft
+  CHECK(aashto_phi_tip(TipMethod::fhwa, SoilKind::clay, bored) == 0.40);               // drilled shaft
+  CHECK(aashto_phi_shaft(ShaftMethod::beta_fhwa, SoilKind::sand, bored) == 0.55);      // drilled shaft
+  CHECK(aashto_phi_tip(TipMethod::fhwa, SoilKind::sand, bored) == 0.50);               // drilled shaft
+  CHECK(aashto_phi_uplift(ShaftMethod::alpha_fhwa, SoilKind::clay, bored) == 0.35);    // drilled shaft
+  CHECK(aashto_phi_uplift(ShaftMethod::beta_fhwa, SoilKind::sand, bored) == 0.45);     // drilled shaft
 }
 
 TEST_CASE("capacity: factored resistance sums phi times each part; overrides win", "[capacity]") {
@@ -702,15 +704,15 @@ TEST_CASE("capacity: SPT tips through a profile", "[capacity][published]") {
   profile.layers = {soft, bearing};
   PileDesign design;
   SECTION("Meyerhof SPT: L/D from the penetration into the bearing layer") {
-    // Source: Meyerhof (1976); FHWA-HI-97-013 (S11, Db = penetration into the bearing
-    // stratum); check-values row 2.7: N60 = 20, Db/D = 2.0/0.4 = 5 → 4053 kPa.
+    // Source: Meyerhof (1976); FHWA-HI-97-013 (Db = penetration into the bearing
+    // stratum), computed: N60 = 20, Db/D = 2.0/0.4 = 5 → 4053 kPa.
     design.tip_sand = TipMethod::meyerhof_spt;
     const CapacityResult r = pile_capacity(profile, round_pile(0.4, 7.0), design);
     CHECK(*r.tip_details.penetration == Approx(2.0));
     CHECK(r.tip_details.unit_tip == rel(4053.0));
   }
   SECTION("O'Neill & Reese sand tip with a wide base") {
-    // Source: O'Neill & Reese (1999), from memory; check-values rows 4.5 and 4.7:
+    // Source: O'Neill & Reese (1999), from memory, computed:
     // 1149.1 kPa × 0.8467 (Bb = 1.5 m) = 972.9 kPa.
     design.installation = Installation::bored;
     design.tip_sand = TipMethod::fhwa;

@@ -115,7 +115,7 @@ TEST_CASE("checks: ultimate capacities are divided by default factors of safety 
   p.pile_types[0].capacities.push_back(set);
   const auto r = resolve_resistances(p, {});
   // Source: common practice, single-pile ultimate ÷ FS 2.5–3.0 from static calculation,
-  // tension with the higher factor (from memory); check-values row 9.23: Qult = 1000 kN
+  // tension with the higher factor (from memory); computed: Qult = 1000 kN
   // → Qall = 400 kN (FS 2.5) and 333.33 kN (FS 3.0).
   CHECK(*r[0].allowable.compression == Approx(400.0).epsilon(kPublished));
   CHECK(*r[0].allowable.tension == Approx(333.33).epsilon(kPublished));
@@ -128,7 +128,7 @@ TEST_CASE("checks: ultimate capacities are divided by default factors of safety 
     p.pile_types[0].capacities[0].factor_of_safety = 2.0;
     p.pile_types[0].capacities[0].factor_of_safety_tension = 2.5;
     const auto g = resolve_resistances(p, {});
-    // check-values row 9.23: FS = 2.0 → 500 kN; FS = 2.5 → 400 kN.
+    // Common practice, computed: FS = 2.0 → 500 kN; FS = 2.5 → 400 kN.
     CHECK(*g[0].allowable.compression == Approx(500.0).epsilon(kPublished));
     CHECK(*g[0].allowable.tension == Approx(400.0).epsilon(kPublished));
   }
@@ -282,7 +282,7 @@ TEST_CASE("checks: structural check of fixed heads adds |P|/Pc and |M|/Mc", "[ch
   r.factored.lateral = 500.0;
   r.factored.structural_axial = 4000.0;
   r.factored.structural_moment = 200.0;
-  // Fixed head, long pile: M = V/(2λ); with 1/(2λ) = 1.412 m (check-values row 7.12: a
+  // Fixed head, long pile: M = V/(2λ); with 1/(2λ) = 1.412 m (computed from Hetényi's closed form: a
   // 100 kN shear gives a head moment of 141.21 kN·m, Hetényi 1946, from memory).
   const std::vector<double> moment_per_shear = {1.41209};
   const auto results = check_piles(p, {solution({{1200.0, 50.0}})}, {r}, moment_per_shear);

@@ -164,7 +164,7 @@ TEST_CASE("combinations: EN 1990 eq. 6.10 and 6.14b table", "[combinations][publ
   const auto g = cairn::generate_combinations("en1990-str-geo", cases);
   // Source: EN 1990:2002 eq. 6.10 with Table A1.2(B): γG,sup 1.35, γG,inf 1.00, γQ 1.50;
   // ψ0 Table A1.1: imposed (A–D) 0.7, snow (≤ 1000 m) 0.5, wind 0.6 — all from memory; the
-  // γ values also appear in EN 1997-1 Table A.3 (check-values.md row 9.1).
+  // γ values also appear in EN 1997-1 Annex A, Table A.3.
   // γQ·ψ0: imposed 1.05, snow 0.75, wind 0.9.
   const std::vector<Row> uls = {
       {"EN-6.10-G", dead(1.35, {})},                                                    // 6.10, no variable action

@@ -107,8 +107,8 @@ TEST_CASE("explain: the as-built 3x3 group with a product of inertia (row 8.6)",
       project_of({pile_type("V", 2.5e5)}, piles, {on_top(0, 0, {0, 0, -5400})});
   const cairn::CheckResults results = solved(project);
   // Source: USACE EM 1110-2-2906 (1991) / Poulos & Davis (1980), the rigid-cap formula with
-  // the product term (common practice; from memory), values worked in check-values.md row
-  // 8.6 to 3 decimals (half a unit of the last place is < 1e-6 relative).
+  // the product term (common practice; from memory), values computed from it
+  // to 3 decimals (half a unit of the last place is < 1e-6 relative).
   const std::array<double, 9> expected = {606.226, 600.106, 593.604, 606.162, 600.042,
                                           593.923, 606.098, 599.979, 593.859};
   for (std::size_t i = 0; i < piles.size(); ++i) {
@@ -117,7 +117,7 @@ TEST_CASE("explain: the as-built 3x3 group with a product of inertia (row 8.6)",
     REQUIRE(checks.size() == 1);
     const cairn::HandCheck& h = checks[0];
     REQUIRE(h.available);
-    // Source: check-values.md row 8.6: x̄ = 0.008333 m, Ixx = 8.64, Iyy = 8.825,
+    // Source: computed from the section of the grid: x̄ = 0.008333 m, Ixx = 8.64, Iyy = 8.825,
     // Ixy = 0.09 m² (exact: 0.075/9, and sums of the grid's squares).
     CHECK(h.section.count == 9);
     CHECK(h.section.centroid_x == close(0.075 / 9.0, 1e-12));
@@ -150,7 +150,7 @@ TEST_CASE("explain: the terms of P/n ± M·x/Σx² for the 3x3 grid of row 8.2",
   // e_x = My/V = 360/5400, e_y = −Mx/V = 720/5400 m.
   CHECK(h.eccentricity_x == close(360.0 / 5400.0, 1e-12));
   CHECK(h.eccentricity_y == close(720.0 / 5400.0, 1e-12));
-  // Source: USACE EM 1110-2-2906 / Poulos & Davis (1980), check-values.md row 8.2: the
+  // Source: USACE EM 1110-2-2906 / Poulos & Davis (1980), computed: the
   // corner (1.2, 1.2) carries 750 kN = 600 + 360·1.2/8.64 + 720·1.2/8.64 = 600 + 50 + 100.
   CHECK(h.direct == close(600.0, 1e-12));
   CHECK(h.from_moment_y == close(50.0, 1e-9));
@@ -236,7 +236,7 @@ TEST_CASE("explain: a two-pile cap uses the one-way form (row 8.9)", "[explain][
   const cairn::Project project =
       project_of({pile_type("V", 2.5e5)}, piles, {on_top(0, 0, {0, 0, -2000})});
   const cairn::CheckResults results = solved(project);
-  // Source: check-values.md row 8.9 (from the rigid-cap formula, common practice):
+  // Source: computed from the rigid-cap formula (common practice):
   // outward 75 mm → 1040.0 / 960.0 kN.
   const std::array<double, 2> expected = {1040.0, 960.0};
   for (std::size_t i = 0; i < 2; ++i) {

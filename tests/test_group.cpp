@@ -1,6 +1,6 @@
 // Tests for group.hpp: layout, efficiency, block failure, uplift, settlement, stiffness.
-// Published values come from /work/shared/reference/check-values.md; each assertion names
-// the underlying source and the row. Tolerances: check-values rows are rounded to 4–5
+// Published values are cited beside each check: each assertion names the underlying
+// source (author, year, equation). Tolerances: the computed values are rounded to 4–5
 // significant figures, so relative 1e-3 unless said otherwise.
 #include <catch2/catch.hpp>
 
@@ -133,8 +133,8 @@ TEST_CASE("group: irregular layouts are reported with the reason", "[group]") {
 
 TEST_CASE("group: minimum spacing check names the offending pairs", "[group][published]") {
   const auto piles = grid_piles(3, 3, 1.2, 1.2, 0.4);
-  // Source: 2.5 × width, common practice (AASHTO LRFD 10.7.1.2, from memory; check-values
-  // 10.1). s = 1.2 m ≥ 2.5 × 0.4 = 1.0 m: no violation.
+  // Source: 2.5 × width, common practice (AASHTO LRFD 10.7.1.2, from
+  // memory). s = 1.2 m ≥ 2.5 × 0.4 = 1.0 m: no violation.
   const cairn::SpacingCheck ok = cairn::check_spacing(piles);
   CHECK(ok.violations.empty());
   CHECK(ok.smallest == Approx(1.2).margin(1e-9));
@@ -145,8 +145,8 @@ TEST_CASE("group: minimum spacing check names the offending pairs", "[group][pub
   CHECK(tight.violations.front().first == "P1");
   CHECK(tight.violations.front().second == "P2");
   CHECK(tight.violations.front().required == Approx(1.4).margin(1e-9));
-  // Source: AASHTO LRFD 10.7.1.2 absolute minimum 750 mm for driven piles (from memory,
-  // check-values 10.1): 0.25 m piles at 0.70 m pass 2.5D = 0.625 m but fail 0.75 m.
+  // Source: AASHTO LRFD 10.7.1.2 absolute minimum 750 mm for driven piles (from memory):
+  // 0.25 m piles at 0.70 m pass 2.5D = 0.625 m but fail 0.75 m.
   const auto small = grid_piles(1, 2, 0.70, 0.0, 0.25);
   CHECK(cairn::check_spacing(small).violations.empty());
   const auto absolute = cairn::check_spacing(small, 2.5, 0.75);
@@ -157,8 +157,8 @@ TEST_CASE("group: minimum spacing check names the offending pairs", "[group][pub
 TEST_CASE("group: edge distance from the pile face to the cap outline", "[group][published]") {
   const std::vector<cairn::PlanPoint> square_cap{{-2.1, -2.1}, {2.1, -2.1}, {2.1, 2.1}, {-2.1, 2.1}};
   SECTION("rectangle, round and square piles; the default minimum is 225 mm") {
-    // Source: AASHTO LRFD 10.7.1.2, 225 mm from the side of the pile (from memory,
-    // check-values 10.4). Geometry by hand: pile at 1.2 m, edge at 2.1 m, half width 0.2 m.
+    // Source: AASHTO LRFD 10.7.1.2, 225 mm from the side of the pile (from memory).
+    // Geometry by hand: pile at 1.2 m, edge at 2.1 m, half width 0.2 m.
     auto piles = grid_piles(3, 3, 1.2, 1.2, 0.4);
     piles.push_back({"Q", 1.8, 0.6, 0.4, true});  // face 0.1 m from the edge x = 2.1
     const cairn::EdgeCheck check = cairn::check_edge_distance(piles, square_cap);
@@ -196,32 +196,32 @@ TEST_CASE("group: edge distance from the pile face to the cap outline", "[group]
 TEST_CASE("group: Converse-Labarre efficiency for several grids", "[group][published]") {
   using cairn::EfficiencyMethod;
   const auto cl = EfficiencyMethod::converse_labarre;
-  // Source: Converse–Labarre formula (c, H in check-values §5); values computed in
-  // check-values rows 5.1–5.3. D = 0.4 m, s = 2.5D / 3D / 4D.
-  CHECK(efficiency(cl, grid_piles(3, 3, 1.0, 1.0, 0.4)) == Approx(0.6770).epsilon(1e-3));  // 5.1
-  CHECK(efficiency(cl, grid_piles(3, 3, 1.2, 1.2, 0.4)) == Approx(0.7269).epsilon(1e-3));  // 5.1
-  CHECK(efficiency(cl, grid_piles(3, 3, 1.6, 1.6, 0.4)) == Approx(0.7921).epsilon(1e-3));  // 5.1
-  CHECK(efficiency(cl, grid_piles(2, 4, 1.0, 1.0, 0.4)) == Approx(0.6972).epsilon(1e-3));  // 5.2
-  CHECK(efficiency(cl, grid_piles(2, 4, 1.2, 1.2, 0.4)) == Approx(0.7440).epsilon(1e-3));  // 5.2
-  CHECK(efficiency(cl, grid_piles(2, 4, 1.6, 1.6, 0.4)) == Approx(0.8051).epsilon(1e-3));  // 5.2
-  CHECK(efficiency(cl, grid_piles(2, 2, 1.2, 1.2, 0.4)) == Approx(0.7952).epsilon(1e-3));  // 5.3
-  CHECK(efficiency(cl, grid_piles(4, 4, 1.2, 1.2, 0.4)) == Approx(0.6928).epsilon(1e-3));  // 5.3
+  // Source: Converse–Labarre formula (from memory); values computed
+  // from it. D = 0.4 m, s = 2.5D / 3D / 4D.
+  CHECK(efficiency(cl, grid_piles(3, 3, 1.0, 1.0, 0.4)) == Approx(0.6770).epsilon(1e-3));
+  CHECK(efficiency(cl, grid_piles(3, 3, 1.2, 1.2, 0.4)) == Approx(0.7269).epsilon(1e-3));
+  CHECK(efficiency(cl, grid_piles(3, 3, 1.6, 1.6, 0.4)) == Approx(0.7921).epsilon(1e-3));
+  CHECK(efficiency(cl, grid_piles(2, 4, 1.0, 1.0, 0.4)) == Approx(0.6972).epsilon(1e-3));
+  CHECK(efficiency(cl, grid_piles(2, 4, 1.2, 1.2, 0.4)) == Approx(0.7440).epsilon(1e-3));
+  CHECK(efficiency(cl, grid_piles(2, 4, 1.6, 1.6, 0.4)) == Approx(0.8051).epsilon(1e-3));
+  CHECK(efficiency(cl, grid_piles(2, 2, 1.2, 1.2, 0.4)) == Approx(0.7952).epsilon(1e-3));
+  CHECK(efficiency(cl, grid_piles(4, 4, 1.2, 1.2, 0.4)) == Approx(0.6928).epsilon(1e-3));
 }
 
 TEST_CASE("group: Los Angeles efficiency for several grids", "[group][published]") {
   const auto la = cairn::EfficiencyMethod::los_angeles;
-  // Source: Los Angeles Group Action formula (c, H in check-values §5); rows 5.4 and 5.5.
-  CHECK(efficiency(la, grid_piles(3, 3, 1.0, 1.0, 0.4)) == Approx(0.7502).epsilon(1e-3));  // 5.4
-  CHECK(efficiency(la, grid_piles(3, 3, 1.2, 1.2, 0.4)) == Approx(0.7918).epsilon(1e-3));  // 5.4
-  CHECK(efficiency(la, grid_piles(3, 3, 1.6, 1.6, 0.4)) == Approx(0.8439).epsilon(1e-3));  // 5.4
-  CHECK(efficiency(la, grid_piles(2, 4, 1.0, 1.0, 0.4)) == Approx(0.7733).epsilon(1e-3));  // 5.5
-  CHECK(efficiency(la, grid_piles(2, 4, 1.2, 1.2, 0.4)) == Approx(0.8111).epsilon(1e-3));  // 5.5
-  CHECK(efficiency(la, grid_piles(2, 4, 1.6, 1.6, 0.4)) == Approx(0.8583).epsilon(1e-3));  // 5.5
+  // Source: Los Angeles Group Action formula (from memory), computed.
+  CHECK(efficiency(la, grid_piles(3, 3, 1.0, 1.0, 0.4)) == Approx(0.7502).epsilon(1e-3));
+  CHECK(efficiency(la, grid_piles(3, 3, 1.2, 1.2, 0.4)) == Approx(0.7918).epsilon(1e-3));
+  CHECK(efficiency(la, grid_piles(3, 3, 1.6, 1.6, 0.4)) == Approx(0.8439).epsilon(1e-3));
+  CHECK(efficiency(la, grid_piles(2, 4, 1.0, 1.0, 0.4)) == Approx(0.7733).epsilon(1e-3));
+  CHECK(efficiency(la, grid_piles(2, 4, 1.2, 1.2, 0.4)) == Approx(0.8111).epsilon(1e-3));
+  CHECK(efficiency(la, grid_piles(2, 4, 1.6, 1.6, 0.4)) == Approx(0.8583).epsilon(1e-3));
 }
 
 TEST_CASE("group: Feld's rule counts orthogonal and diagonal neighbours", "[group][published]") {
   const auto feld = cairn::EfficiencyMethod::feld;
-  // Source: Feld's rule, 1/16 per adjacent pile (c, H in check-values §5); row 5.6.
+  // Source: Feld's rule, 1/16 per adjacent pile (from memory), computed.
   CHECK(efficiency(feld, grid_piles(3, 3, 1.2, 1.2, 0.4)) == Approx(65.0 / 90.0).epsilon(1e-9));
   CHECK(efficiency(feld, grid_piles(2, 4, 1.2, 1.2, 0.4)) == Approx(0.7500).epsilon(1e-9));
   CHECK(efficiency(feld, grid_piles(2, 2, 1.2, 1.2, 0.4)) == Approx(0.8125).epsilon(1e-9));
@@ -245,7 +245,7 @@ TEST_CASE("group: block-perimeter rule for sand, none, and unequal spacings", "[
   // Unequal spacings: the smaller (1.2 m) is used, so η equals the 1.2 × 1.2 m grid's.
   const auto uneven = cairn::group_efficiency(cairn::EfficiencyMethod::converse_labarre,
                                               grid_piles(3, 3, 1.6, 1.2, 0.4));
-  CHECK(*uneven.value == Approx(0.7269).epsilon(1e-3));  // check-values 5.1, s/D = 3
+  CHECK(*uneven.value == Approx(0.7269).epsilon(1e-3));  // Converse–Labarre, s/D = 3
   CHECK(uneven.note == "spacings differ along x and y: the smaller, 1.200 m, is used");
   CHECK(cairn::efficiency_method_from_string("los-angeles") == cairn::EfficiencyMethod::los_angeles);
   CHECK_FALSE(cairn::efficiency_method_from_string("seiler").has_value());
@@ -261,43 +261,43 @@ TEST_CASE("group: efficiency on the shaft only leaves the tip whole", "[group]")
 // ---- block failure ------------------------------------------------------------------------
 
 TEST_CASE("group: Skempton's Nc with the depth ratio capped at 2.5", "[group][published]") {
-  // Source: Skempton (1951), reported in Smith, Elements of Soil Mechanics (check-values S6);
-  // rows 5.8 and 5.9.
-  CHECK(cairn::skempton_nc(1.0, 0.0) == Approx(6.0).epsilon(1e-9));   // 5.8
-  CHECK(cairn::skempton_nc(1.0, 1.0) == Approx(7.2).epsilon(1e-9));   // 5.8
-  CHECK(cairn::skempton_nc(1.0, 2.5) == Approx(9.0).epsilon(1e-9));   // 5.8
-  CHECK(cairn::skempton_nc(1.0, 5.0) == Approx(9.0).epsilon(1e-9));   // 5.8
-  CHECK(cairn::skempton_nc(0.5, 5.0) == Approx(8.25).epsilon(1e-9));  // 5.9
-  CHECK(cairn::skempton_nc(0.0, 5.0) == Approx(7.5).epsilon(1e-9));   // 5.9
+  // Source: Skempton (1951), reported in Smith, Elements of Soil Mechanics;
+  // values computed from it.
+  CHECK(cairn::skempton_nc(1.0, 0.0) == Approx(6.0).epsilon(1e-9));
+  CHECK(cairn::skempton_nc(1.0, 1.0) == Approx(7.2).epsilon(1e-9));
+  CHECK(cairn::skempton_nc(1.0, 2.5) == Approx(9.0).epsilon(1e-9));
+  CHECK(cairn::skempton_nc(1.0, 5.0) == Approx(9.0).epsilon(1e-9));
+  CHECK(cairn::skempton_nc(0.5, 5.0) == Approx(8.25).epsilon(1e-9));
+  CHECK(cairn::skempton_nc(0.0, 5.0) == Approx(7.5).epsilon(1e-9));
 }
 
 TEST_CASE("group: block failure in clay and which capacity governs", "[group][published]") {
   cairn::SoilProfile profile;
-  SECTION("row 5.10: the efficiency sum governs") {
+  SECTION("the efficiency sum governs") {
     profile.layers = {clay("soft", 15.0, 50.0), clay("stiff", 10.0, 80.0)};
     const auto piles = grid_piles(3, 3, 1.2, 1.2, 0.4);
     const cairn::BlockPlan plan = cairn::block_plan(piles);
     CHECK(plan.width == Approx(2.8));  // outer to outer: 2·1.2 + 0.4
     const cairn::BlockCapacity block = cairn::block_capacity_clay(profile, plan, 0.0, 15.0);
     REQUIRE(block.applies);
-    // Source: block equation S15 Eq. 6-38 with Skempton Nc (S6); check-values row 5.10:
+    // Source: block equation UFC 3-220-20 (2025) Eq. 6-38 with Skempton (1951) Nc, computed:
     // Nc = 9.0, Qblock = 8400 + 5644.8 = 14044.8 kN.
     CHECK(block.nc == Approx(9.0).epsilon(1e-9));
     CHECK(block.perimeter == Approx(8400.0).epsilon(1e-3));
     CHECK(block.base == Approx(5644.8).epsilon(1e-3));
     CHECK(block.capacity == Approx(14044.8).epsilon(1e-3));
-    // Single pile (row 5.10): Qs = 0.7·50·π·0.4·15 = 659.73 kN, Qp = 9·80·π·0.2² = 90.48 kN.
+    // Single pile: Qs = 0.7·50·π·0.4·15 = 659.73 kN, Qp = 9·80·π·0.2² = 90.48 kN.
     const double single = 0.7 * 50.0 * kPi * 0.4 * 15.0 + 9.0 * 80.0 * kPi * 0.04;
     const cairn::GroupCapacity group = cairn::group_capacity(9.0 * single, block);
-    CHECK(group.capacity == Approx(6751.9).epsilon(1e-3));  // row 5.10: 9Qi = 6751.9 kN
+    CHECK(group.capacity == Approx(6751.9).epsilon(1e-3));  // 9Qi = 6751.9 kN
     CHECK(group.governs == cairn::GroupGoverning::efficiency);
   }
-  SECTION("row 5.11: the block governs") {
+  SECTION("the block governs") {
     profile.layers = {clay("soft", 15.0, 20.0), clay("firm", 10.0, 30.0)};
     const cairn::BlockPlan plan = cairn::block_plan(grid_piles(3, 3, 0.8, 0.8, 0.4));
     CHECK(plan.width == Approx(2.0));
     const cairn::BlockCapacity block = cairn::block_capacity_clay(profile, plan, 0.0, 15.0);
-    // Source: S15 Eq. 6-38 / 6-37 with Skempton Nc; check-values row 5.11: Qblock = 2400 +
+    // Source: UFC 3-220-20 (2025) Eq. 6-38 / 6-37 with Skempton Nc, computed: Qblock = 2400 +
     // 1080 = 3480 kN < 9Qi = 3698.3 kN, ratio 0.9410.
     CHECK(block.capacity == Approx(3480.0).epsilon(1e-3));
     const double single = 1.0 * 20.0 * kPi * 0.4 * 15.0 + 9.0 * 30.0 * kPi * 0.04;
@@ -351,7 +351,7 @@ TEST_CASE("group: uplift of the soil block with the water table", "[group]") {
 
 namespace {
 
-// The pile of check-values row 6.1.
+// The pile of the Vesić (1977) settlement check below.
 cairn::VesicPile row_6_1_pile() {
   cairn::VesicPile pile;
   pile.width = 0.4;
@@ -370,29 +370,29 @@ cairn::VesicPile row_6_1_pile() {
 TEST_CASE("group: Vesic single-pile settlement, elastic and empirical routes",
           "[group][published]") {
   const cairn::VesicPile pile = row_6_1_pile();
-  // Source: Vesić (1977), NCHRP Synthesis 42, three-part method (outline in NAVFAC DM 7.02,
-  // check-values S14; coefficients from memory, c H); values computed in row 6.1:
+  // Source: Vesić (1977), NCHRP Synthesis 42, three-part method (outline in NAVFAC DM 7.02;
+  // coefficients from memory); values computed from it:
   // s1 = 1.592, s2 = 16.414, s3 = 1.067, total 19.073 mm.
   const cairn::VesicSettlement s = cairn::vesic_settlement(pile, {200.0, 400.0});
   CHECK(s.shortening * 1000.0 == Approx(1.592).epsilon(1e-3));
   CHECK(s.tip * 1000.0 == Approx(16.414).epsilon(1e-3));
   CHECK(s.shaft * 1000.0 == Approx(1.067).epsilon(1e-3));
   CHECK(s.total * 1000.0 == Approx(19.073).epsilon(1e-3));
-  // Row 6.2, empirical route with Cp = 0.03, qp = 5000 kPa: s2 = 3.000, s3 = 0.306 mm.
+  // Computed, empirical route with Cp = 0.03, qp = 5000 kPa: s2 = 3.000, s3 = 0.306 mm.
   const auto e = cairn::vesic_settlement_empirical(pile, {200.0, 400.0}, 0.03, 5000.0);
   CHECK(e.tip * 1000.0 == Approx(3.000).epsilon(1e-3));
   CHECK(e.shaft * 1000.0 == Approx(0.306).epsilon(2e-3));  // row rounded to 3 figures
   CHECK(e.shortening == Approx(s.shortening));
-  // Row 6.3, Vesić group rule sg = s·√(Bg/D): 19.073 mm, Bg = 2.8 m, D = 0.4 m → 50.46 mm.
+  // Computed, Vesić group rule (from memory) sg = s·√(Bg/D): 19.073 mm, Bg = 2.8 m, D = 0.4 m → 50.46 mm.
   CHECK(cairn::vesic_group_settlement(0.019073, 2.8, 0.4) * 1000.0 == Approx(50.46).epsilon(1e-3));
 }
 
 TEST_CASE("group: working load split and secant axial stiffness", "[group][published]") {
-  // Ultimate tip : shaft = 1 : 2 splits 600 kN into 200 + 400 kN, the loads of row 6.1.
+  // Ultimate tip : shaft = 1 : 2 splits 600 kN into 200 + 400 kN, the loads of the Vesić settlement check.
   const cairn::WorkingLoadSplit split = cairn::split_working_load(600.0, 600.0, 1200.0);
   CHECK(split.tip == Approx(200.0));
   CHECK(split.shaft == Approx(400.0));
-  // Source: Vesić (1977) via check-values row 6.1 (s = 19.073 mm at 600 kN):
+  // Source: computed from Vesić (1977)'s settlement formulas (s = 19.073 mm at 600 kN):
   // k = 600/0.019073 = 31 458 kN/m.
   const cairn::SecantStiffness k = cairn::axial_head_stiffness(row_6_1_pile(), 600.0, 600.0, 1200.0);
   CHECK(k.settlement * 1000.0 == Approx(19.073).epsilon(1e-3));
@@ -403,8 +403,8 @@ TEST_CASE("group: working load split and secant axial stiffness", "[group][publi
 }
 
 TEST_CASE("group: 2V:1H stress spread below the equivalent footing", "[group][published]") {
-  // Source: FHWA (1996) equivalent footing, 2V:1H spread (check-values S13; also S15 Eq.
-  // 6-51); row 6.7: Q = 3000 kN, Bg = Lg = 2.8 m.
+  // Source: FHWA (1996) equivalent footing, 2V:1H spread (also UFC 3-220-20 (2025) Eq.
+  // 6-51), computed: Q = 3000 kN, Bg = Lg = 2.8 m.
   const cairn::BlockPlan plan{2.8, 2.8};
   CHECK(cairn::spread_stress(3000.0, plan, 0.0) == Approx(382.65).epsilon(1e-3));
   CHECK(cairn::spread_stress(3000.0, plan, 2.0) == Approx(130.21).epsilon(1e-3));
@@ -414,8 +414,8 @@ TEST_CASE("group: 2V:1H stress spread below the equivalent footing", "[group][pu
 
 TEST_CASE("group: equivalent-footing settlement with sand and over-consolidated clay",
           "[group][published]") {
-  // Worked by hand (methods: FHWA 1996 equivalent footing with 2V:1H spread, check-values
-  // S13 and row 6.7; Terzaghi one-dimensional consolidation, common practice):
+  // Worked by hand (methods: FHWA 1996 equivalent footing with 2V:1H spread;
+  // Terzaghi one-dimensional consolidation, common practice):
   //   Profile: sand 0–12 m (γ = 18, γsat = 20 kN/m³, Es = 40 MPa), clay 12–14 m (γsat = 19,
   //   Cc = 0.30, Cr = 0.05, e0 = 0.90, σ'p = 170 kPa), water table 3 m, nothing below 14 m.
   //   Piles: heads at 0, tips at 9 m in the sand; Bg = Lg = 2.8 m; Q = 3000 kN.
@@ -454,7 +454,7 @@ TEST_CASE("group: equivalent-footing settlement with sand and over-consolidated 
   CHECK(result.sublayers[2].settlement * 1000.0 == Approx(14.563).epsilon(1e-3));
   REQUIRE(result.total.has_value());
   CHECK(*result.total * 1000.0 == Approx(30.954).epsilon(1e-3));
-  // Source: tolerable settlement 25 mm, common practice (Terzaghi & Peck; check-values 10.11).
+  // Source: tolerable settlement 25 mm, common practice (Terzaghi & Peck, from memory).
   const cairn::SettlementCheck check = cairn::check_settlement(*result.total);
   CHECK(check.limit == Approx(0.025));
   CHECK_FALSE(check.ok);

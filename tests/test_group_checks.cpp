@@ -14,7 +14,7 @@ using namespace cairn;
 
 namespace {
 
-// Published values in check-values.md are rounded to 4–5 digits.
+// Values computed from published formulas are rounded to 4–5 digits.
 constexpr double kPublished = 1e-3;
 // Hand calculations from exact inputs: round-off only.
 constexpr double kTight = 1e-9;
@@ -120,15 +120,15 @@ TEST_CASE("group_checks: Converse–Labarre efficiency reduces the group capacit
   typed_capacity(p, 1000.0, 1500.0);
   p.group.efficiency = "converse-labarre";
   const Run r = run(p);
-  // Source: Converse–Labarre formula (from memory), check-values row 5.1: 3×3 with
+  // Source: Converse–Labarre formula (from memory), computed: 3×3 with
   // s/D = 3 → Eg = 0.7269.
   REQUIRE(r.group.applied.value);
   CHECK(*r.group.applied.value == Approx(0.7269).epsilon(kPublished));
-  // Group capacity = η·Σ (check-values §5, S15 Eq. 6-37): 0.7269 × 9 × 1000 = 6542 kN.
+  // Group capacity = η·Σ (UFC 3-220-20 (2025) Eq. 6-37): 0.7269 × 9 × 1000 = 6542 kN.
   CHECK(*r.group.capacity_allowable == Approx(0.7269 * 9000.0).epsilon(kPublished));
   CHECK(*r.group.capacity_factored == Approx(0.7269 * 13500.0).epsilon(kPublished));
   CHECK(r.group.governing == "efficiency");
-  // The other methods side by side: row 5.4 Los Angeles 0.7918; row 5.6 Feld 0.7222.
+  // The other methods side by side (computed): Los Angeles 0.7918; Feld 0.7222.
   for (const auto& e : r.group.efficiencies.all) {
     if (e.method == EfficiencyMethod::los_angeles) CHECK(*e.value == Approx(0.7918).epsilon(kPublished));
     if (e.method == EfficiencyMethod::feld) CHECK(*e.value == Approx(0.7222).epsilon(kPublished));
@@ -147,7 +147,7 @@ TEST_CASE("group_checks: Converse–Labarre efficiency reduces the group capacit
       Project q = grid(0.4, spacing, 15.0, {0, 0, -5400.0, 0, 0, 0});
       typed_capacity(q, 1000.0, 1500.0);
       q.group.efficiency = "converse-labarre";
-      // Source: check-values row 5.1 (Converse–Labarre, from memory).
+      // Source: Converse–Labarre formula (from memory), computed.
       CHECK(*run(q).group.capacity_allowable == Approx(published * 9000.0).epsilon(kPublished));
     }
   }
@@ -158,11 +158,11 @@ TEST_CASE("group_checks: Converse–Labarre efficiency reduces the group capacit
 }
 
 TEST_CASE("group_checks: block failure governs in soft clay", "[group_checks][published]") {
-  // check-values row 5.11: 3×3, D = 0.4, s = 0.8 (Bg = 2.0 m), L = 15 m, c̄u = 20 kPa along
+  // Computed from the block equation and α method: 3×3, D = 0.4, s = 0.8 (Bg = 2.0 m), L = 15 m, c̄u = 20 kPa along
   // the piles, cu = 30 kPa below the tips, α = 1.0: Qi = 376.99 + 33.93 = 410.92 kN,
   // 9Qi = 3698.3 kN, Qblock = 2400 + 1080 = 3480.0 kN → block governs (ratio 0.9410).
-  // Sources: Terzaghi & Peck block failure (S15 Eq. 6-38) with Skempton (1951) Nc = 9.0
-  // (D/B = 7.5 > 2.5, B/L = 1; check-values row 5.8).
+  // Sources: Terzaghi & Peck block failure (UFC 3-220-20 (2025) Eq. 6-38) with Skempton (1951) Nc = 9.0
+  // (D/B = 7.5 > 2.5, B/L = 1; Skempton as reported in Smith, Elements of Soil Mechanics).
   Project p = grid(0.4, 0.8, 15.0, {0, 0, -1200.0, 0, 0, 0});
   p.group.min_spacing_factor = 2.0;  // s = 2D here; keep the spacing check out of the way
   SoilLayer upper = layer("soft clay", SoilKind::clay, 15.0);
@@ -172,7 +172,7 @@ TEST_CASE("group_checks: block failure governs in soft clay", "[group_checks][pu
   p.soil = SoilProfile{std::nullopt, {upper, lower}};
   CapacitySet ultimate;
   ultimate.basis = CapacityBasis::ultimate;
-  ultimate.compression = 410.92;  // row 5.11's single-pile Qi, typed in
+  ultimate.compression = 410.92;  // the single-pile Qi computed above, typed in
   ultimate.tension = 376.99;
   ultimate.lateral = 100.0;
   ultimate.resistance_factor = 0.7;
@@ -185,12 +185,12 @@ TEST_CASE("group_checks: block failure governs in soft clay", "[group_checks][pu
   CHECK(r.group.block->nc == Approx(9.0).epsilon(kPublished));
   CHECK(r.group.block->capacity == Approx(3480.0).epsilon(kPublished));
   // Allowable basis: Σ Qi/2.5 = 3698.3/2.5 = 1479.3 kN against Qblock/2.5 = 1392.0 kN; the
-  // same factor of safety on both keeps row 5.11's ratio 0.9410.
+  // same factor of safety on both keeps the computed ratio 0.9410.
   CHECK(r.group.governing == "block");
   CHECK(*r.group.capacity_allowable == Approx(3480.0 / 2.5).epsilon(kPublished));
   CHECK(*r.group.capacity_allowable / (9.0 * 410.92 / 2.5) == Approx(0.9410).epsilon(kPublished));
-  // Factored: Qblock × φ 0.60 (AASHTO LRFD Table 10.5.5.2.3-1, driven piles, from memory
-  // — check-values row 9.16) = 2088 kN, below Σ 0.7·Qi = 2588.8 kN.
+  // Factored: Qblock × φ 0.60 (AASHTO LRFD Table 10.5.5.2.3-1, driven piles, from memory)
+  // = 2088 kN, below Σ 0.7·Qi = 2588.8 kN.
   CHECK(*r.group.capacity_factored == Approx(3480.0 * 0.60).epsilon(kPublished));
   // S1: Σ compression 1200 kN against 1392 kN.
   CHECK(*r.group.per_combination[0].utilization == Approx(1200.0 / 1392.0).epsilon(kPublished));
@@ -273,8 +273,8 @@ TEST_CASE("group_checks: input problems only the group checks can see", "[group_
 
 TEST_CASE("group_checks: piles closer than the minimum spacing fail the group",
           "[group_checks][published]") {
-  // s = 0.8 m for D = 0.4 m: 2D, below 2.5D (AASHTO LRFD 10.7.1.2, from memory;
-  // check-values row 10.1).
+  // s = 0.8 m for D = 0.4 m: 2D, below 2.5D (AASHTO LRFD 10.7.1.2, from
+  // memory).
   Project p = grid(0.4, 0.8, 15.0, {0, 0, -1800.0, 0, 0, 0});
   typed_capacity(p, 1000.0, 1500.0);
   const Run r = run(p);
@@ -291,8 +291,8 @@ TEST_CASE("group_checks: piles closer than the minimum spacing fail the group",
 TEST_CASE("group_checks: settlement per service combination by Vesić's single pile and "
           "group rule",
           "[group_checks][published]") {
-  // check-values row 6.1: Qwp = 200, Qws = 400 kN, D = 0.4 m, L = 15 m, Ep = 30 GPa,
-  // Es = 30 MPa, μs = 0.3, ξ = 0.5 → s = 19.073 mm; row 6.3: Bg = 2.8 m → sg = s·√(Bg/D)
+  // Computed from Vesić's formulas: Qwp = 200, Qws = 400 kN, D = 0.4 m, L = 15 m, Ep = 30 GPa,
+  // Es = 30 MPa, μs = 0.3, ξ = 0.5 → s = 19.073 mm; group rule: Bg = 2.8 m → sg = s·√(Bg/D)
   // = 50.46 mm. Source: Vesić (1977), NCHRP Synthesis 42 (from memory).
   Project p = grid(0.4, 1.2, 15.0, {0, 0, -5400.0, 0, 0, 0});  // 600 kN per pile
   typed_capacity(p, 1000.0, 1500.0);
@@ -329,7 +329,7 @@ TEST_CASE("group_checks: settlement per service combination by Vesić's single p
 
 TEST_CASE("group_checks: the tilt is the rotation of the rigid cap", "[group_checks]") {
   // Equal axial springs k = 1e5 kN/m at x, y ∈ {−1.2, 0, 1.2}: Σx² = Σy² = 8.64 m². Rigid
-  // cap (common practice, check-values §8): ry = My/(k·Σx²) = 864/(1e5 × 8.64) = 1.0e-3 rad,
+  // cap (common practice): ry = My/(k·Σx²) = 864/(1e5 × 8.64) = 1.0e-3 rad,
   // rx = Mx/(k·Σy²) = 5.0e-4 rad; tilt = √(rx² + ry²) = 1.1180e-3 rad.
   Project p = grid(0.4, 1.2, 15.0, {0, 0, -5400.0, 432.0, 864.0, 0});
   typed_capacity(p, 1000.0, 1500.0);

@@ -1,6 +1,6 @@
 // Tests for lateral.hpp: Hetényi head stiffness, Broms' ultimate lateral resistance, section
-// capacity. Reference values come from /work/shared/reference/check-values.md §7 (computed
-// there from the published formulas); the source of each formula is named beside each check.
+// capacity. Reference values are computed from the published formulas (Hetényi 1946; Broms
+// 1964a/b); the source of each formula is named beside each check.
 #include <catch2/catch.hpp>
 
 #include <cmath>
@@ -21,7 +21,7 @@ namespace {
 // Check values are printed to 4–5 significant figures; 1e-3 relative covers their rounding.
 Approx near(double value) { return Approx(value).epsilon(1e-3); }
 
-// Pile of check-values row 7.11: D = 0.6 m round, Ep = 30 GPa → EI = 190 851.8 kN·m²,
+// Pile of the Hetényi checks: D = 0.6 m round, Ep = 30 GPa → EI = 190 851.8 kN·m²,
 // kh = 20 MN/m³.
 ElasticPile row_7_11_pile(HeadFixity head, double length) {
   return ElasticPile{190851.8, 20000.0, 0.6, length, head};
@@ -58,7 +58,7 @@ BromsInput sand(double gamma, double phi, double d, double l, double e, std::opt
 TEST_CASE("lateral: Hetényi long-pile head stiffness, free and fixed head",
           "[lateral][published]") {
   // Source: Hetényi (1946), Beams on Elastic Foundation, semi-infinite beam loaded at its end
-  // (from memory, standard result); values computed in check-values.md row 7.11.
+  // (from memory, standard result); values computed from it.
   const auto pinned = cairn::lateral_head_stiffness(row_7_11_pile(HeadFixity::pinned, 20.0));
   CHECK(pinned.winkler_modulus == near(12000.0));      // k = kh·D, kN/m²
   CHECK(pinned.lambda == near(0.354084));              // 1/m
@@ -80,7 +80,7 @@ TEST_CASE("lateral: Hetényi long-pile response to a head shear of 100 kN",
           "[lateral][published]") {
   // Source: Hetényi (1946), semi-infinite beam (from memory, standard result): free head
   // y0 = 2Hλ/k, θ0 = 2Hλ²/k, Mmax = 0.3224·H/λ at π/(4λ); fixed head y0 = Hλ/k, M0 = H/(2λ).
-  // Values computed in check-values.md row 7.12.
+  // Values computed from these closed forms.
   const auto pinned = cairn::lateral_head_response(row_7_11_pile(HeadFixity::pinned, 20.0), 100.0);
   CHECK(pinned.deflection * 1000.0 == near(5.901));     // mm
   CHECK(pinned.rotation == near(0.0020896));            // rad
@@ -99,7 +99,7 @@ TEST_CASE("lateral: Hetényi long-pile response to a head shear of 100 kN",
 TEST_CASE("lateral: a finite beam tends to Hetényi's long pile and to a rigid pile",
           "[lateral][published]") {
   SECTION("very long finite beam equals the semi-infinite closed form") {
-    // Source: Hetényi (1946) closed form, check-values.md row 7.11. With λL = 20π the far
+    // Source: Hetényi (1946) closed form (computed). With λL = 20π the far
     // end's influence is e^(−20π) ≈ 1e-27, so the two agree to round-off; 1e-6 allows for it.
     const auto finite = cairn::finite_pile_head_stiffness(
         row_7_11_pile(HeadFixity::pinned, 20.0 * std::numbers::pi));
@@ -152,9 +152,9 @@ TEST_CASE("lateral: a pile that is not long is noted and solved as a finite beam
 
 TEST_CASE("lateral: Broms, cohesive soil, free and fixed head", "[lateral][published]") {
   // Source: Broms (1964a), JSMFD 90(SM2); clay formulas as given in the CAUL open textbook
-  // §6.24 (S8): f = H/(9cu·D), Mmax = H(e + 1.5D + 0.5f) = 2.25·D·g²·cu. Values computed in
-  // check-values.md rows 7.1–7.5.
-  SECTION("free head, short (row 7.1, e = 0.5 m)") {
+  // §6.24: f = H/(9cu·D), Mmax = H(e + 1.5D + 0.5f) = 2.25·D·g²·cu. Values computed
+  // from these formulas.
+  SECTION("free head, short (e = 0.5 m)") {
     const auto r = cairn::broms_ultimate_lateral(clay(50, 0.5, 6, 0.5, std::nullopt, HeadFixity::pinned));
     CHECK(r.mode == BromsMode::short_pile);
     CHECK(r.ultimate_load == near(362.44));
@@ -163,27 +163,27 @@ TEST_CASE("lateral: Broms, cohesive soil, free and fixed head", "[lateral][publi
     CHECK(r.max_moment_depth == near(0.75 + 1.6108));  // 1.5D + f
     CHECK(r.notes.size() == 1);  // My not given
   }
-  SECTION("free head, short (row 7.2, e = 0)") {
+  SECTION("free head, short (e = 0)") {
     const auto r = cairn::broms_ultimate_lateral(clay(50, 0.5, 6, 0.0, 5000.0, HeadFixity::pinned));
     CHECK(r.mode == BromsMode::short_pile);
     CHECK(r.ultimate_load == near(405.30));
     CHECK(r.reaction_length == near(1.8013));
     CHECK(r.max_moment == near(669.01));
   }
-  SECTION("free head, long (row 7.3, My = 300 kN·m, e = 0.5 m)") {
+  SECTION("free head, long (My = 300 kN·m, e = 0.5 m)") {
     const auto r = cairn::broms_ultimate_lateral(clay(50, 0.5, 6, 0.5, 300.0, HeadFixity::pinned));
     CHECK(r.mode == BromsMode::long_pile);
     CHECK(r.ultimate_load == near(181.46));
     CHECK(r.reaction_length == near(0.8065));
     CHECK(r.max_moment == near(300.0));
   }
-  SECTION("fixed head, short (row 7.4)") {
+  SECTION("fixed head, short") {
     const auto r = cairn::broms_ultimate_lateral(clay(50, 0.5, 6, 0.0, 5000.0, HeadFixity::fixed));
     CHECK(r.mode == BromsMode::short_pile);
     CHECK(r.ultimate_load == near(1181.25));
     CHECK(r.max_moment == near(3986.72));
   }
-  SECTION("fixed head, long (row 7.5, My = 300 kN·m)") {
+  SECTION("fixed head, long (My = 300 kN·m)") {
     const auto r = cairn::broms_ultimate_lateral(clay(50, 0.5, 6, 0.0, 300.0, HeadFixity::fixed));
     CHECK(r.mode == BromsMode::long_pile);
     CHECK(r.ultimate_load == near(377.58));
@@ -193,37 +193,37 @@ TEST_CASE("lateral: Broms, cohesive soil, free and fixed head", "[lateral][publi
 
 TEST_CASE("lateral: Broms, cohesionless soil, free and fixed head", "[lateral][published]") {
   // Source: Broms (1964b), JSMFD 90(SM3), reaction 3Kp·γ'·D·z (from memory, high confidence);
-  // values computed in check-values.md rows 7.6–7.10. γ' = 10 kN/m³, D = 0.5 m, L = 6 m,
+  // values computed from these formulas. γ' = 10 kN/m³, D = 0.5 m, L = 6 m,
   // φ' = 30° (Kp = 3).
-  SECTION("passive coefficient (row 7.10)") {
+  SECTION("passive coefficient") {
     const auto r30 = cairn::broms_ultimate_lateral(sand(10, 30, 0.5, 6, 0, std::nullopt, HeadFixity::pinned));
     const auto r35 = cairn::broms_ultimate_lateral(sand(10, 35, 0.5, 6, 0, std::nullopt, HeadFixity::pinned));
     CHECK(r30.passive_coefficient == near(3.0));
     CHECK(r35.passive_coefficient == near(3.6902));
   }
-  SECTION("free head, short (row 7.6)") {
+  SECTION("free head, short") {
     const auto r = cairn::broms_ultimate_lateral(sand(10, 30, 0.5, 6, 0, 5000.0, HeadFixity::pinned));
     CHECK(r.mode == BromsMode::short_pile);
     CHECK(r.ultimate_load == near(270.0));
     CHECK(r.reaction_length == near(3.4641));
     CHECK(r.max_moment == near(623.54));
     const auto e1 = cairn::broms_ultimate_lateral(sand(10, 30, 0.5, 6, 1.0, 5000.0, HeadFixity::pinned));
-    CHECK(e1.ultimate_load == near(231.43));  // row 7.6 note, e = 1 m
+    CHECK(e1.ultimate_load == near(231.43));  // computed, e = 1 m
     CHECK(e1.max_moment == near(726.24));
   }
-  SECTION("fixed head, short (row 7.7)") {
+  SECTION("fixed head, short") {
     const auto r = cairn::broms_ultimate_lateral(sand(10, 30, 0.5, 6, 0, 5000.0, HeadFixity::fixed));
     CHECK(r.mode == BromsMode::short_pile);
     CHECK(r.ultimate_load == near(810.0));
     CHECK(r.max_moment == near(3240.0));
   }
-  SECTION("free head, long (row 7.8, My = 300 kN·m)") {
+  SECTION("free head, long (My = 300 kN·m)") {
     const auto r = cairn::broms_ultimate_lateral(sand(10, 30, 0.5, 6, 0, 300.0, HeadFixity::pinned));
     CHECK(r.mode == BromsMode::long_pile);
     CHECK(r.ultimate_load == near(165.78));
     CHECK(r.reaction_length == near(2.7144));
   }
-  SECTION("fixed head, long (row 7.9, My = 300 kN·m)") {
+  SECTION("fixed head, long (My = 300 kN·m)") {
     const auto r = cairn::broms_ultimate_lateral(sand(10, 30, 0.5, 6, 0, 300.0, HeadFixity::fixed));
     CHECK(r.mode == BromsMode::long_pile);
     CHECK(r.ultimate_load == near(263.16));
@@ -233,7 +233,7 @@ TEST_CASE("lateral: Broms, cohesionless soil, free and fixed head", "[lateral][p
 
 TEST_CASE("lateral: Broms fixed head, intermediate mechanism", "[lateral]") {
   // Hand calculations in docs/methods-lateral.md §2.4 (Broms 1964a/b equilibrium with yield
-  // at the head). Same soils as rows 7.4 and 7.7 with My = 1500 kN·m.
+  // at the head). Same soils as the fixed-head short checks above, with My = 1500 kN·m.
   SECTION("cohesive: H(1.5D + 0.5f) − My = 2.25·cu·D·g², H = 728.9 kN") {
     const auto r = cairn::broms_ultimate_lateral(clay(50, 0.5, 6, 0.0, 1500.0, HeadFixity::fixed));
     CHECK(r.mode == BromsMode::intermediate);
@@ -250,7 +250,7 @@ TEST_CASE("lateral: Broms fixed head, intermediate mechanism", "[lateral]") {
   }
   SECTION("the ultimate load does not jump between mechanisms") {
     // Invariant: as My rises to the short-pile head moment, H rises continuously to the
-    // short-pile value (rows 7.4 and 7.7: 1181.25 and 810 kN).
+    // short-pile value (computed above: 1181.25 and 810 kN).
     const auto c = cairn::broms_ultimate_lateral(clay(50, 0.5, 6, 0.0, 3986.72 * 0.99999, HeadFixity::fixed));
     CHECK(c.ultimate_load == near(1181.25));
     const auto s = cairn::broms_ultimate_lateral(sand(10, 30, 0.5, 6, 0, 3240.0 * 0.99999, HeadFixity::fixed));
@@ -259,9 +259,9 @@ TEST_CASE("lateral: Broms fixed head, intermediate mechanism", "[lateral]") {
 }
 
 TEST_CASE("lateral: Broms relative stiffness and classification", "[lateral][published]") {
-  // Source: Broms (1964a/b) classification (from memory, check-values.md §7): cohesive
+  // Source: Broms (1964a/b) classification (from memory): cohesive
   // βL < 1.5 short, > 2.5 long; cohesionless ηL < 2 short, > 4 long. β and η values computed
-  // in rows 7.13 and 7.14 for EI = 190 851.8 kN·m², D = 0.6 m.
+  // from these definitions for EI = 190 851.8 kN·m², D = 0.6 m.
   const double ei = 190851.8;
   CHECK(cairn::broms_beta(10000, 0.6, ei) == near(0.29775));
   CHECK(cairn::broms_beta(20000, 0.6, ei) == near(0.35408));
@@ -283,7 +283,7 @@ TEST_CASE("lateral: Broms relative stiffness and classification", "[lateral][pub
 
 TEST_CASE("lateral: allowable lateral load divides by the factor of safety",
           "[lateral][published]") {
-  // Source: common practice, FS 2.0–3.0 (check-values.md rows 9.20, 9.23): 1000 kN / 2.5.
+  // Source: common practice, FS 2.0–3.0, computed: 1000 kN / 2.5.
   CHECK(cairn::allowable_lateral_load(1000.0) == near(400.0));
   CHECK(cairn::allowable_lateral_load(1000.0, 2.0) == near(500.0));
   CHECK_THROWS_AS(cairn::allowable_lateral_load(1000.0, 0.5), std::invalid_argument);

@@ -12,7 +12,7 @@ using namespace cairn;
 
 namespace {
 
-// Published values in check-values.md are rounded to 4–5 digits.
+// Values computed from published formulas are rounded to 4–5 digits.
 constexpr double kPublished = 1e-3;
 // Hand calculations repeated here from the same formula: round-off only.
 constexpr double kTight = 1e-9;
@@ -73,13 +73,13 @@ TEST_CASE("stiffness: without soil the axial spring is E·A/L and the lateral on
 TEST_CASE("stiffness: section inertia of square and round sections", "[stiffness]") {
   // Common practice: I = b⁴/12 (square), πD⁴/64 (round).
   CHECK(section_inertia({SectionShape::square, 0.45}) == Approx(std::pow(0.45, 4) / 12.0).epsilon(kTight));
-  // check-values row 7.11: D = 0.6, Ep = 30 GPa gives EI = 190 851.8 kN·m².
+  // Computed (πD⁴/64): D = 0.6, Ep = 30 GPa gives EI = 190 851.8 kN·m².
   CHECK(3.0e7 * section_inertia({SectionShape::round, 0.6}) == Approx(190851.8).epsilon(kPublished));
 }
 
 TEST_CASE("stiffness: the axial spring is the Vesić (1977) settlement secant Q/s",
           "[stiffness][published]") {
-  // check-values row 6.1: Qwp = 200, Qws = 400 kN, D = 0.4 m round, L = 15 m, Ep = 30 GPa,
+  // Computed from Vesić's (1977) settlement formulas: Qwp = 200, Qws = 400 kN, D = 0.4 m round, L = 15 m, Ep = 30 GPa,
   // Es = 30 MPa, μs = 0.3, ξ = 0.5 → s = 1.592 + 16.414 + 1.067 = 19.073 mm.
   Project p = one_pile(0.4, 15.0, 3.0e7);
   SoilLayer sand;
@@ -99,7 +99,7 @@ TEST_CASE("stiffness: the axial spring is the Vesić (1977) settlement secant Q/
   capacity.result.allowable_compression = 600.0;
   const auto k = pile_type_stiffness(p, {capacity});
   // Source: Vesić (1977), NCHRP Synthesis 42, settlement of a single pile (from memory,
-  // check-values §6 row 6.1): s = 19.073 mm, so k = 600 / 0.019073 = 31 458 kN/m.
+  // computed): s = 19.073 mm, so k = 600 / 0.019073 = 31 458 kN/m.
   CHECK(k[0].axial == Approx(600.0 / 0.019073).epsilon(kPublished));
   CHECK(k[0].axial_source.rfind("secant Q/s from Vesić (1977) settlement at the allowable load: "
                                 "600.0 kN over 19.073 mm",
@@ -126,7 +126,7 @@ TEST_CASE("stiffness: the axial spring is the Vesić (1977) settlement secant Q/
 
 TEST_CASE("stiffness: lateral spring by Hetényi with kh given, pinned and fixed heads",
           "[stiffness][published]") {
-  // check-values row 7.11: D = 0.6, Ep = 30 GPa (EI = 190 851.8 kN·m²), kh = 20 MN/m³
+  // Computed from Hetényi's closed form: D = 0.6, Ep = 30 GPa (EI = 190 851.8 kN·m²), kh = 20 MN/m³
   // (k = 12 000 kN/m²) → λ = 0.354084 1/m, long if L > 8.872 m; free KH = k/(2λ) =
   // 16 945 kN/m; fixed KH = k/λ = 33 890 kN/m. Source: Hetényi (1946), Beams on Elastic
   // Foundation, semi-infinite beam (from memory).
@@ -147,7 +147,7 @@ TEST_CASE("stiffness: lateral spring by Hetényi with kh given, pinned and fixed
   p.pile_types[0].head = HeadFixity::fixed;
   const auto fixed = pile_type_stiffness(p, {});
   CHECK(fixed[0].lateral == Approx(33890.0).epsilon(kPublished));
-  // check-values row 7.12: fixed head moment 141.21 kN·m under H = 100 kN, i.e. 1/(2λ) m.
+  // Computed from Hetényi's closed form: fixed head moment 141.21 kN·m under H = 100 kN, i.e. 1/(2λ) m.
   CHECK(fixed[0].head_moment_per_shear * 100.0 == Approx(141.21).epsilon(kPublished));
   CHECK(fixed[0].head == HeadFixity::fixed);
 }
@@ -212,6 +212,6 @@ TEST_CASE("stiffness: the layer at the pile head gives kh, below the cap's depth
   p.soil = SoilProfile{std::nullopt, {fill, clay}};
   p.cap.depth = 2.0;  // pile heads at the top of the clay
   const auto k = pile_type_stiffness(p, {});
-  // check-values row 7.11 again: 16 945 kN/m with the clay's kh, not the fill's.
+  // Hetényi's closed form again (computed): 16 945 kN/m with the clay's kh, not the fill's.
   CHECK(k[0].lateral == Approx(16945.0).epsilon(kPublished));
 }

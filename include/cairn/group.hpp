@@ -188,7 +188,7 @@ struct BlockCapacity {
   std::vector<std::string> notes;
 };
 
-// Block failure of the group in clay (Terzaghi & Peck; S15 Eq. 6-38): Q_block =
+// Block failure of the group in clay (Terzaghi & Peck; UFC 3-220-20 (2025) Eq. 6-38): Q_block =
 // Bg·Lg·cu(base)·Nc + 2(Bg + Lg)·Σ cu·ΔL over the layers between the pile heads
 // (head_depth) and the tips (tip_depth), depths below the ground surface in m, Nc by
 // Skempton with D = tip_depth. Sand layers crossed add no perimeter shear (noted).
@@ -206,7 +206,7 @@ struct GroupCapacity {
   GroupGoverning governs = GroupGoverning::efficiency;
 };
 
-// Group capacity = min(η·Σ single, Q_block) (S15 Eq. 6-37); the block is ignored when it
+// Group capacity = min(η·Σ single, Q_block) (UFC 3-220-20 (2025) Eq. 6-37); the block is ignored when it
 // does not apply. Requires efficient_sum ≥ 0.
 GroupCapacity group_capacity(double efficient_sum, const BlockCapacity& block);
 

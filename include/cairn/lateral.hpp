@@ -106,7 +106,7 @@ double broms_eta(double modulus_gradient, double bending_stiffness);
 enum class PileLengthClass { short_pile, intermediate, long_pile };
 
 // Broms' classification. Cohesive: βL < 1.5 short, βL > 2.5 long. Cohesionless: ηL < 2
-// short, ηL > 4 long. Between: intermediate. (Broms 1964a/b; from memory, check-values 7.)
+// short, ηL > 4 long. Between: intermediate. (Broms 1964a/b; from memory.)
 PileLengthClass classify_cohesive(double beta_times_length);
 PileLengthClass classify_cohesionless(double eta_times_length);
 
@@ -142,13 +142,13 @@ struct BromsResult {
 };
 
 // Ultimate lateral resistance of a single pile by Broms (1964a, b). Cohesive: soil reaction
-// 9cu·D below 1.5D. Cohesionless: 3Kp·γ'·D·z. Formulas in docs/methods-lateral.md and
-// check-values.md §7. Requires D, L > 0, e ≥ 0, cu > 0 (clay) or γ' > 0 and 0 < φ' < 90
+// 9cu·D below 1.5D. Cohesionless: 3Kp·γ'·D·z. Formulas in docs/methods-lateral.md
+// (Broms 1964a/b). Requires D, L > 0, e ≥ 0, cu > 0 (clay) or γ' > 0 and 0 < φ' < 90
 // (sand), L > 1.5D (clay), My > 0 when given; throws std::invalid_argument otherwise.
 BromsResult broms_ultimate_lateral(const BromsInput& input);
 
 // Factor of safety applied to Broms' ultimate load when no other is given: 2.5. Common
-// practice (2.0 with load tests, 2.5–3.0 from calculation alone; check-values 9.20).
+// practice (2.0 with load tests, 2.5–3.0 from calculation alone).
 inline constexpr double kLateralFactorOfSafety = 2.5;
 
 // Allowable lateral load H_ult / FS, kN. Requires ultimate ≥ 0 and FS ≥ 1.

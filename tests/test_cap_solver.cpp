@@ -232,7 +232,7 @@ TEST_CASE("cap_solver: a 3x3 grid under load and moment gives P/n ± M·y/Σy² 
   }
 }
 
-TEST_CASE("cap_solver: a 2x4 group under an eccentric column load (row 8.3)",
+TEST_CASE("cap_solver: a 2x4 group under an eccentric column load",
           "[cap_solver][published]") {
   // Table: P = 4000 kN, Mx = 300 (load grows with y), My = 900 kN·m. In cairn: the column at
   // (0.225, 0.075) on the cap top: My = −x·Fz = 900, Mx = y·Fz = −300 kN·m.
@@ -300,7 +300,7 @@ TEST_CASE("cap_solver: unequal axial stiffness and a pile with no stiffness (row
   }
 }
 
-TEST_CASE("cap_solver: an as-built 3x3 group with a product of inertia (row 8.6)",
+TEST_CASE("cap_solver: an as-built 3x3 group with a product of inertia",
           "[cap_solver][published]") {
   // Pile (1.2, 1.2) of the 3x3 grid built at (1.275, 1.2): x̄ = 0.008333, Ixx = 8.64,
   // Iyy = 8.825, Ixy = 0.09 m². P = 5400 kN at (0, 0) on the cap top.
@@ -348,7 +348,7 @@ TEST_CASE("cap_solver: two battered piles meeting at one point share V and H by 
                     kCapThickness, 1e-9);
 }
 
-TEST_CASE("cap_solver: with no lateral stiffness the battered pile takes all of H (row 8.8)",
+TEST_CASE("cap_solver: with no lateral stiffness the battered pile takes all of H",
           "[cap_solver][published]") {
   // Vertical piles at x = ±1, a pile at x = 0 battered 1H:4V toward +x; equal axial k, no
   // lateral stiffness. H = 60 kN on the cap top makes My = 1.5·60 = 90 kN·m at the heads; the

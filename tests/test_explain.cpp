@@ -98,7 +98,7 @@ cairn::CheckResults solved(const cairn::Project& project) {
 
 }  // namespace
 
-TEST_CASE("explain: the as-built 3x3 group with a product of inertia (row 8.6)",
+TEST_CASE("explain: the as-built 3x3 group with a product of inertia",
           "[explain][published]") {
   // Pile (1.2, 1.2) of the 3x3 grid at 1.2 m built at (1.275, 1.2); P = 5400 kN at (0, 0).
   std::vector<cairn::Pile> piles = grid({-1.2, 0.0, 1.2}, {1.2, 0.0, -1.2});
@@ -134,7 +134,7 @@ TEST_CASE("explain: the as-built 3x3 group with a product of inertia (row 8.6)",
   }
 }
 
-TEST_CASE("explain: the terms of P/n ± M·x/Σx² for the 3x3 grid of row 8.2",
+TEST_CASE("explain: the terms of P/n ± M·x/Σx² for the 3x3 grid",
           "[explain][published]") {
   // P = 5400 kN at the origin; Fy = 480 and Fx = 240 kN on the top of the 1.5 m cap give
   // Mx = −720 and My = +360 kN·m at the pile heads (table: Mx = 720, My = 360 in its signs).
@@ -227,7 +227,7 @@ TEST_CASE("explain: the hand check says why it does not apply", "[explain]") {
   }
 }
 
-TEST_CASE("explain: a two-pile cap uses the one-way form (row 8.9)", "[explain][published]") {
+TEST_CASE("explain: a two-pile cap uses the one-way form", "[explain][published]") {
   // Two piles meant at x = ±0.9 m; the pile at +0.9 is driven 75 mm outward (x = 0.975).
   // Column P = 2000 kN at (0, 0). Hand: x̄ = 0.0375 m, x' = ∓0.9375 m, Iyy = 2·0.9375² =
   // 1.7578 m², My about the centroid = 0.0375·(−2000) = −75 kN·m, so

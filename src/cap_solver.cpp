@@ -553,25 +553,6 @@ std::vector<UnresistedCase> unresisted_cases(const Project& project, const CapSo
   return result;
 }
 
-Wrench resultant_about(const LoadCase& load_case, const std::array<double, 3>& point) {
-  Wrench total{};
-  for (const auto& load : load_case.loads) {
-    // The lever arm as differences of input coordinates: exact for nearby numbers, so a
-    // group far from the origin keeps every digit of its moments.
-    const std::array<double, 3> r = {load.at[0] - point[0], load.at[1] - point[1],
-                                     load.at[2] - point[2]};
-    const auto& f = load.load;
-    total[0] += f[0];
-    total[1] += f[1];
-    total[2] += f[2];
-    // M = r × F + M_applied
-    total[3] += r[1] * f[2] - r[2] * f[1] + f[3];
-    total[4] += r[2] * f[0] - r[0] * f[2] + f[4];
-    total[5] += r[0] * f[1] - r[1] * f[0] + f[5];
-  }
-  return total;
-}
-
 Wrench combination_load(const Project& project, const Combination& combination,
                         const std::array<double, 3>& point) {
   Wrench total{};

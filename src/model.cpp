@@ -143,10 +143,13 @@ const char* to_string(En1997PileKind k) {
 
 const char* to_string(SectionShape s) { return s == SectionShape::square ? "square" : "round"; }
 
-Wrench resultant_about_origin(const LoadCase& load_case) {
+Wrench resultant_about(const LoadCase& load_case, const std::array<double, 3>& point) {
   Wrench total{};
   for (const auto& load : load_case.loads) {
-    const auto& r = load.at;
+    // The lever arm as differences of input coordinates: exact for nearby numbers, so a
+    // group far from the origin keeps every digit of its moments.
+    const std::array<double, 3> r = {load.at[0] - point[0], load.at[1] - point[1],
+                                     load.at[2] - point[2]};
     const auto& f = load.load;
     total[0] += f[0];
     total[1] += f[1];
@@ -157,6 +160,10 @@ Wrench resultant_about_origin(const LoadCase& load_case) {
     total[5] += r[0] * f[1] - r[1] * f[0] + f[5];
   }
   return total;
+}
+
+Wrench resultant_about_origin(const LoadCase& load_case) {
+  return resultant_about(load_case, {0.0, 0.0, 0.0});
 }
 
 }  // namespace cairn

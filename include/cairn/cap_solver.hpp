@@ -170,9 +170,6 @@ std::vector<UnresistedCase> unresisted_cases(const Project& project, const CapSo
 // Throws std::logic_error when equilibrium is missed by more than 1e-6 (CapSolution::residual).
 std::vector<CapSolution> solve_combinations(const Project& project, const CapSolver& solver);
 
-// Sum of all loads in a case as forces and moments about `point`: M = Σ (at − point) × F + M,
-// each lever arm the difference of input coordinates (no digits lost far from the origin).
-Wrench resultant_about(const LoadCase& load_case, const std::array<double, 3>& point);
 
 // Total load of a combination as a wrench about the origin (for display).
 Wrench combination_load(const Project& project, const Combination& combination);

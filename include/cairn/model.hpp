@@ -250,6 +250,10 @@ const char* to_string(ResistanceSet);
 const char* to_string(En1997PileKind);
 const char* to_string(SectionShape);
 
+// Sum of all loads in a case as forces and moments about `point`: M = Σ (at − point) × F + M,
+// each lever arm the difference of input coordinates (no digits lost far from the origin).
+Wrench resultant_about(const LoadCase& load_case, const std::array<double, 3>& point);
+
 // Sum of all loads in a case, as a wrench about the global origin (0, 0, 0).
 Wrench resultant_about_origin(const LoadCase& load_case);
 

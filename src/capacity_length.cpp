@@ -21,7 +21,7 @@ DepthRow row_at(const SoilProfile& profile, PileGeometry pile, const PileDesign&
   pile.length = length;
   const CapacityResult r = pile_capacity(profile, pile, design);
   DepthRow row{pile.length, pile.tip_depth(), r.tip, r.shaft, r.ultimate_compression,
-               r.ultimate_tension};
+               r.ultimate_tension, {}};
   row.allowable_compression = r.allowable_compression;
   row.allowable_tension = r.allowable_tension;
   row.factored_compression = r.factored_compression;

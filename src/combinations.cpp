@@ -699,7 +699,7 @@ GeneratedCombinations generate_combinations(std::string_view generator,
                         "recommended in the standard, as recalled — a national annex may change "
                         "them");
     out.combinations = en1990(sorted, ActionSet{kGammaGSup, kGammaGInf, kGammaQ, "EN-6.10",
-                                                ResistanceSet::basis, true},
+                                                ResistanceSet::basis, true, std::nullopt},
                               out.notes);
     return out;
   }
@@ -721,16 +721,16 @@ GeneratedCombinations generate_combinations(std::string_view generator,
     std::vector<std::string> ignored;  // the ψ0 and favourable notes, once
     if (da1) {
       out.combinations = en1990(sorted, ActionSet{kGammaGSup, kGammaGInf, kGammaQ, "DA1-C1",
-                                                  ResistanceSet::en1997_r1, false},
+                                                  ResistanceSet::en1997_r1, false, std::nullopt},
                                 out.notes);
       auto second = en1990(sorted, ActionSet{kGammaGA2, kGammaGA2, kGammaQA2, "DA1-C2",
-                                             ResistanceSet::en1997_r4, false},
+                                             ResistanceSet::en1997_r4, false, std::nullopt},
                            ignored);
       out.combinations.insert(out.combinations.end(), std::make_move_iterator(second.begin()),
                               std::make_move_iterator(second.end()));
     } else {
       out.combinations = en1990(sorted, ActionSet{kGammaGSup, kGammaGInf, kGammaQ, "DA2",
-                                                  ResistanceSet::en1997_r2, false},
+                                                  ResistanceSet::en1997_r2, false, std::nullopt},
                                 out.notes);
     }
     return out;
@@ -744,8 +744,8 @@ GeneratedCombinations generate_combinations(std::string_view generator,
         "actions (earth pressure γG = 1.0, Table A.4) + M2 + R3; values recommended in the "
         "standards, as recalled — a national annex may change them");
     out.notes.push_back("variable actions are left out where they are favourable (γQ = 0)");
-    ActionSet set{kGammaGSup, kGammaGInf, kGammaQ, "DA3", ResistanceSet::en1997_r3, false};
-    set.gamma_earth = kGammaGA2;
+    ActionSet set{kGammaGSup, kGammaGInf, kGammaQ, "DA3", ResistanceSet::en1997_r3, false,
+                  kGammaGA2};
     out.combinations = en1990(sorted, set, out.notes);
     return out;
   }

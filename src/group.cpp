@@ -307,7 +307,7 @@ SpacingCheck check_spacing(const std::vector<PilePlan>& piles, double factor,
       smallest = std::min(smallest, d);
       const double required =
           std::max(factor * std::max(piles[i].width, piles[j].width), absolute_minimum);
-      if (d < required) check.violations.push_back({piles[i].id, piles[j].id, d, required});
+      if (d < required) check.violations.push_back({piles[i].id, piles[j].id, d, required, std::nullopt});
     }
   check.smallest = piles.size() < 2 ? 0.0 : smallest;
   check.notes.push_back("minimum spacing " + number(factor, 2) +

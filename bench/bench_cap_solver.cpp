@@ -15,8 +15,8 @@
 #include <random>
 #include <string>
 
-#include "cairn/cap_solver.hpp"
-#include "cairn/model.hpp"
+#include "cairn/solver/cap_solver.hpp"
+#include "cairn/core/model.hpp"
 
 namespace {
 

@@ -22,9 +22,9 @@
 #include <typeinfo>
 #include <optional>
 
-#include "cairn/analysis.hpp"
-#include "cairn/diagnostics.hpp"
-#include "cairn/report.hpp"
+#include "cairn/app/analysis.hpp"
+#include "cairn/core/diagnostics.hpp"
+#include "cairn/output/report.hpp"
 
 namespace cairn::fuzz {
 

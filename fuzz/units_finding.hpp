@@ -8,7 +8,7 @@
 #include <string>
 #include <string_view>
 
-#include "cairn/units.hpp"
+#include "cairn/core/units.hpp"
 
 namespace cairn::fuzz {
 

@@ -5,7 +5,7 @@
 #include <string>
 #include <vector>
 
-#include "cairn/analysis.hpp"
+#include "cairn/app/analysis.hpp"
 
 using namespace cairn;
 

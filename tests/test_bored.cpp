@@ -5,8 +5,8 @@
 #include <catch2/catch.hpp>
 #include <string>
 
-#include "cairn/capacity.hpp"
-#include "cairn/units.hpp"
+#include "cairn/geotechnics/capacity.hpp"
+#include "cairn/core/units.hpp"
 
 using namespace cairn;
 

@@ -5,8 +5,8 @@
 #include <cmath>
 #include <string>
 
-#include "cairn/project_capacity.hpp"
-#include "cairn/units.hpp"
+#include "cairn/geotechnics/project_capacity.hpp"
+#include "cairn/core/units.hpp"
 
 using namespace cairn;
 

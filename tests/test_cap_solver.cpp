@@ -17,8 +17,8 @@
 #include <string>
 #include <vector>
 
-#include "cairn/cap_solver.hpp"
-#include "cairn/model.hpp"
+#include "cairn/solver/cap_solver.hpp"
+#include "cairn/core/model.hpp"
 
 using cairn::CapSolution;
 using cairn::CapSolver;

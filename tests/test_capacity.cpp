@@ -6,8 +6,8 @@
 #include <cmath>
 #include <numbers>
 
-#include "cairn/capacity.hpp"
-#include "cairn/units.hpp"
+#include "cairn/geotechnics/capacity.hpp"
+#include "cairn/core/units.hpp"
 
 using namespace cairn;
 

@@ -13,8 +13,8 @@
 #include <cmath>
 #include <numbers>
 
-#include "cairn/capacity_length.hpp"
-#include "cairn/diagnostics.hpp"
+#include "cairn/geotechnics/capacity_length.hpp"
+#include "cairn/core/diagnostics.hpp"
 
 using namespace cairn;
 

@@ -6,7 +6,7 @@
 #include <cmath>
 #include <numbers>
 
-#include "cairn/checks.hpp"
+#include "cairn/checks/checks.hpp"
 
 using namespace cairn;
 

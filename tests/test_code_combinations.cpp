@@ -12,10 +12,10 @@
 #include <string>
 #include <vector>
 
-#include "cairn/checks.hpp"
-#include "cairn/code_resistance.hpp"
-#include "cairn/combinations.hpp"
-#include "cairn/input.hpp"
+#include "cairn/checks/checks.hpp"
+#include "cairn/geotechnics/code_resistance.hpp"
+#include "cairn/input/combinations.hpp"
+#include "cairn/input/input.hpp"
 
 using cairn::CaseToCombine;
 using cairn::CombinationSettings;

@@ -10,7 +10,7 @@
 #include <string>
 #include <vector>
 
-#include "cairn/combinations.hpp"
+#include "cairn/input/combinations.hpp"
 
 using cairn::CaseToCombine;
 using cairn::GeneratedCombinations;

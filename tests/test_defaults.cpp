@@ -10,11 +10,11 @@
 #include <string>
 #include <vector>
 
-#include "cairn/analysis.hpp"
-#include "cairn/group_checks.hpp"
-#include "cairn/input.hpp"
-#include "cairn/lateral.hpp"
-#include "cairn/section_moment.hpp"
+#include "cairn/app/analysis.hpp"
+#include "cairn/checks/group_checks.hpp"
+#include "cairn/input/input.hpp"
+#include "cairn/geotechnics/lateral.hpp"
+#include "cairn/geotechnics/section_moment.hpp"
 
 using namespace cairn;
 

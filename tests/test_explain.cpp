@@ -8,10 +8,10 @@
 #include <string>
 #include <vector>
 
-#include "cairn/cap_solver.hpp"
-#include "cairn/checks.hpp"
-#include "cairn/explain.hpp"
-#include "cairn/model.hpp"
+#include "cairn/solver/cap_solver.hpp"
+#include "cairn/checks/checks.hpp"
+#include "cairn/checks/explain.hpp"
+#include "cairn/core/model.hpp"
 
 namespace {
 

@@ -9,7 +9,7 @@
 #include <stdexcept>
 #include <string>
 
-#include "cairn/group.hpp"
+#include "cairn/geotechnics/group.hpp"
 
 namespace {
 

@@ -4,11 +4,11 @@
 
 #include <cmath>
 
-#include "cairn/cap_solver.hpp"
-#include "cairn/checks.hpp"
-#include "cairn/group_checks.hpp"
-#include "cairn/project_capacity.hpp"
-#include "cairn/stiffness.hpp"
+#include "cairn/solver/cap_solver.hpp"
+#include "cairn/checks/checks.hpp"
+#include "cairn/checks/group_checks.hpp"
+#include "cairn/geotechnics/project_capacity.hpp"
+#include "cairn/geotechnics/stiffness.hpp"
 
 using namespace cairn;
 

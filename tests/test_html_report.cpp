@@ -8,8 +8,8 @@
 #include <stdexcept>
 #include <string>
 
-#include "cairn/html_report.hpp"
-#include "cairn/plan_svg.hpp"
+#include "cairn/output/html_report.hpp"
+#include "cairn/output/plan_svg.hpp"
 
 using namespace cairn;
 

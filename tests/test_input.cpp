@@ -11,7 +11,7 @@
 #include <string>
 #include <vector>
 
-#include "cairn/input.hpp"
+#include "cairn/input/input.hpp"
 
 using namespace cairn;
 

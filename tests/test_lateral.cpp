@@ -8,7 +8,7 @@
 #include <optional>
 #include <stdexcept>
 
-#include "cairn/lateral.hpp"
+#include "cairn/geotechnics/lateral.hpp"
 
 using cairn::BromsInput;
 using cairn::BromsMode;

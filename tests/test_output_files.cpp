@@ -12,7 +12,7 @@
 
 #include <nlohmann/json.hpp>
 
-#include "cairn/output_files.hpp"
+#include "cairn/output/output_files.hpp"
 
 namespace fs = std::filesystem;
 using cairn::write_files_atomically;

@@ -14,12 +14,12 @@
 #include <string>
 #include <vector>
 
-#include "cairn/analysis.hpp"
-#include "cairn/cli.hpp"
-#include "cairn/html_report.hpp"
-#include "cairn/number_text.hpp"
-#include "cairn/plan_svg.hpp"
-#include "cairn/report.hpp"
+#include "cairn/app/analysis.hpp"
+#include "cairn/app/cli.hpp"
+#include "cairn/output/html_report.hpp"
+#include "cairn/output/number_text.hpp"
+#include "cairn/output/plan_svg.hpp"
+#include "cairn/output/report.hpp"
 
 using namespace cairn;
 

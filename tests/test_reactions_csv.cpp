@@ -16,9 +16,9 @@
 #include <string>
 #include <vector>
 
-#include "cairn/checks.hpp"
-#include "cairn/input.hpp"
-#include "cairn/reactions_csv.hpp"
+#include "cairn/checks/checks.hpp"
+#include "cairn/input/input.hpp"
+#include "cairn/input/reactions_csv.hpp"
 
 using namespace cairn;
 

@@ -7,8 +7,8 @@
 #include <algorithm>
 #include <string>
 
-#include "cairn/analysis.hpp"
-#include "cairn/report.hpp"
+#include "cairn/app/analysis.hpp"
+#include "cairn/output/report.hpp"
 
 using namespace cairn;
 

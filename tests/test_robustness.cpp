@@ -10,10 +10,10 @@
 #include <fstream>
 #include <string>
 
-#include "cairn/analysis.hpp"
-#include "cairn/capacity.hpp"
-#include "cairn/input.hpp"
-#include "cairn/units.hpp"
+#include "cairn/app/analysis.hpp"
+#include "cairn/geotechnics/capacity.hpp"
+#include "cairn/input/input.hpp"
+#include "cairn/core/units.hpp"
 
 using namespace cairn;
 

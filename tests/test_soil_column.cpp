@@ -8,12 +8,12 @@
 #include <cmath>
 #include <string>
 
-#include "cairn/capacity.hpp"
-#include "cairn/capacity_report.hpp"
-#include "cairn/group.hpp"
-#include "cairn/project_capacity.hpp"
-#include "cairn/soil.hpp"
-#include "cairn/stiffness.hpp"
+#include "cairn/geotechnics/capacity.hpp"
+#include "cairn/output/capacity_report.hpp"
+#include "cairn/geotechnics/group.hpp"
+#include "cairn/geotechnics/project_capacity.hpp"
+#include "cairn/geotechnics/soil.hpp"
+#include "cairn/geotechnics/stiffness.hpp"
 
 using namespace cairn;
 

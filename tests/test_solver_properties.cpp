@@ -17,9 +17,9 @@
 #include <string>
 #include <vector>
 
-#include "cairn/cap_solver.hpp"
-#include "cairn/model.hpp"
-#include "cairn/explain.hpp"
+#include "cairn/solver/cap_solver.hpp"
+#include "cairn/core/model.hpp"
+#include "cairn/checks/explain.hpp"
 
 using cairn::CapLoad;
 using cairn::CapSolution;

@@ -5,8 +5,8 @@
 #include <cmath>
 #include <numbers>
 
-#include "cairn/group.hpp"
-#include "cairn/stiffness.hpp"
+#include "cairn/geotechnics/group.hpp"
+#include "cairn/geotechnics/stiffness.hpp"
 
 using namespace cairn;
 

@@ -14,7 +14,7 @@
 
 #include <string>
 
-#include "cairn/units.hpp"
+#include "cairn/core/units.hpp"
 
 using cairn::parse_quantity;
 using cairn::Quantity;

@@ -1,0 +1,51 @@
+// analysis.hpp — the whole check of one cap, as the pipeline the commands share:
+// read → capacities → springs → validate → solve → check piles → check the group.
+//
+// Everything a report needs is kept in one CheckRun; several caps are analysed
+// independently (in parallel) for a foundation.
+#pragma once
+
+#include <optional>
+#include <string>
+#include <vector>
+
+#include "cairn/checks/checks.hpp"
+#include "cairn/core/diagnostics.hpp"
+#include "cairn/checks/group_checks.hpp"
+#include "cairn/core/model.hpp"
+#include "cairn/geotechnics/project_capacity.hpp"
+#include "cairn/output/report.hpp"
+#include "cairn/geotechnics/stiffness.hpp"
+
+namespace cairn {
+
+struct CheckRun {
+  Project project;
+  std::vector<PileTypeCapacity> capacities;
+  std::vector<PileTypeStiffness> stiffness;
+  std::vector<PileTypeResistance> resistances;
+  CheckResults results;
+  GroupResults group;
+  std::vector<std::string> assumptions;
+};
+
+// Reads and checks one project file. Throws InputError for any input problem (nothing is
+// computed from a file with problems).
+CheckRun analyse_project(const std::string& file);
+
+// Analyses several files on up to `threads` threads. Each entry holds the run or the
+// input problems of its file, in the order of `files`.
+struct CapOutcome {
+  std::string file;
+  std::optional<CheckRun> run;
+  std::vector<Diagnostic> problems;
+};
+std::vector<CapOutcome> analyse_projects(const std::vector<std::string>& files,
+                                         unsigned threads);
+
+// A report over a run. `explain_pile` names a pile for the hand check; throws InputError
+// when it does not exist. The report points into `run`, which must outlive it.
+CheckReport make_check_report(const CheckRun& run, const std::string& options,
+                              const std::optional<std::string>& explain_pile);
+
+}  // namespace cairn

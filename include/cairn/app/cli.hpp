@@ -1,0 +1,53 @@
+// cli.hpp — the command line: options, and run(), the pipeline each command follows:
+// read → validate → compute → check → render → write.
+//
+// Exit status: 0 all checks pass; 1 the tool ran but a check fails; 2 it could not run
+// (usage, input or output problem). Only this module and main print to the terminal.
+#pragma once
+
+#include <iosfwd>
+#include <optional>
+#include <string>
+#include <vector>
+
+#include "cairn/output/report.hpp"
+
+namespace cairn {
+
+enum class Command { check, capacity, springs, report };
+
+struct Options {
+  Command command = Command::check;
+  std::vector<std::string> files;
+  Format format = Format::text;
+  std::optional<std::string> out_dir;
+  std::optional<std::string> explain_pile;
+  // capacity: the capacity-with-depth table, in the project's length unit; defaults
+  // 0.5 m or 1 ft for the step, 3 m or 10 ft for the shortest length.
+  std::optional<double> depth_step;
+  std::optional<double> min_length;
+  // capacity: the shortest length carrying these forces (project's force unit) on the
+  // allowable or factored basis (capacity_length.hpp).
+  std::optional<double> need_compression;
+  std::optional<double> need_tension;
+  CapacityBasis need_basis = CapacityBasis::allowable;
+  // report: also the plan alone as SVG, and the tables as CSV and Markdown.
+  bool plan_svg = false;
+  bool tables = false;
+  // The command as it was run (program name without its folder, then the arguments as
+  // given, quoted where a shell would need it), shown in every report header. Empty when
+  // run() is called without a command line: the header then shows the options rebuilt.
+  std::string command_line;
+};
+
+inline constexpr int kExitPass = 0;
+inline constexpr int kExitFail = 1;
+inline constexpr int kExitBadInput = 2;
+
+// Runs one command; writes results to `out` and problems to `err`. Returns the exit status.
+int run(const Options& options, std::ostream& out, std::ostream& err);
+
+// Parses the command line (CLI11) and runs it. Returns the exit status.
+int run_command_line(int argc, const char* const* argv, std::ostream& out, std::ostream& err);
+
+}  // namespace cairn

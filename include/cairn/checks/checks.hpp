@@ -1,0 +1,177 @@
+// checks.hpp — each pile's demand against its capacity, per combination, with envelopes
+// and the governing pile and combination.
+//
+// Service combinations are compared with allowable capacities (ultimate / factor of
+// safety); strength combinations with factored resistances (φ·R). The two bases are never
+// mixed: a combination whose basis a pile type lacks is an input problem, reported before
+// anything is computed.
+//
+// Utilization of a pile in a combination is the largest of
+//     compression / allowable compression   (axial > 0)
+//     tension / allowable tension            (axial < 0)
+//     lateral shear / allowable lateral
+// and the pile passes when it is at most 1. A demand with no capacity to compare against
+// (tension in a pile type without a tension capacity, say) fails: it cannot be shown safe.
+//
+// Units: kN.
+#pragma once
+
+#include <cstddef>
+#include <map>
+#include <optional>
+#include <string>
+#include <vector>
+
+#include "cairn/solver/cap_solver.hpp"
+#include "cairn/core/diagnostics.hpp"
+#include "cairn/core/model.hpp"
+
+namespace cairn {
+
+// Capacities of one pile type on one basis, after factors were applied. kN.
+struct Resistance {
+  std::optional<double> compression, tension, lateral;
+  // Structural: the section's axial capacity (kN) and moment capacity (kN·m) on this basis.
+  std::optional<double> structural_axial, structural_moment;
+  std::string source;  // where the numbers came from, for the report
+};
+
+struct PileTypeResistance {
+  Resistance allowable;  // for service combinations
+  Resistance factored;   // for strength combinations
+  // For combinations a code generator tagged with a resistance set (code_resistance.hpp).
+  std::map<ResistanceSet, Resistance> by_set;
+  // The factored resistance uses cairn's AASHTO LRFD φ defaults (computed from the soil, no
+  // phi_* given): load factors of another code meet AASHTO's resistance factors.
+  bool aashto_phi = false;
+};
+
+// Capacity computed from the soil for one pile type (see capacity.hpp), kN.
+struct ComputedResistance {
+  std::optional<double> allowable_compression, allowable_tension;
+  std::optional<double> factored_compression, factored_tension;
+  std::string method;  // e.g. "vesic tip + beta shaft"
+  // Lateral by Broms (1964) from the soil at the pile head, when computed.
+  std::optional<double> allowable_lateral, factored_lateral;
+  std::string lateral_method;
+  // Ultimate (unfactored) values, for code resistance sets (code_resistance.hpp).
+  std::optional<double> ultimate_tip, ultimate_shaft, ultimate_uplift, ultimate_lateral;
+  // The same with the soil's strength factored by EN 1997-1 set M2 (design approach 3).
+  std::optional<double> m2_tip, m2_shaft, m2_uplift;
+  bool aashto_phi = false;  // factored_* use AASHTO φ defaults (no phi_* given)
+};
+
+// Default factors of safety for capacities given as ultimate (common practice: 2.5 in
+// compression and lateral, 3.0 in tension; see docs/methods.md).
+inline constexpr double kDefaultSafetyCompression = 2.5;
+inline constexpr double kDefaultSafetyTension = 3.0;
+
+// Resistances per pile type: typed-in capacities win, value by value, over computed ones
+// (`computed` is indexed like Project::pile_types; an empty optional = nothing computed).
+std::vector<PileTypeResistance> resolve_resistances(
+    const Project& project, const std::vector<std::optional<ComputedResistance>>& computed);
+
+// Combinations that need a basis (or a code resistance set) some pile type in use lacks;
+// empty when all can be checked.
+std::vector<Diagnostic> missing_resistances(const Project& project,
+                                            const std::vector<PileTypeResistance>& resistances);
+
+// The checks a pile's utilization comes from: the one list every output names them by.
+// `none` when the pile carries no demand at all (or no forces exist: the cap overturned).
+enum class Demand { none, compression, tension, lateral, structural };
+// "none", "compression", "tension", "lateral", "structural": the word every output prints.
+const char* to_string(Demand);
+
+// What a pile does in one combination: the one list of states every output uses.
+//   in_contact   the pile carries its share (compression, or tension where allowed)
+//   dropped_out  a compression-only pile that would be in tension; its axial spring is
+//                removed and the load redistributed (cap_solver.hpp)
+//   overturned   no equilibrium exists in the combination: the cap overturns or is unstable,
+//                so the pile has no force to speak of and the pile fails with the combination
+enum class PileState { in_contact, dropped_out, overturned };
+// "in contact", "dropped out", "overturned": the word every output prints (JSON included).
+const char* to_string(PileState);
+
+// The verdict on a combination: pass, fail (some pile over capacity or without one), or
+// overturned (no equilibrium). An overturned combination fails.
+enum class Verdict { pass, fail, overturned };
+// "pass", "fail", "overturned".
+const char* to_string(Verdict);
+
+struct PileCheck {
+  double axial = 0.0;    // kN, compression positive (0 when overturned: no forces exist)
+  double lateral = 0.0;  // kN
+  double head_moment = 0.0;  // kN·m, fixed heads (0 for pinned)
+  bool active = true;    // false: dropped out, takes no tension
+  PileState state = PileState::in_contact;
+  double utilization = 0.0;   // infinity when a demand has no capacity
+  Demand governing = Demand::none;
+  bool pass = true;      // false in an overturned combination, whatever the forces
+};
+
+struct CombinationCheck {
+  std::size_t combination = 0;  // index into Project::combinations
+  CapSolution solution;
+  std::vector<PileCheck> piles;
+  bool pass = true;
+  double max_utilization = 0.0;
+  std::optional<std::size_t> governing_pile;
+  Demand governing = Demand::none;
+};
+
+// The verdict on one checked combination.
+Verdict verdict(const CombinationCheck& check);
+
+// The largest value of a quantity over all combinations and where it occurs. No combination
+// is named when the value is zero in every combination (a pile never in tension has no
+// combination of largest tension). Overturned combinations have no forces and are left out.
+struct Extreme {
+  double value = 0.0;
+  std::optional<std::size_t> combination;
+};
+
+struct PileEnvelope {
+  Extreme max_compression;  // kN, ≥ 0
+  Extreme max_tension;      // kN, ≥ 0 (magnitude)
+  Extreme max_lateral;      // kN
+  Extreme max_utilization;
+  Demand governing = Demand::none;  // the check that gives max_utilization
+  bool pass = true;  // false when the pile fails in any combination, overturned ones included
+};
+
+struct CheckSummary {
+  bool pass = true;
+  double max_utilization = 0.0;
+  std::optional<std::size_t> pile, combination;
+  Demand check = Demand::none;
+  std::size_t failed_combinations = 0;
+  std::vector<std::size_t> overturned;  // combinations with no equilibrium
+};
+
+struct CheckResults {
+  std::vector<CombinationCheck> combinations;
+  std::vector<PileEnvelope> envelope;  // per pile
+  CheckSummary summary;
+};
+
+// Checks every pile in every combination. `solutions` is indexed like the combinations.
+// `head_moment_per_shear` (m, per pile type; empty = all pinned) gives fixed heads their
+// head moment M = V·(moment per shear) for the combined axial + bending check
+// |P|/Pc + |M|/Mc ≤ 1 (common practice; lateral.hpp).
+CheckResults check_piles(const Project& project, const std::vector<CapSolution>& solutions,
+                         const std::vector<PileTypeResistance>& resistances,
+                         const std::vector<double>& head_moment_per_shear = {});
+
+// The assumptions behind the results, in plain words, for every output; the warnings found
+// while reading (project.warnings) come first, as "Warning: … (file:line:col)".
+// `stiffness` gives each pile type's springs and their sources (stiffness.hpp); it is
+// declared there, so only the sources are passed here: (axial source, lateral source).
+std::vector<std::string> assumptions(
+    const Project& project, const std::vector<PileTypeResistance>& resistances,
+    const std::vector<std::pair<std::string, std::string>>& stiffness_sources);
+
+inline constexpr const char* kCaution =
+    "Results are for checking by a qualified engineer; local codes and licensed practice "
+    "govern.";
+
+}  // namespace cairn

@@ -1,0 +1,118 @@
+#include "cairn/app/analysis.hpp"
+
+#include <algorithm>
+#include <atomic>
+#include <stdexcept>
+#include <thread>
+
+#include <fmt/format.h>
+
+#include "cairn/solver/cap_solver.hpp"
+#include "cairn/checks/explain.hpp"
+#include "cairn/input/input.hpp"
+
+namespace cairn {
+
+CheckRun analyse_project(const std::string& file) {
+  CheckRun run;
+  run.project = read_project(file);
+  const Project& project = run.project;
+  run.capacities = compute_capacities(project);
+  run.stiffness = pile_type_stiffness(project, run.capacities);
+  const CapSolver solver(pile_springs(project, run.stiffness));
+  Diagnostics problems;
+  for (const auto& u : unresisted_cases(project, solver)) {
+    const LoadCase& lc = project.load_cases[u.load_case];
+    // Point at the first load that has the component, else at the load case.
+    SourceLocation where = lc.where;
+    const auto component = static_cast<std::size_t>(
+        std::find(kWrenchNames.begin(), kWrenchNames.end(), u.load.component) - kWrenchNames.begin());
+    for (const auto& load : lc.loads)
+      if (component < 6 && load.load[component] != 0.0) {
+        where = load.where;
+        break;
+      }
+    problems.error(where, fmt::format("load_cases.{}: {} cannot be resisted: {}", lc.id,
+                                      u.load.component, u.load.reason));
+  }
+  // The cap's pile forces depend on the springs only, so they are known before the
+  // resistances; Broms' yield moment is taken at the least favourable of them.
+  // (Not when a load cannot be resisted at all: that is reported first.)
+  std::vector<CapSolution> solutions;
+  if (problems.empty()) solutions = solve_combinations(project, solver);
+  const auto lateral = lateral_capacities(project, axial_ranges(project, solutions));
+  for (const auto& d : lateral_input_problems(project, lateral, solutions)) problems.error(d.where, d.message);
+  run.resistances =
+      resolve_resistances(project, computed_resistances(project, run.capacities, lateral));
+  for (const auto& d : missing_resistances(project, run.resistances))
+    problems.error(d.where, d.message);
+  for (const auto& d : group_input_problems(project, run.capacities))
+    problems.error(d.where, d.message);
+  problems.raise_if_any();
+  std::vector<double> moment_per_shear;
+  for (const auto& k : run.stiffness) moment_per_shear.push_back(k.head_moment_per_shear);
+  run.results = check_piles(project, std::move(solutions), run.resistances, moment_per_shear);
+  run.group = evaluate_group(project, run.results, run.resistances, run.capacities);
+  if (!run.group.pass) run.results.summary.pass = false;
+  std::vector<std::pair<std::string, std::string>> sources;
+  for (const auto& k : run.stiffness) sources.emplace_back(k.axial_source, k.lateral_source);
+  run.assumptions = assumptions(project, run.resistances, sources);
+  return run;
+}
+
+std::vector<CapOutcome> analyse_projects(const std::vector<std::string>& files,
+                                         unsigned threads) {
+  std::vector<CapOutcome> outcomes(files.size());
+  std::atomic<std::size_t> next{0};
+  auto work = [&] {
+    for (std::size_t i = next++; i < files.size(); i = next++) {
+      outcomes[i].file = files[i];
+      try {
+        outcomes[i].run = analyse_project(files[i]);
+      } catch (const InputError& e) {
+        outcomes[i].problems = e.diagnostics();
+      } catch (const std::invalid_argument& e) {
+        // A method refused its data (outside its range of validity): an input problem.
+        outcomes[i].problems = {{{files[i], 0, 0}, std::string("cannot compute: ") + e.what()}};
+      }
+    }
+  };
+  std::vector<std::thread> pool;
+  const unsigned n = std::max(1u, std::min<unsigned>(threads, static_cast<unsigned>(files.size())));
+  for (unsigned t = 1; t < n; ++t) pool.emplace_back(work);
+  work();
+  for (auto& t : pool) t.join();
+  return outcomes;
+}
+
+CheckReport make_check_report(const CheckRun& run, const std::string& options,
+                              const std::optional<std::string>& explain) {
+  CheckReport report;
+  report.project = &run.project;
+  report.results = &run.results;
+  report.resistances = &run.resistances;
+  report.assumptions = run.assumptions;
+  report.stiffness = &run.stiffness;
+  report.group = &run.group;
+  report.options = options;
+  if (explain) {
+    const auto& piles = run.project.piles;
+    auto it = std::find_if(piles.begin(), piles.end(),
+                           [&](const Pile& p) { return p.id == *explain; });
+    if (it == piles.end()) {
+      std::vector<std::string> ids;
+      for (const auto& p : piles) ids.push_back(p.id);
+      const std::string near = closest_match(*explain, ids);
+      throw InputError({run.project.file, 0, 0},
+                       fmt::format("--explain: pile '{}' does not exist{}", *explain,
+                                   near.empty() ? "" : "; did you mean '" + near + "'?"));
+    }
+    report.explain_pile = static_cast<std::size_t>(it - piles.begin());
+    std::vector<double> springs;
+    for (const auto& k : run.stiffness) springs.push_back(k.axial);
+    report.hand_checks = explain_pile(run.project, run.results, *report.explain_pile, springs);
+  }
+  return report;
+}
+
+}  // namespace cairn

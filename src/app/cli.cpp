@@ -1,0 +1,454 @@
+#include "cairn/app/cli.hpp"
+
+#include <CLI/CLI.hpp>
+
+#include <cctype>
+#include <algorithm>
+#include <filesystem>
+#include <set>
+#include <string_view>
+#include <thread>
+#include <ostream>
+
+#include <fmt/format.h>
+
+#include "cairn/app/analysis.hpp"
+#include "cairn/solver/cap_solver.hpp"
+#include "cairn/geotechnics/capacity_length.hpp"
+#include "cairn/output/capacity_report.hpp"
+#include "cairn/checks/checks.hpp"
+#include "cairn/checks/explain.hpp"
+#include "cairn/checks/group_checks.hpp"
+#include "cairn/output/html_report.hpp"
+#include "cairn/output/plan_svg.hpp"
+#include "cairn/geotechnics/stiffness.hpp"
+#include "cairn/input/input.hpp"
+#include "cairn/output/output_files.hpp"
+
+namespace cairn {
+namespace {
+
+const char* format_name(Format f) {
+  switch (f) {
+    case Format::text: return "text";
+    case Format::csv: return "csv";
+    case Format::markdown: return "markdown";
+    case Format::json: return "json";
+  }
+  return "text";
+}
+
+std::string describe_options(const Options& o) {
+  if (!o.command_line.empty()) return o.command_line;
+  const char* name = o.command == Command::check      ? "check"
+                     : o.command == Command::capacity ? "capacity"
+                     : o.command == Command::report   ? "report"
+                                                      : "springs";
+  std::string text = fmt::format("cairn {} --format {}", name, format_name(o.format));
+  if (o.depth_step) text += fmt::format(" --step {:g}", *o.depth_step);
+  if (o.min_length) text += fmt::format(" --from {:g}", *o.min_length);
+  if (o.need_compression) text += fmt::format(" --need-compression {:g}", *o.need_compression);
+  if (o.need_tension) text += fmt::format(" --need-tension {:g}", *o.need_tension);
+  if (o.need_compression || o.need_tension)
+    text += fmt::format(" --need-basis {}", to_string(o.need_basis));
+  if (o.out_dir) text += " --out " + *o.out_dir;
+  if (o.explain_pile) text += " --explain " + *o.explain_pile;
+  return text;
+}
+
+// One argument as a POSIX shell would need it written: as is when it holds only safe
+// characters, else in single quotes.
+std::string shell_word(const std::string& word) {
+  const bool safe = !word.empty() && std::all_of(word.begin(), word.end(), [](unsigned char c) {
+    return std::isalnum(c) || std::string_view("-_./=:,+@%").find(static_cast<char>(c)) !=
+                                  std::string_view::npos;
+  });
+  if (safe) return word;
+  std::string quoted = "'";
+  for (char c : word) quoted += c == '\'' ? std::string("'\\''") : std::string(1, c);
+  return quoted + "'";
+}
+
+// The command line as it was run, for report headers: the program's file name (its folder
+// would tie the outputs to one machine) and every argument.
+std::string command_line_text(int argc, const char* const* argv) {
+  std::string text =
+      argc > 0 && argv[0] ? std::filesystem::path(argv[0]).filename().string() : "cairn";
+  for (int i = 1; i < argc; ++i) text += " " + shell_word(argv[i]);
+  return text;
+}
+
+// Every cap of the files given (foundation files expanded), analysed on all cores. Input
+// problems in any cap stop the run before anything is written.
+std::vector<CapOutcome> analyse_all(const std::vector<std::string>& given) {
+  std::vector<std::string> files;
+  for (const auto& f : given)
+    for (const auto& cap : expand_foundation(f)) files.push_back(cap);
+  auto outcomes = analyse_projects(files, std::max(1u, std::thread::hardware_concurrency()));
+  std::vector<Diagnostic> problems;
+  for (const auto& o : outcomes) problems.insert(problems.end(), o.problems.begin(), o.problems.end());
+  if (!problems.empty()) throw InputError(problems);
+  return outcomes;
+}
+
+// A file's stem for output names, made unique among the caps of one run (a.yaml, a-2, …).
+std::string unique_stem(const std::string& file, std::set<std::string>& used) {
+  const std::string stem = std::filesystem::path(file).stem().string();
+  std::string name = stem;
+  for (int n = 2; !used.insert(name).second; ++n) name = stem + "-" + std::to_string(n);
+  return name;
+}
+
+CapSummaryRow summary_row(const CheckRun& run) {
+  const Project& p = run.project;
+  const CheckSummary& s = run.results.summary;
+  CapSummaryRow row;
+  row.file = p.file;
+  row.title = p.title;
+  row.units = p.units;
+  row.piles = p.piles.size();
+  row.combinations = p.combinations.size();
+  row.max_utilization = s.max_utilization;
+  row.pile = s.pile ? p.piles[*s.pile].id : "-";
+  row.combination = s.combination ? p.combinations[*s.combination].id : "-";
+  row.check = to_string(s.check);
+  for (const auto& gc : run.group.per_combination)
+    if (gc.settlement) row.settlement = std::max(row.settlement.value_or(0.0), *gc.settlement);
+  row.pass = s.pass;
+  row.status = !s.overturned.empty()          ? to_string(Verdict::overturned)
+               : s.failed_combinations > 0     ? "fail"
+               : !run.group.pass               ? "group checks fail"
+                                               : "pass";
+  return row;
+}
+
+// Warnings never change the exit status: they go to stderr (and into the reports' notes).
+void print_warnings(const Project& project, std::ostream& err) {
+  for (const auto& w : project.warnings) err << "cairn: " << format_warning(w) << "\n";
+}
+
+// Several caps: every file is checked (in parallel), then one summary table. Input
+// problems in any file stop the run before anything is written.
+int run_batch(const Options& options, std::ostream& out, std::ostream& err) {
+  if (options.explain_pile) throw InputError({}, "--explain: give a single project file");
+  const auto outcomes = analyse_all(options.files);
+  std::vector<CapSummaryRow> rows;
+  std::vector<std::pair<std::string, std::string>> written;
+  bool pass = true;
+  std::set<std::string> stems;
+  const std::string described = describe_options(options);
+  for (const auto& o : outcomes) print_warnings(o.run->project, err);
+  for (const auto& o : outcomes) {
+    rows.push_back(summary_row(*o.run));
+    pass = pass && rows.back().pass;
+    if (options.out_dir) {
+      const CheckReport report = make_check_report(*o.run, described, std::nullopt);
+      const std::string stem = unique_stem(o.file, stems);
+      for (auto& [name, content] : check_files(report)) written.emplace_back(stem + "/" + name, content);
+    }
+  }
+  const std::string rendered = render_cap_summary(rows, options.format, described);
+  if (options.out_dir) {
+    written.emplace_back("summary.txt", render_cap_summary(rows, Format::text, described));
+    written.emplace_back("summary.csv", render_cap_summary(rows, Format::csv, described));
+    written.emplace_back("summary.json", render_cap_summary(rows, Format::json, described));
+    write_files_atomically(*options.out_dir, written);
+  }
+  out << rendered;
+  return pass ? kExitPass : kExitFail;
+}
+
+int run_check(const Options& options, std::ostream& out, std::ostream& err) {
+  // Several files, or a foundation file listing caps: the batch summary.
+  if (options.files.size() != 1) return run_batch(options, out, err);
+  const auto caps = expand_foundation(options.files.front());
+  if (caps.size() != 1 || caps.front() != options.files.front()) return run_batch(options, out, err);
+  const CheckRun run = analyse_project(options.files.front());
+  print_warnings(run.project, err);
+  const CheckReport report = make_check_report(run, describe_options(options), options.explain_pile);
+  const std::string rendered = render_check(report, options.format);
+  if (options.out_dir) write_files_atomically(*options.out_dir, check_files(report));
+  out << rendered;
+  return run.results.summary.pass ? kExitPass : kExitFail;
+}
+
+// The capacity-with-depth table's default step and shortest length, m: 0.5 m from 3 m, or
+// 1 ft from 10 ft in a US project.
+struct DepthTable {
+  double step, from;
+};
+DepthTable default_depth_table(UnitSystem u) {
+  return u == UnitSystem::SI ? DepthTable{0.5, 3.0} : DepthTable{0.3048, 3.048};
+}
+
+// Refuses a --step or --from that is not a plausible length, or a table longer than
+// kMaxDepthRows rows (a step of 1e-9 m would otherwise run for days).
+void check_depth_table(const Project& project, const Options& options, double step, double from) {
+  const UnitSystem u = project.units;
+  const char* unit = unit_label(u, Quantity::length);
+  const double largest = largest_plausible(Quantity::length);
+  if (!(step > 0) || !(step <= largest))
+    throw InputError({}, fmt::format("--step: expected a positive length in {} no larger than "
+                                     "{:g}, got '{:g}'",
+                                     unit, from_si(u, Quantity::length, largest),
+                                     *options.depth_step));
+  if (!(from > 0) || !(from <= largest))
+    throw InputError({}, fmt::format("--from: expected a positive length in {} no larger than "
+                                     "{:g}, got '{:g}'",
+                                     unit, from_si(u, Quantity::length, largest),
+                                     *options.min_length));
+  if (!project.soil) return;
+  const double longest = project.soil->depth();
+  const double rows = depth_table_rows(longest, step, from);
+  if (rows <= static_cast<double>(kMaxDepthRows)) return;
+  const double shortest_step = (longest - from) / static_cast<double>(kMaxDepthRows - 1);
+  throw InputError({}, fmt::format("--step: a table from {:g} {} to the base of the soil at "
+                                   "{:g} {} in steps of {:g} {} would have {:.0f} rows, more "
+                                   "than {}; use a step of at least {:.3g} {}",
+                                   from_si(u, Quantity::length, from), unit,
+                                   from_si(u, Quantity::length, longest), unit,
+                                   from_si(u, Quantity::length, step), unit, rows, kMaxDepthRows,
+                                   from_si(u, Quantity::length, shortest_step), unit));
+}
+
+int run_capacity(const Options& options, std::ostream& out, std::ostream& err) {
+  if (options.files.size() != 1) throw InputError({}, "capacity: expected one project file");
+  const Project project = read_project(options.files.front());
+  print_warnings(project, err);
+  const UnitSystem u = project.units;
+  const DepthTable table = default_depth_table(u);
+  const double step = options.depth_step ? *options.depth_step * to_si_factor(u, Quantity::length)
+                                         : table.step;
+  const double from = options.min_length ? *options.min_length * to_si_factor(u, Quantity::length)
+                                         : table.from;
+  check_depth_table(project, options, step, from);
+  require_table_within_profile(project, from, "--from");
+  const auto capacities = compute_capacities(project, step, from);
+  std::vector<PileTypeLength> lengths;
+  if (options.need_compression || options.need_tension) {
+    const double force = to_si_factor(u, Quantity::force);
+    for (const auto& [value, name] : {std::pair{options.need_compression, "--need-compression"},
+                                      std::pair{options.need_tension, "--need-tension"}})
+      if (value && !(*value > 0))
+        throw InputError({}, fmt::format("{}: expected a positive force in {}, got '{:g}'", name,
+                                         unit_label(u, Quantity::force), *value));
+    LengthNeed need;
+    if (options.need_compression) need.compression = *options.need_compression * force;
+    if (options.need_tension) need.tension = *options.need_tension * force;
+    need.basis = options.need_basis;
+    lengths = choose_lengths(project, capacities, need, step, from);
+  }
+  out << render_capacities(project, capacities, options.format, describe_options(options),
+                           lengths);
+  // A required capacity that no length within the profile gives is a failed check.
+  for (const auto& l : lengths)
+    if (!l.choice.length) return kExitFail;
+  return kExitPass;
+}
+
+// The group checks and settlement as an HTML section of the calculation package.
+std::string group_section_html(const CheckReport& report) {
+  const GroupParts parts = group_parts(report);
+  std::string html = "<section id=\"group\"><h2>Group checks and settlement</h2>\n";
+  auto lines = [&](const std::vector<std::string>& list) {
+    if (list.empty()) return;
+    html += "<ul>\n";
+    for (const auto& line : list) html += "<li>" + xml_escape(line) + "</li>\n";
+    html += "</ul>\n";
+  };
+  lines(parts.layout);
+  html += render_table_html(parts.efficiency);
+  lines(parts.checks);
+  html += render_table_html(parts.demand);
+  lines(parts.notes);
+  return html + "</section>";
+}
+
+// The calculation package: one self-contained HTML file per cap (plus, when asked, the
+// plan alone as SVG and the tables as CSV and Markdown), all written at once.
+int run_report(const Options& options, std::ostream& out, std::ostream& err) {
+  if (!options.out_dir) throw InputError({}, "report: expected --out DIR for the report files");
+  const auto outcomes = analyse_all(options.files);
+  for (const auto& o : outcomes) print_warnings(o.run->project, err);
+  const std::string described = describe_options(options);
+  std::vector<std::pair<std::string, std::string>> written;
+  std::string listing;
+  bool pass = true;
+  std::set<std::string> stems;
+  for (const auto& o : outcomes) {
+    const CheckRun& run = *o.run;
+    pass = pass && run.results.summary.pass;
+    const CheckReport report = make_check_report(run, described, std::nullopt);
+    const UnitSystem u = run.project.units;
+    // Capacities again, with the capacity-with-depth table for the chart.
+    const DepthTable table = default_depth_table(u);
+    // A soil profile kilometres deep gets a longer step, not millions of rows.
+    const double longest = run.project.soil ? run.project.soil->depth() : 0.0;
+    const double step = std::max(table.step, (longest - table.from) / (kMaxDepthRows - 1));
+    const auto capacities = compute_capacities(run.project, step, table.from);
+    HtmlReportInput input;
+    input.check = &report;
+    input.capacities = &capacities;
+    input.extra_sections_html.push_back(group_section_html(report));
+    const std::string stem = unique_stem(o.file, stems);
+    written.emplace_back(stem + ".html", render_html_report(input));
+    if (options.plan_svg)
+      written.emplace_back(stem + "-plan.svg",
+                           render_plan_svg(run.project, &run.results, &run.resistances));
+    if (options.tables)
+      for (auto& [name, content] : check_files(report)) written.emplace_back(stem + "/" + name, content);
+    listing += fmt::format("{}: {} — {}\n", o.file, summary_line(report),
+                           (std::filesystem::path(*options.out_dir) / (stem + ".html")).string());
+  }
+  // Nothing is said about the files until all of them are in place.
+  write_files_atomically(*options.out_dir, written);
+  out << listing;
+  return pass ? kExitPass : kExitFail;
+}
+
+int run_springs(const Options& options, std::ostream& out, std::ostream& err) {
+  if (options.files.size() != 1) throw InputError({}, "springs: expected one project file");
+  const Project project = read_project(options.files.front());
+  print_warnings(project, err);
+  const auto stiffness = pile_type_stiffness(project, compute_capacities(project));
+  out << render_springs(project, stiffness, options.format, describe_options(options));
+  return kExitPass;
+}
+
+}  // namespace
+
+int run(const Options& options, std::ostream& out, std::ostream& err) {
+  try {
+    switch (options.command) {
+      case Command::check: return run_check(options, out, err);
+      case Command::capacity: return run_capacity(options, out, err);
+      case Command::springs: return run_springs(options, out, err);
+      case Command::report: return run_report(options, out, err);
+    }
+    return kExitBadInput;
+  } catch (const InputError& e) {
+    for (const auto& d : e.diagnostics()) err << "cairn: " << d.format() << "\n";
+    return kExitBadInput;
+  } catch (const OutputError& e) {
+    err << "cairn: error: " << e.what() << "\n";
+    return kExitBadInput;
+  } catch (const std::invalid_argument& e) {
+    // A method refused its data (outside its range of validity).
+    err << "cairn: error: cannot compute: " << e.what() << "\n";
+    return kExitBadInput;
+  } catch (const std::exception& e) {
+    // Our own bugs (std::logic_error and anything unexpected).
+    err << "cairn: internal error: " << e.what() << "\n";
+    return kExitBadInput;
+  }
+}
+
+int run_command_line(int argc, const char* const* argv, std::ostream& out, std::ostream& err) {
+  CLI::App app{"cairn — checks that no pile under a rigid cap is overloaded, for every load "
+               "combination. Results are for checking by a qualified engineer; local codes and "
+               "licensed practice govern."};
+  app.set_version_flag("--version", std::string("cairn ") + CAIRN_VERSION);
+  app.require_subcommand(1);
+  Options options;
+  std::string format = "text";
+  const std::vector<std::string> formats = {"text", "csv", "markdown", "json"};
+
+  // The project file(s) and --format, which every command takes.
+  auto add_files_and_format = [&](CLI::App* command, const std::string& name,
+                                  const std::string& files_help,
+                                  const std::vector<std::string>& allowed) {
+    command->add_option(name, options.files, files_help)->required();
+    std::string names;
+    for (std::size_t i = 0; i < allowed.size(); ++i)
+      names += (i == 0 ? "" : i + 1 == allowed.size() ? " or " : ", ") + allowed[i];
+    command->add_option("--format", format, "Output format: " + names)
+        ->check(CLI::IsMember(allowed));
+  };
+
+  CLI::App* check = app.add_subcommand(
+      "check", "Share the cap's loads among the piles and check each pile in every combination");
+  add_files_and_format(check, "files",
+                       "Project file (YAML); several files, or a foundation file listing caps, "
+                       "check every cap and print one summary table",
+                       formats);
+  check->add_option("--out", options.out_dir,
+                    "Also write report.txt, report.md, results.json and CSV tables into DIR");
+  check->add_option("--explain", options.explain_pile,
+                    "Show the hand check (section properties, substituted formula) for PILE");
+  CLI::App* capacity = app.add_subcommand(
+      "capacity", "Compute each pile type's capacity from the soil profile, layer by layer and "
+                  "with depth");
+  add_files_and_format(capacity, "file", "Project file (YAML)", {"text", "csv", "markdown", "json"});
+  capacity->add_option("--step", options.depth_step,
+                       "Length step of the capacity-with-depth table, in the project's length "
+                       "unit (default 0.5 m or 1 ft)");
+  capacity->add_option("--from", options.min_length,
+                       "Shortest pile length in the table (default 3 m or 10 ft)");
+  capacity->add_option("--need-compression", options.need_compression,
+                       "Find the shortest length carrying this compression, in the project's "
+                       "force unit");
+  capacity->add_option("--need-tension", options.need_tension,
+                       "Find the shortest length carrying this tension, in the project's force "
+                       "unit");
+  std::string need_basis = "allowable";
+  capacity->add_option("--need-basis", need_basis,
+                       "Basis of --need-compression/--need-tension: allowable (service loads, "
+                       "default) or factored (strength loads)")
+      ->check(CLI::IsMember({"allowable", "factored"}));
+  CLI::App* springs = app.add_subcommand(
+      "springs", "Write each pile's head springs (axial and lateral stiffness) for the global "
+                 "structural model");
+  add_files_and_format(springs, "file", "Project file (YAML)", formats);
+  CLI::App* report = app.add_subcommand(
+      "report", "Write the calculation package: a self-contained HTML report per cap, for a "
+                "checking engineer");
+  report->add_option("files", options.files, "Project files or a foundation file")->required();
+  report->add_option("--out", options.out_dir, "Folder for the report files")->required();
+  report->add_flag("--svg", options.plan_svg, "Also write the cap plan alone as SVG");
+  report->add_flag("--tables", options.tables,
+                   "Also write the tables as CSV and Markdown (report.md, *.csv per cap)");
+  // CLI11 takes an unknown command for a stray argument ("A subcommand is required");
+  // name it and suggest the nearest command instead.
+  if (argc > 1 && argv[1][0] != '-') {
+    std::vector<std::string> names;
+    for (const CLI::App* command : {check, capacity, springs, report})
+      names.push_back(command->get_name());
+    const std::string given = argv[1];
+    if (std::find(names.begin(), names.end(), given) == names.end()) {
+      const std::string near = closest_match(given, names);
+      std::string list;
+      for (const auto& name : names) list += (list.empty() ? "" : ", ") + name;
+      err << "cairn: error: unknown command '" << given << "'; "
+          << (near.empty() ? "expected one of: " + list : "did you mean '" + near + "'?") << "\n"
+          << "Run 'cairn --help' for usage.\n";
+      return kExitBadInput;
+    }
+  }
+  try {
+    app.parse(argc, argv);
+  } catch (const CLI::CallForHelp& e) {
+    out << app.help();
+    return kExitPass;
+  } catch (const CLI::CallForVersion& e) {
+    out << e.what() << "\n";
+    return kExitPass;
+  } catch (const CLI::ParseError& e) {
+    err << "cairn: error: " << e.what() << "\n";
+    if (e.get_name() == "RequiredError" || e.get_name() == "ExtrasError" ||
+        e.get_name() == "CallForAllHelp")
+      err << "Run 'cairn --help' for usage.\n";
+    return kExitBadInput;
+  }
+  options.command_line = command_line_text(argc, argv);
+  if (format == "csv") options.format = Format::csv;
+  else if (format == "markdown") options.format = Format::markdown;
+  else if (format == "json") options.format = Format::json;
+  if (check->parsed()) options.command = Command::check;
+  if (capacity->parsed()) options.command = Command::capacity;
+  if (need_basis == "factored") options.need_basis = CapacityBasis::factored;
+  if (springs->parsed()) options.command = Command::springs;
+  if (report->parsed()) options.command = Command::report;
+  return run(options, out, err);
+}
+
+}  // namespace cairn

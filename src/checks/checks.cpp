@@ -1,0 +1,417 @@
+#include "cairn/checks/checks.hpp"
+
+#include <algorithm>
+#include <cmath>
+#include <limits>
+#include <map>
+#include <set>
+
+#include <fmt/format.h>
+
+#include "cairn/geotechnics/code_resistance.hpp"
+#include "cairn/geotechnics/lateral.hpp"
+#include "cairn/geotechnics/section_moment.hpp"
+
+namespace cairn {
+namespace {
+
+constexpr double kInfinity = std::numeric_limits<double>::infinity();
+// Forces below this are taken as zero (kN): round-off of the solve, far below any capacity.
+constexpr double kForceTolerance = 1e-6;
+
+// Fills missing values of `into` from `from`.
+void fill(std::optional<double>& into, std::optional<double> from) {
+  if (!into && from) into = from;
+}
+
+}  // namespace
+
+const char* to_string(Demand d) {
+  switch (d) {
+    case Demand::none: return "none";
+    case Demand::compression: return "compression";
+    case Demand::tension: return "tension";
+    case Demand::lateral: return "lateral";
+    case Demand::structural: return "structural";
+  }
+  return "?";
+}
+
+const char* to_string(PileState s) {
+  switch (s) {
+    case PileState::in_contact: return "in contact";
+    case PileState::dropped_out: return "dropped out";
+    case PileState::overturned: return "overturned";
+  }
+  return "?";
+}
+
+const char* to_string(Verdict v) {
+  switch (v) {
+    case Verdict::pass: return "pass";
+    case Verdict::fail: return "fail";
+    case Verdict::overturned: return "overturned";
+  }
+  return "?";
+}
+
+Verdict verdict(const CombinationCheck& check) {
+  if (check.solution.overturns) return Verdict::overturned;
+  return check.pass ? Verdict::pass : Verdict::fail;
+}
+
+std::vector<PileTypeResistance> resolve_resistances(
+    const Project& project, const std::vector<std::optional<ComputedResistance>>& computed) {
+  std::vector<PileTypeResistance> result(project.pile_types.size());
+  for (std::size_t t = 0; t < project.pile_types.size(); ++t) {
+    const PileType& type = project.pile_types[t];
+    PileTypeResistance& r = result[t];
+    for (const CapacitySet& set : type.capacities) {
+      switch (set.basis) {
+        case CapacityBasis::allowable:
+          r.allowable.compression = set.compression;
+          r.allowable.tension = set.tension;
+          r.allowable.lateral = set.lateral;
+          r.allowable.source = "allowable values given";
+          break;
+        case CapacityBasis::factored:
+          r.factored.compression = set.compression;
+          r.factored.tension = set.tension;
+          r.factored.lateral = set.lateral;
+          r.factored.source = "factored resistances given";
+          break;
+        case CapacityBasis::ultimate: break;  // below, so that given bases win
+      }
+    }
+    for (const CapacitySet& set : type.capacities) {
+      if (set.basis != CapacityBasis::ultimate) continue;
+      const double fs = set.factor_of_safety.value_or(kDefaultSafetyCompression);
+      const double fs_t = set.factor_of_safety_tension.value_or(kDefaultSafetyTension);
+      auto divide = [](std::optional<double> v, double f) -> std::optional<double> {
+        return v ? std::optional<double>(*v / f) : std::nullopt;
+      };
+      auto times = [](std::optional<double> v, std::optional<double> f) -> std::optional<double> {
+        return v && f ? std::optional<double>(*v * *f) : std::nullopt;
+      };
+      const bool any_allowable = r.allowable.compression || r.allowable.tension;
+      fill(r.allowable.compression, divide(set.compression, fs));
+      fill(r.allowable.tension, divide(set.tension, fs_t));
+      fill(r.allowable.lateral, divide(set.lateral, fs));
+      if (!any_allowable)
+        r.allowable.source = fmt::format("ultimate given ÷ factor of safety {:g} (tension {:g})",
+                                         fs, fs_t);
+      const bool any_factored = r.factored.compression || r.factored.tension;
+      fill(r.factored.compression, times(set.compression, set.resistance_factor));
+      fill(r.factored.tension, times(set.tension, set.resistance_factor_tension));
+      fill(r.factored.lateral, times(set.lateral, set.resistance_factor));
+      if (!any_factored && set.resistance_factor)
+        r.factored.source = fmt::format("ultimate given × resistance factor {:g}",
+                                        *set.resistance_factor);
+    }
+    // A timber section (bending strength only) has no axial capacity here.
+    if (type.structure && (type.structure->concrete_strength || type.structure->steel_yield)) {
+      // Po = 0.85·f'c·(Ag − As) + fy·As (ACI 318-19 eq. 22.4.2.2), or fy·A for steel.
+      const Structure& st = *type.structure;
+      double nominal = 0.0;
+      if (st.concrete_strength) {
+        ConcreteSection section{type.section.area(), st.steel_area.value_or(0.0),
+                                *st.concrete_strength, st.steel_yield.value_or(0.0)};
+        nominal = concrete_nominal_axial_strength(section);
+      } else {
+        // A pipe or hollow square: the wall's area unless steel_area is given.
+        const double area = st.wall_thickness && *st.wall_thickness < 0.5 * type.section.width
+                                ? section_area(type.section.shape, type.section.width,
+                                               *st.wall_thickness)
+                                : type.section.area();
+        nominal = *st.steel_yield * st.steel_area.value_or(area);
+      }
+      if (st.allowable_factor) {
+        r.allowable.structural_axial = *st.allowable_factor * nominal;
+        if (st.yield_moment) r.allowable.structural_moment = *st.allowable_factor * *st.yield_moment;
+      }
+      if (st.resistance_factor) {
+        r.factored.structural_axial = *st.resistance_factor * nominal;
+        if (st.yield_moment) r.factored.structural_moment = *st.resistance_factor * *st.yield_moment;
+      }
+    }
+    if (t < computed.size() && computed[t]) {
+      const ComputedResistance& c = *computed[t];
+      const bool had_lateral = r.allowable.lateral.has_value();
+      const bool had_factored_lateral = r.factored.lateral.has_value();
+      fill(r.allowable.lateral, c.allowable_lateral);
+      fill(r.factored.lateral, c.factored_lateral);
+      const bool had_allowable = r.allowable.compression.has_value() || !c.allowable_compression;
+      const bool had_factored = r.factored.compression.has_value() || !c.factored_compression;
+      fill(r.allowable.compression, c.allowable_compression);
+      fill(r.factored.compression, c.factored_compression);
+      // A compression-only pile drops out of the cap before it takes tension: the uplift
+      // computed from the soil is not used (said in the assumptions).
+      if (type.tension) {
+        fill(r.allowable.tension, c.allowable_tension);
+        fill(r.factored.tension, c.factored_tension);
+      }
+      if (!had_allowable) r.allowable.source = "computed from the soil: " + c.method;
+      if (!had_factored) r.factored.source = "computed from the soil: " + c.method;
+      auto add = [](std::string& source, const std::string& text) {
+        source += (source.empty() ? "" : "; ") + text;
+      };
+      if (!had_lateral && c.allowable_lateral) add(r.allowable.source, "lateral by " + c.lateral_method);
+      if (!had_factored_lateral && c.factored_lateral)
+        add(r.factored.source, "lateral by " + c.lateral_method);
+      r.aashto_phi = !had_factored && c.aashto_phi;
+    }
+    // Code resistance sets (EN 1997 R1–R4, AASHTO extreme event): code_resistance.hpp.
+    for (const Combination& combo : project.combinations) {
+      if (combo.resistance_set == ResistanceSet::basis || r.by_set.count(combo.resistance_set))
+        continue;
+      const auto none = std::optional<ComputedResistance>{};
+      r.by_set[combo.resistance_set] = code_set_resistance(
+          project, t, combo.resistance_set, t < computed.size() ? computed[t] : none, r.factored);
+    }
+  }
+  return result;
+}
+
+std::vector<Diagnostic> missing_resistances(const Project& project,
+                                            const std::vector<PileTypeResistance>& resistances) {
+  std::vector<Diagnostic> problems;
+  std::set<std::size_t> used;
+  for (const Pile& pile : project.piles) used.insert(pile.type);
+  // Combinations checked with a code's resistance set (EN 1997, AASHTO extreme event): one
+  // problem per set and pile type, at the first combination it concerns.
+  std::set<std::pair<ResistanceSet, std::size_t>> reported;
+  // The others: one problem per limit state and pile type, at the first combination it
+  // concerns and naming the others: a missing capacity is reported once, not once per
+  // combination.
+  std::map<LimitState, std::vector<const Combination*>> by_state;
+  for (const Combination& combo : project.combinations) {
+    if (combo.resistance_set == ResistanceSet::basis) {
+      by_state[combo.limit_state].push_back(&combo);
+      continue;
+    }
+    for (std::size_t t : used) {
+      const auto it = resistances[t].by_set.find(combo.resistance_set);
+      if (it != resistances[t].by_set.end() && it->second.compression) continue;
+      if (!reported.insert({combo.resistance_set, t}).second) continue;
+      problems.push_back(
+          {combo.where,
+           combo.resistance_set == ResistanceSet::en1997_r3
+               ? fmt::format("combinations.{}: a combination of design approach 3 (EN 1997 R3), "
+                             "but pile type '{}' has no capacity computed from the soil with "
+                             "the soil's strength factored (set M2): give tip_method and "
+                             "shaft_method that work from friction_angle and "
+                             "undrained_strength (not the SPT methods), with friction angles "
+                             "that stay within the method's range after M2",
+                             combo.id, project.pile_types[t].id)
+               : fmt::format("combinations.{}: a combination checked with {} resistances, but "
+                             "pile type '{}' has no ultimate compression capacity to derive "
+                             "them from; give capacity with basis: ultimate (taken as "
+                             "characteristic), or tip_method and shaft_method with a soil "
+                             "profile",
+                             combo.id, to_string(combo.resistance_set),
+                             project.pile_types[t].id)});
+    }
+  }
+  for (const auto& [state, combos] : by_state) {
+    const bool service = state == LimitState::service;
+    for (std::size_t t : used) {
+      const Resistance& r = service ? resistances[t].allowable : resistances[t].factored;
+      if (r.compression) continue;
+      constexpr std::size_t kNamed = 3;
+      std::string names = combos.front()->id;
+      for (std::size_t i = 1; i < std::min(combos.size(), kNamed); ++i) names += ", " + combos[i]->id;
+      if (combos.size() > kNamed) names += fmt::format(" and {} more", combos.size() - kNamed);
+      const std::string what =
+          combos.size() == 1 ? fmt::format("a {} combination is", to_string(state))
+                             : fmt::format("{} {} combinations are", combos.size(), to_string(state));
+      problems.push_back(
+          {combos.front()->where,
+           fmt::format("combinations.{}: {} compared with {} capacities, but "
+                       "pile type '{}' has no {} compression capacity; give capacity with "
+                       "basis: {}{}",
+                       names, what, service ? "allowable" : "factored", project.pile_types[t].id,
+                       service ? "allowable" : "factored", service ? "allowable" : "factored",
+                       service ? " (or basis: ultimate, divided by a factor of safety)"
+                               : " (or basis: ultimate with resistance_factor)")});
+    }
+  }
+  return problems;
+}
+
+CheckResults check_piles(const Project& project, const std::vector<CapSolution>& solutions,
+                         const std::vector<PileTypeResistance>& resistances,
+                         const std::vector<double>& head_moment_per_shear) {
+  CheckResults results;
+  const std::size_t n = project.piles.size();
+  results.envelope.assign(n, PileEnvelope{});
+  CheckSummary& summary = results.summary;
+  for (std::size_t c = 0; c < project.combinations.size(); ++c) {
+    const Combination& combo = project.combinations[c];
+    CombinationCheck check;
+    check.combination = c;
+    check.solution = solutions[c];
+    check.piles.resize(n);
+    const bool overturns = check.solution.overturns;
+    for (std::size_t i = 0; i < n; ++i) {
+      PileCheck& p = check.piles[i];
+      PileEnvelope& e = results.envelope[i];
+      if (overturns) {
+        // No equilibrium: the solver's forces mean nothing, and no pile can be shown safe.
+        p.active = check.solution.piles[i].active;
+        p.state = PileState::overturned;
+        p.pass = false;
+        e.pass = false;
+        continue;
+      }
+      const PileForce& force = check.solution.piles[i];
+      const Pile& pile = project.piles[i];
+      const Resistance& r = combo.resistance_set != ResistanceSet::basis
+                                ? resistances[pile.type].by_set.at(combo.resistance_set)
+                            : combo.limit_state == LimitState::service
+                                ? resistances[pile.type].allowable
+                                : resistances[pile.type].factored;
+      p.axial = force.axial;
+      p.lateral = force.lateral;
+      p.active = force.active;
+      p.state = force.active ? PileState::in_contact : PileState::dropped_out;
+      auto consider = [&](double demand, std::optional<double> capacity, Demand kind) {
+        if (demand <= kForceTolerance) return;
+        const double u = capacity && *capacity > 0 ? demand / *capacity : kInfinity;
+        if (u > p.utilization || p.governing == Demand::none) {
+          p.utilization = std::max(u, p.utilization);
+          p.governing = kind;
+        }
+      };
+      consider(p.axial, r.compression, Demand::compression);
+      consider(-p.axial, r.tension, Demand::tension);
+      consider(p.lateral, r.lateral, Demand::lateral);
+      if (pile.type < head_moment_per_shear.size())
+        p.head_moment = p.lateral * head_moment_per_shear[pile.type];
+      if (r.structural_axial && *r.structural_axial > 0) {
+        double u = std::abs(p.axial) / *r.structural_axial;
+        if (p.head_moment > 0 && r.structural_moment && *r.structural_moment > 0)
+          u = axial_bending_utilization(p.axial, *r.structural_axial, p.head_moment,
+                                        *r.structural_moment);
+        if (u > p.utilization) {
+          p.utilization = u;
+          p.governing = Demand::structural;
+        }
+      }
+      p.pass = p.utilization <= 1.0;
+      if (!p.pass) {
+        check.pass = false;
+        e.pass = false;
+      }
+      if (!check.governing_pile || p.utilization > check.max_utilization) {
+        check.max_utilization = p.utilization;
+        check.governing_pile = i;
+        check.governing = p.governing;
+      }
+      // A zero value names no combination: "max tension 0.0 in S1" of a pile never in
+      // tension would point the reader at nothing.
+      auto raise = [&](Extreme& x, double v, double tolerance) {
+        if (v > tolerance && (!x.combination || v > x.value)) {
+          x.value = v;
+          x.combination = c;
+        }
+      };
+      raise(e.max_compression, p.axial, kForceTolerance);
+      raise(e.max_tension, -p.axial, kForceTolerance);
+      raise(e.max_lateral, p.lateral, kForceTolerance);
+      if (p.utilization > 0.0 &&
+          (!e.max_utilization.combination || p.utilization > e.max_utilization.value))
+        e.governing = p.governing;
+      raise(e.max_utilization, p.utilization, 0.0);
+    }
+    if (check.solution.overturns) {
+      check.pass = false;
+      summary.overturned.push_back(c);
+    }
+    if (!check.pass) ++summary.failed_combinations;
+    // An overturned combination has no pile forces to speak of: it fails on its own line
+    // and does not name a governing pile.
+    if (!check.solution.overturns &&
+        (!summary.combination || check.max_utilization > summary.max_utilization)) {
+      summary.max_utilization = check.max_utilization;
+      summary.combination = c;
+      summary.pile = check.governing_pile;
+      summary.check = check.governing;
+    }
+    results.combinations.push_back(std::move(check));
+  }
+  summary.pass = summary.failed_combinations == 0;
+  return results;
+}
+
+std::vector<std::string> assumptions(
+    const Project& project, const std::vector<PileTypeResistance>& resistances,
+    const std::vector<std::pair<std::string, std::string>>& stiffness_sources) {
+  std::vector<std::string> list;
+  for (const auto& warning : project.warnings) list.push_back(warning_note(warning));
+  list.push_back("The cap is rigid: it moves as one body with six degrees of freedom.");
+  list.push_back("Pile heads act on the cap as an axial spring along the pile and a lateral "
+                 "spring across it; no moment is transferred to the cap.");
+  std::set<std::size_t> used;
+  for (const Pile& pile : project.piles) used.insert(pile.type);
+  for (std::size_t t = 0; t < project.pile_types.size(); ++t) {
+    const PileType& type = project.pile_types[t];
+    if (!used.count(t)) continue;  // a type from a shared file that no pile uses
+    if (t < stiffness_sources.size()) {
+      list.push_back(fmt::format("Pile type {}: axial stiffness {}.", type.id,
+                                 stiffness_sources[t].first));
+      list.push_back(fmt::format("Pile type {}: lateral stiffness {}.", type.id,
+                                 stiffness_sources[t].second));
+    }
+    if (type.head == HeadFixity::fixed)
+      list.push_back(fmt::format("Pile type {}: fixed heads; the head moment is reported per "
+                                 "pile but not fed back into the cap's equilibrium.",
+                                 type.id));
+    list.push_back(fmt::format(
+        "Pile type {}: {}.", type.id,
+        type.tension ? "takes tension"
+        : type.design.computes_capacity() && project.soil
+            ? "takes no tension (compression only: it drops out of the cap rather than take "
+              "tension; the uplift capacity computed from the soil is not used)"
+            : "takes no tension (compression only: it drops out of the cap rather than take "
+              "tension)"));
+    if (t < resistances.size()) {
+      const auto& r = resistances[t];
+      if (!r.allowable.source.empty())
+        list.push_back(fmt::format("Pile type {}: allowable capacities: {}.", type.id,
+                                   r.allowable.source));
+      if (!r.factored.source.empty())
+        list.push_back(fmt::format("Pile type {}: factored resistances: {}.", type.id,
+                                   r.factored.source));
+      const UnitSystem u = project.units;
+      auto structural = [&](const Resistance& res, const char* basis) {
+        if (!res.structural_axial) return;
+        std::string text = fmt::format(
+            "Pile type {}: structural {} axial capacity {:.1f} {} ({} × the factor given)",
+            type.id, basis, from_si(u, Quantity::force, *res.structural_axial),
+            unit_label(u, Quantity::force),
+            type.structure && type.structure->concrete_strength
+                ? "Po = 0.85·f'c·(Ag − As) + fy·As, ACI 318-19 eq. 22.4.2.2"
+                : "fy·A of the steel section");
+        if (res.structural_moment)
+          text += fmt::format(", moment capacity {:.1f} {}; fixed heads: |P|/Pc + |M|/Mc ≤ 1",
+                              from_si(u, Quantity::moment, *res.structural_moment),
+                              unit_label(u, Quantity::moment));
+        list.push_back(text + ".");
+      };
+      structural(r.allowable, "allowable");
+      structural(r.factored, "factored");
+    }
+  }
+  if (project.cap.self_weight)
+    list.push_back(fmt::format("The cap's self-weight is included in load case {}.",
+                               project.cap.self_weight->load_case));
+  else
+    list.push_back("The cap's self-weight is not included (unless it is in the loads given).");
+  list.push_back("Service combinations are checked against allowable capacities, strength "
+                 "combinations against factored resistances.");
+  for (const auto& note : project.notes) list.push_back("Combinations " + note);
+  for (auto& text : code_resistance_assumptions(project, resistances)) list.push_back(std::move(text));
+  return list;
+}
+
+}  // namespace cairn

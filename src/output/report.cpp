@@ -1,0 +1,1050 @@
+#include "cairn/output/report.hpp"
+
+#include <algorithm>
+#include <cmath>
+#include <limits>
+#include <set>
+
+#include <fmt/format.h>
+
+#include "cairn/output/number_text.hpp"
+
+namespace cairn {
+namespace {
+
+using nlohmann::json;
+
+// Display width of a UTF-8 string (counts code points; our symbols are all one column).
+std::size_t width(const std::string& s) {
+  std::size_t n = 0;
+  for (unsigned char c : s)
+    if ((c & 0xC0) != 0x80) ++n;
+  return n;
+}
+
+std::string pad(const std::string& s, std::size_t w, bool right) {
+  const std::size_t have = width(s);
+  if (have >= w) return s;
+  return right ? std::string(w - have, ' ') + s : s + std::string(w - have, ' ');
+}
+
+std::string csv_cell(const std::string& s) {
+  if (s.find_first_of(",\"\n") == std::string::npos) return s;
+  std::string quoted = "\"";
+  for (char c : s) {
+    if (c == '"') quoted += '"';
+    quoted += c;
+  }
+  return quoted + "\"";
+}
+
+// Numbers in the project's units with a precision that suits each quantity.
+class Units {
+ public:
+  explicit Units(UnitSystem system) : u_(system) {}
+  std::string label(Quantity q) const { return unit_label(u_, q); }
+  // The value in the project's unit; a negative zero (or a round-off below the printed
+  // precision) prints as 0.
+  double value(Quantity q, double si) const {
+    const double v = from_si(u_, q, si);
+    return std::abs(v) < 5e-7 ? 0.0 : v;
+  }
+  std::string force(double si) const { return fixed(value(Quantity::force, si), digits(Quantity::force)); }
+  std::string length(double si) const { return fixed(value(Quantity::length, si), digits(Quantity::length)); }
+  std::string moment(double si) const { return fixed(value(Quantity::moment, si), digits(Quantity::moment)); }
+  std::string small(double si) const { return fixed(value(Quantity::small_length, si), 3); }
+  // Fixed decimals without a minus sign on a value that rounds to zero.
+  static std::string fixed(double v, int decimals) { return fixed_text(v, decimals); }
+  std::string stiffness(double si) const {
+    const double v = value(Quantity::stiffness, si);
+    return std::abs(v) >= 1e4 ? fmt::format("{:.0f}", v) : fmt::format("{:.4g}", v);
+  }
+  std::string area(double si) const {
+    const double f = to_si_factor(u_, Quantity::length);
+    return fixed_text(si / (f * f), 4);
+  }
+  std::string area_label() const { return label(Quantity::length) + "²"; }
+  UnitSystem system() const { return u_; }
+
+ private:
+  int digits(Quantity q) const {
+    if (q == Quantity::length) return u_ == UnitSystem::SI ? 3 : 2;
+    return u_ == UnitSystem::SI ? 1 : 2;
+  }
+  UnitSystem u_;
+};
+
+std::string utilization_text(double u) {
+  if (std::isinf(u)) return "no capacity";
+  return fixed_text(u, 3);
+}
+
+// A pile's result in a combination: "pass" or "fail", the words of the combination verdict.
+const char* result_text(const PileCheck& p) { return p.pass ? "pass" : "fail"; }
+
+// Ids of the overturned combinations, "S1, S3".
+std::string overturned_ids(const CheckReport& r) {
+  std::string ids;
+  for (auto c : r.results->summary.overturned)
+    ids += (ids.empty() ? "" : ", ") + r.project->combinations[c].id;
+  return ids;
+}
+
+const std::string& combo_id(const CheckReport& r, std::optional<std::size_t> c) {
+  static const std::string none = "-";
+  return c ? r.project->combinations[*c].id : none;
+}
+
+json number_or_null(double v) { return std::isfinite(v) ? json(v) : json(nullptr); }
+
+double axial_stiffness(const CheckReport& r, std::size_t type) {
+  return r.stiffness ? (*r.stiffness)[type].axial
+                     : r.project->pile_types[type].axial_stiffness_used();
+}
+double lateral_stiffness(const CheckReport& r, std::size_t type) {
+  return r.stiffness ? (*r.stiffness)[type].lateral
+                     : r.project->pile_types[type].lateral_stiffness_used();
+}
+// Head moment of a fixed-head pile, kN·m (0 for pinned heads).
+double head_moment(const CheckReport& r, std::size_t pile, double lateral) {
+  if (!r.stiffness) return 0.0;
+  return lateral * (*r.stiffness)[r.project->piles[pile].type].head_moment_per_shear;
+}
+bool any_fixed_head(const CheckReport& r) {
+  if (!r.stiffness) return false;
+  for (const auto& k : *r.stiffness)
+    if (k.head_moment_per_shear > 0) return true;
+  return false;
+}
+
+// Reach of the cap for the rotations' display resolution: the farthest pile head from the
+// origin, at least 1 m (m).
+double cap_reach(const Project& p) {
+  double reach = 1.0;
+  for (const Pile& pile : p.piles) reach = std::max(reach, std::hypot(pile.x, pile.y));
+  return reach;
+}
+// The displacements are printed to 0.001 mm (SI) or 0.001 in (US): a rotation that moves no
+// pile head by half of that is round-off and prints as 0.
+double displacement_resolution(UnitSystem u) {
+  return 1e-3 * to_si_factor(u, Quantity::small_length);
+}
+
+// The cap's tilt as "1 in N"; "0" below the rotations' display resolution.
+std::string tilt_text(const Project& p, double tilt) {
+  if (rotation_value(tilt, cap_reach(p), displacement_resolution(p.units)) == 0.0) return "0";
+  return fmt::format("1 in {:.0f}", 1.0 / tilt);
+}
+
+std::string mm_or_dash(const Units& u, std::optional<double> v) {
+  return v ? u.small(*v) : std::string("-");
+}
+
+GroupParts make_group_parts(const CheckReport& r) {
+  const GroupResults& g = *r.group;
+  const Project& p = *r.project;
+  const Units u(p.units);
+  GroupParts parts;
+  auto& before = parts.layout;
+  before.push_back(fmt::format("Block plan Bg × Lg = {} × {} {} (outer faces).", u.length(g.plan.width),
+                               u.length(g.plan.length), u.label(Quantity::length)));
+  const auto& grid = g.efficiencies.grid;
+  before.push_back(grid.regular ? fmt::format("Layout: rectangular grid, {} × {}, spacing "
+                                              "x {} / y {} {}.",
+                                              count_text(grid.rows, "row"),
+                                              count_text(grid.columns, "column"), u.length(grid.spacing_x),
+                                              u.length(grid.spacing_y), u.label(Quantity::length))
+                                : fmt::format("Layout: irregular ({}).", grid.reason));
+  Table& eff = parts.efficiency;
+  eff.title = "Group efficiency, every method";
+  eff.headers = {"method", "η", "note"};
+  eff.numeric = {false, true, false};
+  for (const auto& e : g.efficiencies.all)
+    eff.rows.push_back({std::string(to_string(e.method)) +
+                            (e.method == g.applied.method ? " (applied)" : ""),
+                        e.value ? fmt::format("{:.3f}", *e.value) : std::string("-"), e.note});
+  const std::string f = u.label(Quantity::force);
+  auto& checks = parts.checks;
+  if (g.block)
+    checks.push_back(fmt::format("Block failure (clay): Q_block = Bg·Lg·cu·Nc + 2(Bg + Lg)·Σcu·ΔL = {} + "
+                                 "{} = {} {} (Skempton Nc = {:.2f}, cu at base {} {}).",
+                                 u.force(g.block->base), u.force(g.block->perimeter),
+                                 u.force(g.block->capacity), f, g.block->nc,
+                                 fmt::format("{:.1f}", from_si(p.units, Quantity::pressure, g.block->base_strength)),
+                                 u.label(Quantity::pressure)));
+  if (g.capacity_allowable)
+    checks.push_back(fmt::format("Group capacity, allowable: {} {}", u.force(*g.capacity_allowable), f) +
+                     (g.capacity_factored ? fmt::format("; factored: {} {}", u.force(*g.capacity_factored), f) : "") +
+                     fmt::format(" (governed by {}).", g.governing));
+  else if (g.capacity_factored)
+    checks.push_back(fmt::format("Group capacity, factored: {} {} (governed by {}).",
+                                 u.force(*g.capacity_factored), f, g.governing));
+  checks.push_back(fmt::format("Spacing: smallest centre-to-centre {} {} (minimum {:g} pile widths{}); {}.",
+                               u.length(g.spacing.smallest), u.label(Quantity::length),
+                               p.group.min_spacing_factor,
+                               p.group.min_spacing > 0 ? ", at least " + u.length(p.group.min_spacing) + " " + u.label(Quantity::length) : "",
+                               g.spacing.violations.empty() ? "ok" : "FAIL"));
+  for (const auto& v : g.spacing.violations)
+    checks.push_back(
+        v.depth ? fmt::format("FAIL: battered piles {} and {} come within {} {} of each other at "
+                              "{} {} below the pile heads, less than {} {}.",
+                              v.first, v.second, u.length(v.distance), u.label(Quantity::length),
+                              u.length(*v.depth), u.label(Quantity::length),
+                              u.length(v.required), u.label(Quantity::length))
+                : fmt::format("FAIL: piles {} and {} are {} {} apart, less than {} {}.", v.first,
+                              v.second, u.length(v.distance), u.label(Quantity::length),
+                              u.length(v.required), u.label(Quantity::length)));
+  if (g.edge) {
+    checks.push_back(fmt::format("Edge distance (pile face to cap edge, minimum {} {}): {}.",
+                                 u.length(g.edge->minimum), u.label(Quantity::length),
+                                 g.edge->offenders.empty() ? "ok" : "FAIL"));
+    for (const auto& e : g.edge->piles)
+      if (!e.ok)
+        checks.push_back(fmt::format("FAIL: pile {} is {} {} from the edge.", e.id,
+                                     u.length(e.distance), u.label(Quantity::length)));
+  }
+  Table& t = parts.demand;
+  t.title = "Group demand per combination";
+  t.headers = {"combination", "Σ compression (" + f + ")", "group capacity (" + f + ")", "utilization",
+               "Σ tension (" + f + ")", "uplift capacity (" + f + ")", "uplift utilization", "tilt"};
+  t.numeric = {false, true, true, true, true, true, true, true};
+  if (g.settlement_asked) {
+    const std::string mm = u.label(Quantity::small_length);
+    for (const auto* h : {"single pile", "group (Vesić)", "equivalent footing", "settlement"})
+      t.headers.push_back(std::string(h) + " (" + mm + ")");
+    for (int i = 0; i < 4; ++i) t.numeric.push_back(true);
+  }
+  t.headers.push_back("status");
+  t.numeric.push_back(false);
+  for (const auto& gc : g.per_combination) {
+    std::vector<std::string> row = {
+        p.combinations[gc.combination].id, u.force(gc.compression),
+        gc.capacity ? u.force(*gc.capacity) : "-",
+        gc.utilization ? fmt::format("{:.3f}", *gc.utilization) : "-", u.force(gc.tension),
+        gc.uplift_capacity ? u.force(*gc.uplift_capacity) : "-",
+        gc.uplift_utilization ? fmt::format("{:.3f}", *gc.uplift_utilization) : "-",
+        tilt_text(p, gc.tilt)};
+    if (g.settlement_asked) {
+      row.push_back(mm_or_dash(u, gc.single_settlement));
+      row.push_back(mm_or_dash(u, gc.group_settlement));
+      row.push_back(mm_or_dash(u, gc.footing_settlement));
+      row.push_back(mm_or_dash(u, gc.settlement));
+    }
+    // A cap that overturns has no pile forces to sum: its row must not read "ok".
+    const bool overturns = std::any_of(
+        r.results->combinations.begin(), r.results->combinations.end(), [&](const auto& cc) {
+          return cc.combination == gc.combination && cc.solution.overturns;
+        });
+    row.push_back(to_string(overturns ? Verdict::overturned : gc.pass ? Verdict::pass : Verdict::fail));
+    t.rows.push_back(row);
+  }
+  if (g.settlement_asked)
+    parts.notes.push_back(fmt::format("Tolerable settlement: {} {}.", u.small(g.settlement_limit),
+                                      u.label(Quantity::small_length)));
+  for (const auto& n : g.notes) parts.notes.push_back("Note: " + n);
+  return parts;
+}
+
+std::string group_block(const CheckReport& r, Format format) {
+  const GroupParts parts = make_group_parts(r);
+  const bool md = format == Format::markdown;
+  const Format tf = md ? Format::markdown : Format::text;
+  const std::string in = md ? "- " : "  ";
+  std::string out = md ? "## Group checks\n\n" : "Group checks\n";
+  for (const auto& line : parts.layout) out += in + line + "\n";
+  out += "\n" + render_table(parts.efficiency, tf);
+  for (const auto& line : parts.checks) out += in + line + "\n";
+  out += "\n" + render_table(parts.demand, tf);
+  for (const auto& line : parts.notes) out += in + line + "\n";
+  return out + "\n";
+}
+
+json group_json(const CheckReport& r) {
+  const GroupResults& g = *r.group;
+  const Project& p = *r.project;
+  const Units u(p.units);
+  auto opt = [&](std::optional<double> v, Quantity q) {
+    return v ? json(u.value(q, *v)) : json(nullptr);
+  };
+  json all = json::object();
+  for (const auto& e : g.efficiencies.all)
+    all[to_string(e.method)] = {{"value", e.value ? json(*e.value) : json(nullptr)}, {"note", e.note}};
+  json spacing = json::array();
+  for (const auto& v : g.spacing.violations)
+    spacing.push_back({{"piles", {v.first, v.second}},
+                       {"distance", u.value(Quantity::length, v.distance)},
+                       {"required", u.value(Quantity::length, v.required)},
+                       {"depth", v.depth ? json(u.value(Quantity::length, *v.depth)) : json(nullptr)}});
+  json per = json::array();
+  for (const auto& gc : g.per_combination)
+    per.push_back({{"combination", p.combinations[gc.combination].id},
+                   {"compression", u.value(Quantity::force, gc.compression)},
+                   {"capacity", opt(gc.capacity, Quantity::force)},
+                   {"utilization", gc.utilization ? json(*gc.utilization) : json(nullptr)},
+                   {"tension", u.value(Quantity::force, gc.tension)},
+                   {"uplift_capacity", opt(gc.uplift_capacity, Quantity::force)},
+                   {"uplift_utilization", gc.uplift_utilization ? json(*gc.uplift_utilization) : json(nullptr)},
+                   {"tilt", rotation_value(gc.tilt, cap_reach(p), displacement_resolution(p.units))},
+                   {"single", opt(gc.single_settlement, Quantity::small_length)},
+                   {"group", opt(gc.group_settlement, Quantity::small_length)},
+                   {"footing", opt(gc.footing_settlement, Quantity::small_length)},
+                   {"settlement", opt(gc.settlement, Quantity::small_length)},
+                   {"pass", gc.pass}});
+  json edge = nullptr;
+  if (g.edge) {
+    json offenders = g.edge->offenders;
+    edge = {{"minimum", u.value(Quantity::length, g.edge->minimum)}, {"offenders", offenders}};
+  }
+  return {{"efficiency",
+           {{"method", to_string(g.applied.method)},
+            {"value", g.applied.value.value_or(1.0)},
+            {"all", all}}},
+          {"block_capacity", g.block ? json(u.value(Quantity::force, g.block->capacity)) : json(nullptr)},
+          {"capacity_allowable", opt(g.capacity_allowable, Quantity::force)},
+          {"capacity_factored", opt(g.capacity_factored, Quantity::force)},
+          {"governing", g.governing},
+          {"uplift", per},
+          {"spacing", spacing},
+          {"edge_distance", edge},
+          {"settlement",
+           {{"asked", g.settlement_asked},
+            {"method", "Vesić (1977) single pile with s_g = s·√(Bg/D); equivalent footing at 2/3 "
+                       "of the length in the bearing stratum, 2V:1H"},
+            {"limit", u.value(Quantity::small_length, g.settlement_limit)},
+            {"per_combination", per}}},
+          {"notes", g.notes},
+          {"pass", g.pass}};
+}
+
+Table pile_types_table(const CheckReport& r) {
+  const Project& p = *r.project;
+  const Units u(p.units);
+  Table t;
+  t.title = "Pile types";
+  t.headers = {"type", "section", "length (" + u.label(Quantity::length) + ")",
+               "k axial (" + u.label(Quantity::stiffness) + ")",
+               "k lateral (" + u.label(Quantity::stiffness) + ")", "tension",
+               "allowable C/T/L (" + u.label(Quantity::force) + ")",
+               "factored C/T/L (" + u.label(Quantity::force) + ")"};
+  t.numeric = {false, false, true, true, true, false, false, false};
+  for (std::size_t i = 0; i < p.pile_types.size(); ++i) {
+    const PileType& type = p.pile_types[i];
+    auto set = [&](const Resistance& res) {
+      auto one = [&](std::optional<double> v) { return v ? u.force(*v) : std::string("-"); };
+      return one(res.compression) + " / " + one(res.tension) + " / " + one(res.lateral);
+    };
+    t.rows.push_back({type.id,
+                      fmt::format("{} {} {}", to_string(type.section.shape), u.length(type.section.width),
+                                  u.label(Quantity::length)),
+                      u.length(type.length), u.stiffness(axial_stiffness(r, i)),
+                      u.stiffness(lateral_stiffness(r, i)), type.tension ? "yes" : "no",
+                      set((*r.resistances)[i].allowable), set((*r.resistances)[i].factored)});
+  }
+  return t;
+}
+
+Table piles_table(const CheckReport& r) {
+  const Project& p = *r.project;
+  const Units u(p.units);
+  Table t;
+  t.title = "Piles";
+  t.headers = {"pile", "type", "x (" + u.label(Quantity::length) + ")",
+               "y (" + u.label(Quantity::length) + ")", "batter"};
+  t.numeric = {false, false, true, true, false};
+  for (const Pile& pile : p.piles) {
+    t.rows.push_back({pile.id, p.pile_types[pile.type].id, u.length(pile.x), u.length(pile.y),
+                      pile.batter ? fmt::format("1:{:g} toward {:g}°", pile.batter->ratio,
+                                                pile.batter->toward_deg)
+                                  : std::string("vertical")});
+  }
+  return t;
+}
+
+Table combinations_table(const CheckReport& r) {
+  Table t;
+  t.title = "Combinations";
+  t.headers = {"combination", "limit state", "factors", "source"};
+  t.numeric = {false, false, false, false};
+  for (const Combination& c : r.project->combinations)
+    t.rows.push_back({c.id, to_string(c.limit_state), combination_formula(*r.project, c),
+                      c.generator.empty() ? "given" : "generated: " + c.generator});
+  return t;
+}
+
+Table combination_table(const CheckReport& r, const CombinationCheck& cc) {
+  const Project& p = *r.project;
+  const Units u(p.units);
+  Table t;
+  const Combination& combo = p.combinations[cc.combination];
+  t.title = fmt::format("Combination {} ({}): {} — {}", combo.id, to_string(combo.limit_state),
+                        combination_formula(p, combo), to_string(verdict(cc)));
+  t.headers = {"pile", "x (" + u.label(Quantity::length) + ")",
+               "y (" + u.label(Quantity::length) + ")", "axial (" + u.label(Quantity::force) + ")",
+               "lateral (" + u.label(Quantity::force) + ")", "utilization", "check", "state",
+               "result"};
+  t.numeric = {false, true, true, true, true, true, false, false, false};
+  const bool moments = any_fixed_head(r);
+  if (moments) {
+    t.headers.insert(t.headers.begin() + 5, "head moment (" + u.label(Quantity::moment) + ")");
+    t.numeric.insert(t.numeric.begin() + 5, true);
+  }
+  for (std::size_t i = 0; i < p.piles.size(); ++i) {
+    const PileCheck& pc = cc.piles[i];
+    // An overturned cap has no pile forces: dashes, not zeros that would read as computed.
+    const bool none = pc.state == PileState::overturned;
+    const std::string dash = "-";
+    std::vector<std::string> row = {p.piles[i].id, u.length(p.piles[i].x), u.length(p.piles[i].y),
+                                    none ? dash : u.force(pc.axial), none ? dash : u.force(pc.lateral),
+                                    none ? dash : utilization_text(pc.utilization),
+                                    to_string(pc.governing), to_string(pc.state), result_text(pc)};
+    if (moments) row.insert(row.begin() + 5, none ? dash : u.moment(head_moment(r, i, pc.lateral)));
+    t.rows.push_back(row);
+  }
+  return t;
+}
+
+std::string combination_note(const CheckReport& r, const CombinationCheck& cc) {
+  const Project& p = *r.project;
+  const Units u(p.units);
+  const auto& m = cc.solution.movement;
+  std::string text;
+  if (cc.solution.overturns) {
+    const Wrench f = combination_load(p, p.combinations[cc.combination]);
+    return fmt::format("FAIL (overturned): {}; no pile forces exist and every pile fails "
+                       "(resultant about the origin: Fz = {} {}, Mx = {} {}, My = {} {})",
+                       cc.solution.failure, u.force(f[2]), u.label(Quantity::force),
+                       u.moment(f[3]), u.label(Quantity::moment), u.moment(f[4]),
+                       u.label(Quantity::moment));
+  }
+  const double reach = cap_reach(p), resolution = displacement_resolution(p.units);
+  text = fmt::format("Cap movement: translation ({}, {}, {}) {}, rotation ({}, {}, {}) rad.",
+                     u.small(m.translation[0]), u.small(m.translation[1]),
+                     u.small(m.translation[2]), u.label(Quantity::small_length),
+                     rotation_text(m.rotation[0], reach, resolution),
+                     rotation_text(m.rotation[1], reach, resolution),
+                     rotation_text(m.rotation[2], reach, resolution));
+  if (!cc.solution.dropped.empty()) {
+    std::string ids;
+    for (auto i : cc.solution.dropped) ids += (ids.empty() ? "" : ", ") + p.piles[i].id;
+    text += fmt::format(" Dropped out (would be in tension, take none): {} — load redistributed "
+                        "in {}.",
+                        ids, count_text(static_cast<std::size_t>(std::max(cc.solution.iterations, 0)), "solve"));
+  }
+  text += cc.pass ? fmt::format(" Pass: max utilization {} (pile {}, {}).",
+                                utilization_text(cc.max_utilization),
+                                cc.governing_pile ? p.piles[*cc.governing_pile].id : "-",
+                                to_string(cc.governing))
+                  : fmt::format(" FAIL: max utilization {} (pile {}, {}).",
+                                utilization_text(cc.max_utilization),
+                                cc.governing_pile ? p.piles[*cc.governing_pile].id : "-",
+                                to_string(cc.governing));
+  return text;
+}
+
+Table envelope_table(const CheckReport& r) {
+  const Project& p = *r.project;
+  const Units u(p.units);
+  const std::string f = u.label(Quantity::force);
+  Table t;
+  t.title = "Envelope per pile";
+  // Overturned combinations have no pile forces to take the largest of.
+  if (!r.results->summary.overturned.empty())
+    t.title += " (overturned, without pile forces, left out: " + overturned_ids(r) + ")";
+  t.headers = {"pile",          "max compression (" + f + ")", "combination",
+               "max tension (" + f + ")", "combination", "max lateral (" + f + ")",
+               "combination",   "max utilization",          "combination", "check", "result"};
+  t.numeric = {false, true, false, true, false, true, false, true, false, false, false};
+  for (std::size_t i = 0; i < p.piles.size(); ++i) {
+    const PileEnvelope& e = r.results->envelope[i];
+    t.rows.push_back({p.piles[i].id, u.force(e.max_compression.value),
+                      combo_id(r, e.max_compression.combination), u.force(e.max_tension.value),
+                      combo_id(r, e.max_tension.combination), u.force(e.max_lateral.value),
+                      combo_id(r, e.max_lateral.combination),
+                      utilization_text(e.max_utilization.value),
+                      combo_id(r, e.max_utilization.combination), to_string(e.governing),
+                      e.pass ? "pass" : "fail"});
+  }
+  return t;
+}
+
+// Why the check fails, in plain words, one item per cause; empty when it passes.
+std::vector<std::string> failure_reasons(const CheckReport& r) {
+  const Project& p = *r.project;
+  const CheckSummary& s = r.results->summary;
+  std::vector<std::string> reasons;
+  if (!s.overturned.empty()) reasons.push_back("the cap overturns in " + overturned_ids(r));
+  if (s.combination && s.pile && s.max_utilization > 1.0) {
+    const std::string pile = p.piles[*s.pile].id, combo = p.combinations[*s.combination].id;
+    reasons.push_back(std::isinf(s.max_utilization)
+                          ? fmt::format("pile {} has no {} capacity (combination {})", pile,
+                                        to_string(s.check), combo)
+                          : fmt::format("pile {} over capacity: utilization {} > 1 in {} ({})",
+                                        pile, utilization_text(s.max_utilization), combo,
+                                        to_string(s.check)));
+  }
+  if (r.group && !r.group->pass) reasons.push_back("group checks fail");
+  if (reasons.empty() && !s.pass) reasons.push_back("a check fails");
+  return reasons;
+}
+
+std::string joined(const std::vector<std::string>& items, const char* separator) {
+  std::string text;
+  for (const auto& item : items) text += (text.empty() ? "" : separator) + item;
+  return text;
+}
+
+Table summary_table(const CheckReport& r) {
+  const Project& p = *r.project;
+  const CheckSummary& s = r.results->summary;
+  Table t;
+  t.title = "Summary";
+  t.headers = {"status", "reason", "max utilization", "pile", "combination", "check",
+               "failed combinations", "combinations", "piles"};
+  t.numeric = {false, false, true, false, false, false, true, true, true};
+  const auto reasons = failure_reasons(r);
+  t.rows.push_back({s.pass ? "pass" : "fail", reasons.empty() ? "-" : joined(reasons, "; "),
+                    s.combination ? utilization_text(s.max_utilization) : "-",
+                    s.pile ? p.piles[*s.pile].id : "-", combo_id(r, s.combination),
+                    to_string(s.check), std::to_string(s.failed_combinations),
+                    std::to_string(p.combinations.size()), std::to_string(p.piles.size())});
+  return t;
+}
+
+std::string header(const CheckReport& r, Format format) {
+  const Project& p = *r.project;
+  const std::string units =
+      p.units == UnitSystem::SI ? "SI (kN, m, kPa, kN·m)" : "US (kip, ft, ksf, kip·ft)";
+  if (format == Format::markdown)
+    return fmt::format("# Pile check: {}\n\n- tool: cairn {}\n- input: `{}`\n- units: {}\n- "
+                       "command: `{}`\n\n",
+                       p.title, CAIRN_VERSION, p.file, units, r.options);
+  return fmt::format("cairn {} — pile check: {}\ninput: {}\nunits: {}\ncommand: {}\n\n",
+                     CAIRN_VERSION, p.title, p.file, units, r.options);
+}
+
+std::string assumptions_block(const CheckReport& r, Format format) {
+  std::string text = format == Format::markdown ? "## Assumptions\n\n" : "Assumptions\n";
+  for (const auto& a : r.assumptions)
+    text += (format == Format::markdown ? "- " : "  - ") + a + "\n";
+  return text + "\n";
+}
+
+std::string explain_block(const CheckReport& r, Format format) {
+  const Project& p = *r.project;
+  const Units u(p.units);
+  const std::size_t pile = *r.explain_pile;
+  const std::string f = u.label(Quantity::force), m = u.label(Quantity::moment),
+                    l = u.label(Quantity::length), a = u.area_label();
+  const bool md = format == Format::markdown;
+  std::string text = md ? fmt::format("## Hand check of pile {}\n\n", p.piles[pile].id)
+                        : fmt::format("Hand check of pile {}\n", p.piles[pile].id);
+  text += fmt::format(
+      "{}P = V/n + (My·Ixx + Mx·Ixy)/(Ixx·Iyy − Ixy²)·x' − (Mx·Iyy + My·Ixy)/(Ixx·Iyy − Ixy²)·y'\n"
+      "{}with Ixx = Σy'², Iyy = Σx'², Ixy = Σx'y' over the active piles, x' = x − x̄, y' = y − ȳ,\n"
+      "{}V = −ΣFz and Mx, My the applied moments about the centroid at the pile heads.\n",
+      md ? "    " : "  ", md ? "    " : "  ", md ? "    " : "  ");
+  for (const HandCheck& h : r.hand_checks) {
+    const Combination& c = p.combinations[h.combination];
+    text += md ? fmt::format("\n### {} ({})\n\n", c.id, to_string(c.limit_state))
+               : fmt::format("\n  {} ({}):\n", c.id, to_string(c.limit_state));
+    const std::string in = md ? "- " : "    ";
+    if (!h.available) {
+      text += fmt::format("{}not available: {}; the rigid-cap solver gives P = {} {}\n", in,
+                          h.why_not, u.force(h.solver_axial), f);
+      continue;
+    }
+    const GroupSection& s = h.section;
+    text += fmt::format("{}n = {}, centroid (x̄, ȳ) = ({}, {}) {}\n", in, s.count,
+                        u.length(s.centroid_x), u.length(s.centroid_y), l);
+    text += fmt::format("{}Ixx = {} {}, Iyy = {} {}, Ixy = {} {}\n", in, u.area(s.ixx), a,
+                        u.area(s.iyy), a, u.area(s.ixy), a);
+    text += fmt::format("{}V = {} {}, Mx = {} {}, My = {} {}; eccentricity ex = {} {}, ey = {} {}\n",
+                        in, u.force(h.vertical), f, u.moment(h.moment_x), m, u.moment(h.moment_y),
+                        m, u.length(h.eccentricity_x), l, u.length(h.eccentricity_y), l);
+    const double det = s.ixx * s.iyy - s.ixy * s.ixy;
+    const double lf = to_si_factor(p.units, Quantity::length);
+    if (h.form != HandCheck::Form::general) {
+      // Piles on one line: the one-way form.
+      const bool along_x = h.form == HandCheck::Form::line_x;
+      text += fmt::format(
+          "{}piles on one line along {}: P = V/n {} {}·{}'/{}\n{}x' = {} {}, y' = {} {}\n"
+          "{}P = {}/{} {} {}·{}/{} = {} + {} = {} {}   (solver: {} {})\n",
+          in, along_x ? "x" : "y", along_x ? "+" : "−", along_x ? "My" : "Mx", along_x ? "x" : "y",
+          along_x ? "Iyy" : "Ixx", in, u.length(h.x_local), l, u.length(h.y_local), l, in,
+          u.force(h.vertical), s.count, along_x ? "+" : "−",
+          u.moment(along_x ? h.moment_y : h.moment_x),
+          u.length(along_x ? h.x_local : h.y_local), u.area(along_x ? s.iyy : s.ixx),
+          u.force(h.direct), u.force(along_x ? h.from_moment_y : h.from_moment_x),
+          u.force(h.axial), f, u.force(h.solver_axial), f);
+      continue;
+    }
+    text += fmt::format(
+        "{}x' = {} {}, y' = {} {}\n{}P = {}/{} + ({}·{} + {}·{})/{}·{} − ({}·{} + {}·{})/{}·{}\n"
+        "{}  = {} + {} + {} = {} {}   (solver: {} {})\n",
+        in, u.length(h.x_local), l, u.length(h.y_local), l, in, u.force(h.vertical), s.count,
+        u.moment(h.moment_y), u.area(s.ixx), u.moment(h.moment_x), u.area(s.ixy),
+        fixed_text(det / std::pow(lf, 4), 4), u.length(h.x_local), u.moment(h.moment_x),
+        u.area(s.iyy), u.moment(h.moment_y), u.area(s.ixy),
+        fixed_text(det / std::pow(lf, 4), 4), u.length(h.y_local), in, u.force(h.direct),
+        u.force(h.from_moment_y), u.force(h.from_moment_x), u.force(h.axial), f,
+        u.force(h.solver_axial), f);
+  }
+  return text + "\n";
+}
+
+}  // namespace
+
+std::string render_group(const CheckReport& report, Format format) {
+  return report.group ? group_block(report, format) : std::string();
+}
+
+GroupParts group_parts(const CheckReport& report) {
+  return report.group ? make_group_parts(report) : GroupParts{};
+}
+
+std::string render_table(const Table& table, Format format) {
+  std::string out;
+  switch (format) {
+    case Format::csv: {
+      auto line = [](const std::vector<std::string>& cells) {
+        std::string s;
+        for (std::size_t i = 0; i < cells.size(); ++i) s += (i ? "," : "") + csv_cell(cells[i]);
+        return s + "\n";
+      };
+      out += line(table.headers);
+      for (const auto& row : table.rows) out += line(row);
+      return out;
+    }
+    case Format::markdown: {
+      if (!table.title.empty()) out += "## " + table.title + "\n\n";
+      auto line = [](const std::vector<std::string>& cells) {
+        std::string s = "|";
+        for (const auto& c : cells) s += " " + c + " |";
+        return s + "\n";
+      };
+      out += line(table.headers);
+      std::string rule = "|";
+      for (std::size_t i = 0; i < table.headers.size(); ++i)
+        rule += (i < table.numeric.size() && table.numeric[i]) ? " ---: |" : " --- |";
+      out += rule + "\n";
+      for (const auto& row : table.rows) out += line(row);
+      return out + "\n";
+    }
+    case Format::text:
+    case Format::json: {
+      std::vector<std::size_t> w(table.headers.size());
+      for (std::size_t i = 0; i < w.size(); ++i) w[i] = width(table.headers[i]);
+      for (const auto& row : table.rows)
+        for (std::size_t i = 0; i < row.size() && i < w.size(); ++i) w[i] = std::max(w[i], width(row[i]));
+      if (!table.title.empty()) out += table.title + "\n";
+      auto line = [&](const std::vector<std::string>& cells) {
+        std::string s = " ";
+        for (std::size_t i = 0; i < cells.size(); ++i) {
+          const bool right = i < table.numeric.size() && table.numeric[i];
+          s += " " + pad(cells[i], w[i], right);
+        }
+        while (!s.empty() && s.back() == ' ') s.pop_back();
+        return s + "\n";
+      };
+      out += line(table.headers);
+      std::size_t total = 1;
+      for (auto x : w) total += x + 1;
+      out += "  " + std::string(total - 2, '-') + "\n";
+      for (const auto& row : table.rows) out += line(row);
+      return out + "\n";
+    }
+  }
+  return out;
+}
+
+std::string combination_formula(const Project& project, const Combination& combination) {
+  std::string text;
+  for (const auto& [index, factor] : combination.factors) {
+    if (!text.empty()) text += factor < 0 ? " − " : " + ";
+    else if (factor < 0) text += "−";
+    const double f = std::abs(factor);
+    text += f == std::round(f) ? fmt::format("{:.1f}·{}", f, project.load_cases[index].id)
+                               : fmt::format("{:g}·{}", f, project.load_cases[index].id);
+  }
+  return text;
+}
+
+std::string summary_line(const CheckReport& r) {
+  const Project& p = *r.project;
+  const CheckSummary& s = r.results->summary;
+  const std::string where =
+      fmt::format("pile {}, combination {}, {}", s.pile ? p.piles[*s.pile].id : "-",
+                  combo_id(r, s.combination), to_string(s.check));
+  if (s.pass)
+    return fmt::format("PASS: {} in {}; max utilization {} ({})",
+                       count_text(p.piles.size(), "pile"),
+                       count_text(p.combinations.size(), "combination"),
+                       utilization_text(s.max_utilization), where);
+  const std::string overturned = overturned_ids(r);
+  const bool group_fails = r.group && !r.group->pass;
+  const std::string utilization =
+      s.combination ? fmt::format("; max utilization {} ({})", utilization_text(s.max_utilization), where)
+                    : std::string();
+  // "1 of 3 combinations fails", "2 of 3 combinations fail".
+  return fmt::format("FAIL: {} of {} {}{}{}{}", s.failed_combinations,
+                     count_text(p.combinations.size(), "combination"),
+                     s.failed_combinations == 1 ? "fails" : "fail",
+                     overturned.empty() ? "" : "; the cap overturns in " + overturned, utilization,
+                     group_fails ? "; group checks fail (see Group checks)" : "");
+}
+
+json check_json(const CheckReport& r) {
+  const Project& p = *r.project;
+  const Units u(p.units);
+  json doc;
+  doc["tool"] = {{"name", "cairn"}, {"version", CAIRN_VERSION}};
+  doc["input"] = p.file;
+  doc["title"] = p.title;
+  doc["command"] = r.options;
+  doc["units"] = {{"system", to_string(p.units)},
+                  {"force", u.label(Quantity::force)},
+                  {"length", u.label(Quantity::length)},
+                  {"moment", u.label(Quantity::moment)},
+                  {"displacement", u.label(Quantity::small_length)},
+                  {"rotation", "rad"}};
+  json combos = json::array();
+  const double reach = cap_reach(p), resolution = displacement_resolution(p.units);
+  for (const CombinationCheck& cc : r.results->combinations) {
+    const Combination& c = p.combinations[cc.combination];
+    json factors = json::object();
+    for (const auto& [index, factor] : c.factors) factors[p.load_cases[index].id] = factor;
+    json piles = json::array();
+    for (std::size_t i = 0; i < p.piles.size(); ++i) {
+      const PileCheck& pc = cc.piles[i];
+      // An overturned cap has no pile forces: null, not zeros that would read as computed.
+      const bool none = pc.state == PileState::overturned;
+      json pile = {{"id", p.piles[i].id},
+                   {"axial", none ? json(nullptr) : json(u.value(Quantity::force, pc.axial))},
+                   {"lateral", none ? json(nullptr) : json(u.value(Quantity::force, pc.lateral))},
+                   {"active", pc.active},
+                   {"utilization", none ? json(nullptr) : number_or_null(pc.utilization)},
+                   {"governing", to_string(pc.governing)},
+                   {"state", to_string(pc.state)},
+                   {"pass", pc.pass},
+                   {"axial_stiffness", u.value(Quantity::stiffness, axial_stiffness(r, p.piles[i].type))},
+                   {"lateral_stiffness",
+                    u.value(Quantity::stiffness, lateral_stiffness(r, p.piles[i].type))}};
+      if (r.stiffness && (*r.stiffness)[p.piles[i].type].head == HeadFixity::fixed)
+        pile["head_moment"] =
+            none ? json(nullptr) : json(u.value(Quantity::moment, head_moment(r, i, pc.lateral)));
+      piles.push_back(pile);
+    }
+    const auto& m = cc.solution.movement;
+    json dropped = json::array();
+    for (auto i : cc.solution.dropped) dropped.push_back(p.piles[i].id);
+    json entry = {
+        {"id", c.id},
+        {"limit_state", to_string(c.limit_state)},
+        {"factors", factors},
+        {"source", c.generator.empty() ? std::string("given") : "generated: " + c.generator},
+        {"status", to_string(verdict(cc))},
+        {"cap",
+         {{"translation",
+           {u.value(Quantity::small_length, m.translation[0]),
+            u.value(Quantity::small_length, m.translation[1]),
+            u.value(Quantity::small_length, m.translation[2])}},
+          {"rotation",
+           {rotation_value(m.rotation[0], reach, resolution),
+            rotation_value(m.rotation[1], reach, resolution),
+            rotation_value(m.rotation[2], reach, resolution)}}}},
+        {"piles", piles},
+        {"dropped", dropped},
+        {"max_utilization", number_or_null(cc.max_utilization)},
+        {"governing_pile", cc.governing_pile ? json(p.piles[*cc.governing_pile].id) : json(nullptr)}};
+    if (cc.solution.overturns) entry["message"] = cc.solution.failure;
+    combos.push_back(entry);
+  }
+  doc["combinations"] = combos;
+  json envelope = json::array();
+  for (std::size_t i = 0; i < p.piles.size(); ++i) {
+    const PileEnvelope& e = r.results->envelope[i];
+    auto extreme = [&](const Extreme& x, Quantity q) {
+      return json{{"value", q == Quantity::number ? number_or_null(x.value)
+                                                  : json(u.value(q, x.value))},
+                  {"combination", x.combination ? json(p.combinations[*x.combination].id)
+                                                : json(nullptr)}};
+    };
+    envelope.push_back({{"pile", p.piles[i].id},
+                        {"max_compression", extreme(e.max_compression, Quantity::force)},
+                        {"max_tension", extreme(e.max_tension, Quantity::force)},
+                        {"max_lateral", extreme(e.max_lateral, Quantity::force)},
+                        {"max_utilization", extreme(e.max_utilization, Quantity::number)},
+                        {"governing", to_string(e.governing)},
+                        {"pass", e.pass}});
+  }
+  doc["envelope"] = envelope;
+  if (r.group) doc["group"] = group_json(r);
+  const CheckSummary& s = r.results->summary;
+  json overturned = json::array();
+  for (auto c : s.overturned) overturned.push_back(p.combinations[c].id);
+  doc["summary"] = {
+      {"pass", s.pass},
+      {"status", s.pass ? "pass" : "fail"},
+      {"reasons", failure_reasons(r)},
+      {"max_utilization", number_or_null(s.max_utilization)},
+      {"failed_combinations", s.failed_combinations},
+      {"overturned", overturned},
+      {"governing",
+       {{"pile", s.pile ? json(p.piles[*s.pile].id) : json(nullptr)},
+        {"combination", s.combination ? json(p.combinations[*s.combination].id) : json(nullptr)},
+        {"check", to_string(s.check)}}},
+      {"line", summary_line(r)}};
+  if (r.explain_pile) {
+    json hand = json::array();
+    for (const HandCheck& h : r.hand_checks) {
+      json e = {{"combination", p.combinations[h.combination].id}, {"available", h.available}};
+      if (!h.available) {
+        e["why_not"] = h.why_not;
+      } else {
+        const double lf = to_si_factor(p.units, Quantity::length);
+        e["n"] = h.section.count;
+        e["centroid"] = {u.value(Quantity::length, h.section.centroid_x),
+                         u.value(Quantity::length, h.section.centroid_y)};
+        // + 0.0 turns a negative zero (Ixy of a symmetric group) into 0.
+        e["Ixx"] = h.section.ixx / (lf * lf) + 0.0;
+        e["Iyy"] = h.section.iyy / (lf * lf) + 0.0;
+        e["Ixy"] = h.section.ixy / (lf * lf) + 0.0;
+        e["V"] = u.value(Quantity::force, h.vertical);
+        e["Mx"] = u.value(Quantity::moment, h.moment_x);
+        e["My"] = u.value(Quantity::moment, h.moment_y);
+        e["eccentricity"] = {u.value(Quantity::length, h.eccentricity_x),
+                             u.value(Quantity::length, h.eccentricity_y)};
+        e["axial"] = u.value(Quantity::force, h.axial);
+      }
+      e["solver_axial"] = u.value(Quantity::force, h.solver_axial);
+      hand.push_back(e);
+    }
+    doc["explain"] = {{"pile", p.piles[*r.explain_pile].id}, {"combinations", hand}};
+  }
+  doc["assumptions"] = r.assumptions;  // the warnings among them, as notes
+  nlohmann::json warnings = nlohmann::json::array();
+  for (const auto& w : p.warnings)
+    warnings.push_back({{"file", w.where.file}, {"line", w.where.line},
+                        {"column", w.where.column}, {"message", w.message}});
+  doc["warnings"] = warnings;
+  doc["caution"] = kCaution;
+  return doc;
+}
+
+std::string render_check(const CheckReport& r, Format format) {
+  if (format == Format::json) return check_json(r).dump(2) + "\n";
+  if (format == Format::csv) {
+    // One CSV stream: sections separated by a blank line, each headed by a comment line.
+    std::string out;
+    out += "# summary\n" + render_table(summary_table(r), Format::csv) + "\n";
+    out += "# envelope\n" + render_table(envelope_table(r), Format::csv);
+    for (const auto& cc : r.results->combinations) {
+      Table t = combination_table(r, cc);
+      out += "\n# " + t.title + "\n";
+      t.title.clear();
+      out += render_table(t, Format::csv);
+    }
+    out += "\n";
+    for (const auto& a : r.assumptions) out += "# assumption: " + a + "\n";
+    out += std::string("# ") + kCaution + "\n";
+    return out;
+  }
+  std::string out = header(r, format);
+  out += render_table(pile_types_table(r), format);
+  out += render_table(piles_table(r), format);
+  out += render_table(combinations_table(r), format);
+  for (const auto& cc : r.results->combinations) {
+    out += render_table(combination_table(r, cc), format);
+    // Markdown: the note is its own paragraph after the table's blank line, or a renderer
+    // would take it for one more table row.
+    if (format == Format::markdown)
+      out += combination_note(r, cc) + "\n\n";
+    else
+      out.insert(out.size() - 1, "  " + combination_note(r, cc) + "\n");
+  }
+  out += render_table(envelope_table(r), format);
+  if (r.group) out += group_block(r, format);
+  if (r.explain_pile) out += explain_block(r, format);
+  out += assumptions_block(r, format);
+  const std::string line = summary_line(r);
+  out += format == Format::markdown ? "**" + line + "**\n\n" : line + "\n\n";
+  out += format == Format::markdown ? std::string("_") + kCaution + "_\n" : kCaution + std::string("\n");
+  return out;
+}
+
+std::vector<std::pair<std::string, std::string>> check_files(const CheckReport& r) {
+  std::vector<std::pair<std::string, std::string>> files;
+  files.emplace_back("report.txt", render_check(r, Format::text));
+  files.emplace_back("report.md", render_check(r, Format::markdown));
+  files.emplace_back("results.json", render_check(r, Format::json));
+  std::string trailer;
+  for (const auto& a : r.assumptions) trailer += "# assumption: " + a + "\n";
+  trailer += std::string("# ") + kCaution + "\n";
+  Table summary = summary_table(r);
+  summary.title.clear();
+  files.emplace_back("summary.csv", render_table(summary, Format::csv) + trailer);
+  Table envelope = envelope_table(r);
+  envelope.title.clear();
+  files.emplace_back("envelope.csv", render_table(envelope, Format::csv) + trailer);
+  std::set<std::string> used;
+  for (const auto& cc : r.results->combinations) {
+    Table t = combination_table(r, cc);
+    t.title.clear();
+    std::string safe = r.project->combinations[cc.combination].id;
+    for (char& c : safe)
+      if (!(std::isalnum(static_cast<unsigned char>(c)) || c == '-' || c == '_' || c == '.')) c = '_';
+    // Different ids may read the same once made safe ("W+", "W_"): number the repeats.
+    std::string name = safe;
+    for (int n = 2; !used.insert(name).second; ++n) name = safe + "-" + std::to_string(n);
+    files.emplace_back("combination-" + name + ".csv", render_table(t, Format::csv) + trailer);
+  }
+  return files;
+}
+
+}  // namespace cairn
+
+namespace cairn {
+
+CheckTables check_tables(const CheckReport& r) {
+  CheckTables t;
+  t.pile_types = pile_types_table(r);
+  t.piles = piles_table(r);
+  t.combinations = combinations_table(r);
+  for (const auto& cc : r.results->combinations) {
+    t.per_combination.push_back(combination_table(r, cc));
+    t.per_combination_notes.push_back(combination_note(r, cc));
+  }
+  t.envelope = envelope_table(r);
+  t.summary = summary_table(r);
+  return t;
+}
+
+std::string hand_check_text(const CheckReport& r) {
+  return r.explain_pile ? explain_block(r, Format::text) : std::string();
+}
+
+}  // namespace cairn
+
+namespace cairn {
+
+std::string render_springs(const Project& project, const std::vector<PileTypeStiffness>& stiffness,
+                           Format format, const std::string& options) {
+  const Units u(project.units);
+  const std::string k = u.label(Quantity::stiffness), l = u.label(Quantity::length);
+  if (format == Format::json) {
+    json piles = json::array();
+    for (const Pile& pile : project.piles) {
+      const PileTypeStiffness& s = stiffness[pile.type];
+      const auto a = pile.axis();
+      piles.push_back({{"id", pile.id},
+                       {"type", project.pile_types[pile.type].id},
+                       {"x", u.value(Quantity::length, pile.x)},
+                       {"y", u.value(Quantity::length, pile.y)},
+                       {"axis", {a[0], a[1], a[2]}},
+                       {"axial_stiffness", u.value(Quantity::stiffness, s.axial)},
+                       {"lateral_stiffness", u.value(Quantity::stiffness, s.lateral)},
+                       {"head", s.head == HeadFixity::fixed ? "fixed" : "pinned"},
+                       {"axial_source", s.axial_source},
+                       {"lateral_source", s.lateral_source}});
+    }
+    json doc = {{"tool", {{"name", "cairn"}, {"version", CAIRN_VERSION}}},
+                {"input", project.file},
+                {"command", options},
+                {"units", {{"stiffness", k}, {"length", l}}},
+                {"piles", piles},
+                {"caution", kCaution}};
+    return doc.dump(2) + "\n";
+  }
+  Table t;
+  t.title = format == Format::csv ? "" : "Pile-head springs";
+  t.headers = {"pile", "type", "x (" + l + ")", "y (" + l + ")", "axis x", "axis y", "axis z",
+               "axial (" + k + ")", "lateral (" + k + ")", "head"};
+  t.numeric = {false, false, true, true, true, true, true, true, true, false};
+  for (const Pile& pile : project.piles) {
+    const PileTypeStiffness& s = stiffness[pile.type];
+    const auto a = pile.axis();
+    t.rows.push_back({pile.id, project.pile_types[pile.type].id, u.length(pile.x), u.length(pile.y),
+                      fixed_text(a[0], 4), fixed_text(a[1], 4),
+                      fixed_text(a[2], 4), u.stiffness(s.axial), u.stiffness(s.lateral),
+                      s.head == HeadFixity::fixed ? "fixed" : "pinned"});
+  }
+  if (format == Format::csv) return render_table(t, Format::csv) + "# " + kCaution + "\n";
+  const bool md = format == Format::markdown;
+  std::string out = md ? fmt::format("# Pile-head springs: {}\n\n- tool: cairn {}\n- input: `{}`\n- command: `{}`\n\n",
+                                     project.title, CAIRN_VERSION, project.file, options)
+                       : fmt::format("cairn {} — pile-head springs: {}\ninput: {}\ncommand: {}\n\n",
+                                     CAIRN_VERSION, project.title, project.file, options);
+  out += render_table(t, format);
+  out += md ? "Sources:\n\n" : "Sources\n";
+  for (std::size_t i = 0; i < project.pile_types.size(); ++i) {
+    out += fmt::format("{}{}: axial {}; lateral {}\n", md ? "- " : "  ", project.pile_types[i].id,
+                       stiffness[i].axial_source, stiffness[i].lateral_source);
+  }
+  out += "\nAxis: unit vector from pile head to toe. Springs act at the pile heads (underside of "
+         "the cap).\n\n";
+  out += kCaution + std::string("\n");
+  return out;
+}
+
+}  // namespace cairn
+
+namespace cairn {
+
+std::string render_cap_summary(const std::vector<CapSummaryRow>& rows, Format format,
+                               const std::string& options) {
+  std::size_t failing = 0;
+  for (const auto& r : rows) failing += r.pass ? 0 : 1;
+  if (format == Format::json) {
+    json caps = json::array();
+    for (const auto& r : rows) {
+      const Units u(r.units);
+      caps.push_back({{"file", r.file},
+                      {"title", r.title},
+                      {"units", to_string(r.units)},
+                      {"piles", r.piles},
+                      {"combinations", r.combinations},
+                      {"max_utilization", number_or_null(r.max_utilization)},
+                      {"governing", {{"pile", r.pile}, {"combination", r.combination}, {"check", r.check}}},
+                      {"settlement", r.settlement ? json(u.value(Quantity::small_length, *r.settlement)) : json(nullptr)},
+                      {"settlement_unit", u.label(Quantity::small_length)},
+                      {"status", r.status},
+                      {"pass", r.pass}});
+    }
+    json doc = {{"tool", {{"name", "cairn"}, {"version", CAIRN_VERSION}}},
+                {"command", options},
+                {"caps", caps},
+                {"summary", {{"pass", failing == 0}, {"caps", rows.size()}, {"failing", failing}}},
+                {"caution", kCaution}};
+    return doc.dump(2) + "\n";
+  }
+  Table t;
+  t.title = format == Format::csv ? "" : "Caps";
+  t.headers = {"cap", "file", "piles", "combinations", "max utilization", "pile", "combination",
+               "check", "settlement", "status"};
+  t.numeric = {false, false, true, true, true, false, false, false, true, false};
+  for (const auto& r : rows) {
+    const Units u(r.units);
+    t.rows.push_back({r.title, r.file, std::to_string(r.piles), std::to_string(r.combinations),
+                      utilization_text(r.max_utilization), r.pile, r.combination, r.check,
+                      r.settlement ? u.small(*r.settlement) + " " + u.label(Quantity::small_length)
+                                   : std::string("-"),
+                      r.status});
+  }
+  if (format == Format::csv) return render_table(t, Format::csv) + "# " + kCaution + "\n";
+  std::string out = format == Format::markdown
+                        ? fmt::format("# Foundation check\n\n- tool: cairn {}\n- command: `{}`\n\n",
+                                      CAIRN_VERSION, options)
+                        : fmt::format("cairn {} — foundation check\ncommand: {}\n\n", CAIRN_VERSION,
+                                      options);
+  out += render_table(t, format);
+  const std::string line =
+      failing == 0 ? (rows.size() == 1 ? std::string("PASS: the cap passes")
+                                       : fmt::format("PASS: all {} caps pass", rows.size()))
+                   : fmt::format("FAIL: {} of {} {}", failing, count_text(rows.size(), "cap"),
+                                 failing == 1 ? "fails" : "fail");
+  out += format == Format::markdown ? "**" + line + "**\n\n_" + kCaution + "_\n"
+                                    : line + "\n\n" + kCaution + "\n";
+  return out;
+}
+
+}  // namespace cairn

@@ -1,0 +1,593 @@
+#include "cairn/solver/cap_solver.hpp"
+
+#include <Eigen/Dense>
+#include <algorithm>
+#include <cmath>
+#include <limits>
+#include <set>
+#include <stdexcept>
+
+#include <fmt/format.h>
+
+namespace cairn {
+namespace {
+
+using Matrix6 = Eigen::Matrix<double, 6, 6>;
+using Vector6 = Eigen::Matrix<double, 6, 1>;
+using Matrix36 = Eigen::Matrix<double, 3, 6>;
+// The dofs that have stiffness: at most six, kept on the stack.
+using MatrixKept = Eigen::Matrix<double, Eigen::Dynamic, Eigen::Dynamic, 0, 6, 6>;
+using VectorKept = Eigen::Matrix<double, Eigen::Dynamic, 1, 0, 6, 1>;
+
+// A direction is taken to have no stiffness when its unit-spring stiffness is below this
+// share of the largest: pile heads within 1e-5·L of one line, an axis within 1e-5 rad of a
+// plane. It is a statement about geometry, so the piles' stiffness values do not enter.
+constexpr double kNullShare = 1e-10;
+// A load is along a direction with no stiffness when its component there exceeds this share
+// of the (nondimensional) load; below it, the component is round-off of the load's moment.
+constexpr double kLoadedShare = 1e-9;
+// A compression-only pile is in tension when its head moves away from the cap by more than
+// this share of the largest head movement (round-off is ~1e-16 of it).
+constexpr double kTensionShare = 1e-12;
+
+// Nondimensional kinematics: the cap moves Û = (t, θ) with θ = L·r, and a head at
+// ρ = (p − c)/L moves u = t + θ × ρ = T̂·Û with T̂ = [I | −[ρ]×].
+Matrix36 head_map(const Eigen::Vector3d& rho) {
+  Matrix36 t = Matrix36::Zero();
+  t.block<3, 3>(0, 0).setIdentity();
+  Eigen::Matrix3d skew;
+  skew << 0, -rho(2), rho(1), rho(2), 0, -rho(0), -rho(1), rho(0), 0;
+  t.block<3, 3>(0, 3) = -skew;
+  return t;
+}
+
+Eigen::Matrix3d spring_matrix(const Eigen::Vector3d& a, double axial, double lateral) {
+  const Eigen::Matrix3d aa = a * a.transpose();
+  return axial * aa + lateral * (Eigen::Matrix3d::Identity() - aa);
+}
+
+Eigen::Vector3d to_vector3(const std::array<double, 3>& v) { return {v[0], v[1], v[2]}; }
+
+std::array<double, 3> to_array(const Eigen::Vector3d& v) { return {v(0), v(1), v(2)}; }
+
+}  // namespace
+
+// Per pile: the head map, offset, axis and springs, kept for assembling any active subset
+// and for the pile forces.
+struct CapSolver::Impl {
+  Eigen::Vector3d reference = Eigen::Vector3d::Zero();  // c, m
+  std::array<double, 3> reference_point{};               // the same, as the model writes it
+  double size = 1.0;                                     // L, m
+  std::vector<Matrix36> maps;                            // T̂ (nondimensional)
+  std::vector<Eigen::Vector3d> offsets;                  // ρ = (p − c)/L
+  std::vector<Eigen::Vector3d> axes;
+  std::vector<double> axial, lateral;                    // kN/m
+  std::vector<Matrix6> contributions;                    // T̂ᵀ·K_pile·T̂, kN/m
+  // A pile that dropped out (it takes no tension) keeps its lateral spring: the soil still
+  // holds it across its axis. Its lateral-only contribution:
+  std::vector<Matrix6> lateral_contributions;
+  // The same with every existing spring of stiffness 1: its null space is the stiffness's
+  // (K = Σ of positive semidefinite terms, so K·v = 0 exactly when every spring is idle),
+  // and it is as well conditioned as the geometry, whatever the stiffness ratios.
+  std::vector<Matrix6> pattern, lateral_pattern;
+
+  // The solvable part of the stiffness of one active set.
+  struct Decomposition {
+    std::vector<int> kept;        // dofs with stiffness, in order
+    std::vector<Vector6> null;    // unit directions with none (Û coordinates)
+    VectorKept equilibration;     // D = diag(1/√K_jj) over the kept dofs
+    Eigen::LDLT<MatrixKept> factor;  // of D·K·D + Σ m·mᵀ (m: null directions among kept)
+  };
+  Decomposition all_active;
+
+  Decomposition decompose(const std::vector<bool>& active) const {
+    Matrix6 k = Matrix6::Zero(), unit = Matrix6::Zero();
+    for (std::size_t i = 0; i < maps.size(); ++i) {
+      k += active[i] ? contributions[i] : lateral_contributions[i];
+      unit += active[i] ? pattern[i] : lateral_pattern[i];
+    }
+    Decomposition result;
+    // Dofs with no stiffness at all (vertical piles without lateral springs: ux, uy, rz)
+    // are set aside whole, so the equilibration below works on the others undisturbed.
+    const double largest_diagonal = unit.diagonal().maxCoeff();
+    for (int j = 0; j < 6; ++j) {
+      if (unit(j, j) > kNullShare * largest_diagonal && k(j, j) > 0.0) {
+        result.kept.push_back(j);
+      } else {
+        result.null.push_back(Vector6::Unit(j));
+      }
+    }
+    const int n = static_cast<int>(result.kept.size());
+    MatrixKept kept_k(n, n), kept_unit(n, n);
+    result.equilibration.resize(n);
+    for (int a = 0; a < n; ++a) {
+      result.equilibration(a) = 1.0 / std::sqrt(k(result.kept[a], result.kept[a]));
+      for (int b = 0; b < n; ++b) {
+        kept_k(a, b) = k(result.kept[a], result.kept[b]);
+        kept_unit(a, b) = unit(result.kept[a], result.kept[b]);
+      }
+    }
+    const auto& d = result.equilibration;
+    MatrixKept equilibrated = d.asDiagonal() * kept_k * d.asDiagonal();
+    // Couplings that are round-off of sums cancelling to zero (Σ k·x over a symmetric group)
+    // are zero: with a unit diagonal every coupling lies within ±1, and one of 1e-12 changes
+    // no result beyond its twelfth digit. A symmetric group under a symmetric load then
+    // moves exactly as symmetrically (zero rotations stay exact zeros).
+    constexpr double kCancelled = 1e-12;
+    for (int a = 0; a < n; ++a)
+      for (int b = 0; b < n; ++b)
+        if (a != b && std::abs(equilibrated(a, b)) < kCancelled) equilibrated(a, b) = 0.0;
+    // Directions with no stiffness that mix the kept dofs (piles on a line askew to x and
+    // y): found on the unit-spring copy, then made stiff (unit stiffness, the scale of the
+    // equilibrated matrix) so the factorization sees a definite matrix. A load has no
+    // component along them (checked before solving), so they move nothing.
+    if (n > 0) {
+      const Eigen::SelfAdjointEigenSolver<MatrixKept> eigen(kept_unit);
+      const double largest = eigen.eigenvalues().cwiseAbs().maxCoeff();
+      for (int i = 0; i < n; ++i) {
+        if (eigen.eigenvalues()(i) > kNullShare * largest) continue;
+        const VectorKept direction = eigen.eigenvectors().col(i);
+        Vector6 full = Vector6::Zero();
+        for (int a = 0; a < n; ++a) full(result.kept[a]) = direction(a);
+        result.null.push_back(full);
+        // In the equilibrated unknowns y = D⁻¹·Û the same direction is D⁻¹·v.
+        const VectorKept m = direction.cwiseQuotient(d).normalized();
+        equilibrated += m * m.transpose();
+      }
+    }
+    result.factor.compute(equilibrated);
+    return result;
+  }
+
+  // Loaded directions with no stiffness: the component names (index 0–5) that carry them.
+  std::vector<int> loaded_null(const Decomposition& dec, const Vector6& load) const {
+    std::vector<int> components;
+    const double size = load.norm();
+    if (size == 0.0) return components;
+    for (const Vector6& v : dec.null) {
+      if (std::abs(v.dot(load)) > kLoadedShare * size) {
+        // The loaded component along this direction: the largest |v_j·F_j|.
+        int component = 0;
+        v.cwiseProduct(load).cwiseAbs().maxCoeff(&component);
+        components.push_back(component);
+      }
+    }
+    return components;
+  }
+
+  // Û solving K̂·Û = F̂ over the dofs with stiffness (zero along the others).
+  Vector6 solve(const Decomposition& dec, const Vector6& load) const {
+    const int n = static_cast<int>(dec.kept.size());
+    VectorKept right(n);
+    for (int a = 0; a < n; ++a) right(a) = dec.equilibration(a) * load(dec.kept[a]);
+    const VectorKept y = dec.factor.solve(right);
+    Vector6 movement = Vector6::Zero();
+    for (int a = 0; a < n; ++a) movement(dec.kept[a]) = dec.equilibration(a) * y(a);
+    return movement;
+  }
+
+  // F̂ = (F, M/L): the load nondimensional like Û.
+  Vector6 scaled(const CapLoad& load) const {
+    Vector6 v;
+    for (int i = 0; i < 6; ++i)
+      v(i) = load.about_reference[static_cast<std::size_t>(i)] / (i < 3 ? 1.0 : size);
+    return v;
+  }
+
+  // The movement Û of a reported solution.
+  Vector6 movement_of(const CapMovement& m) const {
+    Vector6 u;
+    for (int i = 0; i < 3; ++i) {
+      u(i) = m.translation_at_reference[static_cast<std::size_t>(i)];
+      u(i + 3) = m.rotation[static_cast<std::size_t>(i)] * size;
+    }
+    return u;
+  }
+
+  // Head movement along each pile axis, and the largest head movement of all.
+  std::vector<double> along(const Vector6& movement, double& largest) const {
+    std::vector<double> result(maps.size());
+    largest = 0.0;
+    for (std::size_t i = 0; i < maps.size(); ++i) {
+      const Eigen::Vector3d u = head_movement<double>(i, movement);
+      result[i] = axes[i].dot(u);
+      largest = std::max(largest, u.norm());
+    }
+    return result;
+  }
+
+  // Pile forces and the equilibrium check are written for double and for long double
+  // (64-bit significand on x86-64). A pile 1e10 times stiffer than the others moves 1e-10 of
+  // their movement along its axis; in double, a·u keeps only ~1e-6 of that, and so would its
+  // force. Groups whose imbalance in double shows this are settled in long double.
+  template <typename Real>
+  using Vector6R = Eigen::Matrix<Real, 6, 1>;
+  template <typename Real>
+  using Vector3R = Eigen::Matrix<Real, 3, 1>;
+
+  // Force of the cap on pile i at head movement u: k_a·(a·u)·a + k_l·(u − (a·u)·a), written
+  // with a·u (never a rounded 3×3 matrix times u, which would lose the small axial movement
+  // of a stiff pile moving mostly across its axis).
+  template <typename Real>
+  Vector3R<Real> pile_force(std::size_t i, bool active, const Vector3R<Real>& u) const {
+    const Vector3R<Real> a = axes[i].cast<Real>();
+    const Real along = a.dot(u);
+    return (active ? static_cast<Real>(axial[i]) * along : Real(0)) * a +
+           static_cast<Real>(lateral[i]) * (u - along * a);
+  }
+
+  // Head movement of pile i: u = t + θ × ρ (= T̂·Û).
+  template <typename Real>
+  Vector3R<Real> head_movement(std::size_t i, const Vector6R<Real>& movement) const {
+    const Vector3R<Real> t = movement.template head<3>();
+    const Vector3R<Real> theta = movement.template tail<3>();
+    return t + theta.cross(offsets[i].cast<Real>());
+  }
+
+  // F̂ − Σ T̂ᵀ·f_i: the load the piles leave unbalanced, about c, moments over L
+  // (T̂ᵀ·f = (f, ρ × f)).
+  template <typename Real>
+  Vector6R<Real> imbalance(const std::vector<bool>& active, const Vector6R<Real>& movement,
+                           const Vector6& load) const {
+    Vector6R<Real> sum = load.cast<Real>();
+    for (std::size_t i = 0; i < offsets.size(); ++i) {
+      const Vector3R<Real> f = pile_force<Real>(i, active[i], head_movement<Real>(i, movement));
+      sum.template head<3>() -= f;
+      sum.template tail<3>() -= offsets[i].cast<Real>().cross(f);
+    }
+    return sum;
+  }
+
+  // The largest component of an imbalance over the largest component of F̂: forces over the
+  // largest applied force, moments over L times it. Not a number when either is not finite.
+  template <typename Real>
+  static double relative(const Vector6R<Real>& miss, const Vector6& load) {
+    if (!miss.allFinite() || !load.allFinite()) return std::numeric_limits<double>::quiet_NaN();
+    const double applied = load.cwiseAbs().maxCoeff();
+    const double missed = static_cast<double>(miss.cwiseAbs().maxCoeff());
+    if (applied == 0.0) return missed == 0.0 ? 0.0 : std::numeric_limits<double>::infinity();
+    return missed / applied;
+  }
+
+  // The solution for movement Û (forces, reported movement, relative imbalance). A movement
+  // whose imbalance exceeds 1e-13 of the load — rounding in a well-conditioned group is
+  // ~1e-16 — is refined in long double (iterative refinement, Û += K̂⁻¹·(F̂ − K̂·Û), while
+  // the imbalance falls): piles of stiffness ratio R start near 1e-16·R and settle in a step
+  // or two, to ~1e-19·R.
+  CapSolution settled(const Decomposition& dec, const std::vector<bool>& active,
+                      const Vector6& load, const Vector6& first) const {
+    constexpr double kSettled = 1e-13;
+    const double residual = relative(imbalance<double>(active, first, load), load);
+    if (!(residual > kSettled)) return forces_from<double>(first, active, residual);
+    Vector6R<long double> movement = first.cast<long double>();
+    Vector6R<long double> miss = imbalance<long double>(active, movement, load);
+    double refined = relative(miss, load);
+    for (int step = 0; step < 4 && refined > kSettled; ++step) {
+      const Vector6R<long double> next =
+          movement + solve(dec, miss.cast<double>()).cast<long double>();
+      const Vector6R<long double> next_miss = imbalance<long double>(active, next, load);
+      const double next_refined = relative(next_miss, load);
+      if (!(next_refined < refined)) break;
+      movement = next;
+      miss = next_miss;
+      refined = next_refined;
+    }
+    return forces_from<long double>(movement, active, refined);
+  }
+
+  // Pile forces and the reported movement from the nondimensional movement Û.
+  template <typename Real>
+  CapSolution forces_from(const Vector6R<Real>& movement, const std::vector<bool>& active,
+                          double residual) const {
+    CapSolution solution;
+    const Eigen::Vector3d t = movement.template head<3>().template cast<double>();
+    const Eigen::Vector3d r =
+        (movement.template tail<3>() / static_cast<Real>(size)).template cast<double>();
+    solution.movement.reference = to_array(reference);
+    solution.movement.translation_at_reference = to_array(t);
+    solution.movement.rotation = to_array(r);
+    // t₀ = t + r × (0 − c): the cap point at the origin, for display.
+    solution.movement.translation = to_array(t - r.cross(reference));
+    solution.piles.resize(maps.size());
+    for (std::size_t i = 0; i < maps.size(); ++i) {
+      const Vector3R<Real> u = head_movement<Real>(i, movement);
+      const Vector3R<Real> a = axes[i].cast<Real>();
+      const Real along = a.dot(u);
+      auto& pile = solution.piles[i];
+      pile.active = active[i];
+      // An inactive pile carries no axial force: report zero.
+      pile.axial = active[i] ? static_cast<double>(axial[i] * along) : 0.0;
+      pile.lateral = static_cast<double>(lateral[i] * (u - along * a).norm());
+    }
+    solution.residual = residual;
+    return solution;
+  }
+};
+
+std::vector<PileSpring> pile_springs(const Project& project) {
+  std::vector<PileSpring> springs;
+  springs.reserve(project.piles.size());
+  for (const auto& pile : project.piles) {
+    const auto& type = project.pile_types.at(pile.type);
+    springs.push_back({{pile.x, pile.y, 0.0}, pile.axis(), type.axial_stiffness_used(),
+                       type.lateral_stiffness_used(), type.tension});
+  }
+  return springs;
+}
+
+CapSolver::CapSolver(std::vector<PileSpring> springs)
+    : springs_(std::move(springs)), impl_(std::make_unique<Impl>()) {
+  Impl& m = *impl_;
+  // Elastic centre: c = p₀ + Σ w_i·(p_i − p₀)/Σ w_i with w_i the vertical stiffness
+  // k_a·a_z² + k_l·(1 − a_z²). Taken from the first head so that c stays among the heads
+  // and every p_i − c is an exact difference of nearby numbers. Equal weights when no pile
+  // has vertical stiffness.
+  if (!springs_.empty()) {
+    const Eigen::Vector3d first = to_vector3(springs_[0].head);
+    std::vector<double> weight;
+    double total = 0.0;
+    for (const auto& s : springs_) {
+      const double vertical = s.axis[2] * s.axis[2];
+      weight.push_back(s.axial * vertical + s.lateral * (1.0 - vertical));
+      total += weight.back();
+    }
+    if (!(total > 0.0)) {
+      weight.assign(springs_.size(), 1.0);
+      total = static_cast<double>(springs_.size());
+    }
+    Eigen::Vector3d shift = Eigen::Vector3d::Zero();
+    for (std::size_t i = 0; i < springs_.size(); ++i)
+      shift += (weight[i] / total) * (to_vector3(springs_[i].head) - first);
+    m.reference = first + shift;
+    // Rounded to a grid of about 1e-6 of the group's extent (a power of two, so the rounding
+    // is exact): a symmetric group about the origin gets c = 0 exactly instead of ~1e-16, and
+    // its symmetric results stay exact zeros. c only needs to lie near the elastic centre.
+    double extent = 0.0;
+    for (const auto& s : springs_) extent = std::max(extent, (to_vector3(s.head) - first).norm());
+    if (extent > 0.0 && std::isfinite(extent)) {
+      const double grid = std::ldexp(1.0, std::ilogb(extent) - 20);
+      for (int j = 0; j < 3; ++j) m.reference(j) = std::round(m.reference(j) / grid) * grid;
+    }
+  }
+  m.reference_point = to_array(m.reference);
+  double reach = 0.0;
+  for (const auto& s : springs_) reach = std::max(reach, (to_vector3(s.head) - m.reference).norm());
+  m.size = reach > 0.0 ? reach : 1.0;
+  for (const auto& s : springs_) {
+    const Eigen::Vector3d a = to_vector3(s.axis);
+    m.offsets.push_back((to_vector3(s.head) - m.reference) / m.size);
+    m.maps.push_back(head_map(m.offsets.back()));
+    m.axes.push_back(a);
+    m.axial.push_back(s.axial);
+    m.lateral.push_back(s.lateral);
+    const Matrix36& t = m.maps.back();
+    m.contributions.push_back(t.transpose() * spring_matrix(a, s.axial, s.lateral) * t);
+    m.lateral_contributions.push_back(t.transpose() * spring_matrix(a, 0.0, s.lateral) * t);
+    const double has_lateral = s.lateral > 0.0 ? 1.0 : 0.0;
+    m.pattern.push_back(t.transpose() *
+                        spring_matrix(a, s.axial > 0.0 ? 1.0 : 0.0, has_lateral) * t);
+    m.lateral_pattern.push_back(t.transpose() * spring_matrix(a, 0.0, has_lateral) * t);
+  }
+  m.all_active = m.decompose(std::vector<bool>(springs_.size(), true));
+}
+
+CapSolver::~CapSolver() = default;
+CapSolver::CapSolver(CapSolver&&) noexcept = default;
+CapSolver& CapSolver::operator=(CapSolver&&) noexcept = default;
+
+const std::array<double, 3>& CapSolver::reference() const { return impl_->reference_point; }
+
+double CapSolver::size() const { return impl_->size; }
+
+CapLoad CapSolver::from_origin(const Wrench& w) const {
+  // M_c = M₀ + (0 − c) × F.
+  const Eigen::Vector3d c = impl_->reference;
+  const Eigen::Vector3d force(w[0], w[1], w[2]);
+  const Eigen::Vector3d moment = Eigen::Vector3d(w[3], w[4], w[5]) + (-c).cross(force);
+  return CapLoad({w[0], w[1], w[2], moment(0), moment(1), moment(2)});
+}
+
+std::vector<UnresistedLoad> CapSolver::unresisted(const CapLoad& load) const {
+  std::vector<UnresistedLoad> result;
+  bool battered = false, lateral = false;
+  for (const auto& s : springs_) {
+    battered = battered || std::abs(s.axis[2] + 1.0) > 1e-12;
+    lateral = lateral || s.lateral > 0.0;
+  }
+  for (int component : impl_->loaded_null(impl_->all_active, impl_->scaled(load))) {
+    std::string reason;
+    if (springs_.empty()) {
+      reason = "the cap has no piles";
+    } else if (!battered && !lateral && (component <= 1 || component == 5)) {
+      reason = "no battered piles and no lateral stiffness";
+    } else {
+      reason = "the piles' axes and lateral springs give no stiffness in this direction";
+    }
+    const std::string name = kWrenchNames[static_cast<std::size_t>(component)];
+    const bool seen = std::any_of(result.begin(), result.end(),
+                                  [&](const UnresistedLoad& u) { return u.component == name; });
+    if (!seen) result.push_back({name, reason});
+  }
+  return result;
+}
+
+std::vector<UnresistedLoad> CapSolver::unresisted(const Wrench& about_origin) const {
+  return unresisted(from_origin(about_origin));
+}
+
+CapSolution CapSolver::solve_linear(const CapLoad& load) const {
+  const std::vector<bool> all(springs_.size(), true);
+  const Vector6 f = impl_->scaled(load);
+  CapSolution solution =
+      impl_->settled(impl_->all_active, all, f, impl_->solve(impl_->all_active, f));
+  solution.iterations = 1;
+  return solution;
+}
+
+CapSolution CapSolver::solve_linear(const Wrench& about_origin) const {
+  return solve_linear(from_origin(about_origin));
+}
+
+bool CapSolver::needs_redistribution(const CapSolution& solution) const {
+  double largest = 0.0;
+  const std::vector<double> along = impl_->along(impl_->movement_of(solution.movement), largest);
+  for (std::size_t i = 0; i < springs_.size(); ++i) {
+    if (!springs_[i].tension && solution.piles[i].active && along[i] < -kTensionShare * largest)
+      return true;
+  }
+  return false;
+}
+
+CapSolution CapSolver::superpose(const std::vector<std::pair<const CapSolution*, double>>& parts,
+                                 const CapLoad& load) const {
+  Vector6 u = Vector6::Zero();
+  for (const auto& [part, factor] : parts) u += factor * impl_->movement_of(part->movement);
+  const std::vector<bool> all(springs_.size(), true);
+  // The parts were settled against their own loads; the sum is settled against the
+  // combination's (for very stiff piles the rounded parts do not add up to it).
+  CapSolution solution = impl_->settled(impl_->all_active, all, impl_->scaled(load), u);
+  solution.iterations = 0;
+  return solution;
+}
+
+CapSolution CapSolver::superpose(const std::vector<std::pair<const CapSolution*, double>>& parts,
+                                 const Wrench& about_origin) const {
+  return superpose(parts, from_origin(about_origin));
+}
+
+CapSolution CapSolver::solve(const Wrench& about_origin) const {
+  return solve(from_origin(about_origin));
+}
+
+CapSolution CapSolver::solve(const CapLoad& load) const {
+  const std::size_t n = springs_.size();
+  const Vector6 f = impl_->scaled(load);
+  std::vector<bool> active(n, true);
+  std::set<std::vector<bool>> seen, slow_seen;
+  bool one_at_a_time = false;
+  // Piles left out for good: see the one-at-a-time steps below.
+  std::vector<bool> left_out(n, false);
+  const int limit = static_cast<int>(4 * n + 20);
+  for (int iteration = 1; iteration <= limit; ++iteration) {
+    const bool all = std::find(active.begin(), active.end(), false) == active.end();
+    const auto dec = all ? impl_->all_active : impl_->decompose(active);
+    const auto loaded = impl_->loaded_null(dec, f);
+    const bool any_active = std::find(active.begin(), active.end(), true) != active.end();
+    if (!loaded.empty() || !any_active) {
+      CapSolution failed;
+      failed.piles.assign(n, PileForce{0.0, 0.0, false});
+      for (std::size_t i = 0; i < n; ++i) {
+        failed.piles[i].active = active[i];
+        if (!active[i]) failed.dropped.push_back(i);
+      }
+      failed.movement.reference = to_array(impl_->reference);
+      failed.overturns = true;
+      failed.iterations = iteration;
+      failed.failure =
+          "the cap overturns: the piles that take no tension cannot hold the resultant of the "
+          "loads; it lies outside the reach of the piles left in compression";
+      return failed;
+    }
+    const Vector6 u = impl_->solve(dec, f);
+    // Would-be axial movement of every pile head, active or not.
+    double largest = 0.0;
+    const std::vector<double> along = impl_->along(u, largest);
+    const double tol = kTensionShare * largest;
+    std::vector<std::size_t> drop, add;
+    for (std::size_t i = 0; i < n; ++i) {
+      if (springs_[i].tension) continue;
+      if (active[i] && along[i] < -tol) drop.push_back(i);
+      if (!active[i] && !left_out[i] && along[i] > tol) add.push_back(i);
+    }
+    if (drop.empty() && add.empty()) {
+      CapSolution solution = impl_->settled(dec, active, f, u);
+      for (std::size_t i = 0; i < n; ++i)
+        if (!active[i]) solution.dropped.push_back(i);
+      solution.iterations = iteration;
+      return solution;
+    }
+    if (one_at_a_time) {
+      // Change one pile at a time: the most stretched active pile, else the most closed one.
+      std::size_t changed = 0;
+      if (!drop.empty()) {
+        changed = *std::min_element(drop.begin(), drop.end(),
+                                    [&](auto a, auto b) { return along[a] < along[b]; });
+        active[changed] = false;
+      } else {
+        changed = *std::max_element(add.begin(), add.end(),
+                                    [&](auto a, auto b) { return along[a] < along[b]; });
+        active[changed] = true;
+      }
+      // A dropped pile loses its lateral spring as well as its axial one, so a
+      // compression-only pile with a lateral spring can have no consistent state: out, the
+      // cap closes on it; back in, its own lateral spring pulls it into tension (its axial
+      // force is near zero either way). One pile at a time, the steps are fixed by the
+      // state, so returning to a state met on this path is a cycle: the pile that closes it
+      // is left out for good (it carries nothing; the others hold the load).
+      if (!slow_seen.insert(active).second) {
+        active[changed] = false;
+        left_out[changed] = true;
+      }
+    } else {
+      for (auto i : drop) active[i] = false;
+      for (auto i : add) active[i] = true;
+      if (!seen.insert(active).second) {  // a cycle: go slowly
+        one_at_a_time = true;
+        slow_seen.insert(active);
+      }
+    }
+  }
+  throw std::logic_error("the compression-only iteration did not settle");
+}
+
+}  // namespace cairn
+
+namespace cairn {
+
+std::vector<UnresistedCase> unresisted_cases(const Project& project, const CapSolver& solver) {
+  std::vector<UnresistedCase> result;
+  for (std::size_t c = 0; c < project.load_cases.size(); ++c)
+    for (const auto& u :
+         solver.unresisted(CapLoad(resultant_about(project.load_cases[c], solver.reference()))))
+      result.push_back({c, u});
+  return result;
+}
+
+Wrench combination_load(const Project& project, const Combination& combination,
+                        const std::array<double, 3>& point) {
+  Wrench total{};
+  for (const auto& [index, factor] : combination.factors) {
+    const Wrench w = resultant_about(project.load_cases[index], point);
+    for (std::size_t i = 0; i < 6; ++i) total[i] += factor * w[i];
+  }
+  return total;
+}
+
+Wrench combination_load(const Project& project, const Combination& combination) {
+  return combination_load(project, combination, {0.0, 0.0, 0.0});
+}
+
+std::vector<CapSolution> solve_combinations(const Project& project, const CapSolver& solver) {
+  std::vector<CapSolution> per_case;
+  per_case.reserve(project.load_cases.size());
+  for (const auto& lc : project.load_cases)
+    per_case.push_back(solver.solve_linear(CapLoad(resultant_about(lc, solver.reference()))));
+  constexpr double kResidualLimit = 1e-6;
+  std::vector<CapSolution> result;
+  result.reserve(project.combinations.size());
+  for (const auto& combo : project.combinations) {
+    const CapLoad load(combination_load(project, combo, solver.reference()));
+    std::vector<std::pair<const CapSolution*, double>> parts;
+    for (const auto& [index, factor] : combo.factors) parts.emplace_back(&per_case[index], factor);
+    CapSolution solution = solver.superpose(parts, load);
+    if (solver.needs_redistribution(solution)) solution = solver.solve(load);
+    if (!solution.overturns && !(solution.residual <= kResidualLimit))  // NaN fails too
+      throw std::logic_error(fmt::format(
+          "combination '{}' misses equilibrium by {:.3g} of the load", combo.id,
+          solution.residual));
+    result.push_back(std::move(solution));
+  }
+  return result;
+}
+
+}  // namespace cairn

@@ -1,5 +1,5 @@
 // group.cpp — group layout, efficiency, block failure, uplift and settlement.
-// Equations and their sources are in include/cairn/group.hpp and docs/methods-group.md.
+// Equations and their sources are in include/cairn/geotechnics/group.hpp and docs/methods-group.md.
 #include "cairn/geotechnics/group.hpp"
 
 #include <algorithm>

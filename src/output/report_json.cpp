@@ -1,0 +1,150 @@
+#include "report_parts.hpp"
+
+#include <algorithm>
+#include <cmath>
+#include <limits>
+#include <set>
+
+namespace cairn {
+
+using namespace report_detail;
+
+json check_json(const CheckReport& r) {
+  const Project& p = *r.project;
+  const Units u(p.units);
+  json doc;
+  doc["tool"] = {{"name", "cairn"}, {"version", CAIRN_VERSION}};
+  doc["input"] = p.file;
+  doc["title"] = p.title;
+  doc["command"] = r.options;
+  doc["units"] = {{"system", to_string(p.units)},
+                  {"force", u.label(Quantity::force)},
+                  {"length", u.label(Quantity::length)},
+                  {"moment", u.label(Quantity::moment)},
+                  {"displacement", u.label(Quantity::small_length)},
+                  {"rotation", "rad"}};
+  json combos = json::array();
+  const double reach = cap_reach(p), resolution = displacement_resolution(p.units);
+  for (const CombinationCheck& cc : r.results->combinations) {
+    const Combination& c = p.combinations[cc.combination];
+    json factors = json::object();
+    for (const auto& [index, factor] : c.factors) factors[p.load_cases[index].id] = factor;
+    json piles = json::array();
+    for (std::size_t i = 0; i < p.piles.size(); ++i) {
+      const PileCheck& pc = cc.piles[i];
+      // An overturned cap has no pile forces: null, not zeros that would read as computed.
+      const bool none = pc.state == PileState::overturned;
+      json pile = {{"id", p.piles[i].id},
+                   {"axial", none ? json(nullptr) : json(u.value(Quantity::force, pc.axial))},
+                   {"lateral", none ? json(nullptr) : json(u.value(Quantity::force, pc.lateral))},
+                   {"active", pc.active},
+                   {"utilization", none ? json(nullptr) : number_or_null(pc.utilization)},
+                   {"governing", to_string(pc.governing)},
+                   {"state", to_string(pc.state)},
+                   {"pass", pc.pass},
+                   {"axial_stiffness", u.value(Quantity::stiffness, axial_stiffness(r, p.piles[i].type))},
+                   {"lateral_stiffness",
+                    u.value(Quantity::stiffness, lateral_stiffness(r, p.piles[i].type))}};
+      if (r.stiffness && (*r.stiffness)[p.piles[i].type].head == HeadFixity::fixed)
+        pile["head_moment"] =
+            none ? json(nullptr) : json(u.value(Quantity::moment, head_moment(r, i, pc.lateral)));
+      piles.push_back(pile);
+    }
+    const auto& m = cc.solution.movement;
+    json dropped = json::array();
+    for (auto i : cc.solution.dropped) dropped.push_back(p.piles[i].id);
+    json entry = {
+        {"id", c.id},
+        {"limit_state", to_string(c.limit_state)},
+        {"factors", factors},
+        {"source", c.generator.empty() ? std::string("given") : "generated: " + c.generator},
+        {"status", to_string(verdict(cc))},
+        {"cap",
+         {{"translation",
+           {u.value(Quantity::small_length, m.translation[0]),
+            u.value(Quantity::small_length, m.translation[1]),
+            u.value(Quantity::small_length, m.translation[2])}},
+          {"rotation",
+           {rotation_value(m.rotation[0], reach, resolution),
+            rotation_value(m.rotation[1], reach, resolution),
+            rotation_value(m.rotation[2], reach, resolution)}}}},
+        {"piles", piles},
+        {"dropped", dropped},
+        {"max_utilization", number_or_null(cc.max_utilization)},
+        {"governing_pile", cc.governing_pile ? json(p.piles[*cc.governing_pile].id) : json(nullptr)}};
+    if (cc.solution.overturns) entry["message"] = cc.solution.failure;
+    combos.push_back(entry);
+  }
+  doc["combinations"] = combos;
+  json envelope = json::array();
+  for (std::size_t i = 0; i < p.piles.size(); ++i) {
+    const PileEnvelope& e = r.results->envelope[i];
+    auto extreme = [&](const Extreme& x, Quantity q) {
+      return json{{"value", q == Quantity::number ? number_or_null(x.value)
+                                                  : json(u.value(q, x.value))},
+                  {"combination", x.combination ? json(p.combinations[*x.combination].id)
+                                                : json(nullptr)}};
+    };
+    envelope.push_back({{"pile", p.piles[i].id},
+                        {"max_compression", extreme(e.max_compression, Quantity::force)},
+                        {"max_tension", extreme(e.max_tension, Quantity::force)},
+                        {"max_lateral", extreme(e.max_lateral, Quantity::force)},
+                        {"max_utilization", extreme(e.max_utilization, Quantity::number)},
+                        {"governing", to_string(e.governing)},
+                        {"pass", e.pass}});
+  }
+  doc["envelope"] = envelope;
+  if (r.group) doc["group"] = group_json(r);
+  const CheckSummary& s = r.results->summary;
+  json overturned = json::array();
+  for (auto c : s.overturned) overturned.push_back(p.combinations[c].id);
+  doc["summary"] = {
+      {"pass", s.pass},
+      {"status", s.pass ? "pass" : "fail"},
+      {"reasons", failure_reasons(r)},
+      {"max_utilization", number_or_null(s.max_utilization)},
+      {"failed_combinations", s.failed_combinations},
+      {"overturned", overturned},
+      {"governing",
+       {{"pile", s.pile ? json(p.piles[*s.pile].id) : json(nullptr)},
+        {"combination", s.combination ? json(p.combinations[*s.combination].id) : json(nullptr)},
+        {"check", to_string(s.check)}}},
+      {"line", summary_line(r)}};
+  if (r.explain_pile) {
+    json hand = json::array();
+    for (const HandCheck& h : r.hand_checks) {
+      json e = {{"combination", p.combinations[h.combination].id}, {"available", h.available}};
+      if (!h.available) {
+        e["why_not"] = h.why_not;
+      } else {
+        const double lf = to_si_factor(p.units, Quantity::length);
+        e["n"] = h.section.count;
+        e["centroid"] = {u.value(Quantity::length, h.section.centroid_x),
+                         u.value(Quantity::length, h.section.centroid_y)};
+        // + 0.0 turns a negative zero (Ixy of a symmetric group) into 0.
+        e["Ixx"] = h.section.ixx / (lf * lf) + 0.0;
+        e["Iyy"] = h.section.iyy / (lf * lf) + 0.0;
+        e["Ixy"] = h.section.ixy / (lf * lf) + 0.0;
+        e["V"] = u.value(Quantity::force, h.vertical);
+        e["Mx"] = u.value(Quantity::moment, h.moment_x);
+        e["My"] = u.value(Quantity::moment, h.moment_y);
+        e["eccentricity"] = {u.value(Quantity::length, h.eccentricity_x),
+                             u.value(Quantity::length, h.eccentricity_y)};
+        e["axial"] = u.value(Quantity::force, h.axial);
+      }
+      e["solver_axial"] = u.value(Quantity::force, h.solver_axial);
+      hand.push_back(e);
+    }
+    doc["explain"] = {{"pile", p.piles[*r.explain_pile].id}, {"combinations", hand}};
+  }
+  doc["assumptions"] = r.assumptions;  // the warnings among them, as notes
+  nlohmann::json warnings = nlohmann::json::array();
+  for (const auto& w : p.warnings)
+    warnings.push_back({{"file", w.where.file}, {"line", w.where.line},
+                        {"column", w.where.column}, {"message", w.message}});
+  doc["warnings"] = warnings;
+  doc["caution"] = kCaution;
+  return doc;
+}
+
+}  // namespace cairn

@@ -1,0 +1,199 @@
+#include "report_parts.hpp"
+
+#include <algorithm>
+#include <cmath>
+#include <limits>
+#include <set>
+
+namespace cairn {
+
+using namespace report_detail;
+
+std::string render_group(const CheckReport& report, Format format) {
+  return report.group ? group_block(report, format) : std::string();
+}
+
+GroupParts group_parts(const CheckReport& report) {
+  return report.group ? make_group_parts(report) : GroupParts{};
+}
+
+std::string render_table(const Table& table, Format format) {
+  std::string out;
+  switch (format) {
+    case Format::csv: {
+      auto line = [](const std::vector<std::string>& cells) {
+        std::string s;
+        for (std::size_t i = 0; i < cells.size(); ++i) s += (i ? "," : "") + csv_cell(cells[i]);
+        return s + "\n";
+      };
+      out += line(table.headers);
+      for (const auto& row : table.rows) out += line(row);
+      return out;
+    }
+    case Format::markdown: {
+      if (!table.title.empty()) out += "## " + table.title + "\n\n";
+      auto line = [](const std::vector<std::string>& cells) {
+        std::string s = "|";
+        for (const auto& c : cells) s += " " + c + " |";
+        return s + "\n";
+      };
+      out += line(table.headers);
+      std::string rule = "|";
+      for (std::size_t i = 0; i < table.headers.size(); ++i)
+        rule += (i < table.numeric.size() && table.numeric[i]) ? " ---: |" : " --- |";
+      out += rule + "\n";
+      for (const auto& row : table.rows) out += line(row);
+      return out + "\n";
+    }
+    case Format::text:
+    case Format::json: {
+      std::vector<std::size_t> w(table.headers.size());
+      for (std::size_t i = 0; i < w.size(); ++i) w[i] = width(table.headers[i]);
+      for (const auto& row : table.rows)
+        for (std::size_t i = 0; i < row.size() && i < w.size(); ++i) w[i] = std::max(w[i], width(row[i]));
+      if (!table.title.empty()) out += table.title + "\n";
+      auto line = [&](const std::vector<std::string>& cells) {
+        std::string s = " ";
+        for (std::size_t i = 0; i < cells.size(); ++i) {
+          const bool right = i < table.numeric.size() && table.numeric[i];
+          s += " " + pad(cells[i], w[i], right);
+        }
+        while (!s.empty() && s.back() == ' ') s.pop_back();
+        return s + "\n";
+      };
+      out += line(table.headers);
+      std::size_t total = 1;
+      for (auto x : w) total += x + 1;
+      out += "  " + std::string(total - 2, '-') + "\n";
+      for (const auto& row : table.rows) out += line(row);
+      return out + "\n";
+    }
+  }
+  return out;
+}
+
+std::string combination_formula(const Project& project, const Combination& combination) {
+  std::string text;
+  for (const auto& [index, factor] : combination.factors) {
+    if (!text.empty()) text += factor < 0 ? " − " : " + ";
+    else if (factor < 0) text += "−";
+    const double f = std::abs(factor);
+    text += f == std::round(f) ? fmt::format("{:.1f}·{}", f, project.load_cases[index].id)
+                               : fmt::format("{:g}·{}", f, project.load_cases[index].id);
+  }
+  return text;
+}
+
+std::string summary_line(const CheckReport& r) {
+  const Project& p = *r.project;
+  const CheckSummary& s = r.results->summary;
+  const std::string where =
+      fmt::format("pile {}, combination {}, {}", s.pile ? p.piles[*s.pile].id : "-",
+                  combo_id(r, s.combination), to_string(s.check));
+  if (s.pass)
+    return fmt::format("PASS: {} in {}; max utilization {} ({})",
+                       count_text(p.piles.size(), "pile"),
+                       count_text(p.combinations.size(), "combination"),
+                       utilization_text(s.max_utilization), where);
+  const std::string overturned = overturned_ids(r);
+  const bool group_fails = r.group && !r.group->pass;
+  const std::string utilization =
+      s.combination ? fmt::format("; max utilization {} ({})", utilization_text(s.max_utilization), where)
+                    : std::string();
+  // "1 of 3 combinations fails", "2 of 3 combinations fail".
+  return fmt::format("FAIL: {} of {} {}{}{}{}", s.failed_combinations,
+                     count_text(p.combinations.size(), "combination"),
+                     s.failed_combinations == 1 ? "fails" : "fail",
+                     overturned.empty() ? "" : "; the cap overturns in " + overturned, utilization,
+                     group_fails ? "; group checks fail (see Group checks)" : "");
+}
+std::string render_check(const CheckReport& r, Format format) {
+  if (format == Format::json) return check_json(r).dump(2) + "\n";
+  if (format == Format::csv) {
+    // One CSV stream: sections separated by a blank line, each headed by a comment line.
+    std::string out;
+    out += "# summary\n" + render_table(summary_table(r), Format::csv) + "\n";
+    out += "# envelope\n" + render_table(envelope_table(r), Format::csv);
+    for (const auto& cc : r.results->combinations) {
+      Table t = combination_table(r, cc);
+      out += "\n# " + t.title + "\n";
+      t.title.clear();
+      out += render_table(t, Format::csv);
+    }
+    out += "\n";
+    for (const auto& a : r.assumptions) out += "# assumption: " + a + "\n";
+    out += std::string("# ") + kCaution + "\n";
+    return out;
+  }
+  std::string out = header(r, format);
+  out += render_table(pile_types_table(r), format);
+  out += render_table(piles_table(r), format);
+  out += render_table(combinations_table(r), format);
+  for (const auto& cc : r.results->combinations) {
+    out += render_table(combination_table(r, cc), format);
+    // Markdown: the note is its own paragraph after the table's blank line, or a renderer
+    // would take it for one more table row.
+    if (format == Format::markdown)
+      out += combination_note(r, cc) + "\n\n";
+    else
+      out.insert(out.size() - 1, "  " + combination_note(r, cc) + "\n");
+  }
+  out += render_table(envelope_table(r), format);
+  if (r.group) out += group_block(r, format);
+  if (r.explain_pile) out += explain_block(r, format);
+  out += assumptions_block(r, format);
+  const std::string line = summary_line(r);
+  out += format == Format::markdown ? "**" + line + "**\n\n" : line + "\n\n";
+  out += format == Format::markdown ? std::string("_") + kCaution + "_\n" : kCaution + std::string("\n");
+  return out;
+}
+
+std::vector<std::pair<std::string, std::string>> check_files(const CheckReport& r) {
+  std::vector<std::pair<std::string, std::string>> files;
+  files.emplace_back("report.txt", render_check(r, Format::text));
+  files.emplace_back("report.md", render_check(r, Format::markdown));
+  files.emplace_back("results.json", render_check(r, Format::json));
+  std::string trailer;
+  for (const auto& a : r.assumptions) trailer += "# assumption: " + a + "\n";
+  trailer += std::string("# ") + kCaution + "\n";
+  Table summary = summary_table(r);
+  summary.title.clear();
+  files.emplace_back("summary.csv", render_table(summary, Format::csv) + trailer);
+  Table envelope = envelope_table(r);
+  envelope.title.clear();
+  files.emplace_back("envelope.csv", render_table(envelope, Format::csv) + trailer);
+  std::set<std::string> used;
+  for (const auto& cc : r.results->combinations) {
+    Table t = combination_table(r, cc);
+    t.title.clear();
+    std::string safe = r.project->combinations[cc.combination].id;
+    for (char& c : safe)
+      if (!(std::isalnum(static_cast<unsigned char>(c)) || c == '-' || c == '_' || c == '.')) c = '_';
+    // Different ids may read the same once made safe ("W+", "W_"): number the repeats.
+    std::string name = safe;
+    for (int n = 2; !used.insert(name).second; ++n) name = safe + "-" + std::to_string(n);
+    files.emplace_back("combination-" + name + ".csv", render_table(t, Format::csv) + trailer);
+  }
+  return files;
+}
+
+
+CheckTables check_tables(const CheckReport& r) {
+  CheckTables t;
+  t.pile_types = pile_types_table(r);
+  t.piles = piles_table(r);
+  t.combinations = combinations_table(r);
+  for (const auto& cc : r.results->combinations) {
+    t.per_combination.push_back(combination_table(r, cc));
+    t.per_combination_notes.push_back(combination_note(r, cc));
+  }
+  t.envelope = envelope_table(r);
+  t.summary = summary_table(r);
+  return t;
+}
+
+std::string hand_check_text(const CheckReport& r) {
+  return r.explain_pile ? explain_block(r, Format::text) : std::string();
+}
+
+}  // namespace cairn

@@ -10,6 +10,7 @@
 #include <utility>
 
 #include "cairn/core/units.hpp"
+#include "cairn/geotechnics/methods.hpp"
 
 namespace cairn {
 
@@ -22,9 +23,6 @@ constexpr double kDepthTolerance = kBoundaryTolerance;
 // Meyerhof (1976): the unit tip develops over about 10 diameters of penetration into a
 // stronger layer, and a weaker layer less than about 10 diameters below the tip reduces it.
 constexpr double kTransitionDiameters = 10.0;
-// 1 short ton-force per square foot in kPa: 2000 lbf · 4.4482216152605 N / (0.3048 m)².
-// O'Neill & Reese (1999) state the drilled-shaft sand tip in tsf.
-constexpr double kTsf = 2000.0 * 4.4482216152605 / (0.3048 * 0.3048) / 1000.0;
 // Meyerhof's (1976) limiting unit shaft friction of driven displacement piles in sand,
 // 1 tsf (FHWA-HI-97-013 quotes it as 2 ksf), from memory. cairn applies it by default to
 // shaft methods whose source gives no limit in sand (beta; meyerhof-spt on bored piles).
@@ -115,9 +113,10 @@ double interpolate(const double (*table)[2], std::size_t rows, double x) {
   return table[rows - 1][1];
 }
 
-bool is_bored_method(TipMethod method) { return method == TipMethod::fhwa; }
-bool is_bored_method(ShaftMethod method) {
-  return method == ShaftMethod::alpha_fhwa || method == ShaftMethod::beta_fhwa;
+// Developed for drilled shafts (bored piles), by the method table.
+template <class Method>
+bool is_bored_method(Method method) {
+  return method_info(method).developed_for == Installation::bored;
 }
 
 // "tip method 'vesic' (sand)"
@@ -125,20 +124,11 @@ std::string fmt_method(const char* part, const char* method, const char* kind) {
   return std::string(part) + " method '" + method + "' (" + kind + ")";
 }
 
-bool applies(TipMethod method, SoilKind kind) {
-  return !(method == TipMethod::meyerhof_spt && kind == SoilKind::clay);
-}
-
-bool applies(ShaftMethod method, SoilKind kind) {
-  switch (method) {
-    case ShaftMethod::beta: return true;
-    case ShaftMethod::alpha_api:
-    case ShaftMethod::alpha_fhwa:
-    case ShaftMethod::lambda: return kind == SoilKind::clay;
-    case ShaftMethod::beta_fhwa:
-    case ShaftMethod::meyerhof_spt: return kind == SoilKind::sand;
-  }
-  return false;
+// Whether a method applies to a kind of soil, by the method table.
+template <class Method>
+bool applies(Method method, SoilKind kind) {
+  const auto& info = method_info(method);
+  return kind == SoilKind::clay ? info.clay : info.sand;
 }
 
 std::optional<TipMethod> tip_method_for(const PileDesign& design, SoilKind kind) {
@@ -172,34 +162,23 @@ double PileGeometry::perimeter() const { return round ? kPi * width : 4.0 * widt
 
 // ---- Method names -----------------------------------------------------------------------
 
+// From the method tables (methods.hpp).
 std::vector<std::string> tip_method_names() {
   std::vector<std::string> names;
-  for (TipMethod m :
-       {TipMethod::vesic, TipMethod::meyerhof, TipMethod::meyerhof_spt, TipMethod::fhwa})
-    names.emplace_back(to_string(m));
+  for (const auto& row : tip_methods()) names.emplace_back(row.name);
   return names;
 }
 
 std::vector<std::string> shaft_method_names() {
   std::vector<std::string> names;
-  for (ShaftMethod m : {ShaftMethod::beta, ShaftMethod::alpha_api, ShaftMethod::alpha_fhwa,
-                        ShaftMethod::lambda, ShaftMethod::beta_fhwa, ShaftMethod::meyerhof_spt})
-    names.emplace_back(to_string(m));
+  for (const auto& row : shaft_methods()) names.emplace_back(row.name);
   return names;
 }
 
-std::optional<TipMethod> parse_tip_method(std::string_view name) {
-  for (TipMethod m :
-       {TipMethod::vesic, TipMethod::meyerhof, TipMethod::meyerhof_spt, TipMethod::fhwa})
-    if (name == to_string(m)) return m;
-  return std::nullopt;
-}
+std::optional<TipMethod> parse_tip_method(std::string_view name) { return find_tip_method(name); }
 
 std::optional<ShaftMethod> parse_shaft_method(std::string_view name) {
-  for (ShaftMethod m : {ShaftMethod::beta, ShaftMethod::alpha_api, ShaftMethod::alpha_fhwa,
-                        ShaftMethod::lambda, ShaftMethod::beta_fhwa, ShaftMethod::meyerhof_spt})
-    if (name == to_string(m)) return m;
-  return std::nullopt;
+  return find_shaft_method(name);
 }
 
 // ---- Vesić (1977), NCHRP Synthesis 42 ---------------------------------------------------
@@ -358,53 +337,28 @@ double lambda_unit_shaft(double lambda, double mean_effective_stress, double mea
 // ---- Factors ----------------------------------------------------------------------------
 
 // AASHTO LRFD Table 10.5.5.2.3-1 (driven piles) and 10.5.5.2.4-1 (drilled shafts), from
-// memory. Driven: end bearing in clay (Skempton) 0.40;
-// SPT method 0.30; sand tips by φ (Vesić, Meyerhof) take the φ-based static analysis row
-// (Nordlund/Thurman) 0.45, since the table has no Vesić row. Drilled: clay tip 0.40, sand
-// tip 0.50.
+// memory: the values are in the method tables (methods.cpp), per installation and soil.
 double aashto_phi_tip(TipMethod method, SoilKind kind, Installation installation) {
-  if (installation == Installation::bored && aashto_calibrated(method, installation))
-    return kind == SoilKind::clay ? 0.40 : 0.50;
-  if (kind == SoilKind::clay) return 0.40;
-  if (method == TipMethod::meyerhof_spt || method == TipMethod::fhwa) return 0.30;
-  return 0.45;
+  const TipMethodInfo& info = method_info(method);
+  return (installation == Installation::bored ? info.phi_bored : info.phi_driven).of(kind);
 }
 
-// Driven: α 0.35, β 0.25, λ 0.40, SPT 0.30. Drilled: side in clay 0.45, side in sand 0.55.
 double aashto_phi_shaft(ShaftMethod method, SoilKind kind, Installation installation) {
-  if (installation == Installation::bored && aashto_calibrated(method, installation))
-    return kind == SoilKind::clay ? 0.45 : 0.55;
-  switch (method) {
-    case ShaftMethod::alpha_api:
-    case ShaftMethod::alpha_fhwa: return 0.35;
-    case ShaftMethod::beta:
-    case ShaftMethod::beta_fhwa: return 0.25;
-    case ShaftMethod::lambda: return 0.40;
-    case ShaftMethod::meyerhof_spt: return 0.30;
-  }
-  return 0.0;
+  const ShaftMethodInfo& info = method_info(method);
+  return (installation == Installation::bored ? info.phi_bored : info.phi_driven).of(kind);
 }
 
-// Uplift. Driven: α 0.25, β 0.20, λ 0.30, SPT 0.25. Drilled: clay 0.35, sand 0.45.
 double aashto_phi_uplift(ShaftMethod method, SoilKind kind, Installation installation) {
-  if (installation == Installation::bored && aashto_calibrated(method, installation))
-    return kind == SoilKind::clay ? 0.35 : 0.45;
-  switch (method) {
-    case ShaftMethod::alpha_api:
-    case ShaftMethod::alpha_fhwa: return 0.25;
-    case ShaftMethod::beta:
-    case ShaftMethod::beta_fhwa: return 0.20;
-    case ShaftMethod::lambda: return 0.30;
-    case ShaftMethod::meyerhof_spt: return 0.25;
-  }
-  return 0.0;
+  const ShaftMethodInfo& info = method_info(method);
+  return (installation == Installation::bored ? info.phi_uplift_bored : info.phi_uplift_driven)
+      .of(kind);
 }
 
 bool aashto_calibrated(TipMethod method, Installation installation) {
-  return is_bored_method(method) == (installation == Installation::bored);
+  return method_info(method).developed_for == installation;
 }
 bool aashto_calibrated(ShaftMethod method, Installation installation) {
-  return is_bored_method(method) == (installation == Installation::bored);
+  return method_info(method).developed_for == installation;
 }
 
 std::vector<std::string> installation_cautions(const PileDesign& design) {
@@ -489,13 +443,12 @@ void check_layer_methods(const SoilLayer& layer, const PileDesign& design, bool 
                       *layer.undrained_strength / kPa < 0.25;
   const auto tip = tip_method_for(design, layer.kind);
   if (tip_layer && tip && applies(*tip, layer.kind)) {
-    const char* name = to_string(*tip);
-    if (layer.kind == SoilKind::sand) {
-      if (*tip == TipMethod::vesic) need(layer.soil_modulus, name, "soil_modulus");
-      if (*tip == TipMethod::meyerhof_spt || *tip == TipMethod::fhwa)
-        need(layer.spt_n60, name, "spt_n60");
-    } else if ((*tip == TipMethod::vesic || *tip == TipMethod::fhwa) && !layer.soil_modulus &&
-               low_cu) {
+    const TipMethodInfo& info = method_info(*tip);
+    const char* name = info.name;
+    for (const LayerInput& input : layer.kind == SoilKind::sand ? info.needs_sand : info.needs_clay)
+      need(layer.*input.field, name, input.key);
+    if (layer.kind == SoilKind::clay && info.clay_modulus_below_quarter_pa && !layer.soil_modulus &&
+        low_cu) {
       problems.push_back(who + ": method '" + name + "' needs soil_modulus (cu/pa = " +
                          format("%.3f", *layer.undrained_strength / kPa) +
                          " is below 0.25, where the tabulated Ir is not used)");
@@ -503,13 +456,8 @@ void check_layer_methods(const SoilLayer& layer, const PileDesign& design, bool 
   }
   const auto shaft = shaft_method_for(design, layer.kind);
   if (shaft_layer && shaft && applies(*shaft, layer.kind)) {
-    const char* name = to_string(*shaft);
-    if (*shaft == ShaftMethod::beta) {
-      need(layer.shaft_k, name, "shaft_k");
-      need(layer.shaft_delta, name, "shaft_delta");
-    }
-    if (*shaft == ShaftMethod::beta_fhwa || *shaft == ShaftMethod::meyerhof_spt)
-      need(layer.spt_n60, name, "spt_n60");
+    const ShaftMethodInfo& info = method_info(*shaft);
+    for (const LayerInput& input : info.needs) need(layer.*input.field, info.name, input.key);
   }
 }
 
@@ -624,6 +572,10 @@ TipDetails layer_tip(const SoilColumn& column, std::size_t index, double z,
   d.layer = layer.name;
   d.kind = layer.kind;
   d.q_prime = column.effective_stress(d.depth);
+  d.friction_angle = layer.friction_angle;
+  d.undrained_strength = layer.undrained_strength;
+  d.soil_modulus = layer.soil_modulus;
+  d.spt_n60 = layer.spt_n60;
   const std::optional<TipMethod> method = tip_method_for(design, layer.kind);
   if (!method) {
     d.method = "none";
@@ -632,6 +584,7 @@ TipDetails layer_tip(const SoilColumn& column, std::size_t index, double z,
     return d;
   }
   d.method = to_string(*method);
+  d.tip_method = *method;
   if (is_bored_method(*method) && design.installation == Installation::driven)
     add_note(notes,
              "tip method 'fhwa' was developed for drilled shafts; used here on a driven pile");
@@ -998,6 +951,7 @@ CapacityResult pile_capacity(const SoilProfile& profile, const PileGeometry& pil
       continue;
     }
     s.method = to_string(*method);
+    s.shaft_method = *method;
     if (is_bored_method(*method) && installation == Installation::driven)
       add_note(notes, std::string("shaft method '") + s.method +
                           "' was developed for drilled shafts; used here on a driven pile");

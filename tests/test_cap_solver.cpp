@@ -19,6 +19,7 @@
 
 #include "cairn/solver/cap_solver.hpp"
 #include "cairn/core/model.hpp"
+#include "support.hpp"
 
 using cairn::CapSolution;
 using cairn::CapSolver;
@@ -26,29 +27,9 @@ using cairn::PileSpring;
 using cairn::Project;
 using cairn::Wrench;
 
+using namespace cairn::test;  // close, batter_axis, spring, on_top, one_case_project, solve_project
+
 namespace {
-
-constexpr double kCapThickness = 1.5;  // m: loads act at the top of the cap, z = 1.5
-
-// The one comparison helper: `relative` follows the rounding of the value compared with
-// (a published value to 6 digits gets 1e-5 or 1e-6); `absolute` covers values that are
-// exactly zero, where only rounding noise (~1e-12 of the loads) remains.
-Approx close(double value, double relative, double absolute = 1e-9) {
-  return Approx(value).epsilon(relative).margin(absolute);
-}
-
-// Unit axis of a pile battered 1 horizontal in `ratio` vertical, toe toward `toward_deg`:
-// (cos θ, sin θ, −ratio)/√(1 + ratio²), written out here independently of Pile::axis().
-std::array<double, 3> batter_axis(double ratio, double toward_deg) {
-  const double t = toward_deg * 3.14159265358979323846 / 180.0;
-  const double n = std::sqrt(1.0 + ratio * ratio);
-  return {std::cos(t) / n, std::sin(t) / n, -ratio / n};
-}
-
-PileSpring spring(double x, double y, double axial, double lateral = 0.0, bool tension = true,
-                  std::array<double, 3> axis = {0.0, 0.0, -1.0}) {
-  return {{x, y, 0.0}, axis, axial, lateral, tension};
-}
 
 cairn::PileType pile_type(const std::string& id, double axial, double lateral = 0.0,
                           bool tension = true) {
@@ -72,45 +53,6 @@ cairn::Pile pile(double x, double y, std::size_t type = 0,
   p.type = type;
   p.batter = batter;
   return p;
-}
-
-// A load of `force` (Fx, Fy, Fz) and couple `moment` acting at plan point (x, y) on the top
-// of the cap, as an input file would give it.
-cairn::PointLoad on_top(double x, double y, std::array<double, 3> force,
-                        std::array<double, 3> moment = {0.0, 0.0, 0.0}) {
-  cairn::PointLoad p;
-  p.at = {x, y, kCapThickness};
-  p.load = {force[0], force[1], force[2], moment[0], moment[1], moment[2]};
-  return p;
-}
-
-// A project with one load case of the given loads and one combination "C1" = 1.0 × case.
-Project one_case_project(std::vector<cairn::PileType> types, std::vector<cairn::Pile> piles,
-                         std::vector<cairn::PointLoad> loads) {
-  Project project;
-  project.title = "test group";
-  project.cap.thickness = kCapThickness;
-  project.pile_types = std::move(types);
-  project.piles = std::move(piles);
-  cairn::LoadCase lc;
-  lc.id = "LC1";
-  lc.loads = std::move(loads);
-  project.load_cases.push_back(lc);
-  cairn::Combination combination;
-  combination.id = "C1";
-  combination.factors = {{0, 1.0}};
-  project.combinations.push_back(combination);
-  return project;
-}
-
-// Solves the single combination of a project the way the program does.
-CapSolution solve_project(const Project& project) {
-  const CapSolver solver(cairn::pile_springs(project));
-  REQUIRE(cairn::unresisted_cases(project, solver).empty());
-  const auto solutions = cairn::solve_combinations(project, solver);
-  REQUIRE(solutions.size() == 1);
-  REQUIRE_FALSE(solutions[0].overturns);
-  return solutions[0];
 }
 
 // Grid of vertical piles at every (x, y) of the two coordinate lists, rows of y first.

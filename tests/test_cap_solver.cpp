@@ -132,15 +132,15 @@ void check_equilibrium(const std::vector<PileSpring>& springs, const CapSolution
 // 1. Closed forms for vertical piles and rigid-cap statics (Poulos & Davis 1980; Hrennikoff 1949)
 // ---------------------------------------------------------------------------------------
 
-TEST_CASE("cap_solver: a 3x3 grid under load and moment gives P/n ± M·y/Σy² (rows 8.1, 8.2)",
+TEST_CASE("cap_solver: a 3x3 grid under load and moment gives P/n ± M·y/Σy² (Poulos & Davis 1980)",
           "[cap_solver][published]") {
   // Rigid cap on equal vertical piles: P_i = P/n + M_y·x_i/Σx² − M_x·y_i/Σy² in cairn's
   // signs. Source: USACE EM 1110-2-2906 (1991) ch. 4 and Poulos & Davis (1980), the elastic
   // rigid-cap formula (common practice; formula from memory), values computed
   // from the formula.
   std::vector<cairn::Pile> piles = grid({-1.2, 0.0, 1.2}, {-1.2, 0.0, 1.2});
-  SECTION("P = 5400 kN, table Mx = 720 kN·m from a horizontal load on the cap top") {
-    // Table Mx = 720 (load grows with y) is cairn Mx = −720 kN·m. It comes from Fy = 480 kN at
+  SECTION("P = 5400 kN, published-sign Mx = 720 kN·m from a horizontal load on the cap top") {
+    // Mx = 720 in the published sign (load grows with y) is cairn Mx = −720 kN·m. It comes from Fy = 480 kN at
     // the top of the 1.5 m cap: Mx = −z·Fy = −1.5·480 = −720 kN·m at the pile heads.
     const Project project = one_case_project({pile_type("V", 2e5, 1e4)}, piles,
                                              {on_top(0, 0, {0, 0, -5400}), on_top(0, 0, {0, 480, 0})});
@@ -156,7 +156,7 @@ TEST_CASE("cap_solver: a 3x3 grid under load and moment gives P/n ± M·y/Σy² 
     for (const auto& p : s.piles) CHECK(p.lateral == close(480.0 / 9.0, 1e-9));
   }
   SECTION("the same with My = 360 kN·m from Fx = 240 kN on the cap top") {
-    // My = z·Fx = 1.5·240 = 360 kN·m: same sign in the table and in cairn (it compresses +x).
+    // My = z·Fx = 1.5·240 = 360 kN·m: same sign in the published convention and in cairn (it compresses +x).
     const Project project =
         one_case_project({pile_type("V", 2e5, 1e4)}, piles,
                          {on_top(0, 0, {0, 0, -5400}), on_top(0, 0, {0, 480, 0}),
@@ -176,8 +176,8 @@ TEST_CASE("cap_solver: a 3x3 grid under load and moment gives P/n ± M·y/Σy² 
 
 TEST_CASE("cap_solver: a 2x4 group under an eccentric column load",
           "[cap_solver][published]") {
-  // Table: P = 4000 kN, Mx = 300 (load grows with y), My = 900 kN·m. In cairn: the column at
-  // (0.225, 0.075) on the cap top: My = −x·Fz = 900, Mx = y·Fz = −300 kN·m.
+  // P = 4000 kN, Mx = 300 (published sign: load grows with y), My = 900 kN·m. In cairn: the
+  // column at (0.225, 0.075) on the cap top: My = −x·Fz = 900, Mx = y·Fz = −300 kN·m.
   const Project project = one_case_project(
       {pile_type("V", 3e5)}, grid({-2.25, -0.75, 0.75, 2.25}, {-0.75, 0.75}),
       {on_top(0.225, 0.075, {0, 0, -4000})});
@@ -193,12 +193,12 @@ TEST_CASE("cap_solver: a 2x4 group under an eccentric column load",
   }
 }
 
-TEST_CASE("cap_solver: unequal axial stiffness and a pile with no stiffness (rows 8.4, 8.5)",
+TEST_CASE("cap_solver: unequal axial stiffness and a pile with no stiffness (Hrennikoff 1949)",
           "[cap_solver][published]") {
   // General rigid cap on axial springs (derived from equilibrium and
   // compatibility; Hrennikoff 1949, Saul 1968): Σk_i[1, y_i, x_i]ᵀ[1, y_i, x_i]·(w, a, b) =
   // (P, Mx, My), w_i = w + a·y_i + b·x_i downward.
-  constexpr double k = 1e5;  // kN/m, the unit stiffness of the table
+  constexpr double k = 1e5;  // kN/m, the unit stiffness k of the cases below
   SECTION("k = 1, 1, 1, 2 at (−1,−1), (1,−1), (−1,1), (1,1); P = 1000 kN at (0,0)") {
     const std::vector<PileSpring> springs = {spring(-1, -1, k), spring(1, -1, k),
                                              spring(-1, 1, k), spring(1, 1, 2 * k)};
@@ -265,7 +265,7 @@ TEST_CASE("cap_solver: an as-built 3x3 group with a product of inertia",
 }
 
 TEST_CASE("cap_solver: two battered piles meeting at one point share V and H by statics "
-          "(row 8.7)",
+          "(statics of a pin-headed pair)",
           "[cap_solver][published]") {
   // Heads at x = ±0.375 m, each battered 1H:4V outward, so the axes meet at (0, 0, 1.5): the
   // top of the cap, where V = 1000 kN and H = 100 kN act. Axial only.
@@ -294,7 +294,7 @@ TEST_CASE("cap_solver: with no lateral stiffness the battered pile takes all of 
           "[cap_solver][published]") {
   // Vertical piles at x = ±1, a pile at x = 0 battered 1H:4V toward +x; equal axial k, no
   // lateral stiffness. H = 60 kN on the cap top makes My = 1.5·60 = 90 kN·m at the heads; the
-  // column (900 kN) at x = −0.1 gives My = −90, so M = 0 about (0, 0) as in the table.
+  // column (900 kN) at x = −0.1 gives My = −90, so M = 0 about (0, 0) (hand-derived).
   const Project project = one_case_project(
       {pile_type("A", 2e5)},
       {pile(-1.0, 0.0), pile(1.0, 0.0), pile(0.0, 0.0, 0, cairn::Batter{4.0, 0.0})},

@@ -35,9 +35,6 @@ constexpr double kDefaultSafetyTension = 3.0;
 constexpr double kSandUpliftFactor = 2.0 / 3.0;
 // O'Neill & Reese (1999): top 1.5 m of a drilled shaft in clay carries no side resistance.
 constexpr double kAlphaFhwaTopExclusion = 1.5;
-// O'Neill & Reese (1999) limit on β-method unit side resistance in sand, 2.0 tsf (from
-// memory).
-constexpr double kBetaFhwaLimit = 2.0 * kTsf;
 // AASHTO LRFD 10.8.3.5.1c limit on drilled-shaft unit tip in clay, 80 ksf = 3.83 MPa (from
 // memory).
 constexpr double kFhwaClayTipLimit = 40.0 * kTsf;
@@ -758,7 +755,7 @@ TipDetails tip_resistance(const SoilColumn& column, const PileGeometry& pile,
   const double z = pile.tip_depth();
   const std::size_t k = column.layer_at(z);
   TipDetails d = layer_tip(column, k, z, pile, design, notes);
-  if (d.method == "none") return d;
+  if (!d.tip_method) return d;
   const UnitSystem u = pile.units;
   const double zone = kTransitionDiameters * pile.width;
   const double start = std::max(column.top(k), pile.head_depth);
@@ -777,7 +774,7 @@ TipDetails tip_resistance(const SoilColumn& column, const PileGeometry& pile,
   };
   const bool layer_above = k > 0 && column.top(k) > pile.head_depth + kDepthTolerance &&
                            *d.penetration < zone - kDepthTolerance && has_tip_method(k - 1);
-  const bool spt = d.method == to_string(TipMethod::meyerhof_spt);
+  const bool spt = d.tip_method == TipMethod::meyerhof_spt;
   if (*d.penetration < zone - kDepthTolerance && (layer_above || spt)) {
     const double q0 =
         layer_above ? layer_tip(column, k - 1, column.top(k), pile, design, scratch).unit_tip
@@ -862,19 +859,19 @@ struct ShaftLimit {
   bool is_default = false;
 };
 
-// The limit on unit shaft friction for a method in a layer: the method's own (beta-fhwa
-// 2 tsf, O'Neill & Reese 1999; meyerhof-spt 1 tsf on driven piles, Meyerhof 1976); where
-// the source gives none in sand (beta; meyerhof-spt on bored piles) Meyerhof's 1 tsf by
-// default; max_unit_shaft replaces the default and lowers any other. Clay methods need
-// none: α·cu ≤ cu, and λ is a mean over the clay.
+// The limit on unit shaft friction for a method in a layer: the method's own, from its row in
+// the method table (beta-fhwa 2 tsf, O'Neill & Reese 1999; meyerhof-spt 1 tsf on driven
+// piles, Meyerhof 1976); where the source gives none in sand (beta; meyerhof-spt on bored
+// piles) Meyerhof's 1 tsf by default; max_unit_shaft replaces the default and lowers any
+// other. Clay methods need none: α·cu ≤ cu, and λ is a mean over the clay.
 ShaftLimit shaft_limit(ShaftMethod method, const SoilLayer& layer, Installation installation) {
+  const ShaftMethodInfo& info = method_info(method);
+  const std::optional<double> own =
+      installation == Installation::driven ? info.limit_driven : info.limit_bored;
   ShaftLimit limit;
-  if (method == ShaftMethod::beta_fhwa) {
-    limit = {kBetaFhwaLimit, "O'Neill & Reese (1999) limit 2 tsf", false};
-  } else if (method == ShaftMethod::meyerhof_spt && installation == Installation::driven) {
-    limit = {kMeyerhofShaftLimit, "Meyerhof (1976) limit 1 tsf for driven piles", false};
-  } else if ((method == ShaftMethod::beta || method == ShaftMethod::meyerhof_spt) &&
-             layer.kind == SoilKind::sand && !layer.max_unit_shaft) {
+  if (own) {
+    limit = {*own, info.limit_source, false};
+  } else if (info.default_limit_in_sand && layer.kind == SoilKind::sand && !layer.max_unit_shaft) {
     limit = {kMeyerhofShaftLimit,
              "default: Meyerhof (1976) limit 1 tsf for driven piles in sand, from memory", true};
   }

@@ -38,6 +38,9 @@ const std::vector<TipMethodInfo>& tip_methods() {
   return table;
 }
 
+// Own limits on the unit shaft friction (from memory): beta-fhwa 2 tsf (O'Neill & Reese
+// 1999); meyerhof-spt 1 tsf on driven piles (Meyerhof 1976; FHWA-HI-97-013 quotes it as
+// 2 ksf). Beta and meyerhof-spt on bored piles take 1 tsf in sand by default.
 // Shaft, AASHTO LRFD Table 10.5.5.2.3-1 (driven piles), from memory: compression α 0.35,
 // β 0.25, λ 0.40, SPT 0.30; tension α 0.25, β 0.20, λ 0.30, SPT 0.25. Table 10.5.5.2.4-1
 // (drilled shafts), from memory: side in clay 0.45, in sand 0.55; tension clay 0.35, sand
@@ -45,21 +48,26 @@ const std::vector<TipMethodInfo>& tip_methods() {
 const std::vector<ShaftMethodInfo>& shaft_methods() {
   static const std::vector<ShaftMethodInfo> table = {
       {ShaftMethod::beta, "beta", true, true, {kShaftK, kShaftDelta}, kDriven, both(0.25),
-       both(0.25), both(0.20), both(0.20), "f = K·σ'v·tan δ", "effective-stress (β) method"},
+       both(0.25), both(0.20), both(0.20), "f = K·σ'v·tan δ", "effective-stress (β) method",
+       {}, {}, "", true},
       {ShaftMethod::alpha_api, "alpha-api", true, false, {}, kDriven, both(0.35), both(0.35),
        both(0.25), both(0.25),
-       "f = α·cu, α = 0.5·ψ^−0.5 (ψ ≤ 1) or 0.5·ψ^−0.25 (ψ > 1) ≤ 1, ψ = cu/σ'v", "API RP 2GEO"},
+       "f = α·cu, α = 0.5·ψ^−0.5 (ψ ≤ 1) or 0.5·ψ^−0.25 (ψ > 1) ≤ 1, ψ = cu/σ'v", "API RP 2GEO",
+       {}, {}, "", false},
       {ShaftMethod::alpha_fhwa, "alpha-fhwa", true, false, {}, kBored, both(0.35), {0.45, 0.55},
        both(0.25), {0.35, 0.45}, "f = α·cu, α = 0.55 (cu/pa ≤ 1.5), 0.55 − 0.1·(cu/pa − 1.5)",
-       "O'Neill & Reese 1999"},
+       "O'Neill & Reese 1999", {}, {}, "", false},
       {ShaftMethod::lambda, "lambda", true, false, {}, kDriven, both(0.40), both(0.40),
-       both(0.30), both(0.30), "f = λ·(σ̄'v + 2·c̄u)", "Vijayvergiya & Focht 1972"},
+       both(0.30), both(0.30), "f = λ·(σ̄'v + 2·c̄u)", "Vijayvergiya & Focht 1972",
+       {}, {}, "", false},
       {ShaftMethod::beta_fhwa, "beta-fhwa", false, true, {kSptN60}, kBored, both(0.25),
        {0.45, 0.55}, both(0.20), {0.35, 0.45}, "f = β·σ'v, β = 1.5 − 0.245·√z, 0.25 ≤ β ≤ 1.2",
-       "O'Neill & Reese 1999"},
+       "O'Neill & Reese 1999", 2.0 * kTsf, 2.0 * kTsf, "O'Neill & Reese (1999) limit 2 tsf",
+       false},
       {ShaftMethod::meyerhof_spt, "meyerhof-spt", false, true, {kSptN60}, kDriven, both(0.30),
        both(0.30), both(0.25), both(0.25), "f = pa·N60/50 (driven) or pa·N60/100 (bored)",
-       "Meyerhof 1976"},
+       "Meyerhof 1976", 1.0 * kTsf, std::nullopt, "Meyerhof (1976) limit 1 tsf for driven piles",
+       true},
   };
   return table;
 }

@@ -80,6 +80,12 @@ struct ShaftMethodInfo {
   PhiBySoil phi_uplift_driven, phi_uplift_bored;  // default φ in tension
   const char* formula = "";         // unit shaft friction in words, "f = K·σ'v·tan δ"
   const char* source = "";
+  // The method's own limit on the unit shaft friction, kPa, on a driven / a bored pile
+  // (empty: its source gives none), and where it comes from.
+  std::optional<double> limit_driven, limit_bored;
+  const char* limit_source = "";
+  // Where the source gives no limit, sand takes Meyerhof's (1976) 1 tsf by default.
+  bool default_limit_in_sand = false;
 };
 
 struct EfficiencyMethodInfo {

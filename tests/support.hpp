@@ -7,6 +7,7 @@
 
 #include <array>
 #include <cmath>
+#include <cstddef>
 #include <numbers>
 #include <string>
 #include <utility>
@@ -104,6 +105,13 @@ inline bool contains(const std::vector<std::string>& lines, const std::string& p
   for (const auto& line : lines)
     if (contains(line, part)) return true;
   return false;
+}
+
+// How many times `what` occurs in `text` (elements of a drawing, rows of a report).
+inline std::size_t occurrences(const std::string& text, const std::string& what) {
+  std::size_t n = 0;
+  for (auto at = text.find(what); at != std::string::npos; at = text.find(what, at + 1)) ++n;
+  return n;
 }
 
 }  // namespace cairn::test

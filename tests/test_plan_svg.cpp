@@ -14,14 +14,9 @@
 using namespace cairn;
 using cairn::test::close;
 using cairn::test::contains;
+using cairn::test::occurrences;
 
 namespace {
-
-std::size_t count(const std::string& text, const std::string& what) {
-  std::size_t n = 0;
-  for (auto at = text.find(what); at != std::string::npos; at = text.find(what, at + 1)) ++n;
-  return n;
-}
 
 CheckRun run_of(const std::string& name) {
   return analyse_project(std::string(CAIRN_TEST_DATA) + "/" + name);
@@ -57,17 +52,17 @@ TEST_CASE("plan_svg: every pile is drawn once, failing piles marked by shape",
   const CheckRun run = run_of("t8/fail.yaml");
   const std::string svg = render_plan_svg(run.project, &run.results, &run.resistances);
   CHECK(svg.rfind("<svg xmlns=\"http://www.w3.org/2000/svg\"", 0) == 0);
-  CHECK(count(svg, "<svg") == 1);
-  CHECK(count(svg, "</svg>") == 1);
+  CHECK(occurrences(svg, "<svg") == 1);
+  CHECK(occurrences(svg, "</svg>") == 1);
   for (const auto& pile : run.project.piles) {
     INFO(pile.id);
-    CHECK(count(svg, "data-pile=\"" + pile.id + "\"") == 1);
+    CHECK(occurrences(svg, "data-pile=\"" + pile.id + "\"") == 1);
   }
   // The fixture's hand check (P/n ± M·x/Σx²): 1500 ± 33.33 kN on piles of 1400 kN, so all
   // four are over capacity (1466.7 and 1533.3 kN).
-  CHECK(count(svg, "class=\"pile failing\"") == 4);
+  CHECK(occurrences(svg, "class=\"pile failing\"") == 4);
   // One cross on each failing pile and one in the legend's key.
-  CHECK(count(svg, "class=\"fail-mark\"") == 5);
+  CHECK(occurrences(svg, "class=\"fail-mark\"") == 5);
   CHECK(contains(svg, "class=\"pile failing\" data-pile=\"A2\""));
   CHECK(contains(svg, "class=\"pile failing\" data-pile=\"B1\""));
   CHECK(contains(svg, "class=\"outline\""));    // the file gives the cap's outline
@@ -78,7 +73,7 @@ TEST_CASE("plan_svg: every pile is drawn once, failing piles marked by shape",
 TEST_CASE("plan_svg: without results the piles are grey and nothing fails", "[plan_svg]") {
   const CheckRun run = run_of("t8/pass.yaml");
   const std::string svg = render_plan_svg(run.project, nullptr, nullptr);
-  CHECK(count(svg, "data-utilization-colour=\"" + std::string(kUncheckedColour) + "\"") ==
+  CHECK(occurrences(svg, "data-utilization-colour=\"" + std::string(kUncheckedColour) + "\"") ==
         run.project.piles.size());
   CHECK_FALSE(contains(svg, "fail-mark"));
 }

@@ -657,5 +657,41 @@ for file in "$data"/fuzz-regressions/fuzz_reactions/*; do
   fuzz_replay "$(basename "$file")" check "$replay/cap.yaml"
 done
 
+# ---- The demo projects' text, Markdown and CSV outputs against expected/ (scripts/update-expected
+# writes them): words and text the same, numbers within one unit in their last printed digit
+# (tests/compare_text.py), as the JSON comparison above allows for another compiler's rounding.
+for project in "$src"/projects-demo/*/cap.yaml; do
+  [ -e "$project" ] || continue
+  dir=$(dirname "$project")
+  name=$(basename "$dir")
+  for expected in "$dir"/expected/check.txt "$dir"/expected/check.md "$dir"/expected/check.csv \
+                  "$dir"/expected/capacity.txt; do
+    [ -f "$expected" ] || continue
+    file=$(basename "$expected")
+    case "$file" in
+      check.txt) args=(check cap.yaml) ;;
+      check.md) args=(check cap.yaml --format markdown) ;;
+      check.csv) args=(check cap.yaml --format csv) ;;
+      capacity.txt) args=(capacity cap.yaml) ;;
+    esac
+    (cd "$dir" && "$cairn" "${args[@]}" >"$work/out" 2>"$work/err")
+    status=$?
+    if [ "$status" -le 1 ] && python3 "$src/tests/compare_text.py" "$expected" "$work/out" >"$work/diff" 2>&1
+    then ok; else bad "projects-demo/$name: differs from expected/$file (exit $status): $(tail -n 1 "$work/diff")"; fi
+  done
+done
+
+# The comparison itself: one unit in the last digit passes, two fail, a changed word fails.
+printf 'pile R01: 1094.3 kN, -0.000 m\n' >"$work/expected.txt"
+printf 'pile R01: 1094.4 kN, 0.000 m\n' >"$work/one.txt"
+printf 'pile R01: 1094.5 kN, 0.000 m\n' >"$work/two.txt"
+printf 'pile R02: 1094.3 kN, 0.000 m\n' >"$work/word.txt"
+if python3 "$src/tests/compare_text.py" "$work/expected.txt" "$work/one.txt" >/dev/null; then ok; else
+  bad "compare_text: one unit in the last digit refused"; fi
+if python3 "$src/tests/compare_text.py" "$work/expected.txt" "$work/two.txt" >/dev/null; then
+  bad "compare_text: two units in the last digit accepted"; else ok; fi
+if python3 "$src/tests/compare_text.py" "$work/expected.txt" "$work/word.txt" >/dev/null; then
+  bad "compare_text: a changed word accepted"; else ok; fi
+
 echo "$passed passed, $failed failed"
 [ "$failed" -eq 0 ]

@@ -7,8 +7,11 @@
 
 #include "cairn/geotechnics/capacity.hpp"
 #include "cairn/core/units.hpp"
+#include "support.hpp"
 
 using namespace cairn;
+using cairn::test::contains;
+using cairn::test::round_pile;
 
 namespace {
 
@@ -44,14 +47,6 @@ SoilProfile uniform_clay() {
   return profile;
 }
 
-PileGeometry round_pile(double diameter, double length) {
-  PileGeometry g;
-  g.width = diameter;
-  g.round = true;
-  g.length = length;
-  return g;
-}
-
 PileDesign design(Installation installation, TipMethod tip, ShaftMethod shaft) {
   PileDesign d;
   d.installation = installation;
@@ -59,12 +54,6 @@ PileDesign design(Installation installation, TipMethod tip, ShaftMethod shaft) {
   d.tip_clay = TipMethod::meyerhof;
   d.shaft_sand = shaft;
   return d;
-}
-
-bool contains(const std::vector<std::string>& lines, const std::string& text) {
-  for (const auto& line : lines)
-    if (line.find(text) != std::string::npos) return true;
-  return false;
 }
 
 }  // namespace

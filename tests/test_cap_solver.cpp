@@ -19,6 +19,7 @@
 
 #include "cairn/solver/cap_solver.hpp"
 #include "cairn/core/model.hpp"
+#include "support.hpp"
 
 using cairn::CapSolution;
 using cairn::CapSolver;
@@ -26,29 +27,9 @@ using cairn::PileSpring;
 using cairn::Project;
 using cairn::Wrench;
 
+using namespace cairn::test;  // close, batter_axis, spring, on_top, one_case_project, solve_project
+
 namespace {
-
-constexpr double kCapThickness = 1.5;  // m: loads act at the top of the cap, z = 1.5
-
-// The one comparison helper: `relative` follows the rounding of the value compared with
-// (a published value to 6 digits gets 1e-5 or 1e-6); `absolute` covers values that are
-// exactly zero, where only rounding noise (~1e-12 of the loads) remains.
-Approx close(double value, double relative, double absolute = 1e-9) {
-  return Approx(value).epsilon(relative).margin(absolute);
-}
-
-// Unit axis of a pile battered 1 horizontal in `ratio` vertical, toe toward `toward_deg`:
-// (cos θ, sin θ, −ratio)/√(1 + ratio²), written out here independently of Pile::axis().
-std::array<double, 3> batter_axis(double ratio, double toward_deg) {
-  const double t = toward_deg * 3.14159265358979323846 / 180.0;
-  const double n = std::sqrt(1.0 + ratio * ratio);
-  return {std::cos(t) / n, std::sin(t) / n, -ratio / n};
-}
-
-PileSpring spring(double x, double y, double axial, double lateral = 0.0, bool tension = true,
-                  std::array<double, 3> axis = {0.0, 0.0, -1.0}) {
-  return {{x, y, 0.0}, axis, axial, lateral, tension};
-}
 
 cairn::PileType pile_type(const std::string& id, double axial, double lateral = 0.0,
                           bool tension = true) {
@@ -72,45 +53,6 @@ cairn::Pile pile(double x, double y, std::size_t type = 0,
   p.type = type;
   p.batter = batter;
   return p;
-}
-
-// A load of `force` (Fx, Fy, Fz) and couple `moment` acting at plan point (x, y) on the top
-// of the cap, as an input file would give it.
-cairn::PointLoad on_top(double x, double y, std::array<double, 3> force,
-                        std::array<double, 3> moment = {0.0, 0.0, 0.0}) {
-  cairn::PointLoad p;
-  p.at = {x, y, kCapThickness};
-  p.load = {force[0], force[1], force[2], moment[0], moment[1], moment[2]};
-  return p;
-}
-
-// A project with one load case of the given loads and one combination "C1" = 1.0 × case.
-Project one_case_project(std::vector<cairn::PileType> types, std::vector<cairn::Pile> piles,
-                         std::vector<cairn::PointLoad> loads) {
-  Project project;
-  project.title = "test group";
-  project.cap.thickness = kCapThickness;
-  project.pile_types = std::move(types);
-  project.piles = std::move(piles);
-  cairn::LoadCase lc;
-  lc.id = "LC1";
-  lc.loads = std::move(loads);
-  project.load_cases.push_back(lc);
-  cairn::Combination combination;
-  combination.id = "C1";
-  combination.factors = {{0, 1.0}};
-  project.combinations.push_back(combination);
-  return project;
-}
-
-// Solves the single combination of a project the way the program does.
-CapSolution solve_project(const Project& project) {
-  const CapSolver solver(cairn::pile_springs(project));
-  REQUIRE(cairn::unresisted_cases(project, solver).empty());
-  const auto solutions = cairn::solve_combinations(project, solver);
-  REQUIRE(solutions.size() == 1);
-  REQUIRE_FALSE(solutions[0].overturns);
-  return solutions[0];
 }
 
 // Grid of vertical piles at every (x, y) of the two coordinate lists, rows of y first.
@@ -190,15 +132,15 @@ void check_equilibrium(const std::vector<PileSpring>& springs, const CapSolution
 // 1. Closed forms for vertical piles and rigid-cap statics (Poulos & Davis 1980; Hrennikoff 1949)
 // ---------------------------------------------------------------------------------------
 
-TEST_CASE("cap_solver: a 3x3 grid under load and moment gives P/n ± M·y/Σy² (rows 8.1, 8.2)",
+TEST_CASE("cap_solver: a 3x3 grid under load and moment gives P/n ± M·y/Σy² (Poulos & Davis 1980)",
           "[cap_solver][published]") {
   // Rigid cap on equal vertical piles: P_i = P/n + M_y·x_i/Σx² − M_x·y_i/Σy² in cairn's
   // signs. Source: USACE EM 1110-2-2906 (1991) ch. 4 and Poulos & Davis (1980), the elastic
   // rigid-cap formula (common practice; formula from memory), values computed
   // from the formula.
   std::vector<cairn::Pile> piles = grid({-1.2, 0.0, 1.2}, {-1.2, 0.0, 1.2});
-  SECTION("P = 5400 kN, table Mx = 720 kN·m from a horizontal load on the cap top") {
-    // Table Mx = 720 (load grows with y) is cairn Mx = −720 kN·m. It comes from Fy = 480 kN at
+  SECTION("P = 5400 kN, published-sign Mx = 720 kN·m from a horizontal load on the cap top") {
+    // Mx = 720 in the published sign (load grows with y) is cairn Mx = −720 kN·m. It comes from Fy = 480 kN at
     // the top of the 1.5 m cap: Mx = −z·Fy = −1.5·480 = −720 kN·m at the pile heads.
     const Project project = one_case_project({pile_type("V", 2e5, 1e4)}, piles,
                                              {on_top(0, 0, {0, 0, -5400}), on_top(0, 0, {0, 480, 0})});
@@ -214,7 +156,7 @@ TEST_CASE("cap_solver: a 3x3 grid under load and moment gives P/n ± M·y/Σy² 
     for (const auto& p : s.piles) CHECK(p.lateral == close(480.0 / 9.0, 1e-9));
   }
   SECTION("the same with My = 360 kN·m from Fx = 240 kN on the cap top") {
-    // My = z·Fx = 1.5·240 = 360 kN·m: same sign in the table and in cairn (it compresses +x).
+    // My = z·Fx = 1.5·240 = 360 kN·m: same sign in the published convention and in cairn (it compresses +x).
     const Project project =
         one_case_project({pile_type("V", 2e5, 1e4)}, piles,
                          {on_top(0, 0, {0, 0, -5400}), on_top(0, 0, {0, 480, 0}),
@@ -234,8 +176,8 @@ TEST_CASE("cap_solver: a 3x3 grid under load and moment gives P/n ± M·y/Σy² 
 
 TEST_CASE("cap_solver: a 2x4 group under an eccentric column load",
           "[cap_solver][published]") {
-  // Table: P = 4000 kN, Mx = 300 (load grows with y), My = 900 kN·m. In cairn: the column at
-  // (0.225, 0.075) on the cap top: My = −x·Fz = 900, Mx = y·Fz = −300 kN·m.
+  // P = 4000 kN, Mx = 300 (published sign: load grows with y), My = 900 kN·m. In cairn: the
+  // column at (0.225, 0.075) on the cap top: My = −x·Fz = 900, Mx = y·Fz = −300 kN·m.
   const Project project = one_case_project(
       {pile_type("V", 3e5)}, grid({-2.25, -0.75, 0.75, 2.25}, {-0.75, 0.75}),
       {on_top(0.225, 0.075, {0, 0, -4000})});
@@ -251,12 +193,12 @@ TEST_CASE("cap_solver: a 2x4 group under an eccentric column load",
   }
 }
 
-TEST_CASE("cap_solver: unequal axial stiffness and a pile with no stiffness (rows 8.4, 8.5)",
+TEST_CASE("cap_solver: unequal axial stiffness and a pile with no stiffness (Hrennikoff 1949)",
           "[cap_solver][published]") {
   // General rigid cap on axial springs (derived from equilibrium and
   // compatibility; Hrennikoff 1949, Saul 1968): Σk_i[1, y_i, x_i]ᵀ[1, y_i, x_i]·(w, a, b) =
   // (P, Mx, My), w_i = w + a·y_i + b·x_i downward.
-  constexpr double k = 1e5;  // kN/m, the unit stiffness of the table
+  constexpr double k = 1e5;  // kN/m, the unit stiffness k of the cases below
   SECTION("k = 1, 1, 1, 2 at (−1,−1), (1,−1), (−1,1), (1,1); P = 1000 kN at (0,0)") {
     const std::vector<PileSpring> springs = {spring(-1, -1, k), spring(1, -1, k),
                                              spring(-1, 1, k), spring(1, 1, 2 * k)};
@@ -323,7 +265,7 @@ TEST_CASE("cap_solver: an as-built 3x3 group with a product of inertia",
 }
 
 TEST_CASE("cap_solver: two battered piles meeting at one point share V and H by statics "
-          "(row 8.7)",
+          "(statics of a pin-headed pair)",
           "[cap_solver][published]") {
   // Heads at x = ±0.375 m, each battered 1H:4V outward, so the axes meet at (0, 0, 1.5): the
   // top of the cap, where V = 1000 kN and H = 100 kN act. Axial only.
@@ -352,7 +294,7 @@ TEST_CASE("cap_solver: with no lateral stiffness the battered pile takes all of 
           "[cap_solver][published]") {
   // Vertical piles at x = ±1, a pile at x = 0 battered 1H:4V toward +x; equal axial k, no
   // lateral stiffness. H = 60 kN on the cap top makes My = 1.5·60 = 90 kN·m at the heads; the
-  // column (900 kN) at x = −0.1 gives My = −90, so M = 0 about (0, 0) as in the table.
+  // column (900 kN) at x = −0.1 gives My = −90, so M = 0 about (0, 0) (hand-derived).
   const Project project = one_case_project(
       {pile_type("A", 2e5)},
       {pile(-1.0, 0.0), pile(1.0, 0.0), pile(0.0, 0.0, 0, cairn::Batter{4.0, 0.0})},

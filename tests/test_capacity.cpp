@@ -8,14 +8,17 @@
 
 #include "cairn/geotechnics/capacity.hpp"
 #include "cairn/core/units.hpp"
+#include "support.hpp"
 
 using namespace cairn;
+using cairn::test::contains;
+using cairn::test::round_pile;
 
 namespace {
 
 constexpr double kPi = std::numbers::pi;
 
-Approx rel(double value) { return Approx(value).epsilon(1e-3); }
+Approx rel(double value) { return cairn::test::close(value, 1e-3, 0.0); }
 
 SoilLayer sand(std::string name, double thickness, double gamma, double phi) {
   SoilLayer layer;
@@ -37,20 +40,6 @@ SoilLayer clay(std::string name, double thickness, double gamma, double cu) {
   layer.saturated_unit_weight = gamma;
   layer.undrained_strength = cu;
   return layer;
-}
-
-PileGeometry round_pile(double diameter, double length) {
-  PileGeometry pile;
-  pile.width = diameter;
-  pile.round = true;
-  pile.length = length;
-  return pile;
-}
-
-bool contains(const std::vector<std::string>& lines, const std::string& text) {
-  for (const auto& line : lines)
-    if (line.find(text) != std::string::npos) return true;
-  return false;
 }
 
 }  // namespace

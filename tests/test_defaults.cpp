@@ -15,6 +15,7 @@
 #include "cairn/input/input.hpp"
 #include "cairn/geotechnics/lateral.hpp"
 #include "cairn/geotechnics/section_moment.hpp"
+#include "support.hpp"
 
 using namespace cairn;
 
@@ -24,7 +25,7 @@ const std::string kData = std::string(CAIRN_TEST_DATA) + "/defaults/";
 constexpr double kPi = std::numbers::pi;
 
 // Closed forms agree to round-off; 1e-9 relative.
-Approx exact(double value) { return Approx(value).epsilon(1e-9).margin(1e-12); }
+Approx exact(double value) { return cairn::test::close(value, 1e-9, 1e-12); }
 
 // The messages of an InputError, formatted, with the fixture folder shown as '@'.
 std::string error_of(const std::function<void()>& run) {

@@ -12,15 +12,11 @@
 #include "cairn/checks/checks.hpp"
 #include "cairn/checks/explain.hpp"
 #include "cairn/core/model.hpp"
+#include "support.hpp"
+
+using namespace cairn::test;  // close, on_top, one_case_project, kCapThickness
 
 namespace {
-
-constexpr double kCapThickness = 1.5;  // m
-
-// `relative` follows the rounding of the value compared with; `absolute` covers zeros.
-Approx close(double value, double relative, double absolute = 1e-9) {
-  return Approx(value).epsilon(relative).margin(absolute);
-}
 
 cairn::PileType pile_type(const std::string& id, std::optional<double> axial,
                           bool tension = true) {
@@ -47,30 +43,6 @@ std::vector<cairn::Pile> grid(const std::vector<double>& xs, const std::vector<d
       piles.push_back(p);
     }
   return piles;
-}
-
-cairn::PointLoad on_top(double x, double y, std::array<double, 3> force) {
-  cairn::PointLoad p;
-  p.at = {x, y, kCapThickness};
-  p.load = {force[0], force[1], force[2], 0.0, 0.0, 0.0};
-  return p;
-}
-
-cairn::Project project_of(std::vector<cairn::PileType> types, std::vector<cairn::Pile> piles,
-                          std::vector<cairn::PointLoad> loads) {
-  cairn::Project project;
-  project.cap.thickness = kCapThickness;
-  project.pile_types = std::move(types);
-  project.piles = std::move(piles);
-  cairn::LoadCase lc;
-  lc.id = "LC1";
-  lc.loads = std::move(loads);
-  project.load_cases.push_back(lc);
-  cairn::Combination combination;
-  combination.id = "C1";
-  combination.factors = {{0, 1.0}};
-  project.combinations.push_back(combination);
-  return project;
 }
 
 // Solves the project and wraps the solutions as check results (only the fields the hand
@@ -104,7 +76,7 @@ TEST_CASE("explain: the as-built 3x3 group with a product of inertia",
   std::vector<cairn::Pile> piles = grid({-1.2, 0.0, 1.2}, {1.2, 0.0, -1.2});
   piles[2].x = 1.275;
   const cairn::Project project =
-      project_of({pile_type("V", 2.5e5)}, piles, {on_top(0, 0, {0, 0, -5400})});
+      one_case_project({pile_type("V", 2.5e5)}, piles, {on_top(0, 0, {0, 0, -5400})});
   const cairn::CheckResults results = solved(project);
   // Source: USACE EM 1110-2-2906 (1991) / Poulos & Davis (1980), the rigid-cap formula with
   // the product term (common practice; from memory), values computed from it
@@ -138,7 +110,7 @@ TEST_CASE("explain: the terms of P/n ± M·x/Σx² for the 3x3 grid",
           "[explain][published]") {
   // P = 5400 kN at the origin; Fy = 480 and Fx = 240 kN on the top of the 1.5 m cap give
   // Mx = −720 and My = +360 kN·m at the pile heads (table: Mx = 720, My = 360 in its signs).
-  const cairn::Project project = project_of(
+  const cairn::Project project = one_case_project(
       {pile_type("V", 2e5)}, grid({-1.2, 0.0, 1.2}, {-1.2, 0.0, 1.2}),
       {on_top(0, 0, {0, 0, -5400}), on_top(0, 0, {0, 480, 0}), on_top(0, 0, {240, 0, 0})});
   const cairn::CheckResults results = solved(project);
@@ -165,7 +137,7 @@ TEST_CASE("explain: the hand check says why it does not apply", "[explain]") {
     std::vector<cairn::Pile> piles = square;
     piles[0].batter = cairn::Batter{6.0, 225.0};
     const cairn::Project project =
-        project_of({pile_type("V", 2e5)}, piles, {on_top(0, 0, {0, 0, -1000})});
+        one_case_project({pile_type("V", 2e5)}, piles, {on_top(0, 0, {0, 0, -1000})});
     const auto h = cairn::explain_pile(project, solved(project), 1)[0];
     CHECK_FALSE(h.available);
     CHECK(h.why_not.find("battered") != std::string::npos);
@@ -173,7 +145,7 @@ TEST_CASE("explain: the hand check says why it does not apply", "[explain]") {
   SECTION("unequal typed stiffness") {
     std::vector<cairn::Pile> piles = square;
     piles[3].type = 1;
-    const cairn::Project project = project_of({pile_type("A", 2e5), pile_type("B", 4e5)}, piles,
+    const cairn::Project project = one_case_project({pile_type("A", 2e5), pile_type("B", 4e5)}, piles,
                                               {on_top(0, 0, {0, 0, -1000})});
     const auto h = cairn::explain_pile(project, solved(project), 0)[0];
     CHECK_FALSE(h.available);
@@ -184,7 +156,7 @@ TEST_CASE("explain: the hand check says why it does not apply", "[explain]") {
     // estimated from the soil per type (stiffness.hpp) and need not be equal.
     std::vector<cairn::Pile> piles = square;
     piles[3].type = 1;
-    cairn::Project project = project_of({pile_type("A", std::nullopt), pile_type("B", std::nullopt)},
+    cairn::Project project = one_case_project({pile_type("A", std::nullopt), pile_type("B", std::nullopt)},
                                         piles, {on_top(0, 0, {0, 0, -1000})});
     const cairn::CheckResults results = solved(project);  // springs E·A/L: no soil yet
     project.soil = cairn::SoilProfile{};
@@ -194,7 +166,7 @@ TEST_CASE("explain: the hand check says why it does not apply", "[explain]") {
   }
   SECTION("one type with springs from the soil is still equal") {
     cairn::Project project =
-        project_of({pile_type("A", std::nullopt)}, square, {on_top(0.1, 0, {0, 0, -1000})});
+        one_case_project({pile_type("A", std::nullopt)}, square, {on_top(0.1, 0, {0, 0, -1000})});
     const cairn::CheckResults results = solved(project);
     project.soil = cairn::SoilProfile{};
     const auto h = cairn::explain_pile(project, results, 0)[0];
@@ -204,7 +176,7 @@ TEST_CASE("explain: the hand check says why it does not apply", "[explain]") {
   SECTION("a pile that dropped out, and the formula over the piles left") {
     // P = 1000 kN at (0.6, 0.6) lifts the compression-only corner (−1, −1); the three left
     // are statically determinate: 200, 200, 600 kN (worked in test_cap_solver.cpp).
-    const cairn::Project project = project_of({pile_type("C", 2e5, false)}, square,
+    const cairn::Project project = one_case_project({pile_type("C", 2e5, false)}, square,
                                               {on_top(0.6, 0.6, {0, 0, -1000})});
     const cairn::CheckResults results = solved(project);
     const auto lifted = cairn::explain_pile(project, results, 0)[0];
@@ -217,7 +189,7 @@ TEST_CASE("explain: the hand check says why it does not apply", "[explain]") {
     CHECK(corner.solver_axial == close(600.0, 1e-9));
   }
   SECTION("an overturned cap") {
-    const cairn::Project project = project_of({pile_type("C", 2e5, false)}, square,
+    const cairn::Project project = one_case_project({pile_type("C", 2e5, false)}, square,
                                               {on_top(1.5, 0, {0, 0, -1000})});
     const cairn::CheckResults results = solved(project);
     REQUIRE(results.combinations[0].solution.overturns);
@@ -234,7 +206,7 @@ TEST_CASE("explain: a two-pile cap uses the one-way form", "[explain][published]
   // P = 1000 ∓ (−75)·0.9375/1.7578 = 1040 / 960 kN.
   std::vector<cairn::Pile> piles = grid({-0.9, 0.975}, {0.0});
   const cairn::Project project =
-      project_of({pile_type("V", 2.5e5)}, piles, {on_top(0, 0, {0, 0, -2000})});
+      one_case_project({pile_type("V", 2.5e5)}, piles, {on_top(0, 0, {0, 0, -2000})});
   const cairn::CheckResults results = solved(project);
   // Source: computed from the rigid-cap formula (common practice):
   // outward 75 mm → 1040.0 / 960.0 kN.

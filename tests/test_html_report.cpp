@@ -125,6 +125,7 @@ PileTypeCapacity vesic_sample() {
   c.geometry.head_depth = 1.5;
   TipDetails& d = c.result.tip_details;
   d.method = "vesic";
+  d.tip_method = TipMethod::vesic;
   d.layer = "dense sand";
   d.depth = 13.5;
   d.area = c.geometry.area();
@@ -137,6 +138,7 @@ PileTypeCapacity vesic_sample() {
   LayerShaft layer;
   layer.name = "soft clay";
   layer.method = "alpha-api";
+  layer.shaft_method = ShaftMethod::alpha_api;
   layer.top = 1.5;
   layer.bottom = 8.0;
   layer.unit_average = 27.2;

@@ -12,6 +12,7 @@
 #include <vector>
 
 #include "cairn/input/input.hpp"
+#include "support.hpp"
 
 using namespace cairn;
 
@@ -27,7 +28,7 @@ constexpr double kPcf = 4.4482216152605e-3 / (0.3048 * 0.3048 * 0.3048);  // kN/
 constexpr double kKsf = kKip / (kFoot * kFoot);                           // kPa per ksf
 
 // Values are converted once with double factors; 1e-9 relative absorbs only rounding.
-Approx near(double value) { return Approx(value).epsilon(1e-9).margin(1e-9); }
+Approx near(double value) { return cairn::test::close(value, 1e-9, 1e-9); }
 
 Project read(const std::string& name) { return read_project(kData + "/" + name); }
 

@@ -9,6 +9,7 @@
 #include <stdexcept>
 
 #include "cairn/geotechnics/lateral.hpp"
+#include "support.hpp"
 
 using cairn::BromsInput;
 using cairn::BromsMode;
@@ -19,7 +20,7 @@ using cairn::SoilKind;
 namespace {
 
 // Check values are printed to 4–5 significant figures; 1e-3 relative covers their rounding.
-Approx near(double value) { return Approx(value).epsilon(1e-3); }
+Approx near(double value) { return cairn::test::close(value, 1e-3, 0.0); }
 
 // Pile of the Hetényi checks: D = 0.6 m round, Ep = 30 GPa → EI = 190 851.8 kN·m²,
 // kh = 20 MN/m³.

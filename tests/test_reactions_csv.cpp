@@ -19,6 +19,7 @@
 #include "cairn/checks/checks.hpp"
 #include "cairn/input/input.hpp"
 #include "cairn/input/reactions_csv.hpp"
+#include "support.hpp"
 
 using namespace cairn;
 
@@ -30,7 +31,7 @@ constexpr double kKip = 4.4482216152605;  // kN, NIST SP 811 Appendix B
 constexpr double kFoot = 0.3048;          // m, NIST SP 811 Appendix B
 
 // Values pass through one multiplication; 1e-12 relative absorbs only its rounding.
-Approx near(double value) { return Approx(value).epsilon(1e-12).margin(1e-12); }
+Approx near(double value) { return cairn::test::close(value, 1e-12, 1e-12); }
 
 std::string file_text(const std::string& name) {
   std::ifstream in(kData + name, std::ios::binary);

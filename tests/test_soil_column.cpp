@@ -14,13 +14,16 @@
 #include "cairn/geotechnics/project_capacity.hpp"
 #include "cairn/geotechnics/soil.hpp"
 #include "cairn/geotechnics/stiffness.hpp"
+#include "support.hpp"
 
 using namespace cairn;
+using cairn::test::contains;
+using cairn::test::round_pile;
 
 namespace {
 
 // Hand calculations repeated from the same formulas: round-off of the hand figures (5 digits).
-Approx rel(double value) { return Approx(value).epsilon(1e-4); }
+Approx rel(double value) { return cairn::test::close(value, 1e-4, 0.0); }
 
 SoilLayer clay(const std::string& name, double thickness, double gamma, double cu) {
   SoilLayer layer;
@@ -40,17 +43,6 @@ SoilLayer sand(const std::string& name, double thickness, double gamma, double p
   layer.unit_weight = gamma;
   layer.friction_angle = phi;
   return layer;
-}
-
-PileGeometry round_pile(double diameter, double length) {
-  PileGeometry pile;
-  pile.width = diameter;
-  pile.length = length;
-  return pile;
-}
-
-bool contains(const std::string& text, const std::string& part) {
-  return text.find(part) != std::string::npos;
 }
 
 // Soft clay 0–6 m over dense sand 6–20 m, no water; every property the capacity, the spring

@@ -20,6 +20,7 @@
 #include "cairn/solver/cap_solver.hpp"
 #include "cairn/core/model.hpp"
 #include "cairn/checks/explain.hpp"
+#include "support.hpp"
 
 using cairn::CapLoad;
 using cairn::CapSolution;
@@ -27,50 +28,17 @@ using cairn::CapSolver;
 using cairn::PileSpring;
 using cairn::Wrench;
 
+// close, batter_axis, spring, on_top, one_case_project, solve_project, kCapThickness
+using namespace cairn::test;
+
 namespace {
-
-constexpr double kCapThickness = 1.5;  // m: loads act on the top of the cap
-constexpr double kPi = 3.14159265358979323846;
-
-// The one comparison helper: `relative` is the margin the comparison allows (say why beside
-// each use), `absolute` covers values that are exactly zero.
-Approx close(double value, double relative, double absolute = 1e-9) {
-  return Approx(value).epsilon(relative).margin(absolute);
-}
-
-PileSpring spring(double x, double y, double axial, double lateral = 0.0, bool tension = true,
-                  std::array<double, 3> axis = {0.0, 0.0, -1.0}) {
-  return {{x, y, 0.0}, axis, axial, lateral, tension};
-}
-
-// Unit axis of a pile battered 1 horizontal in `ratio` vertical, toe toward `toward_deg`.
-std::array<double, 3> batter_axis(double ratio, double toward_deg) {
-  const double t = toward_deg * kPi / 180.0;
-  const double n = std::sqrt(1.0 + ratio * ratio);
-  return {std::cos(t) / n, std::sin(t) / n, -ratio / n};
-}
-
-cairn::PointLoad on_top(double x, double y, std::array<double, 3> force,
-                        std::array<double, 3> moment = {0.0, 0.0, 0.0}) {
-  cairn::PointLoad p;
-  p.at = {x, y, kCapThickness};
-  p.load = {force[0], force[1], force[2], moment[0], moment[1], moment[2]};
-  return p;
-}
-
-cairn::LoadCase load_case(std::vector<cairn::PointLoad> loads) {
-  cairn::LoadCase lc;
-  lc.id = "LC1";
-  lc.loads = std::move(loads);
-  return lc;
-}
 
 // A project of vertical piles with given axial stiffness (one pile type each), one load case
 // and one combination "C1" = 1.0 × case, solved the way the program solves it.
 cairn::Project project_of(const std::vector<std::array<double, 2>>& heads,
                           const std::vector<double>& axial, std::vector<cairn::PointLoad> loads) {
-  cairn::Project project;
-  project.cap.thickness = kCapThickness;
+  std::vector<cairn::PileType> types;
+  std::vector<cairn::Pile> piles;
   for (std::size_t i = 0; i < heads.size(); ++i) {
     cairn::PileType type;
     type.id = "T" + std::to_string(i);
@@ -79,29 +47,15 @@ cairn::Project project_of(const std::vector<std::array<double, 2>>& heads,
     type.elastic_modulus = 3e7;
     type.axial_stiffness = axial[i];
     type.lateral_stiffness = 0.0;
-    project.pile_types.push_back(type);
+    types.push_back(type);
     cairn::Pile pile;
     pile.id = std::string(1, static_cast<char>('A' + i));
     pile.x = heads[i][0];
     pile.y = heads[i][1];
     pile.type = i;
-    project.piles.push_back(pile);
+    piles.push_back(pile);
   }
-  project.load_cases.push_back(load_case(std::move(loads)));
-  cairn::Combination combination;
-  combination.id = "C1";
-  combination.factors = {{0, 1.0}};
-  project.combinations.push_back(combination);
-  return project;
-}
-
-CapSolution solve_project(const cairn::Project& project) {
-  const CapSolver solver(cairn::pile_springs(project));
-  REQUIRE(cairn::unresisted_cases(project, solver).empty());
-  const auto solutions = cairn::solve_combinations(project, solver);
-  REQUIRE(solutions.size() == 1);
-  REQUIRE_FALSE(solutions[0].overturns);
-  return solutions[0];
+  return one_case_project(std::move(types), std::move(piles), std::move(loads));
 }
 
 }  // namespace

@@ -15,6 +15,7 @@
 #include <string>
 
 #include "cairn/core/units.hpp"
+#include "support.hpp"
 
 using cairn::parse_quantity;
 using cairn::Quantity;
@@ -47,7 +48,7 @@ std::string error_of(const std::string& text, Quantity quantity,
 
 // The factors are exact or defined to 14 digits; a relative margin of 1e-12 only absorbs
 // floating-point rounding of the products and quotients.
-Approx exact(double value) { return Approx(value).epsilon(1e-12).margin(1e-12); }
+Approx exact(double value) { return cairn::test::close(value, 1e-12, 1e-12); }
 
 }  // namespace
 

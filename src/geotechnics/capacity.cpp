@@ -10,6 +10,7 @@
 #include <utility>
 
 #include "cairn/core/units.hpp"
+#include "cairn/geotechnics/methods.hpp"
 
 namespace cairn {
 
@@ -22,9 +23,6 @@ constexpr double kDepthTolerance = kBoundaryTolerance;
 // Meyerhof (1976): the unit tip develops over about 10 diameters of penetration into a
 // stronger layer, and a weaker layer less than about 10 diameters below the tip reduces it.
 constexpr double kTransitionDiameters = 10.0;
-// 1 short ton-force per square foot in kPa: 2000 lbf · 4.4482216152605 N / (0.3048 m)².
-// O'Neill & Reese (1999) state the drilled-shaft sand tip in tsf.
-constexpr double kTsf = 2000.0 * 4.4482216152605 / (0.3048 * 0.3048) / 1000.0;
 // Meyerhof's (1976) limiting unit shaft friction of driven displacement piles in sand,
 // 1 tsf (FHWA-HI-97-013 quotes it as 2 ksf), from memory. cairn applies it by default to
 // shaft methods whose source gives no limit in sand (beta; meyerhof-spt on bored piles).
@@ -37,9 +35,6 @@ constexpr double kDefaultSafetyTension = 3.0;
 constexpr double kSandUpliftFactor = 2.0 / 3.0;
 // O'Neill & Reese (1999): top 1.5 m of a drilled shaft in clay carries no side resistance.
 constexpr double kAlphaFhwaTopExclusion = 1.5;
-// O'Neill & Reese (1999) limit on β-method unit side resistance in sand, 2.0 tsf (from
-// memory).
-constexpr double kBetaFhwaLimit = 2.0 * kTsf;
 // AASHTO LRFD 10.8.3.5.1c limit on drilled-shaft unit tip in clay, 80 ksf = 3.83 MPa (from
 // memory).
 constexpr double kFhwaClayTipLimit = 40.0 * kTsf;
@@ -115,9 +110,10 @@ double interpolate(const double (*table)[2], std::size_t rows, double x) {
   return table[rows - 1][1];
 }
 
-bool is_bored_method(TipMethod method) { return method == TipMethod::fhwa; }
-bool is_bored_method(ShaftMethod method) {
-  return method == ShaftMethod::alpha_fhwa || method == ShaftMethod::beta_fhwa;
+// Developed for drilled shafts (bored piles), by the method table.
+template <class Method>
+bool is_bored_method(Method method) {
+  return method_info(method).developed_for == Installation::bored;
 }
 
 // "tip method 'vesic' (sand)"
@@ -125,20 +121,11 @@ std::string fmt_method(const char* part, const char* method, const char* kind) {
   return std::string(part) + " method '" + method + "' (" + kind + ")";
 }
 
-bool applies(TipMethod method, SoilKind kind) {
-  return !(method == TipMethod::meyerhof_spt && kind == SoilKind::clay);
-}
-
-bool applies(ShaftMethod method, SoilKind kind) {
-  switch (method) {
-    case ShaftMethod::beta: return true;
-    case ShaftMethod::alpha_api:
-    case ShaftMethod::alpha_fhwa:
-    case ShaftMethod::lambda: return kind == SoilKind::clay;
-    case ShaftMethod::beta_fhwa:
-    case ShaftMethod::meyerhof_spt: return kind == SoilKind::sand;
-  }
-  return false;
+// Whether a method applies to a kind of soil, by the method table.
+template <class Method>
+bool applies(Method method, SoilKind kind) {
+  const auto& info = method_info(method);
+  return kind == SoilKind::clay ? info.clay : info.sand;
 }
 
 std::optional<TipMethod> tip_method_for(const PileDesign& design, SoilKind kind) {
@@ -172,34 +159,23 @@ double PileGeometry::perimeter() const { return round ? kPi * width : 4.0 * widt
 
 // ---- Method names -----------------------------------------------------------------------
 
+// From the method tables (methods.hpp).
 std::vector<std::string> tip_method_names() {
   std::vector<std::string> names;
-  for (TipMethod m :
-       {TipMethod::vesic, TipMethod::meyerhof, TipMethod::meyerhof_spt, TipMethod::fhwa})
-    names.emplace_back(to_string(m));
+  for (const auto& row : tip_methods()) names.emplace_back(row.name);
   return names;
 }
 
 std::vector<std::string> shaft_method_names() {
   std::vector<std::string> names;
-  for (ShaftMethod m : {ShaftMethod::beta, ShaftMethod::alpha_api, ShaftMethod::alpha_fhwa,
-                        ShaftMethod::lambda, ShaftMethod::beta_fhwa, ShaftMethod::meyerhof_spt})
-    names.emplace_back(to_string(m));
+  for (const auto& row : shaft_methods()) names.emplace_back(row.name);
   return names;
 }
 
-std::optional<TipMethod> parse_tip_method(std::string_view name) {
-  for (TipMethod m :
-       {TipMethod::vesic, TipMethod::meyerhof, TipMethod::meyerhof_spt, TipMethod::fhwa})
-    if (name == to_string(m)) return m;
-  return std::nullopt;
-}
+std::optional<TipMethod> parse_tip_method(std::string_view name) { return find_tip_method(name); }
 
 std::optional<ShaftMethod> parse_shaft_method(std::string_view name) {
-  for (ShaftMethod m : {ShaftMethod::beta, ShaftMethod::alpha_api, ShaftMethod::alpha_fhwa,
-                        ShaftMethod::lambda, ShaftMethod::beta_fhwa, ShaftMethod::meyerhof_spt})
-    if (name == to_string(m)) return m;
-  return std::nullopt;
+  return find_shaft_method(name);
 }
 
 // ---- Vesić (1977), NCHRP Synthesis 42 ---------------------------------------------------
@@ -358,53 +334,28 @@ double lambda_unit_shaft(double lambda, double mean_effective_stress, double mea
 // ---- Factors ----------------------------------------------------------------------------
 
 // AASHTO LRFD Table 10.5.5.2.3-1 (driven piles) and 10.5.5.2.4-1 (drilled shafts), from
-// memory. Driven: end bearing in clay (Skempton) 0.40;
-// SPT method 0.30; sand tips by φ (Vesić, Meyerhof) take the φ-based static analysis row
-// (Nordlund/Thurman) 0.45, since the table has no Vesić row. Drilled: clay tip 0.40, sand
-// tip 0.50.
+// memory: the values are in the method tables (methods.cpp), per installation and soil.
 double aashto_phi_tip(TipMethod method, SoilKind kind, Installation installation) {
-  if (installation == Installation::bored && aashto_calibrated(method, installation))
-    return kind == SoilKind::clay ? 0.40 : 0.50;
-  if (kind == SoilKind::clay) return 0.40;
-  if (method == TipMethod::meyerhof_spt || method == TipMethod::fhwa) return 0.30;
-  return 0.45;
+  const TipMethodInfo& info = method_info(method);
+  return (installation == Installation::bored ? info.phi_bored : info.phi_driven).of(kind);
 }
 
-// Driven: α 0.35, β 0.25, λ 0.40, SPT 0.30. Drilled: side in clay 0.45, side in sand 0.55.
 double aashto_phi_shaft(ShaftMethod method, SoilKind kind, Installation installation) {
-  if (installation == Installation::bored && aashto_calibrated(method, installation))
-    return kind == SoilKind::clay ? 0.45 : 0.55;
-  switch (method) {
-    case ShaftMethod::alpha_api:
-    case ShaftMethod::alpha_fhwa: return 0.35;
-    case ShaftMethod::beta:
-    case ShaftMethod::beta_fhwa: return 0.25;
-    case ShaftMethod::lambda: return 0.40;
-    case ShaftMethod::meyerhof_spt: return 0.30;
-  }
-  return 0.0;
+  const ShaftMethodInfo& info = method_info(method);
+  return (installation == Installation::bored ? info.phi_bored : info.phi_driven).of(kind);
 }
 
-// Uplift. Driven: α 0.25, β 0.20, λ 0.30, SPT 0.25. Drilled: clay 0.35, sand 0.45.
 double aashto_phi_uplift(ShaftMethod method, SoilKind kind, Installation installation) {
-  if (installation == Installation::bored && aashto_calibrated(method, installation))
-    return kind == SoilKind::clay ? 0.35 : 0.45;
-  switch (method) {
-    case ShaftMethod::alpha_api:
-    case ShaftMethod::alpha_fhwa: return 0.25;
-    case ShaftMethod::beta:
-    case ShaftMethod::beta_fhwa: return 0.20;
-    case ShaftMethod::lambda: return 0.30;
-    case ShaftMethod::meyerhof_spt: return 0.25;
-  }
-  return 0.0;
+  const ShaftMethodInfo& info = method_info(method);
+  return (installation == Installation::bored ? info.phi_uplift_bored : info.phi_uplift_driven)
+      .of(kind);
 }
 
 bool aashto_calibrated(TipMethod method, Installation installation) {
-  return is_bored_method(method) == (installation == Installation::bored);
+  return method_info(method).developed_for == installation;
 }
 bool aashto_calibrated(ShaftMethod method, Installation installation) {
-  return is_bored_method(method) == (installation == Installation::bored);
+  return method_info(method).developed_for == installation;
 }
 
 std::vector<std::string> installation_cautions(const PileDesign& design) {
@@ -489,13 +440,12 @@ void check_layer_methods(const SoilLayer& layer, const PileDesign& design, bool 
                       *layer.undrained_strength / kPa < 0.25;
   const auto tip = tip_method_for(design, layer.kind);
   if (tip_layer && tip && applies(*tip, layer.kind)) {
-    const char* name = to_string(*tip);
-    if (layer.kind == SoilKind::sand) {
-      if (*tip == TipMethod::vesic) need(layer.soil_modulus, name, "soil_modulus");
-      if (*tip == TipMethod::meyerhof_spt || *tip == TipMethod::fhwa)
-        need(layer.spt_n60, name, "spt_n60");
-    } else if ((*tip == TipMethod::vesic || *tip == TipMethod::fhwa) && !layer.soil_modulus &&
-               low_cu) {
+    const TipMethodInfo& info = method_info(*tip);
+    const char* name = info.name;
+    for (const LayerInput& input : layer.kind == SoilKind::sand ? info.needs_sand : info.needs_clay)
+      need(layer.*input.field, name, input.key);
+    if (layer.kind == SoilKind::clay && info.clay_modulus_below_quarter_pa && !layer.soil_modulus &&
+        low_cu) {
       problems.push_back(who + ": method '" + name + "' needs soil_modulus (cu/pa = " +
                          format("%.3f", *layer.undrained_strength / kPa) +
                          " is below 0.25, where the tabulated Ir is not used)");
@@ -503,13 +453,8 @@ void check_layer_methods(const SoilLayer& layer, const PileDesign& design, bool 
   }
   const auto shaft = shaft_method_for(design, layer.kind);
   if (shaft_layer && shaft && applies(*shaft, layer.kind)) {
-    const char* name = to_string(*shaft);
-    if (*shaft == ShaftMethod::beta) {
-      need(layer.shaft_k, name, "shaft_k");
-      need(layer.shaft_delta, name, "shaft_delta");
-    }
-    if (*shaft == ShaftMethod::beta_fhwa || *shaft == ShaftMethod::meyerhof_spt)
-      need(layer.spt_n60, name, "spt_n60");
+    const ShaftMethodInfo& info = method_info(*shaft);
+    for (const LayerInput& input : info.needs) need(layer.*input.field, info.name, input.key);
   }
 }
 
@@ -624,6 +569,10 @@ TipDetails layer_tip(const SoilColumn& column, std::size_t index, double z,
   d.layer = layer.name;
   d.kind = layer.kind;
   d.q_prime = column.effective_stress(d.depth);
+  d.friction_angle = layer.friction_angle;
+  d.undrained_strength = layer.undrained_strength;
+  d.soil_modulus = layer.soil_modulus;
+  d.spt_n60 = layer.spt_n60;
   const std::optional<TipMethod> method = tip_method_for(design, layer.kind);
   if (!method) {
     d.method = "none";
@@ -632,6 +581,7 @@ TipDetails layer_tip(const SoilColumn& column, std::size_t index, double z,
     return d;
   }
   d.method = to_string(*method);
+  d.tip_method = *method;
   if (is_bored_method(*method) && design.installation == Installation::driven)
     add_note(notes,
              "tip method 'fhwa' was developed for drilled shafts; used here on a driven pile");
@@ -805,7 +755,7 @@ TipDetails tip_resistance(const SoilColumn& column, const PileGeometry& pile,
   const double z = pile.tip_depth();
   const std::size_t k = column.layer_at(z);
   TipDetails d = layer_tip(column, k, z, pile, design, notes);
-  if (d.method == "none") return d;
+  if (!d.tip_method) return d;
   const UnitSystem u = pile.units;
   const double zone = kTransitionDiameters * pile.width;
   const double start = std::max(column.top(k), pile.head_depth);
@@ -824,7 +774,7 @@ TipDetails tip_resistance(const SoilColumn& column, const PileGeometry& pile,
   };
   const bool layer_above = k > 0 && column.top(k) > pile.head_depth + kDepthTolerance &&
                            *d.penetration < zone - kDepthTolerance && has_tip_method(k - 1);
-  const bool spt = d.method == to_string(TipMethod::meyerhof_spt);
+  const bool spt = d.tip_method == TipMethod::meyerhof_spt;
   if (*d.penetration < zone - kDepthTolerance && (layer_above || spt)) {
     const double q0 =
         layer_above ? layer_tip(column, k - 1, column.top(k), pile, design, scratch).unit_tip
@@ -909,19 +859,19 @@ struct ShaftLimit {
   bool is_default = false;
 };
 
-// The limit on unit shaft friction for a method in a layer: the method's own (beta-fhwa
-// 2 tsf, O'Neill & Reese 1999; meyerhof-spt 1 tsf on driven piles, Meyerhof 1976); where
-// the source gives none in sand (beta; meyerhof-spt on bored piles) Meyerhof's 1 tsf by
-// default; max_unit_shaft replaces the default and lowers any other. Clay methods need
-// none: α·cu ≤ cu, and λ is a mean over the clay.
+// The limit on unit shaft friction for a method in a layer: the method's own, from its row in
+// the method table (beta-fhwa 2 tsf, O'Neill & Reese 1999; meyerhof-spt 1 tsf on driven
+// piles, Meyerhof 1976); where the source gives none in sand (beta; meyerhof-spt on bored
+// piles) Meyerhof's 1 tsf by default; max_unit_shaft replaces the default and lowers any
+// other. Clay methods need none: α·cu ≤ cu, and λ is a mean over the clay.
 ShaftLimit shaft_limit(ShaftMethod method, const SoilLayer& layer, Installation installation) {
+  const ShaftMethodInfo& info = method_info(method);
+  const std::optional<double> own =
+      installation == Installation::driven ? info.limit_driven : info.limit_bored;
   ShaftLimit limit;
-  if (method == ShaftMethod::beta_fhwa) {
-    limit = {kBetaFhwaLimit, "O'Neill & Reese (1999) limit 2 tsf", false};
-  } else if (method == ShaftMethod::meyerhof_spt && installation == Installation::driven) {
-    limit = {kMeyerhofShaftLimit, "Meyerhof (1976) limit 1 tsf for driven piles", false};
-  } else if ((method == ShaftMethod::beta || method == ShaftMethod::meyerhof_spt) &&
-             layer.kind == SoilKind::sand && !layer.max_unit_shaft) {
+  if (own) {
+    limit = {*own, info.limit_source, false};
+  } else if (info.default_limit_in_sand && layer.kind == SoilKind::sand && !layer.max_unit_shaft) {
     limit = {kMeyerhofShaftLimit,
              "default: Meyerhof (1976) limit 1 tsf for driven piles in sand, from memory", true};
   }
@@ -998,6 +948,7 @@ CapacityResult pile_capacity(const SoilProfile& profile, const PileGeometry& pil
       continue;
     }
     s.method = to_string(*method);
+    s.shaft_method = *method;
     if (is_bored_method(*method) && installation == Installation::driven)
       add_note(notes, std::string("shaft method '") + s.method +
                           "' was developed for drilled shafts; used here on a driven pile");

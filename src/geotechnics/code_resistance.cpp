@@ -10,6 +10,8 @@
 
 #include <fmt/format.h>
 
+#include "cairn/geotechnics/methods.hpp"
+
 namespace cairn {
 namespace {
 
@@ -220,10 +222,14 @@ SoilProfile en1997_m2_profile(const SoilProfile& profile) {
 }
 
 bool en1997_m2_applies(const PileDesign& design) {
-  const bool spt_tip = design.tip_sand == TipMethod::meyerhof_spt || design.tip_sand == TipMethod::fhwa;
-  const bool spt_shaft = design.shaft_sand == ShaftMethod::beta_fhwa ||
-                         design.shaft_sand == ShaftMethod::meyerhof_spt ||
-                         design.shaft_clay == ShaftMethod::meyerhof_spt;
+  // SPT methods: those whose row in the method table (methods.hpp) needs N60.
+  auto spt = [](const std::vector<LayerInput>& needs) {
+    return std::any_of(needs.begin(), needs.end(),
+                       [](const LayerInput& input) { return input.field == &SoilLayer::spt_n60; });
+  };
+  const bool spt_tip = design.tip_sand && spt(method_info(*design.tip_sand).needs_sand);
+  const bool spt_shaft = (design.shaft_sand && spt(method_info(*design.shaft_sand).needs)) ||
+                         (design.shaft_clay && spt(method_info(*design.shaft_clay).needs));
   return !spt_tip && !spt_shaft;
 }
 

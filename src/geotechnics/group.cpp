@@ -351,23 +351,11 @@ BlockPlan block_plan(const std::vector<PilePlan>& piles) {
 
 // ---- efficiency ---------------------------------------------------------------------------
 
-const char* to_string(EfficiencyMethod method) {
-  switch (method) {
-    case EfficiencyMethod::none: return "none";
-    case EfficiencyMethod::converse_labarre: return "converse-labarre";
-    case EfficiencyMethod::los_angeles: return "los-angeles";
-    case EfficiencyMethod::feld: return "feld";
-    case EfficiencyMethod::block_perimeter: return "block-perimeter";
-  }
-  return "?";
-}
+// From the method table (methods.hpp).
+const char* to_string(EfficiencyMethod method) { return method_info(method).name; }
 
 std::optional<EfficiencyMethod> efficiency_method_from_string(const std::string& name) {
-  for (EfficiencyMethod m : {EfficiencyMethod::none, EfficiencyMethod::converse_labarre,
-                             EfficiencyMethod::los_angeles, EfficiencyMethod::feld,
-                             EfficiencyMethod::block_perimeter})
-    if (name == to_string(m)) return m;
-  return std::nullopt;
+  return find_efficiency_method(name);
 }
 
 namespace {
@@ -459,10 +447,8 @@ EfficiencySummary all_efficiencies(const std::vector<PilePlan>& piles, double to
                                    UnitSystem units) {
   EfficiencySummary summary;
   summary.grid = detect_grid(piles, tolerance, units);
-  for (EfficiencyMethod m : {EfficiencyMethod::none, EfficiencyMethod::converse_labarre,
-                             EfficiencyMethod::los_angeles, EfficiencyMethod::feld,
-                             EfficiencyMethod::block_perimeter})
-    summary.all.push_back(efficiency_on_grid(m, piles, summary.grid, tolerance, units));
+  for (const EfficiencyMethodInfo& row : efficiency_methods())
+    summary.all.push_back(efficiency_on_grid(row.method, piles, summary.grid, tolerance, units));
   return summary;
 }
 

@@ -7,6 +7,7 @@
 #include <stdexcept>
 
 #include "cairn/core/units.hpp"
+#include "cairn/geotechnics/methods.hpp"
 
 namespace cairn {
 
@@ -144,27 +145,10 @@ const char* to_string(Installation installation) {
   return "?";
 }
 
-// The names are the ones written in a project file (tip_method: vesic).
-const char* to_string(TipMethod method) {
-  switch (method) {
-    case TipMethod::vesic: return "vesic";
-    case TipMethod::meyerhof: return "meyerhof";
-    case TipMethod::meyerhof_spt: return "meyerhof-spt";
-    case TipMethod::fhwa: return "fhwa";
-  }
-  return "?";
-}
+// The names are the ones written in a project file (tip_method: vesic), from the method
+// tables (methods.hpp).
+const char* to_string(TipMethod method) { return method_info(method).name; }
 
-const char* to_string(ShaftMethod method) {
-  switch (method) {
-    case ShaftMethod::beta: return "beta";
-    case ShaftMethod::alpha_api: return "alpha-api";
-    case ShaftMethod::alpha_fhwa: return "alpha-fhwa";
-    case ShaftMethod::lambda: return "lambda";
-    case ShaftMethod::beta_fhwa: return "beta-fhwa";
-    case ShaftMethod::meyerhof_spt: return "meyerhof-spt";
-  }
-  return "?";
-}
+const char* to_string(ShaftMethod method) { return method_info(method).name; }
 
 }  // namespace cairn

@@ -674,13 +674,8 @@ class Reader {
     if (auto e = n.child("efficiency"); e.present()) {
       const std::string name = e.node.IsScalar() ? e.node.Scalar() : scalar_text(e.node);
       if (!efficiency_method_from_string(name)) {
-        std::vector<std::string> names;
-        for (auto m : {EfficiencyMethod::none, EfficiencyMethod::converse_labarre,
-                       EfficiencyMethod::los_angeles, EfficiencyMethod::feld,
-                       EfficiencyMethod::block_perimeter})
-          names.push_back(to_string(m));
         diag_.error(at(e), fmt::format("group.efficiency: unknown method '{}'; expected one of {}",
-                                       name, list_of(names)));
+                                       name, list_of(efficiency_method_names())));
       } else {
         g.efficiency = name;
       }
@@ -930,19 +925,10 @@ class Reader {
                                                  {"bored", Installation::bored}}))
           design.installation = *v;
       if (auto tip = n.child("tip_method"); tip.present())
-        read_method<TipMethod>(tip, {{"vesic", TipMethod::vesic},
-                                     {"meyerhof", TipMethod::meyerhof},
-                                     {"meyerhof-spt", TipMethod::meyerhof_spt},
-                                     {"fhwa", TipMethod::fhwa}},
-                               design.tip_clay, design.tip_sand);
+        read_method<TipMethod>(tip, tip_method_choices(), design.tip_clay, design.tip_sand);
       if (auto shaft = n.child("shaft_method"); shaft.present())
-        read_method<ShaftMethod>(shaft, {{"beta", ShaftMethod::beta},
-                                         {"alpha-api", ShaftMethod::alpha_api},
-                                         {"alpha-fhwa", ShaftMethod::alpha_fhwa},
-                                         {"lambda", ShaftMethod::lambda},
-                                         {"beta-fhwa", ShaftMethod::beta_fhwa},
-                                         {"meyerhof-spt", ShaftMethod::meyerhof_spt}},
-                                 design.shaft_clay, design.shaft_sand);
+        read_method<ShaftMethod>(shaft, shaft_method_choices(), design.shaft_clay,
+                                 design.shaft_sand);
       design.critical_depth_diameters =
           number(n, "critical_depth", Quantity::number, Need::optional);
       design.safety_factor = number(n, "factor_of_safety", Quantity::number, Need::optional);

@@ -7,14 +7,12 @@
 
 #include <fmt/format.h>
 
+#include "cairn/geotechnics/methods.hpp"
 #include "cairn/output/number_text.hpp"
 #include "cairn/output/plan_svg.hpp"
 
 namespace cairn {
 namespace {
-
-// 1 US short ton-force per square foot in kPa (2000 lbf / ft²), as capacity.cpp uses it.
-constexpr double kTsf = 95.76;
 
 std::string esc(const std::string& s) { return xml_escape(s); }
 
@@ -281,31 +279,21 @@ std::string results_section(const CheckReport& r, const CheckTables& tables) {
 
 // ---- Capacity breakdown -------------------------------------------------------------------
 
-const SoilLayer* find_layer(const Project& p, const std::string& name) {
-  if (!p.soil) return nullptr;
-  for (const auto& layer : p.soil->layers)
-    if (layer.name == name) return &layer;
-  return nullptr;
+// The shaft method's formula, from the method table (methods.hpp).
+std::string shaft_formula(const std::optional<ShaftMethod>& method) {
+  return method ? method_info(*method).formula : "-";
 }
 
-std::string shaft_formula(const std::string& method) {
-  if (method == "beta") return "f = K·σ'v·tan δ";
-  if (method == "alpha-api") return "f = α·cu, α = 0.5·ψ^−0.5 (ψ ≤ 1) or 0.5·ψ^−0.25 (ψ > 1) ≤ 1, ψ = cu/σ'v";
-  if (method == "lambda") return "f = λ·(σ̄'v + 2·c̄u)";
-  if (method == "alpha-fhwa") return "f = α·cu, α = 0.55 (cu/pa ≤ 1.5), 0.55 − 0.1·(cu/pa − 1.5)";
-  if (method == "beta-fhwa") return "f = β·σ'v, β = 1.5 − 0.245·√z, 0.25 ≤ β ≤ 1.2";
-  if (method == "meyerhof-spt") return "f = pa·N60/50 (driven) or pa·N60/100 (bored)";
-  return "-";
-}
-
-// The tip equations of TipDetails with the numbers substituted, one line each.
+// The tip equations of TipDetails with the numbers substituted, one line each; the method,
+// its formula and the soil values come with the details (no look-up of the layer).
 std::vector<std::string> tip_lines(const Project& p, const TipDetails& d, double tip,
                                    double width) {
   const Units u(p.units);
   const std::string kpa = u.label(Quantity::pressure), f = u.label(Quantity::force);
-  const SoilLayer* layer = find_layer(p, d.layer);
-  const double phi = layer && layer->friction_angle ? *layer->friction_angle : 0.0;
-  const double cu = layer && layer->undrained_strength ? *layer->undrained_strength : 0.0;
+  const double phi = d.friction_angle.value_or(0.0);
+  const double cu = d.undrained_strength.value_or(0.0);
+  const std::optional<TipMethod> m = d.tip_method;
+  const std::string formula = m ? method_info(*m).formula(d.kind) : "";
   const std::string pa = u.pressure(kAtmosphericPressure);
   std::vector<std::string> lines;
   lines.push_back(fmt::format("Tip in layer '{}' ({}) at {} {} below the ground; method {}.", d.layer,
@@ -313,13 +301,13 @@ std::vector<std::string> tip_lines(const Project& p, const TipDetails& d, double
                               d.method));
   lines.push_back(fmt::format("q' = σ'v at the tip = {} {}", u.pressure(d.q_prime), kpa));
   double expression = NAN;  // the method's unit tip before limits and reductions, kPa
-  if (d.method == "vesic" && d.n_sigma && d.sigma_o && d.k0) {
+  if (m == TipMethod::vesic && d.n_sigma && d.sigma_o && d.k0) {
     lines.push_back(fmt::format("K0 = 1 − sin φ = 1 − sin {:.1f}° = {:.3f}", phi, *d.k0));
     lines.push_back(fmt::format("σ'o = (1 + 2·K0)/3·q' = (1 + 2·{:.3f})/3·{} = {} {}", *d.k0,
                                 u.pressure(d.q_prime), u.pressure(*d.sigma_o), kpa));
-    if (d.rigidity_index && d.poisson_ratio && layer && layer->soil_modulus)
+    if (d.rigidity_index && d.poisson_ratio && d.soil_modulus)
       lines.push_back(fmt::format("Ir = Es/[2·(1 + μs)·q'·tan φ] = {}/[2·(1 + {:.3f})·{}·tan {:.1f}°] = {:.1f}",
-                                  u.pressure(*layer->soil_modulus), *d.poisson_ratio,
+                                  u.pressure(*d.soil_modulus), *d.poisson_ratio,
                                   u.pressure(d.q_prime), phi, *d.rigidity_index));
     if (d.reduced_rigidity_index && d.rigidity_index && d.volumetric_strain)
       lines.push_back(fmt::format("Irr = Ir/(1 + Ir·Δ) = {:.1f}/(1 + {:.1f}·{:.5f}) = {:.1f}",
@@ -329,55 +317,55 @@ std::vector<std::string> tip_lines(const Project& p, const TipDetails& d, double
                                 "Irr^(4·sin φ/[3·(1 + sin φ)]) = {:.2f}   (Vesić 1977)",
                                 *d.n_sigma));
     expression = *d.sigma_o * *d.n_sigma;
-    lines.push_back(fmt::format("q_p = σ'o·N*σ = {}·{:.2f} = {} {}", u.pressure(*d.sigma_o),
+    lines.push_back(fmt::format("{} = {}·{:.2f} = {} {}", formula, u.pressure(*d.sigma_o),
                                 *d.n_sigma, u.pressure(expression), kpa));
-  } else if (d.method == "vesic" && d.n_c && d.reduced_rigidity_index) {
-    if (layer && layer->soil_modulus && d.rigidity_index)
+  } else if (m == TipMethod::vesic && d.n_c && d.reduced_rigidity_index) {
+    if (d.soil_modulus && d.rigidity_index)
       lines.push_back(fmt::format("Ir = Es/(3·cu) = {}/(3·{}) = {:.1f}; Irr = Ir",
-                                  u.pressure(*layer->soil_modulus), u.pressure(cu), *d.rigidity_index));
+                                  u.pressure(*d.soil_modulus), u.pressure(cu), *d.rigidity_index));
     else if (d.rigidity_index)
       lines.push_back(fmt::format("Ir = 347·(cu/pa) − 33 ≤ 300 = {:.1f}; Irr = Ir", *d.rigidity_index));
     lines.push_back(fmt::format("N*c = 4/3·(ln Irr + 1) + π/2 + 1 = 4/3·(ln {:.1f} + 1) + π/2 + 1 = {:.2f}   "
                                 "(Vesić 1977)",
                                 *d.reduced_rigidity_index, *d.n_c));
     expression = cu * *d.n_c;
-    lines.push_back(fmt::format("q_p = cu·N*c = {}·{:.2f} = {} {}", u.pressure(cu), *d.n_c,
+    lines.push_back(fmt::format("{} = {}·{:.2f} = {} {}", formula, u.pressure(cu), *d.n_c,
                                 u.pressure(expression), kpa));
-  } else if (d.method == "meyerhof" && d.n_q) {
+  } else if (m == TipMethod::meyerhof && d.n_q) {
     lines.push_back(fmt::format("N*q = {:.1f} (φ = {:.1f}°, Meyerhof 1976)", *d.n_q, phi));
     expression = d.q_prime * *d.n_q;
-    lines.push_back(fmt::format("q_p = q'·N*q = {}·{:.1f} = {} {}", u.pressure(d.q_prime), *d.n_q,
+    lines.push_back(fmt::format("{} = {}·{:.1f} = {} {}", formula, u.pressure(d.q_prime), *d.n_q,
                                 u.pressure(expression), kpa));
     if (d.limit)
       lines.push_back(fmt::format("limit q_l = 0.5·pa·N*q·tan φ = 0.5·{}·{:.1f}·tan {:.1f}° = {} {}",
                                   pa, *d.n_q, phi, u.pressure(*d.limit), kpa));
-  } else if (d.method == "meyerhof" && d.n_c) {
-    expression = 9.0 * cu;
-    lines.push_back(fmt::format("q_p = 9·cu = 9·{} = {} {}   (Meyerhof 1976)", u.pressure(cu),
+  } else if (m == TipMethod::meyerhof && d.n_c) {
+    expression = *d.n_c * cu;
+    lines.push_back(fmt::format("{} = {:g}·{} = {} {}   (Meyerhof 1976)", formula, *d.n_c, u.pressure(cu),
                                 u.pressure(expression), kpa));
-  } else if (d.method == "meyerhof-spt" && d.penetration && layer && layer->spt_n60) {
-    expression = 0.4 * kAtmosphericPressure * *layer->spt_n60 * *d.penetration / width;
-    lines.push_back(fmt::format("q_p = 0.4·pa·N60·Db/D = 0.4·{}·{:g}·{}/{} = {} {}   (Meyerhof 1976)",
-                                pa, *layer->spt_n60, u.length(*d.penetration), u.length(width),
+  } else if (m == TipMethod::meyerhof_spt && d.penetration && d.spt_n60) {
+    expression = 0.4 * kAtmosphericPressure * *d.spt_n60 * *d.penetration / width;
+    lines.push_back(fmt::format("{} = 0.4·{}·{:g}·{}/{} = {} {}   (Meyerhof 1976)", formula,
+                                pa, *d.spt_n60, u.length(*d.penetration), u.length(width),
                                 u.pressure(expression), kpa));
     if (d.limit)
-      lines.push_back(fmt::format("limit 4·pa·N60 = 4·{}·{:g} = {} {}", pa, *layer->spt_n60,
+      lines.push_back(fmt::format("limit 4·pa·N60 = 4·{}·{:g} = {} {}", pa, *d.spt_n60,
                                   u.pressure(*d.limit), kpa));
-  } else if (d.method == "fhwa" && d.n_c) {
+  } else if (m == TipMethod::fhwa && d.n_c) {
     if (d.rigidity_index) lines.push_back(fmt::format("Ir = {:.1f}", *d.rigidity_index));
     lines.push_back(fmt::format("N*c = 1.33·(ln Ir + 1) ≤ 9 = {:.2f}   (O'Neill & Reese 1999)", *d.n_c));
     expression = cu * *d.n_c;
-    lines.push_back(fmt::format("q_p = N*c·cu = {:.2f}·{} = {} {}", *d.n_c, u.pressure(cu),
+    lines.push_back(fmt::format("{} = {:.2f}·{} = {} {}", formula, *d.n_c, u.pressure(cu),
                                 u.pressure(expression), kpa));
     if (d.reduction)
       lines.push_back(fmt::format("shallow base: × 2/3·(1 + Z/6D) = × {:.3f}", *d.reduction));
-  } else if (d.method == "fhwa" && layer && layer->spt_n60) {
-    expression = 0.6 * *layer->spt_n60 * kTsf;
-    lines.push_back(fmt::format("q_p = 0.6·N60 tsf = 0.6·{:g}·{} = {} {}   (O'Neill & Reese 1999)",
-                                *layer->spt_n60, u.pressure(kTsf), u.pressure(expression), kpa));
+  } else if (m == TipMethod::fhwa && d.spt_n60) {
+    expression = 0.6 * *d.spt_n60 * kTsf;
+    lines.push_back(fmt::format("{} = 0.6·{:g}·{} = {} {}   (O'Neill & Reese 1999)", formula,
+                                *d.spt_n60, u.pressure(kTsf), u.pressure(expression), kpa));
     if (d.limit) lines.push_back(fmt::format("limit 30 tsf = {} {}", u.pressure(*d.limit), kpa));
     if (d.reduction) lines.push_back(fmt::format("wide base: × 1.27/Bb = × {:.3f}", *d.reduction));
-  } else if (d.method == "none") {
+  } else if (!m) {
     lines.push_back("No tip method for this soil: the tip resistance is taken as 0.");
   }
   if (d.bored_factor) {
@@ -385,7 +373,7 @@ std::vector<std::string> tip_lines(const Project& p, const TipDetails& d, double
                                 *d.bored_factor));
     if (d.reduction) lines.push_back(fmt::format("wide base: × 1.27/Bb = × {:.3f}", *d.reduction));
   }
-  if (d.method != "none") {
+  if (m) {
     if (std::isnan(expression) || std::abs(expression - d.unit_tip) > 1e-6 * std::max(1.0, d.unit_tip))
       lines.push_back(fmt::format("q_p used = {} {}{}", u.pressure(d.unit_tip), kpa,
                                   d.limited ? " (a limit governs)" : ""));
@@ -433,7 +421,7 @@ std::string capacity_section(const Project& p, const std::vector<PileTypeCapacit
                "Q_up (" + f + ")"};
   t.numeric = {false, false, false, true, true, true, true, true, true, true};
   for (const auto& layer : c.layers)
-    t.rows.push_back({layer.name, layer.method, shaft_formula(layer.method), u.length(layer.top),
+    t.rows.push_back({layer.name, layer.method, shaft_formula(layer.shaft_method), u.length(layer.top),
                       u.length(layer.bottom), u.length(layer.bottom - layer.top),
                       u.pressure(layer.unit_average), u.force(layer.shaft),
                       fmt::format("{:.3f}", layer.uplift_factor), u.force(layer.uplift)});

@@ -12,18 +12,10 @@
 // and shaft resistances are limited by the method's own limits, or by a stated default where
 // the method's source gives none; max_unit_tip / max_unit_shaft are the engineer's override.
 //
-// Methods (each formula is written beside its code in capacity.cpp and in
-// docs/methods-capacity.md):
-//   tip   vesic        Vesić (1977), NCHRP Synthesis 42: cavity expansion, N*σ and N*c;
-//                      sand limited by default to Meyerhof's (1976) 0.5·pa·N*q·tanφ
-//         meyerhof     Meyerhof (1976), JGED 102(GT3): q'·N*q ≤ 0.5·pa·N*q·tanφ; clay 9·cu
-//         meyerhof-spt Meyerhof (1976): 0.4·pa·N60·Db/D ≤ 4·pa·N60 (sand)
-//         fhwa         O'Neill & Reese (1999), FHWA-IF-99-025, drilled shafts
-//   shaft beta         f = K·σ'v·tanδ;  alpha-api  API RP 2GEO α(ψ);  lambda  Vijayvergiya
-//                      & Focht (1972);  alpha-fhwa / beta-fhwa  O'Neill & Reese (1999);
-//                      meyerhof-spt  f = pa·N60/50 (driven) or /100 (bored); beta in sand
-//                      and meyerhof-spt limited to 1 tsf (Meyerhof 1976; a default where
-//                      the method's source gives none)
+// Methods: the tables of methods.hpp (name, soils, inputs, resistance factors, formula
+// text, source); each formula is written beside its code here and in
+// docs/methods-capacity.md. Beta in sand and meyerhof-spt are limited to 1 tsf (Meyerhof
+// 1976; a default where the method's source gives none).
 // Shaft friction is integrated along the shaft with Gauss–Legendre quadrature on short
 // sub-intervals (≤ 5 cm) split at the water table and at every kink the method introduces,
 // so a unit friction proportional to σ'v is integrated exactly.
@@ -36,6 +28,7 @@
 #include <string_view>
 #include <vector>
 
+#include "cairn/geotechnics/methods.hpp"
 #include "cairn/geotechnics/soil.hpp"
 #include "cairn/core/units.hpp"
 
@@ -58,6 +51,11 @@ struct PileGeometry {
 // Intermediate values of the tip calculation; a value the method does not use is empty.
 struct TipDetails {
   std::string method;  // method name as in to_string(TipMethod); "none" without a method
+  std::optional<TipMethod> tip_method;  // the method; empty without one
+  // The bearing layer's values the tip was computed from, as the layer gives them (empty
+  // where it gives none), so a report needs not look the layer up: φ in degrees, cu and Es
+  // in kPa, N60 in blows/0.3 m.
+  std::optional<double> friction_angle, undrained_strength, soil_modulus, spt_n60;
   std::string layer;   // bearing layer (the layer the tip ends in)
   SoilKind kind = SoilKind::sand;
   double depth = 0.0;                            // m below the ground surface
@@ -93,6 +91,7 @@ struct LayerShaft {
   std::string name;
   SoilKind kind = SoilKind::sand;
   std::string method;   // to_string(ShaftMethod), or "none"
+  std::optional<ShaftMethod> shaft_method;  // the method; empty without one
   double top = 0.0;     // m below the ground surface, top of the part crossed
   double bottom = 0.0;  // m below the ground surface
   double shaft = 0.0;   // kN, ultimate, compression

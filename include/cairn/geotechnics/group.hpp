@@ -22,6 +22,7 @@
 #include <string>
 #include <vector>
 
+#include "cairn/geotechnics/methods.hpp"
 #include "cairn/geotechnics/soil.hpp"
 #include "cairn/core/units.hpp"
 
@@ -128,8 +129,7 @@ BlockPlan block_plan(const std::vector<PilePlan>& piles);
 // Efficiency
 // ---------------------------------------------------------------------------------------
 
-enum class EfficiencyMethod { none, converse_labarre, los_angeles, feld, block_perimeter };
-
+// EfficiencyMethod and its table (name, formula, source): methods.hpp.
 // Names used in input and output: "none", "converse-labarre", "los-angeles", "feld",
 // "block-perimeter".
 const char* to_string(EfficiencyMethod method);

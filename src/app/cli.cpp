@@ -19,7 +19,7 @@
 #include "cairn/checks/checks.hpp"
 #include "cairn/checks/explain.hpp"
 #include "cairn/checks/group_checks.hpp"
-#include "cairn/output/html_report.hpp"
+#include "cairn/output/html_package.hpp"
 #include "cairn/output/plan_svg.hpp"
 #include "cairn/geotechnics/stiffness.hpp"
 #include "cairn/input/input.hpp"
@@ -246,24 +246,6 @@ int run_capacity(const Options& options, std::ostream& out, std::ostream& err) {
   return kExitPass;
 }
 
-// The group checks and settlement as an HTML section of the calculation package.
-std::string group_section_html(const CheckReport& report) {
-  const GroupParts parts = group_parts(report);
-  std::string html = "<section id=\"group\"><h2>Group checks and settlement</h2>\n";
-  auto lines = [&](const std::vector<std::string>& list) {
-    if (list.empty()) return;
-    html += "<ul>\n";
-    for (const auto& line : list) html += "<li>" + xml_escape(line) + "</li>\n";
-    html += "</ul>\n";
-  };
-  lines(parts.layout);
-  html += render_table_html(parts.efficiency);
-  lines(parts.checks);
-  html += render_table_html(parts.demand);
-  lines(parts.notes);
-  return html + "</section>";
-}
-
 // The calculation package: one self-contained HTML file per cap (plus, when asked, the
 // plan alone as SVG and the tables as CSV and Markdown), all written at once.
 int run_report(const Options& options, std::ostream& out, std::ostream& err) {
@@ -289,9 +271,8 @@ int run_report(const Options& options, std::ostream& out, std::ostream& err) {
     HtmlReportInput input;
     input.check = &report;
     input.capacities = &capacities;
-    input.extra_sections_html.push_back(group_section_html(report));
     const std::string stem = unique_stem(o.file, stems);
-    written.emplace_back(stem + ".html", render_html_report(input));
+    written.emplace_back(stem + ".html", render_cap_package_html(input));
     if (options.plan_svg)
       written.emplace_back(stem + "-plan.svg",
                            render_plan_svg(run.project, &run.results, &run.resistances));

@@ -7,6 +7,7 @@
 
 #include <fmt/format.h>
 
+#include "cairn/output/markup.hpp"
 #include "cairn/output/number_text.hpp"
 #include "cairn/output/plan_svg.hpp"
 

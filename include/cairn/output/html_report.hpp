@@ -31,7 +31,7 @@ struct HtmlReportInput {
   // depth_table, when filled, gives the capacity-with-depth chart.
   const std::vector<PileTypeCapacity>* capacities = nullptr;
   // Further sections, each a complete "<section>…</section>" already escaped, placed after
-  // the results and before the caution (group checks, settlement).
+  // the results and before the caution (group checks, settlement: html_package.hpp).
   std::vector<std::string> extra_sections_html;
 };
 

@@ -662,7 +662,7 @@ class Reader {
     if (from) read_reactions(from->value, project);
     project.input_files.push_back(path);
     for (const auto& f : merged.files)
-      if (f != path) project.input_files.push_back(f);
+      if (f != path && f != project.loads_file) project.input_files.push_back(f);
     if (const Entry* package = section("package"))
       read_package_settings(package->value.node, *package->value.file, project, diag_);
     if (diag_.empty()) add_self_weight(project);

@@ -23,16 +23,4 @@ std::string render_group_section_html(const CheckReport& report) {
   return html + "</section>";
 }
 
-std::string render_cap_package_html(const HtmlReportInput& input) {
-  HtmlReportInput package = input;
-  if (input.check && input.check->group)
-    package.extra_sections_html.insert(package.extra_sections_html.begin(),
-                                       render_group_section_html(*input.check));
-  if (input.check && input.check->results)
-    package.extra_sections_html.insert(package.extra_sections_html.begin() +
-                                           (input.check->group ? 1 : 0),
-                                       render_equilibrium_section_html(*input.check));
-  return render_html_report(package);
-}
-
 }  // namespace cairn

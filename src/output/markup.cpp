@@ -92,4 +92,19 @@ std::string attribute_escape(std::string_view text) {
   return out;
 }
 
+std::string css_string_escape(std::string_view text) {
+  std::string out;
+  for (char c : text) {
+    switch (c) {
+      case '\\': out += "\\\\"; break;
+      case '"': out += "\\\""; break;
+      case '\n': out += "\\A "; break;
+      case '\r': break;
+      case '<': out += "\\3C "; break;
+      default: out += c;
+    }
+  }
+  return out;
+}
+
 }  // namespace cairn

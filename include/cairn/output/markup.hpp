@@ -29,6 +29,11 @@ inline std::string html_escape(std::string_view text) { return xml_escape(text);
 // tab as numeric references.
 std::string attribute_escape(std::string_view text);
 
+// `text` as the body of a double-quoted CSS string (CSS Syntax Level 3 §4.3.5): backslash
+// and quote escaped, line breaks as \A, and < as \3C so that no "</style>" can close the
+// style element early.
+std::string css_string_escape(std::string_view text);
+
 // The utilization colour scale from 0 (dark violet #440154) to `scale_max` (yellow
 // #fde725); utilizations above it (infinity included: a demand with no capacity) take the
 // top colour. Returns a CSS colour "#rrggbb"; NaN gives kUncheckedColour.

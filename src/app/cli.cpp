@@ -24,6 +24,7 @@
 #include "cairn/output/plan_svg.hpp"
 #include "cairn/geotechnics/stiffness.hpp"
 #include "cairn/input/input.hpp"
+#include "cairn/input/package_keys.hpp"
 #include "cairn/output/output_files.hpp"
 
 namespace cairn {
@@ -260,8 +261,11 @@ int run_report(const Options& options, std::ostream& out, std::ostream& err) {
   request.plan_svg = options.plan_svg;
   request.tables = options.tables;
   // A foundation file names the project on every page.
-  if (options.files.size() == 1 && outcomes.size() > 1)
-    request.foundation_title = std::filesystem::path(options.files.front()).filename().string();
+  if (options.files.size() == 1 && outcomes.size() > 1) {
+    request.foundation_title = foundation_title(options.files.front());
+    if (request.foundation_title.empty())
+      request.foundation_title = std::filesystem::path(options.files.front()).filename().string();
+  }
   const PackageFiles package = package_files(outcomes, request);
   // Nothing is said about the files until all of them are in place.
   write_files_atomically(*options.out_dir, package.files);

@@ -85,4 +85,14 @@ void read_package_settings(const YAML::Node& node, const std::string& file, Proj
   }
 }
 
+std::string foundation_title(const std::string& path) {
+  try {
+    const YAML::Node root = YAML::LoadFile(path);
+    if (!root.IsMap() || !root["caps"] || !root["title"] || !root["title"].IsScalar()) return "";
+    return root["title"].Scalar();
+  } catch (const YAML::Exception&) {
+    return "";
+  }
+}
+
 }  // namespace cairn

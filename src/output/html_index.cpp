@@ -52,7 +52,7 @@ tr { break-inside: avoid; page-break-inside: avoid; }
     const std::string u = std::isinf(row.max_utilization) ? std::string("no capacity")
                                                           : fixed_text(row.max_utilization, 3);
     s += "<tr><td><a href=\"" + attribute_escape(row.page) + "\">" + html_escape(row.page) +
-         "</a></td><td>" + html_escape(row.title) + "</td><td><code>" + html_escape(row.source) +
+         "</a></td><td>" + html_escape(row.title) + "</td><td><code class=\"source\">" + html_escape(row.source) +
          "</code></td><td class=\"" + (row.pass ? "ok" : "fail") + "\">" +
          html_escape(row.verdict) + "</td>" +
          fmt::format("<td class=\"num\" style=\"background:{};color:{}\">{}</td>",

@@ -27,4 +27,8 @@ namespace cairn {
 void read_package_settings(const YAML::Node& node, const std::string& file, Project& project,
                            Diagnostics& diagnostics);
 
+// The `title:` of a foundation file (a file with `caps:`), else "" (not a foundation file,
+// no title, or a file that cannot be read: read_project reports those).
+std::string foundation_title(const std::string& path);
+
 }  // namespace cairn

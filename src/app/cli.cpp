@@ -20,8 +20,6 @@
 #include "cairn/checks/checks.hpp"
 #include "cairn/checks/explain.hpp"
 #include "cairn/checks/group_checks.hpp"
-#include "cairn/output/html_package.hpp"
-#include "cairn/output/plan_svg.hpp"
 #include "cairn/geotechnics/stiffness.hpp"
 #include "cairn/input/input.hpp"
 #include "cairn/input/package_keys.hpp"

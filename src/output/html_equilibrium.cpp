@@ -53,8 +53,8 @@ std::string balance_table(const CheckReport& r, const std::vector<PileSpring>& s
                      html_escape(c.id) + " (" + to_string(c.limit_state) + "): " +
                      html_escape(combination_formula(p, c)) + "</h3>\n";
   if (cc.solution.overturns) {
-    html += "<p class=\"note fail\">Overturned: " + html_escape(cc.solution.failure) +
-            ". No equilibrium exists on the piles, so there is no table to sum.</p>\n";
+    html += "<p class=\"note fail\">No equilibrium exists on the piles (" +
+            html_escape(cc.solution.failure) + "), so there are no pile forces to sum.</p>\n";
     return html;
   }
   const auto forces = pile_head_forces(springs, cc.solution);
@@ -191,7 +191,7 @@ std::string render_equilibrium_section_html(const CheckReport& r) {
           "from the cap, F = K·u in global axes (N is the axial force, compression positive; "
           "a battered pile's axial force has horizontal components), and its moment about the "
           "origin, p × F. Their sum is set beside the resultant of the applied loads about "
-          "the origin. Pinned heads: the piles return forces only; the head moments of "
+          "the origin; the residual, Σ piles − applied, should read 0. Pinned heads: the piles return forces only; the head moments of "
           "fixed-head piles are checked with the pile and are not part of this sum.</p>\n";
   const auto chosen = governing_combinations(*r.results);
   for (std::size_t index : chosen) html += balance_table(r, springs, index);

@@ -692,6 +692,23 @@ if python3 "$src/tests/compare_text.py" "$work/expected.txt" "$work/two.txt" >/d
   bad "compare_text: two units in the last digit accepted"; else ok; fi
 if python3 "$src/tests/compare_text.py" "$work/expected.txt" "$work/word.txt" >/dev/null; then
   bad "compare_text: a changed word accepted"; else ok; fi
+# ---- The calculation package (report): sign-off keys, many caps with an index ----------
+expect_status "package: keys with problems" 2 report "$data/package/bad_package.yaml" --out "$work/pkg-bad"
+expect_in "package: unknown key named" "$work/err" "bad_package.yaml:25:3: error: package.revison: unknown key; did you mean 'revision'?"
+expect_in "package: unknown combination named" "$work/err" "package.show_combinations: combination 'S2' does not exist; did you mean 'S1'?"
+if [ ! -e "$work/pkg-bad" ]; then ok; else bad "package: a report with bad input wrote files"; fi
+expect_status "package: a foundation file" 0 report "$src/projects-demo/demo-package.yaml" --out "$work/pkg"
+for f in index.html bent-3-footing-millbrook-quarry-overland-conveyor-crossing.html \
+  bent-3-footing-millbrook-quarry-overland-conveyor-crossing-all-combinations.csv \
+  crane-rail-end-block-harwick-bay-precast-yard.html kestrel-ridge-water-tower.html; do
+  if [ -s "$work/pkg/$f" ]; then ok; else bad "package: $f not written"; fi
+done
+expect_in "package: index names the running header's project" "$work/pkg/kestrel-ridge-water-tower.html" '@top-left { content: "cairn demo caps"'
+expect_in "package: listing names the index" "$work/out" "index: $work/pkg/index.html"
+expect_status "package: one cap keeps its file's name" 0 report "$data/package/good_package.yaml" --out "$work/pkg-one"
+if [ -s "$work/pkg-one/good_package.html" ] && [ ! -e "$work/pkg-one/index.html" ]; then ok; else
+  bad "package: one cap should write good_package.html and no index"; fi
+expect_in "package: sign-off from the keys" "$work/pkg-one/good_package.html" "<td>B. Checker</td>"
 
 echo "$passed passed, $failed failed"
 [ "$failed" -eq 0 ]

@@ -13,16 +13,16 @@
 #include <fmt/format.h>
 
 #include "cairn/app/analysis.hpp"
+#include "cairn/app/package.hpp"
 #include "cairn/solver/cap_solver.hpp"
 #include "cairn/geotechnics/capacity_length.hpp"
 #include "cairn/output/capacity_report.hpp"
 #include "cairn/checks/checks.hpp"
 #include "cairn/checks/explain.hpp"
 #include "cairn/checks/group_checks.hpp"
-#include "cairn/output/html_report.hpp"
-#include "cairn/output/plan_svg.hpp"
 #include "cairn/geotechnics/stiffness.hpp"
 #include "cairn/input/input.hpp"
+#include "cairn/input/package_keys.hpp"
 #include "cairn/output/output_files.hpp"
 
 namespace cairn {
@@ -246,64 +246,29 @@ int run_capacity(const Options& options, std::ostream& out, std::ostream& err) {
   return kExitPass;
 }
 
-// The group checks and settlement as an HTML section of the calculation package.
-std::string group_section_html(const CheckReport& report) {
-  const GroupParts parts = group_parts(report);
-  std::string html = "<section id=\"group\"><h2>Group checks and settlement</h2>\n";
-  auto lines = [&](const std::vector<std::string>& list) {
-    if (list.empty()) return;
-    html += "<ul>\n";
-    for (const auto& line : list) html += "<li>" + xml_escape(line) + "</li>\n";
-    html += "</ul>\n";
-  };
-  lines(parts.layout);
-  html += render_table_html(parts.efficiency);
-  lines(parts.checks);
-  html += render_table_html(parts.demand);
-  lines(parts.notes);
-  return html + "</section>";
-}
-
 // The calculation package: one self-contained HTML file per cap (plus, when asked, the
-// plan alone as SVG and the tables as CSV and Markdown), all written at once.
+// plan alone as SVG and the tables as CSV and Markdown), and index.html for several caps,
+// all written at once (app/package.hpp).
 int run_report(const Options& options, std::ostream& out, std::ostream& err) {
   if (!options.out_dir) throw InputError({}, "report: expected --out DIR for the report files");
   const auto outcomes = analyse_all(options.files);
   for (const auto& o : outcomes) print_warnings(o.run->project, err);
-  const std::string described = describe_options(options);
-  std::vector<std::pair<std::string, std::string>> written;
-  std::string listing;
-  bool pass = true;
-  std::set<std::string> stems;
-  for (const auto& o : outcomes) {
-    const CheckRun& run = *o.run;
-    pass = pass && run.results.summary.pass;
-    const CheckReport report = make_check_report(run, described, std::nullopt);
-    const UnitSystem u = run.project.units;
-    // Capacities again, with the capacity-with-depth table for the chart.
-    const DepthTable table = default_depth_table(u);
-    // A soil profile kilometres deep gets a longer step, not millions of rows.
-    const double longest = run.project.soil ? run.project.soil->depth() : 0.0;
-    const double step = std::max(table.step, (longest - table.from) / (kMaxDepthRows - 1));
-    const auto capacities = compute_capacities(run.project, step, table.from);
-    HtmlReportInput input;
-    input.check = &report;
-    input.capacities = &capacities;
-    input.extra_sections_html.push_back(group_section_html(report));
-    const std::string stem = unique_stem(o.file, stems);
-    written.emplace_back(stem + ".html", render_html_report(input));
-    if (options.plan_svg)
-      written.emplace_back(stem + "-plan.svg",
-                           render_plan_svg(run.project, &run.results, &run.resistances));
-    if (options.tables)
-      for (auto& [name, content] : check_files(report)) written.emplace_back(stem + "/" + name, content);
-    listing += fmt::format("{}: {} — {}\n", o.file, summary_line(report),
-                           (std::filesystem::path(*options.out_dir) / (stem + ".html")).string());
+  PackageRequest request;
+  request.command = describe_options(options);
+  request.out_dir = *options.out_dir;
+  request.plan_svg = options.plan_svg;
+  request.tables = options.tables;
+  // A foundation file names the project on every page.
+  if (options.files.size() == 1 && outcomes.size() > 1) {
+    request.foundation_title = foundation_title(options.files.front());
+    if (request.foundation_title.empty())
+      request.foundation_title = std::filesystem::path(options.files.front()).filename().string();
   }
+  const PackageFiles package = package_files(outcomes, request);
   // Nothing is said about the files until all of them are in place.
-  write_files_atomically(*options.out_dir, written);
-  out << listing;
-  return pass ? kExitPass : kExitFail;
+  write_files_atomically(*options.out_dir, package.files);
+  out << package.listing;
+  return package.pass ? kExitPass : kExitFail;
 }
 
 int run_springs(const Options& options, std::ostream& out, std::ostream& err) {

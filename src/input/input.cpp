@@ -17,6 +17,7 @@
 #include "cairn/geotechnics/capacity.hpp"
 #include "cairn/input/combinations.hpp"
 #include "cairn/geotechnics/group.hpp"
+#include "cairn/input/package_keys.hpp"
 #include "cairn/input/reactions_csv.hpp"
 
 namespace cairn {
@@ -195,7 +196,7 @@ struct Merged {
 
 const std::vector<std::string> kTopKeys = {"title", "units", "include", "cap", "pile_types",
                                            "piles", "soil", "load_cases", "combinations", "columns", "loads_from",
-                                           "group"};
+                                           "group", "package"};
 const std::set<std::string> kNamedSections = {"pile_types", "load_cases", "combinations"};
 
 const std::map<std::string, LoadKind> kLoadKinds = {
@@ -659,6 +660,11 @@ class Reader {
                              : required("combinations") != nullptr)
       read_combinations(merged.named["combinations"], section("combinations")->value, project);
     if (from) read_reactions(from->value, project);
+    project.input_files.push_back(path);
+    for (const auto& f : merged.files)
+      if (f != path && f != project.loads_file) project.input_files.push_back(f);
+    if (const Entry* package = section("package"))
+      read_package_settings(package->value.node, *package->value.file, project, diag_);
     if (diag_.empty()) add_self_weight(project);
     if (diag_.empty()) warn_unused_load_cases(project);
     diag_.raise_if_any();

@@ -8,6 +8,8 @@
 #include <fmt/format.h>
 
 #include "cairn/geotechnics/methods.hpp"
+#include "cairn/output/html_package.hpp"
+#include "cairn/output/markup.hpp"
 #include "cairn/output/number_text.hpp"
 #include "cairn/output/plan_svg.hpp"
 
@@ -229,6 +231,14 @@ std::string plan_section(const CheckReport& r) {
   return s + "</section>\n";
 }
 
+// Where a load was read: its file relative to the project file's folder, and the line (a
+// row of a reactions CSV, a line of YAML); "-" for loads cairn made (the cap's self-weight).
+std::string source_text(const Project& p, const SourceLocation& where) {
+  if (where.file.empty()) return "-";
+  const std::string file = relative_to_project(p, where.file);
+  return where.line > 0 ? fmt::format("{}:{}", file, where.line) : file;
+}
+
 std::string loads_section(const CheckReport& r, const CheckTables& tables) {
   const Project& p = *r.project;
   const Units u(p.units);
@@ -239,23 +249,25 @@ std::string loads_section(const CheckReport& r, const CheckTables& tables) {
   t.title = "Loads on the cap per load case";
   t.headers = {"case", "kind", "load", "x (" + l + ")", "y (" + l + ")", "z (" + l + ")",
                "Fx (" + f + ")", "Fy (" + f + ")", "Fz (" + f + ")", "Mx (" + m + ")",
-               "My (" + m + ")", "Mz (" + m + ")"};
-  t.numeric = {false, false, false, true, true, true, true, true, true, true, true, true};
+               "My (" + m + ")", "Mz (" + m + ")", "source"};
+  t.numeric = {false, false, false, true, true, true, true, true, true, true, true, true, false};
   for (const LoadCase& lc : p.load_cases) {
     for (const PointLoad& pl : lc.loads) {
       t.rows.push_back({lc.id, to_string(lc.kind), pl.note.empty() ? "-" : pl.note,
                         u.length(pl.at[0]), u.length(pl.at[1]), u.length(pl.at[2]),
                         u.force(pl.load[0]), u.force(pl.load[1]), u.force(pl.load[2]),
-                        u.moment(pl.load[3]), u.moment(pl.load[4]), u.moment(pl.load[5])});
+                        u.moment(pl.load[3]), u.moment(pl.load[4]), u.moment(pl.load[5]),
+                        source_text(p, pl.where)});
     }
-    if (lc.loads.empty()) t.rows.push_back({lc.id, to_string(lc.kind), "(no loads)", "", "", "", "", "", "", "", "", ""});
+    if (lc.loads.empty()) t.rows.push_back({lc.id, to_string(lc.kind), "(no loads)", "", "", "", "", "", "", "", "", "", source_text(p, lc.where)});
   }
   s += render_table_html(t);
   s += render_table_html(tables.combinations);  // with each combination's source
   return s + "</section>\n";
 }
 
-std::string results_section(const CheckReport& r, const CheckTables& tables) {
+std::string results_section(const CheckReport& r, const CheckTables& tables,
+                            const std::vector<bool>& shown, const std::string& omitted_note) {
   std::string s = "<section class=\"results\" id=\"results\">\n<h2>4. Pile forces and "
                   "utilizations</h2>\n";
   s += "<p>Axial force positive in compression. Utilization = demand / capacity on the "
@@ -264,7 +276,9 @@ std::string results_section(const CheckReport& r, const CheckTables& tables) {
        "(a compression-only pile that would be in tension) or overturned (no equilibrium: no "
        "pile forces, every pile fails).</p>\n";
   const double scale_max = utilization_scale_max(r.results);
+  if (!omitted_note.empty()) s += "<p class=\"note omitted\">" + esc(omitted_note) + "</p>\n";
   for (std::size_t i = 0; i < tables.per_combination.size(); ++i) {
+    if (i < shown.size() && !shown[i]) continue;
     const CombinationCheck& cc = r.results->combinations[i];
     s += "<div class=\"combination\">\n" + render_table_html(tables.per_combination[i], scale_max);
     if (i < tables.per_combination_notes.size())
@@ -615,12 +629,13 @@ std::string render_html_report(const HtmlReportInput& input) {
   s += "<meta name=\"viewport\" content=\"width=device-width, initial-scale=1\">\n";
   s += "<meta name=\"generator\" content=\"cairn " + esc(CAIRN_VERSION) + "\">\n";
   s += "<title>Pile cap check: " + esc(r->project->title) + "</title>\n";
-  s += std::string("<style>") + kStyle + "</style>\n</head>\n<body>\n";
+  s += std::string("<style>") + kStyle + input.extra_style + "</style>\n</head>\n<body>\n";
   s += title_block(*r);
+  for (const auto& front : input.front_sections_html) s += front + "\n";
   s += basis_section(*r, tables);
   s += plan_section(*r);
   s += loads_section(*r, tables);
-  s += results_section(*r, tables);
+  s += results_section(*r, tables, input.show_combination, input.omitted_note);
   s += capacity_section(*r->project, input.capacities);
   s += hand_check_section(*r);
   for (const auto& extra : input.extra_sections_html) s += extra + "\n";

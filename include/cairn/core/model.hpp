@@ -225,6 +225,15 @@ struct Warning {
   std::string message;  // "<key path>: <what was found>; <its consequence>"
 };
 
+// The calculation package's sign-off block and choices (`package:` in the project file):
+// revision, date, prepared by and checked by as the engineer writes them, and the
+// combinations always printed in full however many there are.
+struct PackageSettings {
+  std::string revision, date, prepared_by, checked_by;
+  std::vector<std::string> show_combinations;  // combination ids
+  SourceLocation where;
+};
+
 struct Project {
   std::string file;  // path of the project file as given
   std::string title;
@@ -241,6 +250,10 @@ struct Project {
   std::vector<std::string> notes;  // choices made while reading (e.g. by a combination generator)
   En1997Settings en1997;           // used by combinations with an EN 1997 resistance set
   std::vector<Warning> warnings;   // cautions found while reading, in the order found
+  // Every YAML file read: the project file first, then its includes (paths as opened);
+  // the reactions CSV is loads_file.
+  std::vector<std::string> input_files;
+  PackageSettings package;
 };
 
 const char* to_string(LimitState);

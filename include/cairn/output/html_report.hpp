@@ -31,8 +31,17 @@ struct HtmlReportInput {
   // depth_table, when filled, gives the capacity-with-depth chart.
   const std::vector<PileTypeCapacity>* capacities = nullptr;
   // Further sections, each a complete "<section>…</section>" already escaped, placed after
-  // the results and before the caution (group checks, settlement).
+  // the results and before the caution (group checks, settlement: html_package.hpp).
   std::vector<std::string> extra_sections_html;
+  // Sections placed right after the title block, before section 1 (the package's sign-off,
+  // contents and design basis: html_package.hpp).
+  std::vector<std::string> front_sections_html;
+  // More style rules, appended to the built-in style sheet (the package's print rules).
+  std::string extra_style;
+  // Which combinations get their own table in section 4, indexed like
+  // CheckResults::combinations (empty: all); `omitted_note` then says where the others are.
+  std::vector<bool> show_combination;
+  std::string omitted_note;
 };
 
 // The whole calculation package as one HTML document ("<!DOCTYPE html>…</html>").

@@ -24,6 +24,7 @@
 
 #include "cairn/checks/checks.hpp"
 #include "cairn/core/model.hpp"
+#include "cairn/output/markup.hpp"
 
 namespace cairn {
 
@@ -40,18 +41,8 @@ struct PlanFrame {
 // origin fit in a drawing `plan_width` px wide with margins for arrows and labels.
 PlanFrame plan_frame(const Project& project, double plan_width = 640.0);
 
-// The utilization colour scale: viridis, a perceptually uniform sequential colour map that
-// stays ordered in grayscale and for the common colour-vision deficiencies (van der Walt &
-// Smith 2015, "mpl-colormaps", released CC0), sampled at 9 anchors (entries 0, 32, …, 224,
-// 255 of its published 256-entry table) and interpolated linearly between them in sRGB.
-// The scale runs from 0 (dark violet #440154) to `scale_max` (yellow #fde725); utilizations
-// above it (infinity included: a demand with no capacity) take the top colour.
-// Returns a CSS colour "#rrggbb"; NaN gives kUncheckedColour. Requires: scale_max > 0.
-std::string utilization_colour(double utilization, double scale_max = 1.2);
-
-// Black or white, whichever reads better on utilization_colour(utilization, scale_max): the
-// lower part of the scale is dark.
-const char* utilization_text_colour(double utilization, double scale_max = 1.2);
+// The utilization colour scale (utilization_colour, utilization_text_colour) and the
+// escaping of text (xml_escape) are in markup.hpp.
 
 // The top of the colour bar: the larger of 1.2 and the largest finite utilization of any pile
 // in `results` (null: 1.2), so that 1.0 always sits inside the bar.
@@ -60,16 +51,10 @@ double utilization_scale_max(const CheckResults* results);
 // The smallest top of the colour bar.
 inline constexpr double kUtilizationScaleMin = 1.2;
 
-// Colour of a pile with no check results.
-inline constexpr const char* kUncheckedColour = "#d9d9d9";
-
 // The plan as one SVG document (<svg xmlns=…>…</svg>), usable inline in HTML or alone.
 // `results` and `resistances` may be null: piles are then drawn grey and without tooltips
 // of their capacity. Requires every pile's type index to be valid.
 std::string render_plan_svg(const Project& project, const CheckResults* results,
                             const std::vector<PileTypeResistance>* resistances);
-
-// `text` with &, <, >, " and ' replaced by character references, for XML and HTML.
-std::string xml_escape(std::string_view text);
 
 }  // namespace cairn

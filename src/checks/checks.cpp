@@ -240,7 +240,8 @@ std::vector<Diagnostic> missing_resistances(const Project& project,
 
 CheckResults check_piles(const Project& project, const std::vector<CapSolution>& solutions,
                          const std::vector<PileTypeResistance>& resistances,
-                         const std::vector<double>& head_moment_per_shear) {
+                         const std::vector<double>& head_moment_per_shear,
+                         const std::vector<std::optional<MomentInfluence>>& moment_influence) {
   CheckResults results;
   const std::size_t n = project.piles.size();
   results.envelope.assign(n, PileEnvelope{});
@@ -285,12 +286,20 @@ CheckResults check_piles(const Project& project, const std::vector<CapSolution>&
       consider(p.axial, r.compression, Demand::compression);
       consider(-p.axial, r.tension, Demand::tension);
       consider(p.lateral, r.lateral, Demand::lateral);
-      if (pile.type < head_moment_per_shear.size())
+      if (pile.type < moment_influence.size() && moment_influence[pile.type]) {
+        const MomentPeak peak =
+            largest_moment_along(*moment_influence[pile.type], pile.axis(), force.head_forces);
+        p.head_moment = peak.head;
+        p.max_moment = peak.value;
+        p.max_moment_depth = peak.depth;
+      } else if (pile.type < head_moment_per_shear.size()) {
         p.head_moment = p.lateral * head_moment_per_shear[pile.type];
+        p.max_moment = p.head_moment;
+      }
       if (r.structural_axial && *r.structural_axial > 0) {
         double u = std::abs(p.axial) / *r.structural_axial;
-        if (p.head_moment > 0 && r.structural_moment && *r.structural_moment > 0)
-          u = axial_bending_utilization(p.axial, *r.structural_axial, p.head_moment,
+        if (p.max_moment > 0 && r.structural_moment && *r.structural_moment > 0)
+          u = axial_bending_utilization(p.axial, *r.structural_axial, p.max_moment,
                                         *r.structural_moment);
         if (u > p.utilization) {
           p.utilization = u;
@@ -362,10 +371,12 @@ std::vector<std::string> assumptions(
       list.push_back(fmt::format("Pile type {}: lateral stiffness {}.", type.id,
                                  stiffness_sources[t].second));
     }
-    if (type.head == HeadFixity::fixed)
-      list.push_back(fmt::format("Pile type {}: fixed heads; the head moment is reported per "
-                                 "pile but not fed back into the cap's equilibrium.",
-                                 type.id));
+    if (type.head != HeadFixity::pinned)
+      list.push_back(fmt::format(
+          "Pile type {}: {} heads; the head moments are part of the cap's equilibrium "
+          "(coupled lateral and rotational head stiffness), and the structural check takes the "
+          "largest moment along the pile with |P|/Pc + |M|/Mc ≤ 1.",
+          type.id, type.head == HeadFixity::fixed ? "fixed" : "partially fixed"));
     list.push_back(fmt::format(
         "Pile type {}: {}.", type.id,
         type.tension ? "takes tension"

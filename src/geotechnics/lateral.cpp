@@ -553,7 +553,11 @@ double axial_bending_utilization(double axial, double axial_capacity, double mom
 }
 
 const char* to_string(HeadFixity head) {
-  return head == HeadFixity::fixed ? "fixed" : "pinned";
+  switch (head) {
+    case HeadFixity::fixed: return "fixed";
+    case HeadFixity::partial: return "partially fixed";
+    default: return "pinned";
+  }
 }
 
 const char* to_string(BromsMode mode) {

@@ -900,7 +900,7 @@ class Reader {
           number(n, "torsional_stiffness", Quantity::rotational_stiffness, Need::optional);
       if ((type.head == HeadFixity::partial) != type.head_restraint.has_value())
         diag_.error(at(n), fmt::format("{}: {}", n.path, type.head == HeadFixity::partial
-                                           ? "head: partial needs head_restraint (kN·m/rad)"
+                                           ? "head: partial needs head_restraint"
                                            : "head_restraint is for head: partial"));
       if (auto c = n.child("capacity"); c.present()) {
         if (c.node.IsSequence()) {

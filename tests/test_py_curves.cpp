@@ -6,6 +6,7 @@
 #include <cmath>
 #include <numbers>
 
+#include "cairn/geotechnics/axial_curves.hpp"
 #include "cairn/geotechnics/py_curves.hpp"
 #include "cairn/solver/beam_column.hpp"
 #include "cairn/solver/pile_head.hpp"
@@ -145,4 +146,47 @@ TEST_CASE("beam-column: soft clay beyond its capacity is a mechanism, not a numb
   const auto failed = cairn::solve_beam_column(pile, {2000.0, false, 0.0, 0.0});
   CHECK_FALSE(failed.converged);
   CHECK_FALSE(failed.message.empty());
+}
+
+TEST_CASE("p-y: Welch & Reese (1972) stiff clay without free water", "[py_curves][published]") {
+  cairn::StiffClayDryPy c;
+  c.undrained_strength = 100.0;
+  c.effective_unit_weight = 19.0;
+  c.width = 0.9;
+  c.strain_50 = 0.005;
+  const double z = 4.0, pu = c.ultimate(z), y50 = c.y50();
+  // Welch & Reese (1972), from memory: p/pu = 0.5·(y/y50)^(1/4), pu from 16·y50 on.
+  CHECK(pu == Approx((3.0 + 19.0 * 4.0 / 100.0 + 0.5 * 4.0 / 0.9) * 100.0 * 0.9));
+  CHECK(c.resistance(z, y50) / pu == Approx(0.5));
+  CHECK(c.resistance(z, 16.0 * y50) / pu == Approx(1.0));
+  CHECK(c.resistance(z, 40.0 * y50) / pu == Approx(1.0));
+  CHECK(c.resistance(z, 3.0 * y50) / pu == Approx(0.5 * std::pow(3.0, 0.25)));
+  // Cyclic, N = 100: at p = 0.5·pu the deflection is y50 + 9.6·0.5⁴·y50·log10(100) = 2.2·y50.
+  c.cycles = 100.0;
+  CHECK(c.deflection(z, 0.5 * pu) == Approx(2.2 * y50));
+  CHECK(c.resistance(z, 2.2 * y50) / pu == Approx(0.5));
+}
+
+TEST_CASE("t-z and Q-z: API RP 2GEO's points", "[py_curves][published]") {
+  using cairn::AxialSoil;
+  const double d = 0.6;
+  // API RP 2GEO t-z for clay (from memory): t/tmax 0.30 at z/D = 0.0016, 0.50 at 0.0031, 1.0 at
+  // 0.01, the residual 0.9 from 0.02 on; odd in z.
+  CHECK(cairn::shaft_transfer(AxialSoil::clay, d, 0.0016 * d) == Approx(0.30));
+  CHECK(cairn::shaft_transfer(AxialSoil::clay, d, 0.0031 * d) == Approx(0.50));
+  CHECK(cairn::shaft_transfer(AxialSoil::clay, d, 0.0100 * d) == Approx(1.00));
+  CHECK(cairn::shaft_transfer(AxialSoil::clay, d, 0.0500 * d) == Approx(0.90));
+  CHECK(cairn::shaft_transfer(AxialSoil::clay, d, 0.0500 * d, 0.7) == Approx(0.70));
+  CHECK(cairn::shaft_transfer(AxialSoil::clay, d, -0.0031 * d) == Approx(-0.50));
+  // Sand: t_max at 0.1 in = 2.54 mm (API RP 2GEO, from memory; cairn uses 2.5 mm).
+  CHECK(cairn::shaft_transfer(AxialSoil::sand, d, 0.00125) == Approx(0.5));
+  CHECK(cairn::shaft_transfer(AxialSoil::sand, d, 0.01) == Approx(1.0));
+  // Q-z (from memory): 0.25 at z/D = 0.002, 0.50 at 0.013, 0.75 at 0.042, 0.90 at 0.073, 1.0
+  // at 0.10; no tension at the tip.
+  CHECK(cairn::tip_transfer(d, 0.002 * d) == Approx(0.25));
+  CHECK(cairn::tip_transfer(d, 0.013 * d) == Approx(0.50));
+  CHECK(cairn::tip_transfer(d, 0.042 * d) == Approx(0.75));
+  CHECK(cairn::tip_transfer(d, 0.073 * d) == Approx(0.90));
+  CHECK(cairn::tip_transfer(d, 0.2 * d) == Approx(1.00));
+  CHECK(cairn::tip_transfer(d, -0.01) == 0.0);
 }

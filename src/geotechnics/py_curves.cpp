@@ -61,6 +61,36 @@ double SoftClayPy::resistance(double z, double y) const {
   return sign_of(y) * p;
 }
 
+double StiffClayDryPy::ultimate(double z) const {
+  require_positive(undrained_strength, "undrained strength c");
+  require_positive(effective_unit_weight, "effective unit weight γ'");
+  require_positive(width, "pile width b");
+  require_depth(z);
+  const double c = undrained_strength, b = width;
+  return std::min((3.0 + effective_unit_weight * z / c + 0.5 * z / b) * c * b, 9.0 * c * b);
+}
+
+double StiffClayDryPy::y50() const {
+  require_positive(strain_50, "ε50");
+  require_positive(width, "pile width b");
+  return 2.5 * strain_50 * width;
+}
+
+double StiffClayDryPy::deflection(double z, double p) const {
+  if (!(cycles >= 1.0)) throw std::invalid_argument("cycles must be at least 1");
+  const double ratio = std::clamp(p / ultimate(z), 0.0, 1.0);
+  // Static: y = y50·(2·p/pu)⁴ (p = 0.5·pu·(y/y50)^(1/4) inverted); cyclic adds 9.6·(p/pu)⁴·y50·log N.
+  return y50() * (std::pow(2.0 * ratio, 4) + 9.6 * std::pow(ratio, 4) * std::log10(cycles));
+}
+
+double StiffClayDryPy::resistance(double z, double y) const {
+  const double pu = ultimate(z), target = std::abs(y);
+  if (target >= deflection(z, pu)) return sign_of(y) * pu;
+  // The deflection grows with p as (p/pu)⁴·(16 + 9.6·log N)·y50: invert it in closed form.
+  const double scale = y50() * (16.0 + 9.6 * std::log10(cycles));
+  return sign_of(y) * pu * std::pow(target / scale, 0.25);
+}
+
 double SandApiPy::c1() const {
   const double phi = radians(friction_angle), a = phi / 2.0, b = radians(45.0) + phi / 2.0;
   constexpr double k0 = 0.4;

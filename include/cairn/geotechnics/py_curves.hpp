@@ -14,6 +14,11 @@
 //                 zr = 6·c·b/(γ'·b + J·c)
 //    J = 0.5 for soft clay (0.25 for medium clay, Matlock's field tests), ε50 the strain at
 //    half the peak deviator stress (0.020 soft, 0.010 medium, 0.005 stiff: Matlock's table).
+//  - Stiff clay without free water, Welch & Reese (1972), "Laterally loaded behavior of drilled
+//    shafts", Research Report 3-5-65-89, Center for Highway Research, University of Texas
+//    (from memory): pu as Matlock's with J = 0.5, y50 = 2.5·ε50·b,
+//        static:  p = 0.5·pu·(y/y50)^(1/4) up to y = 16·y50, pu beyond
+//        cyclic (N cycles): the deflection at a given p grows to y_s + 9.6·(p/pu)⁴·y50·log10 N
 //  - Sand, the hyperbolic-tangent form of O'Neill & Murchison (1983) adopted by API RP 2GEO
 //    (from memory):
 //        p = A·pu·tanh(k·z·y/(A·pu)),  A = max(3 − 0.8·z/b, 0.9) static, 0.9 cyclic
@@ -42,6 +47,21 @@ struct SoftClayPy {
   double ultimate(double depth) const;         // pu, kN/m
   double y50() const;                          // m
   double transition_depth() const;             // zr, m
+  double resistance(double depth, double y) const;  // p, kN/m
+};
+
+// Welch & Reese (1972) stiff clay without free water. `cycles` ≥ 1 (1: the static curve).
+// Requires c, γ', b, ε50 > 0 and z ≥ 0.
+struct StiffClayDryPy {
+  double undrained_strength = 0.0;     // c, kPa
+  double effective_unit_weight = 0.0;  // γ', kN/m³
+  double width = 0.0;                  // b, m
+  double strain_50 = 0.005;            // ε50
+  double cycles = 1.0;                 // N
+  double ultimate(double depth) const;  // pu, kN/m
+  double y50() const;                   // m
+  // Deflection at resistance p (0 ≤ p ≤ pu), the curve written the way the paper gives it.
+  double deflection(double depth, double p) const;
   double resistance(double depth, double y) const;  // p, kN/m
 };
 

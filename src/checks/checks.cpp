@@ -358,8 +358,16 @@ std::vector<std::string> assumptions(
   std::vector<std::string> list;
   for (const auto& warning : project.warnings) list.push_back(warning_note(warning));
   list.push_back("The cap is rigid: it moves as one body with six degrees of freedom.");
-  list.push_back("Pile heads act on the cap as an axial spring along the pile and a lateral "
-                 "spring across it; no moment is transferred to the cap.");
+  const bool all_pinned = std::all_of(project.piles.begin(), project.piles.end(), [&](const Pile& p) {
+    return project.pile_types[p.type].head == HeadFixity::pinned;
+  });
+  list.push_back(all_pinned
+                     ? "Pile heads act on the cap as an axial spring along the pile and a lateral "
+                       "spring across it; no moment is transferred to the cap."
+                     : "Pinned pile heads act on the cap as an axial spring along the pile and a "
+                       "lateral spring across it; fixed and partially fixed heads add their "
+                       "coupled lateral and rotational stiffness, so the cap and the piles "
+                       "exchange moments.");
   std::set<std::size_t> used;
   for (const Pile& pile : project.piles) used.insert(pile.type);
   for (std::size_t t = 0; t < project.pile_types.size(); ++t) {

@@ -709,6 +709,18 @@ expect_status "package: one cap keeps its file's name" 0 report "$data/package/g
 if [ -s "$work/pkg-one/good_package.html" ] && [ ! -e "$work/pkg-one/index.html" ]; then ok; else
   bad "package: one cap should write good_package.html and no index"; fi
 expect_in "package: sign-off from the keys" "$work/pkg-one/good_package.html" "<td>B. Checker</td>"
+# ---- Fixed and partial heads (docs/methods-bending.md) ------------------------------------
+expect_status "fixed heads: a check runs" 0 check "$data/bending/fixed_heads.yaml" --format json
+if python3 -c '
+import json, sys
+doc = json.load(open(sys.argv[1]))
+for combo in doc["combinations"]:
+    for pile in combo["piles"]:
+        assert len(pile["head_forces"]) == 6 and "max_moment" in pile, pile["id"]
+assert len(doc["cap_stiffness"]["matrix"]) == 6
+' "$work/out"; then ok; else bad "fixed heads: head_forces, max_moment, cap_stiffness in JSON"; fi
+expect_status "head: partial without head_restraint" 2 check "$data/bending/bad_partial_without_restraint.yaml"
+expect_in "head: partial without head_restraint names the key" "$work/err" "pile_types.PART: head: partial needs head_restraint"
 
 echo "$passed passed, $failed failed"
 [ "$failed" -eq 0 ]

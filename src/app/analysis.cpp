@@ -20,6 +20,7 @@ CheckRun analyse_project(const std::string& file) {
   run.capacities = compute_capacities(project);
   run.stiffness = pile_type_stiffness(project, run.capacities);
   const CapSolver solver(pile_springs(project, run.stiffness));
+  run.cap_stiffness = solver.stiffness_about({0.0, 0.0, 0.0});
   Diagnostics problems;
   for (const auto& u : unresisted_cases(project, solver)) {
     const LoadCase& lc = project.load_cases[u.load_case];
@@ -51,7 +52,12 @@ CheckRun analyse_project(const std::string& file) {
   problems.raise_if_any();
   std::vector<double> moment_per_shear;
   for (const auto& k : run.stiffness) moment_per_shear.push_back(k.head_moment_per_shear);
-  run.results = check_piles(project, std::move(solutions), run.resistances, moment_per_shear);
+  std::vector<std::optional<MomentInfluence>> influence;
+  for (const auto& k : run.stiffness)
+    influence.push_back(k.beam ? std::optional<MomentInfluence>(moment_influence(*k.beam))
+                               : std::nullopt);
+  run.results =
+      check_piles(project, std::move(solutions), run.resistances, moment_per_shear, influence);
   run.group = evaluate_group(project, run.results, run.resistances, run.capacities);
   if (!run.group.pass) run.results.summary.pass = false;
   std::vector<std::pair<std::string, std::string>> sources;
@@ -94,6 +100,7 @@ CheckReport make_check_report(const CheckRun& run, const std::string& options,
   report.assumptions = run.assumptions;
   report.stiffness = &run.stiffness;
   report.group = &run.group;
+  report.cap_stiffness = run.cap_stiffness;
   report.options = options;
   if (explain) {
     const auto& piles = run.project.piles;

@@ -240,7 +240,8 @@ std::vector<Diagnostic> missing_resistances(const Project& project,
 
 CheckResults check_piles(const Project& project, const std::vector<CapSolution>& solutions,
                          const std::vector<PileTypeResistance>& resistances,
-                         const std::vector<double>& head_moment_per_shear) {
+                         const std::vector<double>& head_moment_per_shear,
+                         const std::vector<std::optional<MomentInfluence>>& moment_influence) {
   CheckResults results;
   const std::size_t n = project.piles.size();
   results.envelope.assign(n, PileEnvelope{});
@@ -285,12 +286,20 @@ CheckResults check_piles(const Project& project, const std::vector<CapSolution>&
       consider(p.axial, r.compression, Demand::compression);
       consider(-p.axial, r.tension, Demand::tension);
       consider(p.lateral, r.lateral, Demand::lateral);
-      if (pile.type < head_moment_per_shear.size())
+      if (pile.type < moment_influence.size() && moment_influence[pile.type]) {
+        const MomentPeak peak =
+            largest_moment_along(*moment_influence[pile.type], pile.axis(), force.head_forces);
+        p.head_moment = peak.head;
+        p.max_moment = peak.value;
+        p.max_moment_depth = peak.depth;
+      } else if (pile.type < head_moment_per_shear.size()) {
         p.head_moment = p.lateral * head_moment_per_shear[pile.type];
+        p.max_moment = p.head_moment;
+      }
       if (r.structural_axial && *r.structural_axial > 0) {
         double u = std::abs(p.axial) / *r.structural_axial;
-        if (p.head_moment > 0 && r.structural_moment && *r.structural_moment > 0)
-          u = axial_bending_utilization(p.axial, *r.structural_axial, p.head_moment,
+        if (p.max_moment > 0 && r.structural_moment && *r.structural_moment > 0)
+          u = axial_bending_utilization(p.axial, *r.structural_axial, p.max_moment,
                                         *r.structural_moment);
         if (u > p.utilization) {
           p.utilization = u;
@@ -349,8 +358,16 @@ std::vector<std::string> assumptions(
   std::vector<std::string> list;
   for (const auto& warning : project.warnings) list.push_back(warning_note(warning));
   list.push_back("The cap is rigid: it moves as one body with six degrees of freedom.");
-  list.push_back("Pile heads act on the cap as an axial spring along the pile and a lateral "
-                 "spring across it; no moment is transferred to the cap.");
+  const bool all_pinned = std::all_of(project.piles.begin(), project.piles.end(), [&](const Pile& p) {
+    return project.pile_types[p.type].head == HeadFixity::pinned;
+  });
+  list.push_back(all_pinned
+                     ? "Pile heads act on the cap as an axial spring along the pile and a lateral "
+                       "spring across it; no moment is transferred to the cap."
+                     : "Pinned pile heads act on the cap as an axial spring along the pile and a "
+                       "lateral spring across it; fixed and partially fixed heads add their "
+                       "coupled lateral and rotational stiffness, so the cap and the piles "
+                       "exchange moments.");
   std::set<std::size_t> used;
   for (const Pile& pile : project.piles) used.insert(pile.type);
   for (std::size_t t = 0; t < project.pile_types.size(); ++t) {
@@ -362,10 +379,12 @@ std::vector<std::string> assumptions(
       list.push_back(fmt::format("Pile type {}: lateral stiffness {}.", type.id,
                                  stiffness_sources[t].second));
     }
-    if (type.head == HeadFixity::fixed)
-      list.push_back(fmt::format("Pile type {}: fixed heads; the head moment is reported per "
-                                 "pile but not fed back into the cap's equilibrium.",
-                                 type.id));
+    if (type.head != HeadFixity::pinned)
+      list.push_back(fmt::format(
+          "Pile type {}: {} heads; the head moments are part of the cap's equilibrium "
+          "(coupled lateral and rotational head stiffness), and the structural check takes the "
+          "largest moment along the pile with |P|/Pc + |M|/Mc ≤ 1.",
+          type.id, type.head == HeadFixity::fixed ? "fixed" : "partially fixed"));
     list.push_back(fmt::format(
         "Pile type {}: {}.", type.id,
         type.tension ? "takes tension"

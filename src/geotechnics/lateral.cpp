@@ -3,6 +3,7 @@
 // docs/methods-lateral.md.
 #include "cairn/geotechnics/lateral.hpp"
 
+#include <algorithm>
 #include <array>
 #include <cmath>
 #include <cstdio>
@@ -285,6 +286,28 @@ LateralHeadResponse lateral_head_response(const ElasticPile& pile, double shear)
   return out;
 }
 
+MomentInfluence moment_influence(const ElasticPile& pile, int samples) {
+  check_elastic_pile(pile);
+  if (samples < 2) throw std::invalid_argument("moment influence needs at least 2 samples");
+  const LateralHeadStiffness basics = stiffness_basics(pile);
+  const double length = beam_length_for(pile, basics);
+  const Beam unit_shear =
+      solve_beam(basics.lambda, pile.bending_stiffness, length, HeadFixity::pinned, 1.0, 0.0);
+  const Beam unit_moment =
+      solve_beam(basics.lambda, pile.bending_stiffness, length, HeadFixity::pinned, 0.0, 1.0);
+  double end = 2.0 * kPi / basics.lambda;
+  if (length > 0.0) end = length;
+  else if (pile.embedded_length > 0.0) end = std::min(end, pile.embedded_length);
+  MomentInfluence out;
+  for (int i = 0; i <= samples; ++i) {
+    const double z = end * i / samples;
+    out.depth.push_back(z);
+    out.per_shear.push_back(unit_shear.moment(z));
+    out.per_moment.push_back(unit_moment.moment(z));
+  }
+  return out;
+}
+
 // ---- Broms (1964) ----------------------------------------------------------------------
 
 double broms_beta(double subgrade_modulus, double width, double bending_stiffness) {
@@ -530,7 +553,11 @@ double axial_bending_utilization(double axial, double axial_capacity, double mom
 }
 
 const char* to_string(HeadFixity head) {
-  return head == HeadFixity::fixed ? "fixed" : "pinned";
+  switch (head) {
+    case HeadFixity::fixed: return "fixed";
+    case HeadFixity::partial: return "partially fixed";
+    default: return "pinned";
+  }
 }
 
 const char* to_string(BromsMode mode) {

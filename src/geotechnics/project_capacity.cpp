@@ -130,7 +130,9 @@ std::vector<std::optional<LateralCapacity>> lateral_capacities(
     in.soil = layer->kind;
     in.width = type.section.width;
     in.embedded_length = type.length;
-    in.head = type.head;
+    // Broms' mechanisms know free and fixed heads; a partial restraint takes the free head's
+    // (lower) resistance.
+    in.head = type.head == HeadFixity::fixed ? HeadFixity::fixed : HeadFixity::pinned;
     if (layer->kind == SoilKind::clay) {
       if (!layer->undrained_strength) continue;
       in.undrained_strength = *layer->undrained_strength;

@@ -57,6 +57,24 @@ std::optional<Subgrade> subgrade_modulus(const SoilLayer& layer, const PileType&
   return std::nullopt;
 }
 
+// The terms a fixed or partially fixed head gives the cap (pile_head.hpp), from the pile's
+// own head stiffness in one plane, and the pile kept for the moment along it.
+void restrain(const PileType& type, PileTypeStiffness& s, const PlaneStiffness& plane,
+              const ElasticPile& pile) {
+  HeadRestraint restraint;
+  restraint.kind = HeadRestraint::Kind::fixed;
+  if (type.head == HeadFixity::partial) {
+    restraint.kind = HeadRestraint::Kind::partial;
+    restraint.stiffness = type.head_restraint.value_or(0.0);
+  }
+  const RestrainedHead head = restrained_head(plane, restraint);
+  s.lateral = head.lateral;
+  s.bending = head.bending;
+  s.bending.torsional = type.torsional_stiffness.value_or(0.0);
+  s.beam = pile;
+  s.beam->head = HeadFixity::pinned;  // the moment influence is of the free head
+}
+
 }  // namespace
 
 std::optional<VesicPile> vesic_pile(const Project& project, std::size_t t,
@@ -144,6 +162,26 @@ std::vector<PileTypeStiffness> pile_type_stiffness(const Project& project,
     if (type.lateral_stiffness) {
       s.lateral = *type.lateral_stiffness;
       s.lateral_source = "given";
+      const double ei = type.elastic_modulus * section_inertia(type.section);
+      if (type.head != HeadFixity::pinned && ei > 0.0 && s.lateral > 0.0 &&
+          type.section.width > 0.0) {
+        // k_hh = 4EIλ³ (Hetényi 1946, long pile, head held against rotation).
+        const double lambda = std::cbrt(s.lateral / (4.0 * ei));
+        const double k = 4.0 * ei * std::pow(lambda, 4);
+        ElasticPile pile;
+        pile.bending_stiffness = ei;
+        pile.subgrade_modulus = k / type.section.width;
+        pile.width = type.section.width;
+        pile.head = HeadFixity::fixed;
+        restrain(type, s, hetenyi_long_pile(ei, k), pile);
+        s.lateral_source += fmt::format(
+            " as the fixed-head stiffness of a long pile on Hetényi's (1946) elastic foundation "
+            "(λ = {:.4f} 1/{} from k_hh = 4EIλ³){}",
+            lambda / from_si(u, Quantity::length, 1.0), unit_label(u, Quantity::length),
+            type.head == HeadFixity::partial ? "; condensed with the head restraint" : "");
+      } else if (type.head != HeadFixity::pinned) {
+        s.lateral_source += "; no elastic_modulus: the head takes no moment (pinned terms)";
+      }
     } else {
       s.lateral = 0.0;
       s.lateral_source = "0 (axial-only pile, the classical assumption)";
@@ -157,11 +195,14 @@ std::vector<PileTypeStiffness> pile_type_stiffness(const Project& project,
             pile.width = type.section.width;
             pile.embedded_length = type.length;
             pile.head = type.head;
+            if (pile.head == HeadFixity::partial) pile.head = HeadFixity::fixed;
             const LateralHeadStiffness k = lateral_head_stiffness(pile);
             s.lateral = k.lateral_stiffness;
             s.head_moment_per_shear = type.head == HeadFixity::fixed ? k.head_moment_per_shear : 0.0;
+            if (type.head != HeadFixity::pinned)
+              restrain(type, s, {k.k_hh, k.k_hm, k.k_mm}, pile);
             s.lateral_source = fmt::format("Hetényi (1946) beam on elastic foundation, {} head, {}{}",
-                                           type.head == HeadFixity::fixed ? "fixed" : "pinned",
+                                           to_string(type.head),
                                            kh->source, k.long_pile ? "" : " (short pile: finite beam)");
           } else {
             s.lateral_source += "; the layer at the pile head gives no subgrade_modulus, "
@@ -184,7 +225,8 @@ std::vector<PileSpring> pile_springs(const Project& project,
                        pile.axis(),
                        stiffness.at(pile.type).axial,
                        stiffness.at(pile.type).lateral,
-                       type.tension});
+                       type.tension,
+                       stiffness.at(pile.type).bending});
   }
   return springs;
 }

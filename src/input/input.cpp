@@ -838,7 +838,7 @@ class Reader {
       type.where = entry.key_where;
       if (!expect_map(n)) continue;
       check_keys(n, {"section", "length", "elastic_modulus", "axial_stiffness",
-                     "lateral_stiffness", "tension", "head", "structure", "capacity", "installation", "tip_method",
+                     "lateral_stiffness", "tension", "head", "head_restraint", "torsional_stiffness", "structure", "capacity", "installation", "tip_method",
                      "shaft_method", "critical_depth", "factor_of_safety",
                      "factor_of_safety_tip", "factor_of_safety_shaft", "factor_of_safety_tension",
                      "resistance_factor_tip", "resistance_factor_shaft",
@@ -893,8 +893,16 @@ class Reader {
       }
       if (auto h = n.child("head"); h.present())
         if (auto v = choice<HeadFixity>(h, {{"pinned", HeadFixity::pinned},
-                                            {"fixed", HeadFixity::fixed}}))
+                                            {"fixed", HeadFixity::fixed},
+                                            {"partial", HeadFixity::partial}}))
           type.head = *v;
+      type.head_restraint = number(n, "head_restraint", Quantity::rotational_stiffness, Need::optional);
+      type.torsional_stiffness =
+          number(n, "torsional_stiffness", Quantity::rotational_stiffness, Need::optional);
+      if ((type.head == HeadFixity::partial) != type.head_restraint.has_value())
+        diag_.error(at(n), fmt::format("{}: {}", n.path, type.head == HeadFixity::partial
+                                           ? "head: partial needs head_restraint"
+                                           : "head_restraint is for head: partial"));
       if (auto c = n.child("capacity"); c.present()) {
         if (c.node.IsSequence()) {
           for (std::size_t i = 0; i < c.node.size(); ++i) {

@@ -45,9 +45,20 @@ json check_json(const CheckReport& r) {
                    {"axial_stiffness", u.value(Quantity::stiffness, axial_stiffness(r, p.piles[i].type))},
                    {"lateral_stiffness",
                     u.value(Quantity::stiffness, lateral_stiffness(r, p.piles[i].type))}};
-      if (r.stiffness && (*r.stiffness)[p.piles[i].type].head == HeadFixity::fixed)
-        pile["head_moment"] =
-            none ? json(nullptr) : json(u.value(Quantity::moment, head_moment(r, i, pc.lateral)));
+      // The action of the cap on the pile at its head (x, y, 0), global axes: a compression
+      // pile has Fz < 0; Σ (r × F + M) is the load on the cap.
+      json head = json::array();
+      const Wrench& hf = cc.solution.piles.empty() ? Wrench{} : cc.solution.piles[i].head_forces;
+      for (std::size_t k = 0; k < 6; ++k)
+        head.push_back(none ? json(nullptr)
+                            : json(u.value(k < 3 ? Quantity::force : Quantity::moment, hf[k])));
+      pile["head_forces"] = head;
+      if (r.stiffness && (*r.stiffness)[p.piles[i].type].head != HeadFixity::pinned) {
+        pile["head_moment"] = none ? json(nullptr) : json(u.value(Quantity::moment, pc.head_moment));
+        pile["max_moment"] = none ? json(nullptr) : json(u.value(Quantity::moment, pc.max_moment));
+        pile["max_moment_depth"] =
+            none ? json(nullptr) : json(u.value(Quantity::length, pc.max_moment_depth));
+      }
       piles.push_back(pile);
     }
     const auto& m = cc.solution.movement;
@@ -94,6 +105,16 @@ json check_json(const CheckReport& r) {
                         {"pass", e.pass}});
   }
   doc["envelope"] = envelope;
+  if (r.cap_stiffness) {
+    const Units& uu = u;
+    doc["cap_stiffness"] = {
+        {"about", {0.0, 0.0, 0.0}},
+        {"units", {{"force_per_length", uu.label(Quantity::stiffness)},
+                   {"force_per_rotation", uu.label(Quantity::force) + "/rad"},
+                   {"moment_per_length", uu.label(Quantity::moment) + "/" + uu.label(Quantity::length)},
+                   {"moment_per_rotation", uu.label(Quantity::rotational_stiffness)}}},
+        {"matrix", cap_stiffness_values(r)}};
+  }
   if (r.group) doc["group"] = group_json(r);
   const CheckSummary& s = r.results->summary;
   json overturned = json::array();

@@ -68,15 +68,10 @@ double lateral_stiffness(const CheckReport& r, std::size_t type) {
   return r.stiffness ? (*r.stiffness)[type].lateral
                      : r.project->pile_types[type].lateral_stiffness_used();
 }
-// Head moment of a fixed-head pile, kN·m (0 for pinned heads).
-double head_moment(const CheckReport& r, std::size_t pile, double lateral) {
-  if (!r.stiffness) return 0.0;
-  return lateral * (*r.stiffness)[r.project->piles[pile].type].head_moment_per_shear;
-}
 bool any_fixed_head(const CheckReport& r) {
   if (!r.stiffness) return false;
   for (const auto& k : *r.stiffness)
-    if (k.head_moment_per_shear > 0) return true;
+    if (k.head_moment_per_shear > 0 || k.beam) return true;
   return false;
 }
 
@@ -306,6 +301,43 @@ Table pile_types_table(const CheckReport& r) {
   return t;
 }
 
+std::array<std::array<double, 6>, 6> cap_stiffness_values(const CheckReport& r) {
+  const Units u(r.project->units);
+  std::array<std::array<double, 6>, 6> out{};
+  if (!r.cap_stiffness) return out;
+  const auto& k = *r.cap_stiffness;
+  // kN/m, kN/rad (a force), kN·m/m (a force), kN·m/rad. Couplings below 1e-12 of the
+  // geometric mean of their diagonal terms (in consistent units) are round-off: 0.
+  for (std::size_t i = 0; i < 6; ++i)
+    for (std::size_t j = 0; j < 6; ++j) {
+      const double scale = std::sqrt(std::abs(k[i][i] * k[j][j]));
+      const double v = std::abs(k[i][j]) <= 1e-12 * scale ? 0.0 : k[i][j];
+      const Quantity q = i < 3 && j < 3   ? Quantity::stiffness
+                         : i >= 3 && j >= 3 ? Quantity::rotational_stiffness
+                                            : Quantity::force;
+      out[i][j] = u.value(q, v);
+    }
+  return out;
+}
+
+Table cap_stiffness_table(const CheckReport& r) {
+  const Units u(r.project->units);
+  Table t;
+  t.title = "Cap stiffness about the origin, every pile active (for the structural model)";
+  const std::string f = u.label(Quantity::force), l = u.label(Quantity::length),
+                    m = u.label(Quantity::moment);
+  t.headers = {"", "ux (" + l + ")", "uy (" + l + ")", "uz (" + l + ")", "rx (rad)", "ry (rad)",
+               "rz (rad)"};
+  t.numeric = {false, true, true, true, true, true, true};
+  const auto k = cap_stiffness_values(r);
+  for (std::size_t i = 0; i < 6; ++i) {
+    std::vector<std::string> row = {std::string(kWrenchNames[i]) + " (" + (i < 3 ? f : m) + ")"};
+    for (std::size_t j = 0; j < 6; ++j) row.push_back(fmt::format("{:.6g}", k[i][j]));
+    t.rows.push_back(row);
+  }
+  return t;
+}
+
 Table piles_table(const CheckReport& r) {
   const Project& p = *r.project;
   const Units u(p.units);
@@ -349,7 +381,9 @@ Table combination_table(const CheckReport& r, const CombinationCheck& cc) {
   const bool moments = any_fixed_head(r);
   if (moments) {
     t.headers.insert(t.headers.begin() + 5, "head moment (" + u.label(Quantity::moment) + ")");
-    t.numeric.insert(t.numeric.begin() + 5, true);
+    t.headers.insert(t.headers.begin() + 6, "largest moment (" + u.label(Quantity::moment) + ")");
+    t.headers.insert(t.headers.begin() + 7, "at depth (" + u.label(Quantity::length) + ")");
+    t.numeric.insert(t.numeric.begin() + 5, 3, true);
   }
   for (std::size_t i = 0; i < p.piles.size(); ++i) {
     const PileCheck& pc = cc.piles[i];
@@ -360,7 +394,11 @@ Table combination_table(const CheckReport& r, const CombinationCheck& cc) {
                                     none ? dash : u.force(pc.axial), none ? dash : u.force(pc.lateral),
                                     none ? dash : utilization_text(pc.utilization),
                                     to_string(pc.governing), to_string(pc.state), result_text(pc)};
-    if (moments) row.insert(row.begin() + 5, none ? dash : u.moment(head_moment(r, i, pc.lateral)));
+    if (moments) {
+      row.insert(row.begin() + 5, none ? dash : u.moment(pc.head_moment));
+      row.insert(row.begin() + 6, none ? dash : u.moment(pc.max_moment));
+      row.insert(row.begin() + 7, none ? dash : u.length(pc.max_moment_depth));
+    }
     t.rows.push_back(row);
   }
   return t;

@@ -64,7 +64,6 @@ const std::string& combo_id(const CheckReport& r, std::optional<std::size_t> c);
 json number_or_null(double v);
 double axial_stiffness(const CheckReport& r, std::size_t type);
 double lateral_stiffness(const CheckReport& r, std::size_t type);
-double head_moment(const CheckReport& r, std::size_t pile, double lateral);
 bool any_fixed_head(const CheckReport& r);
 double cap_reach(const Project& p);
 double displacement_resolution(UnitSystem u);
@@ -79,6 +78,10 @@ Table combinations_table(const CheckReport& r);
 Table combination_table(const CheckReport& r, const CombinationCheck& cc);
 std::string combination_note(const CheckReport& r, const CombinationCheck& cc);
 Table envelope_table(const CheckReport& r);
+// The cap's 6×6 stiffness about the origin in project units (rows Fx…Mz, columns ux…rz).
+Table cap_stiffness_table(const CheckReport& r);
+// The same matrix as numbers in project units, row by row.
+std::array<std::array<double, 6>, 6> cap_stiffness_values(const CheckReport& r);
 std::vector<std::string> failure_reasons(const CheckReport& r);
 std::string joined(const std::vector<std::string>& items, const char* separator);
 Table summary_table(const CheckReport& r);

@@ -6,6 +6,13 @@
 #include <set>
 
 namespace cairn {
+namespace {
+// The input file's word for a head fixity.
+const char* head_word(HeadFixity head) {
+  return head == HeadFixity::fixed ? "fixed" : head == HeadFixity::partial ? "partial" : "pinned";
+}
+}  // namespace
+
 
 using namespace report_detail;
 
@@ -26,7 +33,7 @@ std::string render_springs(const Project& project, const std::vector<PileTypeSti
                        {"axis", {a[0], a[1], a[2]}},
                        {"axial_stiffness", u.value(Quantity::stiffness, s.axial)},
                        {"lateral_stiffness", u.value(Quantity::stiffness, s.lateral)},
-                       {"head", s.head == HeadFixity::fixed ? "fixed" : "pinned"},
+                       {"head", head_word(s.head)},
                        {"axial_source", s.axial_source},
                        {"lateral_source", s.lateral_source}});
     }
@@ -49,7 +56,7 @@ std::string render_springs(const Project& project, const std::vector<PileTypeSti
     t.rows.push_back({pile.id, project.pile_types[pile.type].id, u.length(pile.x), u.length(pile.y),
                       fixed_text(a[0], 4), fixed_text(a[1], 4),
                       fixed_text(a[2], 4), u.stiffness(s.axial), u.stiffness(s.lateral),
-                      s.head == HeadFixity::fixed ? "fixed" : "pinned"});
+                      head_word(s.head)});
   }
   if (format == Format::csv) return render_table(t, Format::csv) + "# " + kCaution + "\n";
   const bool md = format == Format::markdown;

@@ -139,6 +139,7 @@ std::string render_check(const CheckReport& r, Format format) {
       out.insert(out.size() - 1, "  " + combination_note(r, cc) + "\n");
   }
   out += render_table(envelope_table(r), format);
+  if (r.cap_stiffness) out += render_table(cap_stiffness_table(r), format);
   if (r.group) out += group_block(r, format);
   if (r.explain_pile) out += explain_block(r, format);
   out += assumptions_block(r, format);

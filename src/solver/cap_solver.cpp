@@ -48,6 +48,21 @@ Eigen::Matrix3d spring_matrix(const Eigen::Vector3d& a, double axial, double lat
 
 Eigen::Vector3d to_vector3(const std::array<double, 3>& v) { return {v[0], v[1], v[2]}; }
 
+// The head-bending terms of a fixed or partially fixed pile (pile_head.hpp) in the
+// nondimensional cap coordinates: T̂ᵀ·K_b·T̂ with T̂ = [[I, −[ρ]×], [0, I/L]] taking Û = (t, θ)
+// to the head's (u, ω).
+Matrix6 bending_contribution(const Eigen::Vector3d& rho, double size,
+                             const std::array<double, 3>& axis, const HeadBending& bending) {
+  const Matrix6Rows rows = head_stiffness_matrix(axis, 0.0, 0.0, bending);
+  Matrix6 k;
+  for (int i = 0; i < 6; ++i)
+    for (int j = 0; j < 6; ++j) k(i, j) = rows[static_cast<std::size_t>(i)][static_cast<std::size_t>(j)];
+  Matrix6 t = Matrix6::Zero();
+  t.block<3, 6>(0, 0) = head_map(rho);
+  t.block<3, 3>(3, 3) = Eigen::Matrix3d::Identity() / size;
+  return t.transpose() * k * t;
+}
+
 std::array<double, 3> to_array(const Eigen::Vector3d& v) { return {v(0), v(1), v(2)}; }
 
 }  // namespace
@@ -62,6 +77,7 @@ struct CapSolver::Impl {
   std::vector<Eigen::Vector3d> offsets;                  // ρ = (p − c)/L
   std::vector<Eigen::Vector3d> axes;
   std::vector<double> axial, lateral;                    // kN/m
+  std::vector<HeadBending> bending;                      // fixed and partially fixed heads
   std::vector<Matrix6> contributions;                    // T̂ᵀ·K_pile·T̂, kN/m
   // A pile that dropped out (it takes no tension) keeps its lateral spring: the soil still
   // holds it across its axis. Its lateral-only contribution:
@@ -70,6 +86,42 @@ struct CapSolver::Impl {
   // (K = Σ of positive semidefinite terms, so K·v = 0 exactly when every spring is idle),
   // and it is as well conditioned as the geometry, whatever the stiffness ratios.
   std::vector<Matrix6> pattern, lateral_pattern;
+
+  // Adds pile i's head-bending terms to its contributions (active or dropped out: the soil
+  // holds the pile across its axis either way) and to the unit-spring copies (unit rotational
+  // stiffness in the nondimensional rotations θ = L·r, none coupling).
+  void add_bending(std::size_t i) {
+    const std::array<double, 3> a = {axes[i](0), axes[i](1), axes[i](2)};
+    const Matrix6 b = bending_contribution(offsets[i], size, a, bending[i]);
+    contributions[i] += b;
+    lateral_contributions[i] += b;
+    const double unit = size * size;
+    const Matrix6 u = bending_contribution(
+        offsets[i], size, a, {0.0, bending[i].rotational > 0.0 ? unit : 0.0,
+                              bending[i].torsional > 0.0 ? unit : 0.0});
+    pattern[i] += u;
+    lateral_pattern[i] += u;
+  }
+
+  // The head-bending part of pile i's action at head movement u and cap movement Û: adds
+  // its force to `force` and returns its moment about the head (zero for a pinned head).
+  template <typename Real>
+  Eigen::Matrix<Real, 3, 1> add_bending_action(std::size_t i, const Eigen::Matrix<Real, 3, 1>& u,
+                                               const Eigen::Matrix<Real, 6, 1>& movement,
+                                               Eigen::Matrix<Real, 3, 1>& force) const {
+    Eigen::Matrix<Real, 3, 1> moment = Eigen::Matrix<Real, 3, 1>::Zero();
+    if (!bending[i].any()) return moment;
+    const Real uu[3] = {u(0), u(1), u(2)};
+    const Real s = static_cast<Real>(size);
+    const Real w[3] = {movement(3) / s, movement(4) / s, movement(5) / s};
+    Real f[3], m[3];
+    head_bending_action<Real>({axes[i](0), axes[i](1), axes[i](2)}, bending[i], uu, w, f, m);
+    for (int j = 0; j < 3; ++j) {
+      force(j) += f[j];
+      moment(j) = m[j];
+    }
+    return moment;
+  }
 
   // The solvable part of the stiffness of one active set.
   struct Decomposition {
@@ -231,9 +283,11 @@ struct CapSolver::Impl {
                            const Vector6& load) const {
     Vector6R<Real> sum = load.cast<Real>();
     for (std::size_t i = 0; i < offsets.size(); ++i) {
-      const Vector3R<Real> f = pile_force<Real>(i, active[i], head_movement<Real>(i, movement));
+      const Vector3R<Real> u = head_movement<Real>(i, movement);
+      Vector3R<Real> f = pile_force<Real>(i, active[i], u);
+      const Vector3R<Real> moment = add_bending_action<Real>(i, u, movement, f);
       sum.template head<3>() -= f;
-      sum.template tail<3>() -= offsets[i].cast<Real>().cross(f);
+      sum.template tail<3>() -= offsets[i].cast<Real>().cross(f) + moment / static_cast<Real>(size);
     }
     return sum;
   }
@@ -298,6 +352,17 @@ struct CapSolver::Impl {
       // An inactive pile carries no axial force: report zero.
       pile.axial = active[i] ? static_cast<double>(axial[i] * along) : 0.0;
       pile.lateral = static_cast<double>(lateral[i] * (u - along * a).norm());
+      Vector3R<Real> f = pile_force<Real>(i, active[i], u);
+      const Vector3R<Real> moment = add_bending_action<Real>(i, u, movement, f);
+      for (int j = 0; j < 3; ++j) {
+        pile.head_forces[static_cast<std::size_t>(j)] = static_cast<double>(f(j));
+        pile.head_forces[static_cast<std::size_t>(j + 3)] = static_cast<double>(moment(j));
+      }
+      if (bending[i].any()) {
+        // The lateral shear includes the coupling force of a fixed head.
+        pile.lateral = static_cast<double>((f - a.dot(f) * a).norm());
+        pile.head_moment = static_cast<double>((moment - a.dot(moment) * a).norm());
+      }
     }
     solution.residual = residual;
     return solution;
@@ -367,6 +432,8 @@ CapSolver::CapSolver(std::vector<PileSpring> springs)
     m.pattern.push_back(t.transpose() *
                         spring_matrix(a, s.axial > 0.0 ? 1.0 : 0.0, has_lateral) * t);
     m.lateral_pattern.push_back(t.transpose() * spring_matrix(a, 0.0, has_lateral) * t);
+    m.bending.push_back(s.bending);
+    if (s.bending.any()) m.add_bending(m.contributions.size() - 1);
   }
   m.all_active = m.decompose(std::vector<bool>(springs_.size(), true));
 }
@@ -376,6 +443,29 @@ CapSolver::CapSolver(CapSolver&&) noexcept = default;
 CapSolver& CapSolver::operator=(CapSolver&&) noexcept = default;
 
 const std::array<double, 3>& CapSolver::reference() const { return impl_->reference_point; }
+
+std::array<std::array<double, 6>, 6> CapSolver::stiffness_about(
+    const std::array<double, 3>& point) const {
+  const Impl& m = *impl_;
+  Matrix6 k = Matrix6::Zero();
+  for (const auto& c : m.contributions) k += c;
+  // Physical units about c: (F, M) = S·K̂·S·(t, r) with S = diag(1, 1, 1, L, L, L).
+  Vector6 s;
+  s << 1.0, 1.0, 1.0, m.size, m.size, m.size;
+  const Matrix6 about_reference = s.asDiagonal() * k * s.asDiagonal();
+  // The cap point at c moves t_c = t_p + r × (c − p): (t_c, r) = A·(t_p, r), K_p = Aᵀ·K_c·A.
+  const Eigen::Vector3d d = m.reference - to_vector3(point);
+  Matrix6 a = Matrix6::Identity();
+  Eigen::Matrix3d skew;
+  skew << 0, -d(2), d(1), d(2), 0, -d(0), -d(1), d(0), 0;
+  a.block<3, 3>(0, 3) = -skew;
+  const Matrix6 result = a.transpose() * about_reference * a;
+  std::array<std::array<double, 6>, 6> out{};
+  for (int i = 0; i < 6; ++i)
+    for (int j = 0; j < 6; ++j)
+      out[static_cast<std::size_t>(i)][static_cast<std::size_t>(j)] = result(i, j);
+  return out;
+}
 
 double CapSolver::size() const { return impl_->size; }
 

@@ -27,6 +27,8 @@ struct CheckRun {
   CheckResults results;
   GroupResults group;
   std::vector<std::string> assumptions;
+  // The cap's stiffness about the origin for the global structural model (every pile active).
+  std::array<std::array<double, 6>, 6> cap_stiffness{};
 };
 
 // Reads and checks one project file. Throws InputError for any input problem (nothing is

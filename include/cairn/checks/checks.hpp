@@ -102,6 +102,8 @@ struct PileCheck {
   double axial = 0.0;    // kN, compression positive (0 when overturned: no forces exist)
   double lateral = 0.0;  // kN
   double head_moment = 0.0;  // kN·m, fixed heads (0 for pinned)
+  double max_moment = 0.0;   // kN·m, largest along the pile (= head_moment without a pile model)
+  double max_moment_depth = 0.0;  // m below the head
   bool active = true;    // false: dropped out, takes no tension
   PileState state = PileState::in_contact;
   double utilization = 0.0;   // infinity when a demand has no capacity
@@ -157,10 +159,16 @@ struct CheckResults {
 // Checks every pile in every combination. `solutions` is indexed like the combinations.
 // `head_moment_per_shear` (m, per pile type; empty = all pinned) gives fixed heads their
 // head moment M = V·(moment per shear) for the combined axial + bending check
-// |P|/Pc + |M|/Mc ≤ 1 (common practice; lateral.hpp).
-CheckResults check_piles(const Project& project, const std::vector<CapSolution>& solutions,
-                         const std::vector<PileTypeResistance>& resistances,
-                         const std::vector<double>& head_moment_per_shear = {});
+// |P|/Pc + |M|/Mc ≤ 1 (common practice; lateral.hpp). `moment_influence` (per pile type;
+// empty or absent for pinned heads) takes its place where given: the head moment is then the
+// solver's (part of the cap's equilibrium, pile_head.hpp) and the check takes the largest
+// moment along the pile (Hetényi 1946) with the axial force at the head, by the same linear
+// rule — conservative inside the section's P–M diagram.
+CheckResults check_piles(
+    const Project& project, const std::vector<CapSolution>& solutions,
+    const std::vector<PileTypeResistance>& resistances,
+    const std::vector<double>& head_moment_per_shear = {},
+    const std::vector<std::optional<MomentInfluence>>& moment_influence = {});
 
 // The assumptions behind the results, in plain words, for every output; the warnings found
 // while reading (project.warnings) come first, as "Warning: … (file:line:col)".

@@ -79,8 +79,10 @@ struct Structure {
   SourceLocation where;
 };
 
-// How a pile head is connected to the cap, for its lateral stiffness and head moment.
-enum class HeadFixity { pinned, fixed };
+// How a pile head is connected to the cap, for its lateral stiffness and head moment:
+// pinned (free to rotate), fixed (turns with the cap), partial (held by the rotational
+// restraint `head_restraint`, kN·m/rad).
+enum class HeadFixity { pinned, fixed, partial };
 
 struct PileType {
   std::string id;
@@ -91,7 +93,9 @@ struct PileType {
   std::optional<double> axial_stiffness;    // kN/m as given; default E·A/L
   std::optional<double> lateral_stiffness;  // kN/m as given; default 0 (axial-only pile)
   bool tension = true;                      // false: compression only
-  HeadFixity head = HeadFixity::pinned;     // for the soil-based lateral stiffness
+  HeadFixity head = HeadFixity::pinned;     // for the lateral, coupling and rotational terms
+  std::optional<double> head_restraint;     // k_r, kN·m/rad: head partial only
+  std::optional<double> torsional_stiffness;  // kN·m/rad about the axis: fixed/partial heads
   std::vector<CapacitySet> capacities;      // as given by the geotechnical engineer
   PileDesign design;                        // installation and methods for soil-based capacity
   std::optional<Structure> structure;       // material strength, for the structural check

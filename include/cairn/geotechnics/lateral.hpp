@@ -90,6 +90,18 @@ struct LateralHeadResponse {
 // Requires the same as lateral_head_stiffness().
 LateralHeadResponse lateral_head_response(const ElasticPile& pile, double shear);
 
+// The bending moment along a pile under a unit head shear and under a unit head moment
+// (each with the head free to rotate; Hetényi's convention), sampled at `samples` + 1 depths
+// from the head to the tip (a long pile: to 2π/λ, past its first and largest peak): any head
+// action (H, M0) in a plane gives M(z) = H·per_shear(z) + M0·per_moment(z) (superposition,
+// Hetényi 1946). Requires the same as lateral_head_stiffness() and samples ≥ 2.
+struct MomentInfluence {
+  std::vector<double> depth;       // m below the head
+  std::vector<double> per_shear;   // m (kN·m per kN)
+  std::vector<double> per_moment;  // kN·m per kN·m
+};
+MomentInfluence moment_influence(const ElasticPile& pile, int samples = 400);
+
 // ---------------------------------------------------------------------------------------
 // 2. Broms (1964) ultimate lateral resistance
 // ---------------------------------------------------------------------------------------

@@ -10,7 +10,11 @@
 //     k = 0.65·(Es·D⁴/(Ep·Ip))^(1/12)·Es/(1 − μs²),  kh = k/D
 // when the layer gives Es, else for clay Davisson's (1970) kh ≈ 67·cu/D (from memory);
 // else 0 (axial-only pile, the classical assumption). Fixed heads: k/λ and a head moment
-// M = V/(2λ) per unit of head shear; pinned heads: k/(2λ).
+// M = V/(2λ) per unit of head shear; pinned heads: k/(2λ). Fixed and partially fixed heads
+// also get the coupling and rotational terms of pile_head.hpp (Hetényi's k_hm, k_mm,
+// condensed with the restraint `head_restraint`); a lateral stiffness given for such a head
+// is read as the fixed-head k_hh = 4EIλ³ of a long pile on Hetényi's foundation, which fixes
+// λ and so k_hm = −2EIλ² and k_mm = 2EIλ (needs elastic_modulus).
 // Each value carries its source in plain words for the output.
 #pragma once
 
@@ -20,6 +24,7 @@
 
 #include "cairn/solver/cap_solver.hpp"
 #include "cairn/geotechnics/group.hpp"
+#include "cairn/geotechnics/lateral.hpp"
 #include "cairn/geotechnics/project_capacity.hpp"
 #include "cairn/core/model.hpp"
 
@@ -31,6 +36,11 @@ struct PileTypeStiffness {
   std::string axial_source, lateral_source;
   HeadFixity head = HeadFixity::pinned;
   double head_moment_per_shear = 0.0;  // m; fixed heads only (0 for pinned)
+  // Fixed and partially fixed heads: the coupling, rotational and torsional terms the cap
+  // sees (pile_head.hpp), and the elastic pile they come from, for the moment along it.
+  // Pinned heads: zero terms and no pile (the two springs alone, as always).
+  HeadBending bending;
+  std::optional<ElasticPile> beam;
 };
 
 // Springs of every pile type (indexed like Project::pile_types). `capacities` are the

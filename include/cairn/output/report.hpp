@@ -54,6 +54,9 @@ struct CheckReport {
   std::vector<HandCheck> hand_checks;  // when explain_pile is set
   const std::vector<PileTypeStiffness>* stiffness = nullptr;  // springs per pile type
   const GroupResults* group = nullptr;                        // group checks
+  // The cap's 6×6 stiffness about the origin, every pile active (CapSolver::stiffness_about):
+  // kN/m, kN/rad, kN·m/m, kN·m/rad. Absent: not written.
+  std::optional<std::array<std::array<double, 6>, 6>> cap_stiffness;
 };
 
 std::string render_check(const CheckReport& report, Format format);

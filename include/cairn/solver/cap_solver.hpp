@@ -44,6 +44,7 @@
 #include <vector>
 
 #include "cairn/core/model.hpp"
+#include "cairn/solver/pile_head.hpp"
 
 namespace cairn {
 
@@ -53,6 +54,7 @@ struct PileSpring {
   double axial = 0.0;            // kN/m
   double lateral = 0.0;          // kN/m
   bool tension = true;           // false: compression only
+  HeadBending bending{};         // fixed or partially fixed heads (pile_head.hpp); zero: pinned
 };
 
 // Springs of every pile of the project, in the order of Project::piles.
@@ -63,6 +65,11 @@ struct PileForce {
   double lateral = 0.0;  // kN, resultant shear across the pile axis
   bool active = true;    // false: dropped out (would be in tension, takes none); its
                          // lateral spring still acts
+  // The action of the cap on the pile at its head, global axes: Fx, Fy, Fz (kN), Mx, My, Mz
+  // (kN·m about the head). A compression pile has Fz < 0. Σ (p × F + M) over the piles is
+  // the load on the cap.
+  Wrench head_forces{};
+  double head_moment = 0.0;  // kN·m, the bending moment at the head, |M| across the axis
 };
 
 struct CapMovement {
@@ -148,6 +155,11 @@ class CapSolver {
   bool needs_redistribution(const CapSolution& solution) const;
 
   const std::vector<PileSpring>& springs() const { return springs_; }
+
+  // The cap's 6×6 stiffness about `point` with every pile active (tension allowed), row-major:
+  // (Fx, Fy, Fz, Mx, My, Mz) = K·(ux, uy, uz, rx, ry, rz) for the cap point at `point`;
+  // kN/m, kN/rad, kN·m/m, kN·m/rad. For the global structural model.
+  std::array<std::array<double, 6>, 6> stiffness_about(const std::array<double, 3>& point) const;
 
  private:
   struct Impl;

@@ -24,6 +24,7 @@
 #include "cairn/geotechnics/stiffness.hpp"
 #include "cairn/input/input.hpp"
 #include "cairn/output/output_files.hpp"
+#include "cairn/app/site_commands.hpp"
 
 namespace cairn {
 namespace {
@@ -159,6 +160,7 @@ int run_batch(const Options& options, std::ostream& out, std::ostream& err) {
 }
 
 int run_check(const Options& options, std::ostream& out, std::ostream& err) {
+  if (options.as_built) return run_as_built_check(options, describe_options(options), out, err);
   // Several files, or a foundation file listing caps: the batch summary.
   if (options.files.size() != 1) return run_batch(options, out, err);
   const auto caps = expand_foundation(options.files.front());
@@ -276,8 +278,10 @@ int run_report(const Options& options, std::ostream& out, std::ostream& err) {
   bool pass = true;
   std::set<std::string> stems;
   for (const auto& o : outcomes) {
-    const CheckRun& run = *o.run;
-    pass = pass && run.results.summary.pass;
+    // --as-built: the package of the as-built cap, with the as-built section.
+    const auto site = options.as_built ? as_built_run(*o.run, *options.as_built, options) : nullptr;
+    const CheckRun& run = site ? site->as_built : *o.run;
+    pass = pass && (site ? site->comparison.verdict != SiteVerdict::remedial : run.results.summary.pass);
     const CheckReport report = make_check_report(run, described, std::nullopt);
     const UnitSystem u = run.project.units;
     // Capacities again, with the capacity-with-depth table for the chart.
@@ -290,6 +294,7 @@ int run_report(const Options& options, std::ostream& out, std::ostream& err) {
     input.check = &report;
     input.capacities = &capacities;
     input.extra_sections_html.push_back(group_section_html(report));
+    if (site) input.extra_sections_html.push_back(as_built_section_html(site->report(described)));
     const std::string stem = unique_stem(o.file, stems);
     written.emplace_back(stem + ".html", render_html_report(input));
     if (options.plan_svg)
@@ -375,6 +380,17 @@ int run_command_line(int argc, const char* const* argv, std::ostream& out, std::
                     "Also write report.txt, report.md, results.json and CSV tables into DIR");
   check->add_option("--explain", options.explain_pile,
                     "Show the hand check (section properties, substituted formula) for PILE");
+  // check and report: the as-built re-check of a survey (site/as_built.hpp).
+  auto add_as_built = [&](CLI::App* command) {
+    command->add_option("--as-built", options.as_built,
+                        "Re-check the cap as installed, from the pile survey SURVEY.csv");
+    command->add_option("--plan-tolerance", options.plan_tolerance,
+                        "With --as-built: plan position tolerance in mm (SI) or in (US); "
+                        "default 75 mm or 3 in (common practice)");
+    command->add_option("--batter-tolerance", options.batter_tolerance,
+                        "With --as-built: batter tolerance 1 in N; default 50 (common practice)");
+  };
+  add_as_built(check);
   CLI::App* capacity = app.add_subcommand(
       "capacity", "Compute each pile type's capacity from the soil profile, layer by layer and "
                   "with depth");
@@ -407,6 +423,7 @@ int run_command_line(int argc, const char* const* argv, std::ostream& out, std::
   report->add_flag("--svg", options.plan_svg, "Also write the cap plan alone as SVG");
   report->add_flag("--tables", options.tables,
                    "Also write the tables as CSV and Markdown (report.md, *.csv per cap)");
+  add_as_built(report);
   // CLI11 takes an unknown command for a stray argument ("A subcommand is required");
   // name it and suggest the nearest command instead.
   if (argc > 1 && argv[1][0] != '-') {

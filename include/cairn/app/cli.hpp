@@ -38,6 +38,11 @@ struct Options {
   // given, quoted where a shell would need it), shown in every report header. Empty when
   // run() is called without a command line: the header then shows the options rebuilt.
   std::string command_line;
+  // check, report: the as-built survey (CSV) and its tolerances, in mm or in and as n of
+  // 1:n (site/as_built.hpp; defaults 75 mm or 3 in, 1:50).
+  std::optional<std::string> as_built;
+  std::optional<double> plan_tolerance;
+  std::optional<double> batter_tolerance;
 };
 
 inline constexpr int kExitPass = 0;

@@ -1,0 +1,35 @@
+// site_commands.hpp — the commands and options of the site work (site/): the as-built
+// re-check of `check --as-built` and `report --as-built`.
+#pragma once
+
+#include <iosfwd>
+#include <memory>
+#include <string>
+
+#include "cairn/app/analysis.hpp"
+#include "cairn/app/cli.hpp"
+#include "cairn/output/as_built_report.hpp"
+#include "cairn/site/as_built.hpp"
+
+namespace cairn {
+
+// One cap's design run, its as-built model and run, and their comparison. Held by pointer
+// so that the report's pointers stay valid.
+struct AsBuiltRun {
+  CheckRun design;
+  AsBuiltProject model;
+  CheckRun as_built;
+  AsBuiltComparison comparison;
+  AsBuiltReport report(const std::string& options) const;
+};
+
+// The as-built check of `design` from the survey at `survey_path` (its `cap` column matched
+// against the cap file's stem), with the tolerances of `options`. Throws InputError.
+std::unique_ptr<AsBuiltRun> as_built_run(CheckRun design, const std::string& survey_path,
+                                         const Options& options);
+
+// `cairn check CAP.yaml --as-built SURVEY.csv`: exit 1 when remedial work is needed.
+int run_as_built_check(const Options& options, const std::string& described, std::ostream& out,
+                       std::ostream& err);
+
+}  // namespace cairn

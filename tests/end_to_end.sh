@@ -657,5 +657,30 @@ for file in "$data"/fuzz-regressions/fuzz_reactions/*; do
   fuzz_replay "$(basename "$file")" check "$replay/cap.yaml"
 done
 
+# ---- As-built re-check (check/report --as-built SURVEY.csv) --------------------------------
+site="$data/site"
+expect_status "as-built: offsets within tolerance accepted" 0 check "$site/diamond.yaml" --as-built "$site/within.csv"
+expect_in "as-built: verdict in plain words" "$work/out" "Verdict: accept as built"
+expect_in "as-built: cap design not checked" "$work/out" "The cap's own structural design"
+expect_status "as-built: short pile with a reduced capacity needs remedial work" 1 check "$site/diamond.yaml" --as-built "$site/short_reduced.csv"
+expect_in "as-built: remedial" "$work/out" "Verdict: remedial work needed — governing combination S1"
+expect_status "as-built: bad survey" 2 check "$site/diamond.yaml" --as-built "$site/bad_status.csv"
+expect_in "as-built: file, row and column" "$work/err" "bad_status.csv:3:7: error: row 3, column 'status': expected accepted, damaged, rejected or abandoned, got 'acepted'"
+expect_status "as-built: tighter tolerance flags the 50 mm offset" 0 check "$site/diamond.yaml" --as-built "$site/within.csv" --plan-tolerance 40 --format json
+if python3 -c 'import json,sys; d=json.load(open(sys.argv[1])); sys.exit(0 if d["verdict"]=="accept, deviations taken by the piles" and d["piles"][0]["out_of_tolerance"] else 1)' "$work/out"; then ok; else bad "as-built: --plan-tolerance 40"; fi
+expect_status "as-built: report package" 0 report "$site/diamond.yaml" --as-built "$site/moved.csv" --out "$work/as-built-report"
+expect_in "as-built: package section" "$work/as-built-report/diamond.html" "<section id=\"as-built\">"
+for survey in "$src"/projects-demo/*/survey.csv; do
+  [ -e "$survey" ] || continue
+  dir=$(dirname "$survey")
+  name=$(basename "$dir")
+  (cd "$dir" && "$cairn" check cap.yaml --as-built survey.csv >"$work/out" 2>"$work/err")
+  status=$?
+  if [ "$status" -le 1 ]; then ok; else bad "projects-demo/$name as built: exit status $status"; fi
+  if [ -f "$dir/expected/as-built.txt" ]; then
+    if diff -q "$dir/expected/as-built.txt" "$work/out" >/dev/null; then ok; else bad "projects-demo/$name: differs from expected/as-built.txt"; fi
+  fi
+done
+
 echo "$passed passed, $failed failed"
 [ "$failed" -eq 0 ]

@@ -197,6 +197,7 @@ Survey read_survey_csv(const std::string& text, const std::string& file, UnitSys
     };
     SurveyRow out;
     out.where = {file, record.line, record.cells.empty() ? 1 : record.cells.front().column};
+    out.row = row;
     if (const CsvCell* cl = cell(kCap)) out.cap = cl->text;
     if (const CsvCell* cl = cell(kPile)) out.pile = cl->text;
     else {
@@ -228,8 +229,8 @@ Survey read_survey_csv(const std::string& text, const std::string& file, UnitSys
     }
     const int position_column = cell(kX) ? kX : kDx;
     out.where_position = where(cell(position_column));
-    if (static_cast<bool>(x) != static_cast<bool>(y) ||
-        static_cast<bool>(dx) != static_cast<bool>(dy))
+    if ((cell(kX) == nullptr) != (cell(kY) == nullptr) ||
+        (cell(kDx) == nullptr) != (cell(kDy) == nullptr))
       diagnostics.error(out.where_position,
                         fmt::format("row {}, pile '{}': expected both coordinates of the head "
                                     "(x and y, or dx and dy), got one",
@@ -260,7 +261,10 @@ Survey read_survey_csv(const std::string& text, const std::string& file, UnitSys
       if (*v > 0) out.installed_length = *v * f;
       else bad(kLength, "a positive length in " + std::string(unit));
     }
-    if (cell(kTip) || cell(kLength)) out.where_length = where(cell(cell(kTip) ? kTip : kLength));
+    if (cell(kTip) || cell(kLength)) {
+      out.where_length = where(cell(cell(kLength) ? kLength : kTip));
+      out.length_column = kNames[cell(kLength) ? kLength : kTip];
+    }
     for (auto [k, target] : {std::pair{int(kCapacityFactor), &out.capacity_factor},
                              std::pair{int(kStiffnessFactor), &out.stiffness_factor}}) {
       if (auto v = value(k, "a share from 0 to 1 (0 excluded)")) {

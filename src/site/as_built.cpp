@@ -225,12 +225,12 @@ AsBuiltProject build_as_built(const Project& design, const Survey& survey,
                                         length_text(u, type.length)));
         if (!type.capacities.empty() && !row->capacity_factor) {
           problems.error(row->where_length,
-                         fmt::format("pile '{}' was installed {} short of its design length "
-                                     "of {}, and the capacity of pile type '{}' was typed in "
-                                     "by hand (not computed from the soil): give "
-                                     "capacity_factor, the share of the design capacity the "
-                                     "short pile keeps; cairn does not guess it",
-                                     row->pile, length_text(u, type.length - *length),
+                         fmt::format("row {}, column '{}': pile '{}' was installed {} short "
+                                     "of its design length of {}, and the capacity of pile "
+                                     "type '{}' was typed in by hand (not computed from the "
+                                     "soil): give capacity_factor, the share of the design "
+                                     "capacity the short pile keeps; cairn does not guess it",
+                                     row->row, row->length_column, row->pile, length_text(u, type.length - *length),
                                      length_text(u, type.length), type.id));
           return;
         }

@@ -48,6 +48,8 @@ struct SurveyRow {
   std::string type;
   // Where each optional value came from, for messages about its meaning.
   SourceLocation where_position, where_length, where_type;
+  std::string length_column;  // the column the installed length came from
+  int row = 0;                // 1-based row of the file (the header is row 1)
 };
 
 // The site grid of a survey: a point (E, N) on the grid is at project coordinates

@@ -329,6 +329,9 @@ int run(const Options& options, std::ostream& out, std::ostream& err) {
       case Command::capacity: return run_capacity(options, out, err);
       case Command::springs: return run_springs(options, out, err);
       case Command::report: return run_report(options, out, err);
+      case Command::pile_loss: return run_pile_loss(options, describe_options(options), out, err);
+      case Command::add_pile: return run_add_pile(options, describe_options(options), out, err);
+      case Command::tolerance: return run_tolerance(options, describe_options(options), out, err);
     }
     return kExitBadInput;
   } catch (const InputError& e) {
@@ -424,11 +427,39 @@ int run_command_line(int argc, const char* const* argv, std::ostream& out, std::
   report->add_flag("--tables", options.tables,
                    "Also write the tables as CSV and Markdown (report.md, *.csv per cap)");
   add_as_built(report);
+  // The site studies (site/studies.hpp).
+  CLI::App* pile_loss = app.add_subcommand(
+      "pile-loss", "Remove each pile in turn (or each pair) and report the cap's largest "
+                   "utilization");
+  add_files_and_format(pile_loss, "file", "Project file (YAML)", formats);
+  pile_loss->add_flag("--pairs", options.pairs, "Also remove every pair of piles");
+  CLI::App* add_pile = app.add_subcommand(
+      "add-pile", "Search the cap outline for one (then two) added piles that make every "
+                  "combination pass");
+  add_files_and_format(add_pile, "file", "Project file (YAML)", formats);
+  add_pile->add_option("--type", options.added_type, "Pile type of the added pile")->required();
+  add_pile->add_option("--step", options.grid_step,
+                       "Grid step in mm (SI) or in (US); default 50 mm or 2 in");
+  add_pile->add_option("--most", options.most_added, "Most piles to add: 1 or 2 (default 2)");
+  add_pile->add_option("--lose", options.lose, "Take this pile out first (may repeat)");
+  CLI::App* tolerance = app.add_subcommand(
+      "tolerance", "Random installation offsets within the plan tolerance: the distribution of "
+                   "the cap's largest utilization");
+  add_files_and_format(tolerance, "file", "Project file (YAML)", formats);
+  tolerance->add_option("--trials", options.trials, "Number of random trials (default 10000)");
+  tolerance->add_option("--seed", options.seed, "Seed of the random trials (default 1)");
+  tolerance->add_flag("--normal", options.normal,
+                      "Normal offsets with the tolerance as two standard deviations (default: "
+                      "uniform over the tolerance circle)");
+  for (CLI::App* command : {pile_loss, add_pile, tolerance}) {
+    add_as_built(command);
+    command->add_option("--out", options.out_dir, "Also write the result and its plan (SVG) into DIR");
+  }
   // CLI11 takes an unknown command for a stray argument ("A subcommand is required");
   // name it and suggest the nearest command instead.
   if (argc > 1 && argv[1][0] != '-') {
     std::vector<std::string> names;
-    for (const CLI::App* command : {check, capacity, springs, report})
+    for (const CLI::App* command : {check, capacity, springs, report, pile_loss, add_pile, tolerance})
       names.push_back(command->get_name());
     const std::string given = argv[1];
     if (std::find(names.begin(), names.end(), given) == names.end()) {
@@ -465,6 +496,9 @@ int run_command_line(int argc, const char* const* argv, std::ostream& out, std::
   if (need_basis == "factored") options.need_basis = CapacityBasis::factored;
   if (springs->parsed()) options.command = Command::springs;
   if (report->parsed()) options.command = Command::report;
+  if (pile_loss->parsed()) options.command = Command::pile_loss;
+  if (add_pile->parsed()) options.command = Command::add_pile;
+  if (tolerance->parsed()) options.command = Command::tolerance;
   return run(options, out, err);
 }
 

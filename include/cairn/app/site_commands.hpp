@@ -32,4 +32,16 @@ std::unique_ptr<AsBuiltRun> as_built_run(CheckRun design, const std::string& sur
 int run_as_built_check(const Options& options, const std::string& described, std::ostream& out,
                        std::ostream& err);
 
+// `cairn pile-loss CAP.yaml [--pairs]`: exit 1 when losing some pile leaves a failing cap.
+int run_pile_loss(const Options& options, const std::string& described, std::ostream& out,
+                  std::ostream& err);
+// `cairn add-pile CAP.yaml --type T [--as-built S.csv | --lose P]`: exit 1 when no position
+// on the grid makes every combination pass.
+int run_add_pile(const Options& options, const std::string& described, std::ostream& out,
+                 std::ostream& err);
+// `cairn tolerance CAP.yaml [--trials N --seed S --normal]`: exit 1 when the worst
+// arrangement found within the tolerance fails.
+int run_tolerance(const Options& options, const std::string& described, std::ostream& out,
+                  std::ostream& err);
+
 }  // namespace cairn

@@ -332,6 +332,7 @@ int run(const Options& options, std::ostream& out, std::ostream& err) {
       case Command::pile_loss: return run_pile_loss(options, describe_options(options), out, err);
       case Command::add_pile: return run_add_pile(options, describe_options(options), out, err);
       case Command::tolerance: return run_tolerance(options, describe_options(options), out, err);
+      case Command::safe_region: return run_safe_region(options, describe_options(options), out, err);
     }
     return kExitBadInput;
   } catch (const InputError& e) {
@@ -451,7 +452,13 @@ int run_command_line(int argc, const char* const* argv, std::ostream& out, std::
   tolerance->add_flag("--normal", options.normal,
                       "Normal offsets with the tolerance as two standard deviations (default: "
                       "uniform over the tolerance circle)");
-  for (CLI::App* command : {pile_loss, add_pile, tolerance}) {
+  CLI::App* safe_region = app.add_subcommand(
+      "safe-region", "Where each combination's vertical load may stand in plan with every pile "
+                     "passing, and the smallest margin");
+  add_files_and_format(safe_region, "file", "Project file (YAML)", formats);
+  safe_region->add_option("--rays", options.rays,
+                          "Rays traced where piles may drop out (default 72; 0: linear only)");
+  for (CLI::App* command : {pile_loss, add_pile, tolerance, safe_region}) {
     add_as_built(command);
     command->add_option("--out", options.out_dir, "Also write the result and its plan (SVG) into DIR");
   }
@@ -459,7 +466,7 @@ int run_command_line(int argc, const char* const* argv, std::ostream& out, std::
   // name it and suggest the nearest command instead.
   if (argc > 1 && argv[1][0] != '-') {
     std::vector<std::string> names;
-    for (const CLI::App* command : {check, capacity, springs, report, pile_loss, add_pile, tolerance})
+    for (const CLI::App* command : {check, capacity, springs, report, pile_loss, add_pile, tolerance, safe_region})
       names.push_back(command->get_name());
     const std::string given = argv[1];
     if (std::find(names.begin(), names.end(), given) == names.end()) {
@@ -499,6 +506,7 @@ int run_command_line(int argc, const char* const* argv, std::ostream& out, std::
   if (pile_loss->parsed()) options.command = Command::pile_loss;
   if (add_pile->parsed()) options.command = Command::add_pile;
   if (tolerance->parsed()) options.command = Command::tolerance;
+  if (safe_region->parsed()) options.command = Command::safe_region;
   return run(options, out, err);
 }
 

@@ -12,6 +12,7 @@
 #include "cairn/output/output_files.hpp"
 #include "cairn/output/plan_svg.hpp"
 #include "cairn/output/site_report.hpp"
+#include "cairn/site/safe_region.hpp"
 #include "cairn/site/studies.hpp"
 
 namespace cairn {
@@ -241,6 +242,23 @@ int run_tolerance(const Options& options, const std::string& described, std::ost
   write_outputs(options, "tolerance", rendered, render_plan_svg(run.project, &run.results, &run.resistances));
   out << rendered;
   return std::max(study.max, study.worst_outcome.max_utilization) > 1.0 ? kExitFail : kExitPass;
+}
+
+int run_safe_region(const Options& options, const std::string& described, std::ostream& out,
+                    std::ostream& err) {
+  std::unique_ptr<AsBuiltRun> site;
+  std::optional<CheckRun> design;
+  const CheckRun& run = single_run(options, site, design, err, "safe-region");
+  if (options.rays < 0 || options.rays > 3600)
+    throw InputError({}, fmt::format("--rays: expected 0 to 3600, got '{}'", options.rays));
+  const SafeRegions regions = safe_regions(run, options.rays);
+  const SiteStudyHeader header{&run.project, described};
+  const std::string rendered = render_safe_regions(header, regions, options.format);
+  write_outputs(options, "safe-region", rendered, render_safe_regions_svg(run.project, regions));
+  out << rendered;
+  for (const auto& c : regions.combinations)
+    if (!c.upward && !c.inside) return kExitFail;
+  return kExitPass;
 }
 
 }  // namespace cairn

@@ -326,3 +326,109 @@ std::string render_tolerance(const SiteStudyHeader& h, const ToleranceSettings& 
 }
 
 }  // namespace cairn
+
+namespace cairn {
+
+std::string render_safe_regions(const SiteStudyHeader& h, const SafeRegions& r, Format format) {
+  const Project& p = *h.project;
+  const UnitSystem u = p.units;
+  const std::string len = unit_label(u, Quantity::length);
+  auto L = [&](double m) { return from_si(u, Quantity::length, m); };
+  if (format == Format::json) {
+    nlohmann::json j = json_head(h);
+    nlohmann::json list = nlohmann::json::array();
+    for (const auto& c : r.combinations) {
+      auto poly = [&](const Polygon& pg) {
+        nlohmann::json a = nlohmann::json::array();
+        for (const auto& v : pg) a.push_back({L(v[0]), L(v[1])});
+        return a;
+      };
+      list.push_back({{"combination", p.combinations[c.combination].id},
+                      {"load", from_si(u, Quantity::force, c.load)},
+                      {"upward", c.upward},
+                      {"resultant", {L(c.resultant[0]), L(c.resultant[1])}},
+                      {"linear_region", poly(c.linear)},
+                      {"traced_region", poly(c.traced)},
+                      {"margin", c.upward || !std::isfinite(c.margin) ? nlohmann::json(nullptr)
+                                                                      : nlohmann::json(L(c.margin))},
+                      {"inside", c.inside}});
+    }
+    j["combinations"] = list;
+    j["smallest_margin"] = r.smallest ? nlohmann::json(p.combinations[r.combinations[*r.smallest].combination].id)
+                                      : nlohmann::json(nullptr);
+    return j.dump(2) + "\n";
+  }
+  Table t;
+  t.title = "Safe region of each combination's vertical load";
+  t.headers = {"combination", fmt::format("P ({})", unit_label(u, Quantity::force)),
+               fmt::format("resultant x, y ({})", len), fmt::format("margin ({})", len),
+               fmt::format("region area ({}²)", len), "result"};
+  t.numeric = {false, true, false, true, true, false};
+  for (const auto& c : r.combinations) {
+    const Polygon& used = c.traced.empty() ? c.linear : c.traced;
+    if (c.upward) {
+      t.rows.push_back({p.combinations[c.combination].id,
+                        fixed_text(from_si(u, Quantity::force, c.load), 1), "-", "-", "-",
+                        "uplift: no region"});
+      continue;
+    }
+    t.rows.push_back({p.combinations[c.combination].id,
+                      fixed_text(from_si(u, Quantity::force, c.load), 1),
+                      fmt::format("({}, {})", fixed_text(L(c.resultant[0]), 3), fixed_text(L(c.resultant[1]), 3)),
+                      std::isfinite(c.margin) ? fixed_text(L(c.margin), 3) : "-",
+                      fixed_text(area(used) / std::pow(to_si_factor(u, Quantity::length), 2), 3),
+                      c.inside ? "inside" : "outside"});
+  }
+  if (format == Format::csv) return render_table(t, Format::csv);
+  std::string out = head(h, "safe region of the resultant", format);
+  if (r.smallest) {
+    const auto& c = r.combinations[*r.smallest];
+    out += fmt::format("Smallest margin: {} {} in combination {} ({}).\n",
+                       std::isfinite(c.margin) ? fixed_text(L(c.margin), 3) : "-", len,
+                       p.combinations[c.combination].id,
+                       c.inside ? "inside its region" : "outside its region: a pile fails");
+  }
+  out += "Each combination's vertical load P placed anywhere in plan: the region where every "
+         "pile passes (compression, tension, and staying in contact where no tension is "
+         "taken) is the exact intersection of half-planes while the piles act linearly; where "
+         "compression-only piles may drop out it is traced along rays by bisection with the "
+         "active-set solver, and the traced region is the one used. The resultant stands at "
+         "x = −My/Fz, y = Mx/Fz (about the origin).\n\n";
+  out += render_table(t, format);
+  return out + foot();
+}
+
+std::string render_safe_regions_svg(const Project& p, const SafeRegions& r) {
+  std::vector<std::array<double, 2>> none;
+  std::string svg = value_plan(p, {}, {}, none,
+                               "Green: the safe region of the combination with the smallest "
+                               "margin (dashed: every pile in contact). Dots: resultants "
+                               "inside their region; red rings: outside.");
+  // Overlay before the closing tag, in the plan's frame.
+  const PlanFrame f = plan_frame(p, 560.0);
+  auto sx = [&](double x) { return f.origin_x + f.scale * x; };
+  auto sy = [&](double y) { return f.origin_y - f.scale * y; };
+  std::string overlay;
+  auto poly = [&](const Polygon& pg, const char* style) {
+    if (pg.size() < 3) return;
+    std::string pts;
+    for (const auto& v : pg) pts += fmt::format("{:.1f},{:.1f} ", sx(v[0]), sy(v[1]));
+    overlay += fmt::format("<polygon points=\"{}\" {}/>\n", pts, style);
+  };
+  if (r.smallest) {
+    const auto& c = r.combinations[*r.smallest];
+    poly(c.linear, "fill=\"none\" stroke=\"#1a7f37\" stroke-dasharray=\"5,3\"");
+    poly(c.traced.empty() ? c.linear : c.traced, "fill=\"#1a7f37\" fill-opacity=\"0.18\" stroke=\"#1a7f37\"");
+  }
+  for (const auto& c : r.combinations) {
+    if (c.upward) continue;
+    overlay += c.inside ? fmt::format("<circle cx=\"{:.1f}\" cy=\"{:.1f}\" r=\"3\" fill=\"#000\"><title>{}</title></circle>\n",
+                                      sx(c.resultant[0]), sy(c.resultant[1]), xml_escape(p.combinations[c.combination].id))
+                        : fmt::format("<circle cx=\"{:.1f}\" cy=\"{:.1f}\" r=\"6\" fill=\"none\" stroke=\"#b00020\" stroke-width=\"2\"><title>{}</title></circle>\n",
+                                      sx(c.resultant[0]), sy(c.resultant[1]), xml_escape(p.combinations[c.combination].id));
+  }
+  const auto end = svg.rfind("</svg>");
+  return svg.substr(0, end) + overlay + "</svg>\n";
+}
+
+}  // namespace cairn

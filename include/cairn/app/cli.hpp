@@ -15,7 +15,7 @@
 
 namespace cairn {
 
-enum class Command { check, capacity, springs, report, pile_loss, add_pile, tolerance };
+enum class Command { check, capacity, springs, report, pile_loss, add_pile, tolerance, safe_region };
 
 struct Options {
   Command command = Command::check;
@@ -54,6 +54,7 @@ struct Options {
   std::size_t trials = 10000;
   std::uint64_t seed = 1;
   bool normal = false;
+  int rays = 72;  // safe-region: rays of the traced region
 };
 
 inline constexpr int kExitPass = 0;

@@ -44,4 +44,9 @@ int run_add_pile(const Options& options, const std::string& described, std::ostr
 int run_tolerance(const Options& options, const std::string& described, std::ostream& out,
                   std::ostream& err);
 
+// `cairn safe-region CAP.yaml [--rays N]`: exit 1 when some combination's resultant lies
+// outside its safe region.
+int run_safe_region(const Options& options, const std::string& described, std::ostream& out,
+                    std::ostream& err);
+
 }  // namespace cairn

@@ -8,6 +8,7 @@
 
 #include "cairn/core/model.hpp"
 #include "cairn/output/report.hpp"
+#include "cairn/site/safe_region.hpp"
 #include "cairn/site/studies.hpp"
 
 namespace cairn {
@@ -29,5 +30,11 @@ std::string render_added_piles_svg(const Project& project, const SearchResult& r
 
 std::string render_tolerance(const SiteStudyHeader& header, const ToleranceSettings& settings,
                              const ToleranceStudy& study, Format format);
+
+std::string render_safe_regions(const SiteStudyHeader& header, const SafeRegions& regions,
+                                Format format);
+// The plan with the region of the smallest margin and every combination's resultant, marked
+// inside (filled) or outside (ringed red) its own region.
+std::string render_safe_regions_svg(const Project& project, const SafeRegions& regions);
 
 }  // namespace cairn

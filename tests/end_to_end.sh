@@ -682,5 +682,27 @@ for survey in "$src"/projects-demo/*/survey.csv; do
   fi
 done
 
+# ---- Site studies and revisions ------------------------------------------------------------
+expect_status "diff: new revision passes" 0 diff "$site/diamond.yaml" "$site/diamond_rev.yaml"
+expect_in "diff: moved pile" "$work/out" "Pile E moved by (100, 0) mm"
+expect_status "diff: new revision fails what passed" 1 diff "$site/diamond.yaml" "$site/diamond_fail.yaml"
+expect_in "diff: named" "$work/out" "fails a check the old one passed:** combination S1"
+expect_status "diff: old failed, new passes" 0 diff "$site/diamond_fail.yaml" "$site/diamond.yaml"
+expect_status "diff: results JSON refused" 2 diff "$site/diamond.yaml" "$work/out.json"
+expect_status "safe-region: kern" 0 safe-region "$data/site/square4.yaml" --rays 0
+expect_in "safe-region: smallest margin" "$work/out" "Smallest margin: 0.354 m in combination S2"
+# Losing any pile of the diamond puts exactly the capacity on two piles (hand derivation in
+# tests/test_site_studies.cpp): round-off decides the exit status, the value is 1.
+run pile-loss "$site/diamond.yaml" --format json
+if [ "$status" -le 1 ] && python3 -c 'import json,sys; d=json.load(open(sys.argv[1])); sys.exit(0 if all(abs(c["max_utilization"]-1)<1e-9 for c in d["single"]) else 1)' "$work/out"; then ok; else bad "pile-loss: the diamond"; fi
+expect_status "add-pile: replaces a lost pile" 0 add-pile "$site/diamond.yaml" --type P --lose E
+expect_in "add-pile: found" "$work/out" "Found: one pile added at"
+expect_status "add-pile: unknown type" 2 add-pile "$site/diamond.yaml" --type Q
+expect_in "add-pile: type named" "$work/err" "--type: no pile type 'Q'"
+expect_status "tolerance: the diamond within 75 mm" 0 tolerance "$site/diamond.yaml" --trials 500 --seed 3
+cp "$work/out" "$work/tolerance-1"
+run tolerance "$site/diamond.yaml" --trials 500 --seed 3
+if diff -q "$work/out" "$work/tolerance-1" >/dev/null; then ok; else bad "tolerance: the same seed gives the same study"; fi
+
 echo "$passed passed, $failed failed"
 [ "$failed" -eq 0 ]

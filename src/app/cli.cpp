@@ -333,6 +333,7 @@ int run(const Options& options, std::ostream& out, std::ostream& err) {
       case Command::add_pile: return run_add_pile(options, describe_options(options), out, err);
       case Command::tolerance: return run_tolerance(options, describe_options(options), out, err);
       case Command::safe_region: return run_safe_region(options, describe_options(options), out, err);
+      case Command::diff: return run_diff(options, describe_options(options), out, err);
     }
     return kExitBadInput;
   } catch (const InputError& e) {
@@ -458,6 +459,10 @@ int run_command_line(int argc, const char* const* argv, std::ostream& out, std::
   add_files_and_format(safe_region, "file", "Project file (YAML)", formats);
   safe_region->add_option("--rays", options.rays,
                           "Rays traced where piles may drop out (default 72; 0: linear only)");
+  CLI::App* diff = app.add_subcommand(
+      "diff", "Compare two revisions of a cap: piles, inputs, forces and utilizations");
+  add_files_and_format(diff, "files", "OLD and NEW project files (YAML)", formats);
+  diff->add_option("--out", options.out_dir, "Also write diff.md and diff.json into DIR");
   for (CLI::App* command : {pile_loss, add_pile, tolerance, safe_region}) {
     add_as_built(command);
     command->add_option("--out", options.out_dir, "Also write the result and its plan (SVG) into DIR");
@@ -466,7 +471,7 @@ int run_command_line(int argc, const char* const* argv, std::ostream& out, std::
   // name it and suggest the nearest command instead.
   if (argc > 1 && argv[1][0] != '-') {
     std::vector<std::string> names;
-    for (const CLI::App* command : {check, capacity, springs, report, pile_loss, add_pile, tolerance, safe_region})
+    for (const CLI::App* command : {check, capacity, springs, report, pile_loss, add_pile, tolerance, safe_region, diff})
       names.push_back(command->get_name());
     const std::string given = argv[1];
     if (std::find(names.begin(), names.end(), given) == names.end()) {
@@ -507,6 +512,7 @@ int run_command_line(int argc, const char* const* argv, std::ostream& out, std::
   if (add_pile->parsed()) options.command = Command::add_pile;
   if (tolerance->parsed()) options.command = Command::tolerance;
   if (safe_region->parsed()) options.command = Command::safe_region;
+  if (diff->parsed()) options.command = Command::diff;
   return run(options, out, err);
 }
 

@@ -14,6 +14,8 @@
 #include "cairn/output/site_report.hpp"
 #include "cairn/site/safe_region.hpp"
 #include "cairn/site/studies.hpp"
+#include "cairn/site/revision_diff.hpp"
+#include "cairn/output/diff_report.hpp"
 
 namespace cairn {
 
@@ -259,6 +261,27 @@ int run_safe_region(const Options& options, const std::string& described, std::o
   for (const auto& c : regions.combinations)
     if (!c.upward && !c.inside) return kExitFail;
   return kExitPass;
+}
+
+int run_diff(const Options& options, const std::string& described, std::ostream& out,
+             std::ostream& err) {
+  if (options.files.size() != 2) throw InputError({}, "diff: expected two project files, OLD and NEW");
+  for (const auto& f : options.files)
+    if (std::filesystem::path(f).extension() == ".json")
+      throw InputError({f, 0, 0}, "diff: a results JSON file does not carry the resolved input it "
+                                  "came from; give the two project files (YAML)");
+  const CheckRun old_run = analyse_project(options.files[0]);
+  const CheckRun new_run = analyse_project(options.files[1]);
+  for (const CheckRun* r : {&old_run, &new_run})
+    for (const auto& w : r->project.warnings) err << "cairn: " << format_warning(w) << "\n";
+  const RevisionDiff diff = diff_revisions(old_run, new_run);
+  const std::string rendered = render_diff(old_run, new_run, diff, described, options.format);
+  if (options.out_dir)
+    write_files_atomically(*options.out_dir,
+                           {{"diff.md", render_diff(old_run, new_run, diff, described, Format::markdown)},
+                            {"diff.json", render_diff(old_run, new_run, diff, described, Format::json)}});
+  out << rendered;
+  return diff.newly_failing.empty() ? kExitPass : kExitFail;
 }
 
 }  // namespace cairn

@@ -15,7 +15,7 @@
 
 namespace cairn {
 
-enum class Command { check, capacity, springs, report, pile_loss, add_pile, tolerance, safe_region };
+enum class Command { check, capacity, springs, report, pile_loss, add_pile, tolerance, safe_region, diff };
 
 struct Options {
   Command command = Command::check;

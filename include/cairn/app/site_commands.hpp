@@ -49,4 +49,8 @@ int run_tolerance(const Options& options, const std::string& described, std::ost
 int run_safe_region(const Options& options, const std::string& described, std::ostream& out,
                     std::ostream& err);
 
+// `cairn diff OLD NEW`: exit 1 when NEW fails a check OLD passed.
+int run_diff(const Options& options, const std::string& described, std::ostream& out,
+             std::ostream& err);
+
 }  // namespace cairn

@@ -44,7 +44,8 @@ std::string describe_options(const Options& o) {
   const char* name = o.command == Command::check      ? "check"
                      : o.command == Command::capacity ? "capacity"
                      : o.command == Command::report   ? "report"
-                                                      : "springs";
+                     : o.command == Command::springs  ? "springs"
+                                                      : site_command_name(o.command);
   std::string text = fmt::format("cairn {} --format {}", name, format_name(o.format));
   if (o.depth_step) text += fmt::format(" --step {:g}", *o.depth_step);
   if (o.min_length) text += fmt::format(" --from {:g}", *o.min_length);
@@ -54,6 +55,7 @@ std::string describe_options(const Options& o) {
     text += fmt::format(" --need-basis {}", to_string(o.need_basis));
   if (o.out_dir) text += " --out " + *o.out_dir;
   if (o.explain_pile) text += " --explain " + *o.explain_pile;
+  if (o.as_built) text += " --as-built " + *o.as_built;
   return text;
 }
 

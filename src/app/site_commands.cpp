@@ -19,6 +19,17 @@
 
 namespace cairn {
 
+const char* site_command_name(Command command) {
+  switch (command) {
+    case Command::add_pile: return "add-pile";
+    case Command::pile_loss: return "pile-loss";
+    case Command::tolerance: return "tolerance";
+    case Command::safe_region: return "safe-region";
+    case Command::diff: return "diff";
+    default: return "check";
+  }
+}
+
 AsBuiltReport AsBuiltRun::report(const std::string& options) const {
   AsBuiltReport r;
   r.model = &model;

@@ -1,6 +1,8 @@
 #include "cairn/site/studies.hpp"
 
 #include <algorithm>
+#include <atomic>
+#include <thread>
 #include <cmath>
 #include <random>
 
@@ -52,7 +54,31 @@ LossStudy each_pile_lost(const FastGroup& group, bool pairs) {
     if (!worst || list.back().outcome.max_utilization > list[*worst].outcome.max_utilization)
       worst = list.size() - 1;
   };
-  for (std::size_t i = 0; i < n; ++i) consider({i}, study.single, study.worst_single);
+  // Single losses on every core: each evaluation is independent (FastGroup is read only).
+  study.single.resize(n);
+  {
+    std::atomic<std::size_t> next{0};
+    auto work = [&] {
+      std::vector<char> mask(n, 1);
+      for (std::size_t i = next++; i < n; i = next++) {
+        mask[i] = 0;
+        LossCase& c = study.single[i];
+        c.lost = {i};
+        c.outcome = group.evaluate(mask, {});
+        c.governing_pile = base_index(mask, c.outcome.pile, n);
+        mask[i] = 1;
+      }
+    };
+    const unsigned threads = std::max(1u, std::min(std::thread::hardware_concurrency(), 8u));
+    std::vector<std::thread> pool;
+    for (unsigned t = 1; t < threads && t < n; ++t) pool.emplace_back(work);
+    work();
+    for (auto& t : pool) t.join();
+  }
+  for (std::size_t i = 0; i < n; ++i)
+    if (!study.worst_single ||
+        study.single[i].outcome.max_utilization > study.single[*study.worst_single].outcome.max_utilization)
+      study.worst_single = i;
   if (pairs)
     for (std::size_t i = 0; i < n; ++i)
       for (std::size_t j = i + 1; j < n; ++j) consider({i, j}, study.pairs, study.worst_pair);

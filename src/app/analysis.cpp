@@ -13,12 +13,25 @@
 
 namespace cairn {
 
-CheckRun analyse_project(const std::string& file) {
+CheckRun analyse_project(const std::string& file) { return analyse(read_project(file)); }
+
+namespace {
+void scale(Resistance& r, double f) {
+  for (auto* v : {&r.compression, &r.tension, &r.lateral, &r.structural_axial, &r.structural_moment})
+    if (*v) **v *= f;
+}
+}  // namespace
+
+CheckRun analyse(Project project_in, const TypeAdjustments& adjust) {
   CheckRun run;
-  run.project = read_project(file);
+  run.project = std::move(project_in);
   const Project& project = run.project;
   run.capacities = compute_capacities(project);
   run.stiffness = pile_type_stiffness(project, run.capacities);
+  for (std::size_t t = 0; t < adjust.stiffness_factor.size() && t < run.stiffness.size(); ++t) {
+    run.stiffness[t].axial *= adjust.stiffness_factor[t];
+    run.stiffness[t].lateral *= adjust.stiffness_factor[t];
+  }
   const CapSolver solver(pile_springs(project, run.stiffness));
   run.cap_stiffness = solver.stiffness_about({0.0, 0.0, 0.0});
   Diagnostics problems;
@@ -45,6 +58,12 @@ CheckRun analyse_project(const std::string& file) {
   for (const auto& d : lateral_input_problems(project, lateral, solutions)) problems.error(d.where, d.message);
   run.resistances =
       resolve_resistances(project, computed_resistances(project, run.capacities, lateral));
+  for (std::size_t t = 0; t < adjust.capacity_factor.size() && t < run.resistances.size(); ++t) {
+    const double f = adjust.capacity_factor[t];
+    scale(run.resistances[t].allowable, f);
+    scale(run.resistances[t].factored, f);
+    for (auto& [set, r] : run.resistances[t].by_set) scale(r, f);
+  }
   for (const auto& d : missing_resistances(project, run.resistances))
     problems.error(d.where, d.message);
   for (const auto& d : group_input_problems(project, run.capacities))

@@ -24,6 +24,7 @@
 #include "cairn/input/input.hpp"
 #include "cairn/input/package_keys.hpp"
 #include "cairn/output/output_files.hpp"
+#include "cairn/app/site_commands.hpp"
 
 namespace cairn {
 namespace {
@@ -43,7 +44,8 @@ std::string describe_options(const Options& o) {
   const char* name = o.command == Command::check      ? "check"
                      : o.command == Command::capacity ? "capacity"
                      : o.command == Command::report   ? "report"
-                                                      : "springs";
+                     : o.command == Command::springs  ? "springs"
+                                                      : site_command_name(o.command);
   std::string text = fmt::format("cairn {} --format {}", name, format_name(o.format));
   if (o.depth_step) text += fmt::format(" --step {:g}", *o.depth_step);
   if (o.min_length) text += fmt::format(" --from {:g}", *o.min_length);
@@ -53,6 +55,7 @@ std::string describe_options(const Options& o) {
     text += fmt::format(" --need-basis {}", to_string(o.need_basis));
   if (o.out_dir) text += " --out " + *o.out_dir;
   if (o.explain_pile) text += " --explain " + *o.explain_pile;
+  if (o.as_built) text += " --as-built " + *o.as_built;
   return text;
 }
 
@@ -159,6 +162,7 @@ int run_batch(const Options& options, std::ostream& out, std::ostream& err) {
 }
 
 int run_check(const Options& options, std::ostream& out, std::ostream& err) {
+  if (options.as_built) return run_as_built_check(options, describe_options(options), out, err);
   // Several files, or a foundation file listing caps: the batch summary.
   if (options.files.size() != 1) return run_batch(options, out, err);
   const auto caps = expand_foundation(options.files.front());
@@ -264,7 +268,19 @@ int run_report(const Options& options, std::ostream& out, std::ostream& err) {
     if (request.foundation_title.empty())
       request.foundation_title = std::filesystem::path(options.files.front()).filename().string();
   }
-  const PackageFiles package = package_files(outcomes, request);
+  // --as-built: each cap's page is the as-built cap's, with the as-built section, and the
+  // survey joins the input echo.
+  std::vector<CapOutcome> checked = outcomes;
+  if (options.as_built) {
+    request.extra_inputs.push_back({*options.as_built, "pile survey"});
+    for (auto& o : checked) {
+      const auto site = as_built_run(*o.run, *options.as_built, options);
+      request.extra_sections.push_back({as_built_section_html(site->report(request.command))});
+      request.pass_override.push_back(site->comparison.verdict != SiteVerdict::remedial);
+      o.run = site->as_built;
+    }
+  }
+  const PackageFiles package = package_files(checked, request);
   // Nothing is said about the files until all of them are in place.
   write_files_atomically(*options.out_dir, package.files);
   out << package.listing;
@@ -289,6 +305,11 @@ int run(const Options& options, std::ostream& out, std::ostream& err) {
       case Command::capacity: return run_capacity(options, out, err);
       case Command::springs: return run_springs(options, out, err);
       case Command::report: return run_report(options, out, err);
+      case Command::pile_loss: return run_pile_loss(options, describe_options(options), out, err);
+      case Command::add_pile: return run_add_pile(options, describe_options(options), out, err);
+      case Command::tolerance: return run_tolerance(options, describe_options(options), out, err);
+      case Command::safe_region: return run_safe_region(options, describe_options(options), out, err);
+      case Command::diff: return run_diff(options, describe_options(options), out, err);
     }
     return kExitBadInput;
   } catch (const InputError& e) {
@@ -340,6 +361,17 @@ int run_command_line(int argc, const char* const* argv, std::ostream& out, std::
                     "Also write report.txt, report.md, results.json and CSV tables into DIR");
   check->add_option("--explain", options.explain_pile,
                     "Show the hand check (section properties, substituted formula) for PILE");
+  // check and report: the as-built re-check of a survey (site/as_built.hpp).
+  auto add_as_built = [&](CLI::App* command) {
+    command->add_option("--as-built", options.as_built,
+                        "Re-check the cap as installed, from the pile survey SURVEY.csv");
+    command->add_option("--plan-tolerance", options.plan_tolerance,
+                        "With --as-built: plan position tolerance in mm (SI) or in (US); "
+                        "default 75 mm or 3 in (common practice)");
+    command->add_option("--batter-tolerance", options.batter_tolerance,
+                        "With --as-built: batter tolerance 1 in N; default 50 (common practice)");
+  };
+  add_as_built(check);
   CLI::App* capacity = app.add_subcommand(
       "capacity", "Compute each pile type's capacity from the soil profile, layer by layer and "
                   "with depth");
@@ -372,11 +404,50 @@ int run_command_line(int argc, const char* const* argv, std::ostream& out, std::
   report->add_flag("--svg", options.plan_svg, "Also write the cap plan alone as SVG");
   report->add_flag("--tables", options.tables,
                    "Also write the tables as CSV and Markdown (report.md, *.csv per cap)");
+  add_as_built(report);
+  // The site studies (site/studies.hpp).
+  CLI::App* pile_loss = app.add_subcommand(
+      "pile-loss", "Remove each pile in turn (or each pair) and report the cap's largest "
+                   "utilization");
+  add_files_and_format(pile_loss, "file", "Project file (YAML)", formats);
+  pile_loss->add_flag("--pairs", options.pairs, "Also remove every pair of piles");
+  CLI::App* add_pile = app.add_subcommand(
+      "add-pile", "Search the cap outline for one (then two) added piles that make every "
+                  "combination pass");
+  add_files_and_format(add_pile, "file", "Project file (YAML)", formats);
+  add_pile->add_option("--type", options.added_type, "Pile type of the added pile")->required();
+  add_pile->add_option("--step", options.grid_step,
+                       "Grid step in mm (SI) or in (US); default 50 mm or 2 in");
+  add_pile->add_option("--most", options.most_added, "Most piles to add: 1 or 2 (default 2)");
+  add_pile->add_option("--lose", options.lose, "Take this pile out first (may repeat)");
+  CLI::App* tolerance = app.add_subcommand(
+      "tolerance", "Random installation offsets within the plan tolerance: the distribution of "
+                   "the cap's largest utilization");
+  add_files_and_format(tolerance, "file", "Project file (YAML)", formats);
+  tolerance->add_option("--trials", options.trials, "Number of random trials (default 10000)");
+  tolerance->add_option("--seed", options.seed, "Seed of the random trials (default 1)");
+  tolerance->add_flag("--normal", options.normal,
+                      "Normal offsets with the tolerance as two standard deviations (default: "
+                      "uniform over the tolerance circle)");
+  CLI::App* safe_region = app.add_subcommand(
+      "safe-region", "Where each combination's vertical load may stand in plan with every pile "
+                     "passing, and the smallest margin");
+  add_files_and_format(safe_region, "file", "Project file (YAML)", formats);
+  safe_region->add_option("--rays", options.rays,
+                          "Rays traced where piles may drop out (default 72; 0: linear only)");
+  CLI::App* diff = app.add_subcommand(
+      "diff", "Compare two revisions of a cap: piles, inputs, forces and utilizations");
+  add_files_and_format(diff, "files", "OLD and NEW project files (YAML)", formats);
+  diff->add_option("--out", options.out_dir, "Also write diff.md and diff.json into DIR");
+  for (CLI::App* command : {pile_loss, add_pile, tolerance, safe_region}) {
+    add_as_built(command);
+    command->add_option("--out", options.out_dir, "Also write the result and its plan (SVG) into DIR");
+  }
   // CLI11 takes an unknown command for a stray argument ("A subcommand is required");
   // name it and suggest the nearest command instead.
   if (argc > 1 && argv[1][0] != '-') {
     std::vector<std::string> names;
-    for (const CLI::App* command : {check, capacity, springs, report})
+    for (const CLI::App* command : {check, capacity, springs, report, pile_loss, add_pile, tolerance, safe_region, diff})
       names.push_back(command->get_name());
     const std::string given = argv[1];
     if (std::find(names.begin(), names.end(), given) == names.end()) {
@@ -413,6 +484,11 @@ int run_command_line(int argc, const char* const* argv, std::ostream& out, std::
   if (need_basis == "factored") options.need_basis = CapacityBasis::factored;
   if (springs->parsed()) options.command = Command::springs;
   if (report->parsed()) options.command = Command::report;
+  if (pile_loss->parsed()) options.command = Command::pile_loss;
+  if (add_pile->parsed()) options.command = Command::add_pile;
+  if (tolerance->parsed()) options.command = Command::tolerance;
+  if (safe_region->parsed()) options.command = Command::safe_region;
+  if (diff->parsed()) options.command = Command::diff;
   return run(options, out, err);
 }
 

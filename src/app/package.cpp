@@ -99,7 +99,9 @@ PackageFiles package_files(const std::vector<CapOutcome>& outcomes, const Packag
   for (std::size_t i = 0; i < outcomes.size(); ++i) {
     const CheckRun& run = *outcomes[i].run;
     const Project& p = run.project;
-    out.pass = out.pass && run.results.summary.pass;
+    const bool cap_pass =
+        i < request.pass_override.size() ? request.pass_override[i] : run.results.summary.pass;
+    out.pass = out.pass && cap_pass;
     const CheckReport report = make_check_report(run, request.command, std::nullopt);
     // Capacities again, with the capacity-with-depth table for the chart; a soil profile
     // kilometres deep gets a longer step, not millions of rows.
@@ -114,6 +116,9 @@ PackageFiles package_files(const std::vector<CapOutcome>& outcomes, const Packag
     input.report.check = &report;
     input.report.capacities = &capacities;
     input.inputs = input_files(p);
+    for (const auto& [path, role] : request.extra_inputs) input.inputs.push_back({path, role, read_text(path)});
+    if (i < request.extra_sections.size())
+      for (const auto& section : request.extra_sections[i]) input.report.extra_sections_html.push_back(section);
     input.project_name = !request.foundation_title.empty()
                              ? request.foundation_title
                              : outcomes[i].file;
@@ -139,7 +144,7 @@ PackageFiles package_files(const std::vector<CapOutcome>& outcomes, const Packag
     row.pile = run.results.summary.pile ? p.piles[*run.results.summary.pile].id : "-";
     row.combination =
         run.results.summary.combination ? p.combinations[*run.results.summary.combination].id : "-";
-    row.pass = run.results.summary.pass;
+    row.pass = cap_pass;
     rows.push_back(row);
   }
   if (many) {

@@ -35,6 +35,17 @@ struct CheckRun {
 // computed from a file with problems).
 CheckRun analyse_project(const std::string& file);
 
+// Changes to pile types made after the fact (a damaged pile's type, site/as_built.hpp):
+// factors on the springs and on every resistance, indexed like Project::pile_types
+// (missing entries = 1).
+struct TypeAdjustments {
+  std::vector<double> stiffness_factor;
+  std::vector<double> capacity_factor;
+};
+
+// The same pipeline on a project already read (the as-built project of a survey).
+CheckRun analyse(Project project, const TypeAdjustments& adjust = {});
+
 // Analyses several files on up to `threads` threads. Each entry holds the run or the
 // input problems of its file, in the order of `files`.
 struct CapOutcome {

@@ -5,6 +5,7 @@
 // (usage, input or output problem). Only this module and main print to the terminal.
 #pragma once
 
+#include <cstdint>
 #include <iosfwd>
 #include <optional>
 #include <string>
@@ -14,7 +15,7 @@
 
 namespace cairn {
 
-enum class Command { check, capacity, springs, report };
+enum class Command { check, capacity, springs, report, pile_loss, add_pile, tolerance, safe_region, diff };
 
 struct Options {
   Command command = Command::check;
@@ -38,6 +39,22 @@ struct Options {
   // given, quoted where a shell would need it), shown in every report header. Empty when
   // run() is called without a command line: the header then shows the options rebuilt.
   std::string command_line;
+  // check, report: the as-built survey (CSV) and its tolerances, in mm or in and as n of
+  // 1:n (site/as_built.hpp; defaults 75 mm or 3 in, 1:50).
+  std::optional<std::string> as_built;
+  std::optional<double> plan_tolerance;
+  std::optional<double> batter_tolerance;
+  // Site studies (site/studies.hpp): pile-loss --pairs; add-pile --type, --step (mm or in),
+  // --most, --lose; tolerance --trials, --seed, --normal.
+  bool pairs = false;
+  std::string added_type;
+  std::optional<double> grid_step;
+  int most_added = 2;
+  std::vector<std::string> lose;
+  std::size_t trials = 10000;
+  std::uint64_t seed = 1;
+  bool normal = false;
+  int rays = 72;  // safe-region: rays of the traced region
 };
 
 inline constexpr int kExitPass = 0;

@@ -24,6 +24,12 @@ struct PackageRequest {
   bool plan_svg = false;        // also <page>-plan.svg
   bool tables = false;          // also <page>/ with the check's text, Markdown, JSON, CSV
   std::string foundation_title; // running header of every page, when given
+  // Per cap, in the order of the outcomes (empty: none): sections added after the results
+  // (the as-built section), and the verdict that replaces the check's (the as-built one).
+  std::vector<std::vector<std::string>> extra_sections;
+  std::vector<bool> pass_override;
+  // Files read besides each cap's own (the pile survey): path and role, for the input echo.
+  std::vector<std::pair<std::string, std::string>> extra_inputs;
 };
 
 struct PackageFiles {

@@ -59,7 +59,7 @@ Table pile_table(const AsBuiltReport& r) {
                       a.added || fixed_text(from_si(u, Quantity::small_length, a.offset), 0) == "0"
                           ? "-"
                           : fixed_text(a.direction_deg, 0),
-                      a.added ? "-" : a.out_of_tolerance ? "out" : "within",
+                      a.added || !a.as_built ? "-" : a.out_of_tolerance ? "out" : "within",
                       opt_text(d), opt_text(b), change, remarks.empty() ? "-" : remarks});
   }
   return t;

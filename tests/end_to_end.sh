@@ -767,5 +767,7 @@ cp "$work/out" "$work/tolerance-1"
 run tolerance "$site/diamond.yaml" --trials 500 --seed 3
 if diff -q "$work/out" "$work/tolerance-1" >/dev/null; then ok; else bad "tolerance: the same seed gives the same study"; fi
 
+expect_status "as-built: a foundation survey with a cap column" 0 check "$site/foundation.yaml" --as-built "$site/caps_survey.csv"
+expect_in "as-built: second cap's verdict" "$work/out" "Verdict: accept, deviations taken by the piles — governing combination S2"
 echo "$passed passed, $failed failed"
 [ "$failed" -eq 0 ]

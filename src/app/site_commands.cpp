@@ -65,7 +65,14 @@ std::unique_ptr<AsBuiltRun> as_built_run(CheckRun design, const std::string& sur
   const Survey survey = read_survey_file(survey_path, u);
   const std::string cap = std::filesystem::path(project.file).stem().string();
   run->model = build_as_built(project, survey, cap, tolerances);
-  run->as_built = analyse(run->model.project, run->model.adjust);
+  try {
+    run->as_built = analyse(run->model.project, run->model.adjust);
+  } catch (const InputError& e) {
+    // The as-built cap cannot be analysed (a load no remaining pile resists, say): say so.
+    std::vector<Diagnostic> problems = e.diagnostics();
+    for (auto& d : problems) d.message = "as built (survey " + survey_path + "): " + d.message;
+    throw InputError(problems);
+  }
   run->comparison = compare_as_built(run->model, run->design, run->as_built);
   return run;
 }

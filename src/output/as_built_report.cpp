@@ -2,6 +2,7 @@
 
 #include <algorithm>
 #include <cmath>
+#include <limits>
 #include <stdexcept>
 
 #include <fmt/format.h>
@@ -58,7 +59,7 @@ Table pile_table(const AsBuiltReport& r) {
                       a.added || fixed_text(from_si(u, Quantity::small_length, a.offset), 0) == "0"
                           ? "-"
                           : fixed_text(a.direction_deg, 0),
-                      a.added ? "-" : a.out_of_tolerance ? "out" : "within",
+                      a.added || !a.as_built ? "-" : a.out_of_tolerance ? "out" : "within",
                       opt_text(d), opt_text(b), change, remarks.empty() ? "-" : remarks});
   }
   return t;
@@ -275,13 +276,20 @@ std::string render_as_built_plan_svg(const AsBuiltReport& r, double exaggeration
   auto sx = [&](double x) { return f.origin_x + f.scale * x; };
   auto sy = [&](double y) { return f.origin_y - f.scale * y; };
   const double scale_max = utilization_scale_max(&r.as_built->results);
+  // The drawing ends below its lowest point (outline or exaggerated head); the legend follows.
+  double lowest = -std::numeric_limits<double>::infinity();
+  if (design.cap.outline)
+    for (const auto& c : design.cap.outline->polygon) lowest = std::max(lowest, sy(c[1]));
+  for (const AsBuiltPile& a : r.model->piles)
+    lowest = std::max({lowest, sy(a.design_y + exaggeration * (a.y - a.design_y)), sy(a.y)});
+  const double legend_y = std::min(f.height, lowest + 40.0);
   std::string svg = fmt::format(
       "<svg xmlns=\"http://www.w3.org/2000/svg\" viewBox=\"0 0 {:.1f} {:.1f}\" width=\"{:.0f}\" "
       "role=\"img\" aria-label=\"As-built plan\" font-family=\"sans-serif\" font-size=\"11\">\n"
       "<defs><marker id=\"ab-arrow\" viewBox=\"0 0 10 10\" refX=\"9\" refY=\"5\" "
       "markerWidth=\"6\" markerHeight=\"6\" orient=\"auto-start-reverse\"><path d=\"M0,0 L10,5 "
       "L0,10 z\" fill=\"#b00020\"/></marker></defs>\n",
-      f.width, f.height + 40.0, f.width);
+      f.width, legend_y + 70.0, f.width);
   if (design.cap.outline) {
     std::string pts;
     for (const auto& c : design.cap.outline->polygon)
@@ -328,12 +336,14 @@ std::string render_as_built_plan_svg(const AsBuiltReport& r, double exaggeration
     svg += fmt::format("<text x=\"{:.1f}\" y=\"{:.1f}\">{}{}</text>\n", sx(drawn_x) + half + 3,
                        sy(drawn_y) - half - 2, xml_escape(a.id), a.added ? " (added)" : "");
   }
-  svg += fmt::format(
-      "<text x=\"8\" y=\"{:.1f}\">Design positions dashed; as-built heads filled by "
-      "utilization; offsets drawn {:g}× true size (arrows from the design position).</text>\n"
-      "<text x=\"8\" y=\"{:.1f}\">Crossed: rejected or abandoned (left in the ground). Blue "
-      "ring: added on site. Red outline: out of tolerance. Length unit {}.</text>\n",
-      f.height + 12.0, exaggeration, f.height + 28.0, unit_label(u, Quantity::length));
+  const std::vector<std::string> legend = {
+      "Design positions dashed; as-built heads filled by utilization.",
+      fmt::format("Offsets drawn {:g}× true size, as arrows from the design position.", exaggeration),
+      "Crossed: rejected or abandoned (left in the ground). Blue ring: added on site.",
+      fmt::format("Red outline: out of tolerance. Lengths in {}.", unit_label(u, Quantity::length))};
+  for (std::size_t k = 0; k < legend.size(); ++k)
+    svg += fmt::format("<text x=\"8\" y=\"{:.1f}\">{}</text>\n", legend_y + 12.0 + 15.0 * k,
+                       xml_escape(legend[k]));
   return svg + "</svg>\n";
 }
 

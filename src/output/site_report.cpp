@@ -55,11 +55,16 @@ std::string value_plan(const Project& p, const std::vector<double>& value,
   double top = kUtilizationScaleMin;
   for (double v : value)
     if (std::isfinite(v)) top = std::max(top, v);
+  double lowest = -std::numeric_limits<double>::infinity();
+  if (p.cap.outline)
+    for (const auto& c : p.cap.outline->polygon) lowest = std::max(lowest, sy(c[1]));
+  for (const Pile& pile : p.piles) lowest = std::max(lowest, sy(pile.y));
+  const double legend_y = std::min(f.height, lowest + 30.0);
   std::string svg = fmt::format(
       "<svg xmlns=\"http://www.w3.org/2000/svg\" viewBox=\"0 0 {0:.1f} {1:.1f}\" width=\"{0:.0f}\" "
       "font-family=\"sans-serif\" font-size=\"11\">\n<rect width=\"100%\" height=\"100%\" "
       "fill=\"#fff\"/>\n",
-      f.width, f.height + 30.0);
+      f.width, legend_y + 75.0);
   if (p.cap.outline) {
     std::string pts;
     for (const auto& c : p.cap.outline->polygon) pts += fmt::format("{:.1f},{:.1f} ", sx(c[0]), sy(c[1]));
@@ -87,7 +92,20 @@ std::string value_plan(const Project& p, const std::vector<double>& value,
     svg += fmt::format("<circle cx=\"{:.1f}\" cy=\"{:.1f}\" r=\"8\" fill=\"none\" "
                        "stroke=\"#0050b0\" stroke-width=\"2.5\"/>\n",
                        sx(r[0]), sy(r[1]));
-  svg += fmt::format("<text x=\"8\" y=\"{:.1f}\">{}</text>\n", f.height + 16.0, xml_escape(legend));
+  // The legend in lines of at most 80 characters.
+  std::vector<std::string> lines(1);
+  std::size_t start = 0;
+  while (start < legend.size()) {
+    std::size_t end = legend.find(' ', start);
+    if (end == std::string::npos) end = legend.size();
+    const std::string word = legend.substr(start, end - start);
+    if (!lines.back().empty() && lines.back().size() + word.size() + 1 > 80) lines.emplace_back();
+    lines.back() += (lines.back().empty() ? "" : " ") + word;
+    start = end + 1;
+  }
+  for (std::size_t k = 0; k < lines.size(); ++k)
+    svg += fmt::format("<text x=\"8\" y=\"{:.1f}\">{}</text>\n", legend_y + 16.0 + 15.0 * k,
+                       xml_escape(lines[k]));
   return svg + "</svg>\n";
 }
 

@@ -136,6 +136,31 @@ std::string render_design_basis_html(const CheckReport& r) {
   std::vector<std::string> defaults;
   for (const auto& a : r.assumptions)
     if (mentions(a, "default") && !mentions(a, "warning:")) defaults.push_back(a);
+  // The group limits where they equal cairn's defaults (GroupSettings, common practice).
+  const GroupSettings defaults_of_group;
+  const UnitSystem u = p.units;
+  if (p.group.min_spacing_factor == defaults_of_group.min_spacing_factor && p.group.min_spacing == 0.0)
+    defaults.push_back(fmt::format("Minimum pile spacing {:g} pile widths centre to centre "
+                                   "(cairn's default; group.min_spacing).",
+                                   defaults_of_group.min_spacing_factor));
+  if (p.group.min_edge_distance == defaults_of_group.min_edge_distance && p.cap.outline)
+    defaults.push_back(fmt::format("Minimum distance from a pile's face to the cap's edge {:g} {} "
+                                   "(cairn's default, AASHTO LRFD 10.7.1.2; group.min_edge_distance).",
+                                   from_si(u, Quantity::length, defaults_of_group.min_edge_distance),
+                                   unit_label(u, Quantity::length)));
+  for (const auto& t : p.pile_types)
+    for (const auto& c : t.capacities)
+      if (c.basis == CapacityBasis::ultimate && (!c.factor_of_safety || !c.factor_of_safety_tension))
+        defaults.push_back(fmt::format("Pile type {}: ultimate capacities given without a factor of "
+                                       "safety for {}: {:g} in compression and lateral, {:g} in "
+                                       "tension (cairn's defaults).",
+                                       t.id, !c.factor_of_safety ? "compression" : "tension",
+                                       kDefaultSafetyCompression, kDefaultSafetyTension));
+  if (p.combinations.size() > kFullCombinationsLimit)
+    defaults.push_back(fmt::format("{} combinations, more than {}: section 4 prints only those that "
+                                   "govern, fail, overturn or are named in "
+                                   "package.show_combinations; all are in the CSV beside this page.",
+                                   p.combinations.size(), kFullCombinationsLimit));
   s += "<h3>Defaults taken</h3>\n" + list(defaults);
   s += "<p class=\"note\">Every assumption is listed in section 1.</p>\n";
 

@@ -39,9 +39,9 @@ TEST_CASE("methods: one row per method, each name unique and found again", "[met
     CHECK(efficiency_method_from_string(row.name) == row.method);
     CHECK(std::string(to_string(row.method)) == row.name);
   }
-  CHECK(efficiency_method_names() ==
-        std::vector<std::string>{"none", "converse-labarre", "los-angeles", "feld",
-                                 "block-perimeter"});
+  CHECK(efficiency_method_names() == std::vector<std::string>{"none", "converse-labarre",
+                                                              "los-angeles", "feld",
+                                                              "block-perimeter"});
   CHECK_FALSE(find_tip_method("Vesic"));
   CHECK_FALSE(find_shaft_method(""));
   CHECK_FALSE(find_efficiency_method("converse labarre"));
@@ -78,8 +78,7 @@ TEST_CASE("methods: default resistance factors read from the table", "[methods]"
   CHECK(aashto_phi_uplift(ShaftMethod::beta_fhwa, SoilKind::sand, Installation::bored) == 0.45);
   // Only O'Neill & Reese's (1999) methods are calibrated for drilled shafts.
   for (const auto& row : tip_methods())
-    CHECK(aashto_calibrated(row.method, Installation::bored) ==
-          (row.method == TipMethod::fhwa));
+    CHECK(aashto_calibrated(row.method, Installation::bored) == (row.method == TipMethod::fhwa));
   for (const auto& row : shaft_methods())
     CHECK(aashto_calibrated(row.method, Installation::bored) ==
           (row.method == ShaftMethod::alpha_fhwa || row.method == ShaftMethod::beta_fhwa));
@@ -113,8 +112,7 @@ TEST_CASE("methods: 1 tsf in kPa", "[methods][published]") {
   CHECK(kTsf == Approx(95.760518).epsilon(1e-8));
 }
 
-TEST_CASE("methods: the capacity result names its methods and the values it used",
-          "[methods]") {
+TEST_CASE("methods: the capacity result names its methods and the values it used", "[methods]") {
   SoilLayer clay;
   clay.name = "clay";
   clay.kind = SoilKind::clay;

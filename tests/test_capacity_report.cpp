@@ -53,15 +53,17 @@ TEST_CASE("capacity_report: text shows the layers, the tip and sums that add up"
     CHECK(contains(text, layer.method));
   }
   CHECK(contains(text, "Tip: method vesic in 'dense sand'"));
-  CHECK(contains(text, fmt::format("Ultimate compression = tip + shaft = {:.1f} + {:.1f} = {:.1f} kN",
-                                   r.tip, r.shaft, r.ultimate_compression)));
+  CHECK(
+      contains(text, fmt::format("Ultimate compression = tip + shaft = {:.1f} + {:.1f} = {:.1f} kN",
+                                 r.tip, r.shaft, r.ultimate_compression)));
   CHECK(r.ultimate_compression == close(r.tip + r.shaft, 1e-12));
   CHECK(contains(text, fmt::format("Ultimate tension = shaft in tension + effective pile weight = "
                                    "{:.1f} + {:.1f} = {:.1f} kN",
                                    r.uplift_shaft, r.pile_weight, r.ultimate_tension)));
   CHECK(contains(text, "Capacity with depth (ultimate, allowable and factored)"));
   for (const auto& note : r.notes) CHECK(contains(text, "Note: " + note));
-  CHECK(text.substr(text.size() - std::string(kCaution).size() - 1) == std::string(kCaution) + "\n");
+  CHECK(text.substr(text.size() - std::string(kCaution).size() - 1) ==
+        std::string(kCaution) + "\n");
 }
 
 TEST_CASE("capacity_report: Markdown and CSV carry the same table", "[capacity_report]") {
@@ -80,7 +82,8 @@ TEST_CASE("capacity_report: Markdown and CSV carry the same table", "[capacity_r
   CHECK(lines_starting(csv, "PC45,") == table.size());
   CHECK(contains(csv, fmt::format("PC45,{:.2f},", table.front().length)));
   CHECK(contains(csv, "# " + std::string(kCaution)));
-  for (const auto& note : s.capacities[0].result.notes) CHECK(contains(csv, "# PC45: note: " + note));
+  for (const auto& note : s.capacities[0].result.notes)
+    CHECK(contains(csv, "# PC45: note: " + note));
 }
 
 TEST_CASE("capacity_report: JSON holds the result's values and the method's details",
@@ -105,8 +108,7 @@ TEST_CASE("capacity_report: JSON holds the result's values and the method's deta
 }
 
 TEST_CASE("capacity_report: a US project prints kip, ft and ksf", "[capacity_report]") {
-  const Project project =
-      read_project(std::string(CAIRN_DEMO_DIR) + "/conveyor-pier-us/cap.yaml");
+  const Project project = read_project(std::string(CAIRN_DEMO_DIR) + "/conveyor-pier-us/cap.yaml");
   const auto capacities = compute_capacities(project, 5.0 * 0.3048, 20.0 * 0.3048);
   REQUIRE_FALSE(capacities.empty());
   const CapacityResult& r = capacities[0].result;
@@ -116,11 +118,13 @@ TEST_CASE("capacity_report: a US project prints kip, ft and ksf", "[capacity_rep
   CHECK(contains(text, "length (ft)"));
   // 1 kip = 4.4482216152605 kN (NIST SP 811 (2008), Appendix B).
   const double kip = 4.4482216152605;
-  CHECK(contains(text, fmt::format("Ultimate compression = tip + shaft = {:.2f} + {:.2f} = {:.2f} kip",
-                                   r.tip / kip, r.shaft / kip, r.ultimate_compression / kip)));
+  CHECK(contains(text,
+                 fmt::format("Ultimate compression = tip + shaft = {:.2f} + {:.2f} = {:.2f} kip",
+                             r.tip / kip, r.shaft / kip, r.ultimate_compression / kip)));
   const nlohmann::json doc = capacities_json(project, capacities, "capacity");
   CHECK(doc["units"]["force"] == "kip");
-  CHECK(doc["pile_types"][0]["ultimate"].get<double>() == close(r.ultimate_compression / kip, 1e-12));
+  CHECK(doc["pile_types"][0]["ultimate"].get<double>() ==
+        close(r.ultimate_compression / kip, 1e-12));
 }
 
 TEST_CASE("capacity_report: a project without computed capacities says so", "[capacity_report]") {

@@ -52,8 +52,9 @@ TEST_CASE("cli: exit statuses of pass, fail and bad input", "[cli]") {
   const Ran bad = cairn_with({"check", kData + "/bad_unknown_key.yaml"});
   CHECK(bad.status == kExitBadInput);
   CHECK(bad.out.empty());  // nothing half-written
-  CHECK(has(bad.err, "bad_unknown_key.yaml:10:5: error: pile_types.PC45.lenght: unknown key; "
-                     "did you mean 'length'?"));
+  CHECK(has(bad.err,
+            "bad_unknown_key.yaml:10:5: error: pile_types.PC45.lenght: unknown key; "
+            "did you mean 'length'?"));
 }
 
 TEST_CASE("cli: a missing file is named", "[cli]") {
@@ -94,7 +95,8 @@ TEST_CASE("cli: help and version go to the output stream and exit 0", "[cli]") {
 
   const Ran help = cairn_with({"--help"});
   CHECK(help.status == kExitPass);
-  for (const char* command : {"check", "capacity", "springs", "report"}) CHECK(has(help.out, command));
+  for (const char* command : {"check", "capacity", "springs", "report"})
+    CHECK(has(help.out, command));
   CHECK(has(help.out, "qualified engineer"));
 }
 

@@ -18,8 +18,7 @@ TEST_CASE("diagnostics: a problem is printed location first, as compilers print 
   CHECK(Diagnostic{{"", 0, 0}, "no file"}.format() == "<input>: error: no file");
 }
 
-TEST_CASE("diagnostics: problems are collected and raised together, in order",
-          "[diagnostics]") {
+TEST_CASE("diagnostics: problems are collected and raised together, in order", "[diagnostics]") {
   Diagnostics diagnostics;
   CHECK(diagnostics.empty());
   CHECK_NOTHROW(diagnostics.raise_if_any());
@@ -53,7 +52,7 @@ TEST_CASE("diagnostics: warnings on the terminal and in the reports' notes", "[d
 TEST_CASE("diagnostics: the closest name is suggested only when it is close", "[diagnostics]") {
   const std::vector<std::string> keys = {"efficiency", "efficiency_on", "min_spacing",
                                          "settlement"};
-  CHECK(closest_match("efficency", keys) == "efficiency");  // one letter left out
+  CHECK(closest_match("efficency", keys) == "efficiency");     // one letter left out
   CHECK(closest_match("min_spacnig", keys) == "min_spacing");  // two letters swapped
   CHECK(closest_match("colour", keys).empty());
   CHECK(closest_match("anything", {}).empty());

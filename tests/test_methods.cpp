@@ -8,6 +8,7 @@
 #include "cairn/geotechnics/capacity.hpp"
 #include "cairn/geotechnics/group.hpp"
 #include "cairn/geotechnics/methods.hpp"
+#include "support.hpp"
 
 using namespace cairn;
 
@@ -38,9 +39,9 @@ TEST_CASE("methods: one row per method, each name unique and found again", "[met
     CHECK(efficiency_method_from_string(row.name) == row.method);
     CHECK(std::string(to_string(row.method)) == row.name);
   }
-  CHECK(efficiency_method_names() ==
-        std::vector<std::string>{"none", "converse-labarre", "los-angeles", "feld",
-                                 "block-perimeter"});
+  CHECK(efficiency_method_names() == std::vector<std::string>{"none", "converse-labarre",
+                                                              "los-angeles", "feld",
+                                                              "block-perimeter"});
   CHECK_FALSE(find_tip_method("Vesic"));
   CHECK_FALSE(find_shaft_method(""));
   CHECK_FALSE(find_efficiency_method("converse labarre"));
@@ -77,8 +78,7 @@ TEST_CASE("methods: default resistance factors read from the table", "[methods]"
   CHECK(aashto_phi_uplift(ShaftMethod::beta_fhwa, SoilKind::sand, Installation::bored) == 0.45);
   // Only O'Neill & Reese's (1999) methods are calibrated for drilled shafts.
   for (const auto& row : tip_methods())
-    CHECK(aashto_calibrated(row.method, Installation::bored) ==
-          (row.method == TipMethod::fhwa));
+    CHECK(aashto_calibrated(row.method, Installation::bored) == (row.method == TipMethod::fhwa));
   for (const auto& row : shaft_methods())
     CHECK(aashto_calibrated(row.method, Installation::bored) ==
           (row.method == ShaftMethod::alpha_fhwa || row.method == ShaftMethod::beta_fhwa));
@@ -110,4 +110,40 @@ TEST_CASE("methods: 1 tsf in kPa", "[methods][published]") {
   // NIST SP 811 (2008), Appendix B: 1 lbf = 4.4482216152605 N, 1 ft = 0.3048 m, so
   // 1 tsf = 2000 lbf/ft² = 95.760518 kPa.
   CHECK(kTsf == Approx(95.760518).epsilon(1e-8));
+}
+
+TEST_CASE("methods: the capacity result names its methods and the values it used", "[methods]") {
+  SoilLayer clay;
+  clay.name = "clay";
+  clay.kind = SoilKind::clay;
+  clay.thickness = 10.0;
+  clay.unit_weight = 18.0;
+  clay.undrained_strength = 50.0;
+  clay.lambda = 0.2;
+  SoilLayer sand;
+  sand.name = "sand";
+  sand.kind = SoilKind::sand;
+  sand.thickness = 20.0;
+  sand.unit_weight = 19.0;
+  sand.friction_angle = 34.0;
+  sand.spt_n60 = 25.0;
+  SoilProfile profile;
+  profile.layers = {clay, sand};
+  PileDesign design;
+  design.tip_sand = TipMethod::meyerhof_spt;
+  design.shaft_clay = ShaftMethod::lambda;
+  design.shaft_sand = ShaftMethod::meyerhof_spt;
+  const CapacityResult r = pile_capacity(profile, cairn::test::round_pile(0.5, 20.0), design);
+  const TipDetails& t = r.tip_details;
+  CHECK(t.tip_method == TipMethod::meyerhof_spt);
+  CHECK(t.method == method_info(TipMethod::meyerhof_spt).name);
+  // The bearing layer's own values, as given.
+  CHECK(t.friction_angle == 34.0);
+  CHECK(t.spt_n60 == 25.0);
+  CHECK_FALSE(t.undrained_strength);
+  REQUIRE(r.layers.size() == 2);
+  CHECK(r.layers[0].shaft_method == ShaftMethod::lambda);
+  CHECK(r.layers[0].lambda == 0.2);  // given in the layer
+  CHECK(r.layers[1].shaft_method == ShaftMethod::meyerhof_spt);
+  CHECK_FALSE(r.layers[1].lambda);
 }

@@ -47,8 +47,7 @@ TEST_CASE("plan_svg: the colour bar's top is at least 1.2 and covers the largest
   CHECK(utilization_scale_max(&fail.results) == kUtilizationScaleMin);
 }
 
-TEST_CASE("plan_svg: every pile is drawn once, failing piles marked by shape",
-          "[plan_svg]") {
+TEST_CASE("plan_svg: every pile is drawn once, failing piles marked by shape", "[plan_svg]") {
   const CheckRun run = run_of("t8/fail.yaml");
   const std::string svg = render_plan_svg(run.project, &run.results, &run.resistances);
   CHECK(svg.rfind("<svg xmlns=\"http://www.w3.org/2000/svg\"", 0) == 0);
@@ -65,7 +64,7 @@ TEST_CASE("plan_svg: every pile is drawn once, failing piles marked by shape",
   CHECK(occurrences(svg, "class=\"fail-mark\"") == 5);
   CHECK(contains(svg, "class=\"pile failing\" data-pile=\"A2\""));
   CHECK(contains(svg, "class=\"pile failing\" data-pile=\"B1\""));
-  CHECK(contains(svg, "class=\"outline\""));    // the file gives the cap's outline
+  CHECK(contains(svg, "class=\"outline\""));  // the file gives the cap's outline
   CHECK(contains(svg, "class=\"scale-bar\""));
   CHECK(contains(svg, "class=\"colour-bar\""));
 }

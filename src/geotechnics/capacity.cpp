@@ -960,6 +960,7 @@ CapacityResult pile_capacity(const SoilProfile& profile, const PileGeometry& pil
     if (*method == ShaftMethod::lambda) {
       const double penetration = pile.length;
       const double lambda = layer.lambda.value_or(vijayvergiya_focht_lambda(penetration));
+      s.lambda = lambda;
       if (!layer.lambda)
         add_note(notes,
                  "lambda shaft: λ = " + format("%.3f", lambda) + " at a penetration of " +

@@ -25,6 +25,8 @@ constexpr PhiBySoil both(double phi) { return {phi, phi}; }
 // the φ-based static analysis row (Nordlund/Thurman) 0.45, the table having no Vesić row.
 // Table 10.5.5.2.4-1 (drilled shafts), from memory: tip in clay 0.40, in sand 0.50.
 const std::vector<TipMethodInfo>& tip_methods() {
+  // One row a method, laid out by hand.
+  // clang-format off
   static const std::vector<TipMethodInfo> table = {
       {TipMethod::vesic, "vesic", true, true, {}, {kSoilModulus}, true, kDriven,
        {0.40, 0.45}, {0.40, 0.45}, "q_p = cu·N*c", "q_p = σ'o·N*σ", "Vesić 1977"},
@@ -35,6 +37,7 @@ const std::vector<TipMethodInfo>& tip_methods() {
       {TipMethod::fhwa, "fhwa", true, true, {}, {kSptN60}, true, kBored,
        {0.40, 0.30}, {0.40, 0.50}, "q_p = N*c·cu", "q_p = 0.6·N60 tsf", "O'Neill & Reese 1999"},
   };
+  // clang-format on
   return table;
 }
 
@@ -46,6 +49,8 @@ const std::vector<TipMethodInfo>& tip_methods() {
 // (drilled shafts), from memory: side in clay 0.45, in sand 0.55; tension clay 0.35, sand
 // 0.45.
 const std::vector<ShaftMethodInfo>& shaft_methods() {
+  // One row a method, laid out by hand.
+  // clang-format off
   static const std::vector<ShaftMethodInfo> table = {
       {ShaftMethod::beta, "beta", true, true, {kShaftK, kShaftDelta}, kDriven, both(0.25),
        both(0.25), both(0.20), both(0.20), "f = K·σ'v·tan δ", "effective-stress (β) method",
@@ -69,10 +74,13 @@ const std::vector<ShaftMethodInfo>& shaft_methods() {
        "Meyerhof 1976", 1.0 * kTsf, std::nullopt, "Meyerhof (1976) limit 1 tsf for driven piles",
        true},
   };
+  // clang-format on
   return table;
 }
 
 const std::vector<EfficiencyMethodInfo>& efficiency_methods() {
+  // One row a method, laid out by hand.
+  // clang-format off
   static const std::vector<EfficiencyMethodInfo> table = {
       {EfficiencyMethod::none, "none", false, "η = 1", "no reduction for group action"},
       {EfficiencyMethod::converse_labarre, "converse-labarre", true,
@@ -88,6 +96,7 @@ const std::vector<EfficiencyMethodInfo>& efficiency_methods() {
        "η = min(1, 2(Bg + Lg)/(n·p)), p the perimeter of one pile",
        "Das, Principles of Foundation Engineering"},
   };
+  // clang-format on
   return table;
 }
 

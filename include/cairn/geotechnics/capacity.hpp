@@ -92,6 +92,7 @@ struct LayerShaft {
   SoilKind kind = SoilKind::sand;
   std::string method;   // to_string(ShaftMethod), or "none"
   std::optional<ShaftMethod> shaft_method;  // the method; empty without one
+  std::optional<double> lambda;  // λ used (lambda method: given, or from the chart)
   double top = 0.0;     // m below the ground surface, top of the part crossed
   double bottom = 0.0;  // m below the ground surface
   double shaft = 0.0;   // kN, ultimate, compression

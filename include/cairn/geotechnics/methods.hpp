@@ -64,10 +64,12 @@ struct TipMethodInfo {
   bool clay_modulus_below_quarter_pa = false;
   Installation developed_for = Installation::driven;
   PhiBySoil phi_driven, phi_bored;  // default φ on a driven / a bored pile
-  const char* formula_clay = "";    // unit tip in words, "q_p = cu·N*c"; "" where it does not apply
+  const char* formula_clay = "";  // unit tip in words, "q_p = cu·N*c"; "" where it does not apply
   const char* formula_sand = "";
-  const char* source = "";          // "Vesić 1977"
-  const char* formula(SoilKind kind) const { return kind == SoilKind::clay ? formula_clay : formula_sand; }
+  const char* source = "";  // "Vesić 1977"
+  const char* formula(SoilKind kind) const {
+    return kind == SoilKind::clay ? formula_clay : formula_sand;
+  }
 };
 
 struct ShaftMethodInfo {
@@ -78,7 +80,7 @@ struct ShaftMethodInfo {
   Installation developed_for = Installation::driven;
   PhiBySoil phi_driven, phi_bored;                // default φ in compression
   PhiBySoil phi_uplift_driven, phi_uplift_bored;  // default φ in tension
-  const char* formula = "";         // unit shaft friction in words, "f = K·σ'v·tan δ"
+  const char* formula = "";  // unit shaft friction in words, "f = K·σ'v·tan δ"
   const char* source = "";
   // The method's own limit on the unit shaft friction, kPa, on a driven / a bored pile
   // (empty: its source gives none), and where it comes from.
@@ -90,8 +92,8 @@ struct ShaftMethodInfo {
 
 struct EfficiencyMethodInfo {
   EfficiencyMethod method;
-  const char* name;         // as written in a project file: "converse-labarre"
-  bool needs_grid = true;   // applies to a regular grid of equal piles only
+  const char* name;          // as written in a project file: "converse-labarre"
+  bool needs_grid = true;    // applies to a regular grid of equal piles only
   const char* formula = "";  // η in words
   const char* source = "";
 };

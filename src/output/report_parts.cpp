@@ -71,7 +71,7 @@ double lateral_stiffness(const CheckReport& r, std::size_t type) {
 bool any_fixed_head(const CheckReport& r) {
   if (!r.stiffness) return false;
   for (const auto& k : *r.stiffness)
-    if (k.head_moment_per_shear > 0 || k.beam) return true;
+    if (k.head_moment_per_shear > 0 || k.influence) return true;
   return false;
 }
 

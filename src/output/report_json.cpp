@@ -149,6 +149,11 @@ json check_json(const CheckReport& r) {
         e["V"] = u.value(Quantity::force, h.vertical);
         e["Mx"] = u.value(Quantity::moment, h.moment_x);
         e["My"] = u.value(Quantity::moment, h.moment_y);
+        if (h.heads_moment_x != 0.0 || h.heads_moment_y != 0.0) {
+          // Fixed heads: Mx, My above are the applied moments less the heads' moments.
+          e["heads_Mx"] = u.value(Quantity::moment, h.heads_moment_x);
+          e["heads_My"] = u.value(Quantity::moment, h.heads_moment_y);
+        }
         e["eccentricity"] = {u.value(Quantity::length, h.eccentricity_x),
                              u.value(Quantity::length, h.eccentricity_y)};
         e["axial"] = u.value(Quantity::force, h.axial);

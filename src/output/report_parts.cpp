@@ -559,6 +559,10 @@ std::string explain_block(const CheckReport& r, Format format) {
                         u.length(s.centroid_x), u.length(s.centroid_y), l);
     text += fmt::format("{}Ixx = {} {}, Iyy = {} {}, Ixy = {} {}\n", in, u.area(s.ixx), a,
                         u.area(s.iyy), a, u.area(s.ixy), a);
+    if (h.heads_moment_x != 0.0 || h.heads_moment_y != 0.0)
+      text += fmt::format("{}fixed heads: the cap puts Mx = {} {}, My = {} {} on the pile heads; Mx and My "
+                          "below are the applied moments less these\n",
+                          in, u.moment(h.heads_moment_x), m, u.moment(h.heads_moment_y), m);
     text += fmt::format("{}V = {} {}, Mx = {} {}, My = {} {}; eccentricity ex = {} {}, ey = {} {}\n",
                         in, u.force(h.vertical), f, u.moment(h.moment_x), m, u.moment(h.moment_y),
                         m, u.length(h.eccentricity_x), l, u.length(h.eccentricity_y), l);

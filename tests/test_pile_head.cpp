@@ -12,6 +12,7 @@
 #include <vector>
 
 #include "cairn/app/analysis.hpp"
+#include "cairn/checks/explain.hpp"
 #include "cairn/geotechnics/stiffness.hpp"
 #include "cairn/geotechnics/lateral.hpp"
 #include "cairn/solver/cap_solver.hpp"
@@ -339,4 +340,21 @@ TEST_CASE("pile head: a layer with a modulus gradient takes Matlock & Reese's te
   CHECK(short_pinned[0].lateral < kEI / (2.435 * t * t * t));
   CHECK_FALSE(short_pinned[0].influence);
   CHECK(short_pinned[0].lateral_source.find("finite-difference") != std::string::npos);
+}
+
+TEST_CASE("pile head: the hand check of a fixed-head pile takes off the heads' moments",
+          "[pile_head]") {
+  // The demo's nine vertical piles of one type: P = V/n + (My − ΣMy_heads)·x'/Σx'² (hand
+  // derivation: moment equilibrium of the cap about the centroid at the heads, the heads'
+  // moments included) equals the solver's axial force.
+  const auto run =
+      cairn::analyse_project(std::string(CAIRN_DEMO_DIR) + "/pier-fixed-heads/cap.yaml");
+  for (std::size_t pile = 0; pile < run.project.piles.size(); ++pile) {
+    for (const auto& h : cairn::explain_pile(run.project, run.results, pile)) {
+      REQUIRE(h.available);
+      CHECK(h.axial == Approx(h.solver_axial).epsilon(1e-9));
+    }
+  }
+  const auto w1 = cairn::explain_pile(run.project, run.results, 0)[1];
+  CHECK(w1.heads_moment_y < 0.0);  // the cap holds the heads against turning with the wind
 }

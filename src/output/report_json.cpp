@@ -109,10 +109,10 @@ json check_json(const CheckReport& r) {
     const Units& uu = u;
     doc["cap_stiffness"] = {
         {"about", {0.0, 0.0, 0.0}},
-        {"units", {{"force_per_length", uu.label(Quantity::stiffness)},
+        {"units", {{"force_per_length", uu.label(Quantity::force) + "/" + uu.label(Quantity::length)},
                    {"force_per_rotation", uu.label(Quantity::force) + "/rad"},
                    {"moment_per_length", uu.label(Quantity::moment) + "/" + uu.label(Quantity::length)},
-                   {"moment_per_rotation", uu.label(Quantity::rotational_stiffness)}}},
+                   {"moment_per_rotation", uu.label(Quantity::moment) + "/rad"}}},
         {"matrix", cap_stiffness_values(r)}};
   }
   if (r.group) doc["group"] = group_json(r);

@@ -306,16 +306,17 @@ std::array<std::array<double, 6>, 6> cap_stiffness_values(const CheckReport& r) 
   std::array<std::array<double, 6>, 6> out{};
   if (!r.cap_stiffness) return out;
   const auto& k = *r.cap_stiffness;
-  // kN/m, kN/rad (a force), kN·m/m (a force), kN·m/rad. Couplings below 1e-12 of the
-  // geometric mean of their diagonal terms (in consistent units) are round-off: 0.
+  // Rows in the project's force (Fx…Fz) or moment (Mx…Mz) unit, columns per the project's
+  // length unit (ux…uz) or per radian (rx…rz): kN/m, kN/rad, kN·m/m, kN·m/rad in SI; kip/ft,
+  // kip/rad, kip·ft/ft, kip·ft/rad in US units. Couplings below 1e-12 of the geometric mean
+  // of their diagonal terms (in consistent units) are round-off: 0.
+  const double per_length = u.value(Quantity::length, 1.0);  // project lengths in 1 m
   for (std::size_t i = 0; i < 6; ++i)
     for (std::size_t j = 0; j < 6; ++j) {
       const double scale = std::sqrt(std::abs(k[i][i] * k[j][j]));
       const double v = std::abs(k[i][j]) <= 1e-12 * scale ? 0.0 : k[i][j];
-      const Quantity q = i < 3 && j < 3   ? Quantity::stiffness
-                         : i >= 3 && j >= 3 ? Quantity::rotational_stiffness
-                                            : Quantity::force;
-      out[i][j] = u.value(q, v);
+      const double row = u.value(i < 3 ? Quantity::force : Quantity::moment, v);
+      out[i][j] = j < 3 ? row / per_length : row;
     }
   return out;
 }

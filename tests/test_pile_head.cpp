@@ -12,6 +12,8 @@
 #include <vector>
 
 #include "cairn/app/analysis.hpp"
+#include "cairn/checks/explain.hpp"
+#include "cairn/geotechnics/stiffness.hpp"
 #include "cairn/geotechnics/lateral.hpp"
 #include "cairn/solver/cap_solver.hpp"
 #include "cairn/solver/pile_head.hpp"
@@ -291,4 +293,68 @@ TEST_CASE("pile head: a project with fixed and partial heads, self-weight and a 
     for (int j = 0; j < 6; ++j)
       CHECK(run.cap_stiffness[i][j] ==
             Approx(run.cap_stiffness[j][i]).margin(1e-9 * std::abs(run.cap_stiffness[i][i])));
+}
+
+TEST_CASE("pile head: a layer with a modulus gradient takes Matlock & Reese's terms",
+          "[pile_head][published]") {
+  cairn::Project p;
+  cairn::PileType type;
+  type.id = "B";
+  type.section = {cairn::SectionShape::round, 0.6};
+  type.elastic_modulus = 3.0e7;
+  type.head = cairn::HeadFixity::fixed;
+  const double nh = 8000.0;                     // kN/m³
+  const double t = std::pow(kEI / nh, 0.2);     // T = (EI/nh)^(1/5), m
+  type.length = 8.0 * t;                        // long: L ≥ 5T
+  p.pile_types.push_back(type);
+  cairn::Pile pile;
+  pile.id = "P1";
+  p.piles.push_back(pile);
+  cairn::SoilLayer sand;
+  sand.name = "loose sand";
+  sand.kind = cairn::SoilKind::sand;
+  sand.thickness = 40.0;
+  sand.modulus_gradient = nh;
+  cairn::SoilProfile soil;
+  soil.layers.push_back(sand);
+  p.soil = soil;
+  const auto fixed = cairn::pile_type_stiffness(p, {});
+  // Matlock & Reese (1960), fixed head (from memory): y0 = 0.93·H·T³/EI, so the lateral spring
+  // is EI/(0.93·T³), within the coefficients' two digits.
+  CHECK(fixed[0].lateral == Approx(kEI / (0.93 * t * t * t)).epsilon(0.01));
+  CHECK(fixed[0].bending.any());
+  REQUIRE(fixed[0].influence);
+  // The moment along the pile from the finite-difference beam: a fixed head held level under
+  // H has M0 = 0.93·H·T at the head (Matlock & Reese's Fm, from memory), the largest moment.
+  const double h = 100.0;
+  const auto k = cairn::matlock_reese_long_pile(kEI, nh);
+  const auto peak = cairn::largest_moment_along(*fixed[0].influence, {0.0, 0.0, -1.0},
+                                                {h, 0, 0, 0, k.k_hm / k.k_hh * h, 0});
+  CHECK(peak.head == Approx(0.93 * h * t).epsilon(0.01));
+  CHECK(peak.value == Approx(peak.head).epsilon(1e-9));
+  // A short pile (L = 3T) takes the finite-difference beam; with a free head it is softer.
+  p.pile_types[0].length = 3.0 * t;
+  p.pile_types[0].head = cairn::HeadFixity::pinned;
+  const auto short_pinned = cairn::pile_type_stiffness(p, {});
+  // Matlock & Reese's free-head long pile: y0 = 2.435·H·T³/EI; a short pile deflects more.
+  CHECK(short_pinned[0].lateral < kEI / (2.435 * t * t * t));
+  CHECK_FALSE(short_pinned[0].influence);
+  CHECK(short_pinned[0].lateral_source.find("finite-difference") != std::string::npos);
+}
+
+TEST_CASE("pile head: the hand check of a fixed-head pile takes off the heads' moments",
+          "[pile_head]") {
+  // The demo's nine vertical piles of one type: P = V/n + (My − ΣMy_heads)·x'/Σx'² (hand
+  // derivation: moment equilibrium of the cap about the centroid at the heads, the heads'
+  // moments included) equals the solver's axial force.
+  const auto run =
+      cairn::analyse_project(std::string(CAIRN_DEMO_DIR) + "/pier-fixed-heads/cap.yaml");
+  for (std::size_t pile = 0; pile < run.project.piles.size(); ++pile) {
+    for (const auto& h : cairn::explain_pile(run.project, run.results, pile)) {
+      REQUIRE(h.available);
+      CHECK(h.axial == Approx(h.solver_axial).epsilon(1e-9));
+    }
+  }
+  const auto w1 = cairn::explain_pile(run.project, run.results, 0)[1];
+  CHECK(w1.heads_moment_y < 0.0);  // the cap holds the heads against turning with the wind
 }

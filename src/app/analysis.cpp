@@ -73,8 +73,7 @@ CheckRun analyse(Project project_in, const TypeAdjustments& adjust) {
   for (const auto& k : run.stiffness) moment_per_shear.push_back(k.head_moment_per_shear);
   std::vector<std::optional<MomentInfluence>> influence;
   for (const auto& k : run.stiffness)
-    influence.push_back(k.beam ? std::optional<MomentInfluence>(moment_influence(*k.beam))
-                               : std::nullopt);
+    influence.push_back(k.influence);
   run.results =
       check_piles(project, std::move(solutions), run.resistances, moment_per_shear, influence);
   run.group = evaluate_group(project, run.results, run.resistances, run.capacities);

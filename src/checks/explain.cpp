@@ -90,8 +90,12 @@ std::vector<HandCheck> explain_pile(const Project& project, const CheckResults& 
         const Wrench f = combination_load(project, project.combinations[cc.combination],
                                           {s.centroid_x, s.centroid_y, 0.0});
         h.vertical = -f[2];
-        h.moment_x = f[3];
-        h.moment_y = f[4];
+        for (const PileForce& force : solution.piles) {
+          h.heads_moment_x += force.head_forces[3];
+          h.heads_moment_y += force.head_forces[4];
+        }
+        h.moment_x = f[3] - h.heads_moment_x;
+        h.moment_y = f[4] - h.heads_moment_y;
         if (std::abs(h.vertical) > 1e-12) {
           h.eccentricity_x = h.moment_y / h.vertical;
           h.eccentricity_y = -h.moment_x / h.vertical;

@@ -8,6 +8,7 @@
 
 #include "cairn/geotechnics/group.hpp"
 #include "cairn/geotechnics/lateral.hpp"
+#include "cairn/solver/beam_column.hpp"
 
 namespace cairn {
 namespace {
@@ -60,7 +61,7 @@ std::optional<Subgrade> subgrade_modulus(const SoilLayer& layer, const PileType&
 // The terms a fixed or partially fixed head gives the cap (pile_head.hpp), from the pile's
 // own head stiffness in one plane, and the pile kept for the moment along it.
 void restrain(const PileType& type, PileTypeStiffness& s, const PlaneStiffness& plane,
-              const ElasticPile& pile) {
+              MomentInfluence influence) {
   HeadRestraint restraint;
   restraint.kind = HeadRestraint::Kind::fixed;
   if (type.head == HeadFixity::partial) {
@@ -71,8 +72,42 @@ void restrain(const PileType& type, PileTypeStiffness& s, const PlaneStiffness& 
   s.lateral = head.lateral;
   s.bending = head.bending;
   s.bending.torsional = type.torsional_stiffness.value_or(0.0);
-  s.beam = pile;
-  s.beam->head = HeadFixity::pinned;  // the moment influence is of the free head
+  s.influence = std::move(influence);
+}
+
+// Matlock & Reese (1960): a long pile's closed form; a shorter one, and the moment along the
+// pile, from the finite-difference beam on springs nh·z (a unit head shear and a unit head
+// moment, the head free to rotate).
+struct GradientPile {
+  PlaneStiffness plane;
+  MomentInfluence influence;
+  bool long_pile = true;
+  double t = 0.0;  // T, m
+};
+GradientPile gradient_pile(double ei, double nh, double length) {
+  GradientPile out;
+  out.t = std::pow(ei / nh, 0.2);
+  // Matlock & Reese: Zmax = L/T ≥ 5 behaves as a long pile (from memory).
+  out.long_pile = length >= 5.0 * out.t;
+  BeamColumnPile fd;
+  fd.bending_stiffness = ei;
+  fd.length = length;
+  fd.segments = 200;
+  fd.soil = [nh](double z, double y) { return nh * z * y; };
+  const BeamColumnResult shear = solve_beam_column(fd, {1.0, false, 0.0, 0.0});
+  const BeamColumnResult moment = solve_beam_column(fd, {0.0, false, 1.0, 0.0});
+  if (!shear.converged || !moment.converged)
+    throw std::invalid_argument("the pile on the modulus gradient has no stable solution");
+  out.influence = {shear.depth, shear.moment, moment.moment};
+  if (out.long_pile) {
+    out.plane = matlock_reese_long_pile(ei, nh);
+  } else {
+    const double f_hh = shear.head_deflection, f_mm = moment.head_rotation;
+    const double f_hm = 0.5 * (shear.head_rotation + moment.head_deflection);  // Maxwell
+    const double det = f_hh * f_mm - f_hm * f_hm;
+    out.plane = {f_mm / det, -f_hm / det, f_hh / det};
+  }
+  return out;
 }
 
 }  // namespace
@@ -173,7 +208,7 @@ std::vector<PileTypeStiffness> pile_type_stiffness(const Project& project,
         pile.subgrade_modulus = k / type.section.width;
         pile.width = type.section.width;
         pile.head = HeadFixity::fixed;
-        restrain(type, s, hetenyi_long_pile(ei, k), pile);
+        restrain(type, s, hetenyi_long_pile(ei, k), moment_influence(pile));
         s.lateral_source += fmt::format(
             " as the fixed-head stiffness of a long pile on Hetényi's (1946) elastic foundation "
             "(λ = {:.4f} 1/{} from k_hh = 4EIλ³){}",
@@ -188,7 +223,21 @@ std::vector<PileTypeStiffness> pile_type_stiffness(const Project& project,
       if (project.soil && type.elastic_modulus > 0) {
         const SoilColumn column(*project.soil);
         if (const SoilLayer* top = &column.layer(column.layer_at(project.cap.depth))) {
-          if (auto kh = subgrade_modulus(*top, type, u)) {
+          if (top->modulus_gradient && *top->modulus_gradient > 0 && type.length > 0) {
+            const double ei = type.elastic_modulus * section_inertia(type.section);
+            const GradientPile g = gradient_pile(ei, *top->modulus_gradient, type.length);
+            const auto& k = g.plane;
+            s.lateral = k.k_hh - k.k_hm * k.k_hm / k.k_mm;
+            if (type.head == HeadFixity::fixed) s.head_moment_per_shear = std::abs(k.k_hm) / k.k_hh;
+            if (type.head != HeadFixity::pinned) restrain(type, s, k, g.influence);
+            s.lateral_source = fmt::format(
+                "Matlock & Reese (1960) modulus growing with depth, {} head, nh = {:.0f} {} given "
+                "for layer '{}', T = {:.3f} {}{}",
+                to_string(type.head), from_si(u, Quantity::unit_weight, *top->modulus_gradient),
+                unit_label(u, Quantity::unit_weight), top->name,
+                from_si(u, Quantity::length, g.t), unit_label(u, Quantity::length),
+                g.long_pile ? "" : " (L < 5T: finite-difference beam)");
+          } else if (auto kh = subgrade_modulus(*top, type, u)) {
             ElasticPile pile;
             pile.bending_stiffness = type.elastic_modulus * section_inertia(type.section);
             pile.subgrade_modulus = kh->kh;
@@ -199,8 +248,11 @@ std::vector<PileTypeStiffness> pile_type_stiffness(const Project& project,
             const LateralHeadStiffness k = lateral_head_stiffness(pile);
             s.lateral = k.lateral_stiffness;
             s.head_moment_per_shear = type.head == HeadFixity::fixed ? k.head_moment_per_shear : 0.0;
-            if (type.head != HeadFixity::pinned)
-              restrain(type, s, {k.k_hh, k.k_hm, k.k_mm}, pile);
+            if (type.head != HeadFixity::pinned) {
+              ElasticPile free_head = pile;
+              free_head.head = HeadFixity::pinned;  // the moment influence is of the free head
+              restrain(type, s, {k.k_hh, k.k_hm, k.k_mm}, moment_influence(free_head));
+            }
             s.lateral_source = fmt::format("Hetényi (1946) beam on elastic foundation, {} head, {}{}",
                                            to_string(type.head),
                                            kh->source, k.long_pile ? "" : " (short pile: finite beam)");

@@ -1675,7 +1675,7 @@ class Reader {
                      "max_unit_tip", "max_unit_shaft_reason", "max_unit_tip_reason",
                      "meyerhof_nq", "lambda", "uplift_factor",
                      "compression_index", "recompression_index", "void_ratio",
-                     "preconsolidation", "subgrade_modulus"});
+                     "preconsolidation", "subgrade_modulus", "modulus_gradient"});
       SoilLayer layer;
       layer.line = at(l).line;
       layer.name = text(l, "name", Need::optional).value_or(fmt::format("layer {}", i + 1));
@@ -1720,6 +1720,7 @@ class Reader {
       layer.void_ratio = opt("void_ratio", Quantity::number);
       layer.preconsolidation = opt("preconsolidation", Quantity::pressure);
       layer.subgrade_modulus = opt("subgrade_modulus", Quantity::unit_weight);
+      layer.modulus_gradient = opt("modulus_gradient", Quantity::unit_weight);
       const std::string who = fmt::format("{} ('{}')", l.path, layer.name);
       if (layer.kind == SoilKind::sand && !layer.friction_angle)
         diag_.error(at(l), fmt::format("{}: a sand layer needs friction_angle", who));

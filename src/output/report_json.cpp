@@ -109,10 +109,10 @@ json check_json(const CheckReport& r) {
     const Units& uu = u;
     doc["cap_stiffness"] = {
         {"about", {0.0, 0.0, 0.0}},
-        {"units", {{"force_per_length", uu.label(Quantity::stiffness)},
+        {"units", {{"force_per_length", uu.label(Quantity::force) + "/" + uu.label(Quantity::length)},
                    {"force_per_rotation", uu.label(Quantity::force) + "/rad"},
                    {"moment_per_length", uu.label(Quantity::moment) + "/" + uu.label(Quantity::length)},
-                   {"moment_per_rotation", uu.label(Quantity::rotational_stiffness)}}},
+                   {"moment_per_rotation", uu.label(Quantity::moment) + "/rad"}}},
         {"matrix", cap_stiffness_values(r)}};
   }
   if (r.group) doc["group"] = group_json(r);
@@ -149,6 +149,11 @@ json check_json(const CheckReport& r) {
         e["V"] = u.value(Quantity::force, h.vertical);
         e["Mx"] = u.value(Quantity::moment, h.moment_x);
         e["My"] = u.value(Quantity::moment, h.moment_y);
+        if (h.heads_moment_x != 0.0 || h.heads_moment_y != 0.0) {
+          // Fixed heads: Mx, My above are the applied moments less the heads' moments.
+          e["heads_Mx"] = u.value(Quantity::moment, h.heads_moment_x);
+          e["heads_My"] = u.value(Quantity::moment, h.heads_moment_y);
+        }
         e["eccentricity"] = {u.value(Quantity::length, h.eccentricity_x),
                              u.value(Quantity::length, h.eccentricity_y)};
         e["axial"] = u.value(Quantity::force, h.axial);

@@ -71,7 +71,7 @@ double lateral_stiffness(const CheckReport& r, std::size_t type) {
 bool any_fixed_head(const CheckReport& r) {
   if (!r.stiffness) return false;
   for (const auto& k : *r.stiffness)
-    if (k.head_moment_per_shear > 0 || k.beam) return true;
+    if (k.head_moment_per_shear > 0 || k.influence) return true;
   return false;
 }
 
@@ -306,16 +306,17 @@ std::array<std::array<double, 6>, 6> cap_stiffness_values(const CheckReport& r) 
   std::array<std::array<double, 6>, 6> out{};
   if (!r.cap_stiffness) return out;
   const auto& k = *r.cap_stiffness;
-  // kN/m, kN/rad (a force), kN·m/m (a force), kN·m/rad. Couplings below 1e-12 of the
-  // geometric mean of their diagonal terms (in consistent units) are round-off: 0.
+  // Rows in the project's force (Fx…Fz) or moment (Mx…Mz) unit, columns per the project's
+  // length unit (ux…uz) or per radian (rx…rz): kN/m, kN/rad, kN·m/m, kN·m/rad in SI; kip/ft,
+  // kip/rad, kip·ft/ft, kip·ft/rad in US units. Couplings below 1e-12 of the geometric mean
+  // of their diagonal terms (in consistent units) are round-off: 0.
+  const double per_length = u.value(Quantity::length, 1.0);  // project lengths in 1 m
   for (std::size_t i = 0; i < 6; ++i)
     for (std::size_t j = 0; j < 6; ++j) {
       const double scale = std::sqrt(std::abs(k[i][i] * k[j][j]));
       const double v = std::abs(k[i][j]) <= 1e-12 * scale ? 0.0 : k[i][j];
-      const Quantity q = i < 3 && j < 3   ? Quantity::stiffness
-                         : i >= 3 && j >= 3 ? Quantity::rotational_stiffness
-                                            : Quantity::force;
-      out[i][j] = u.value(q, v);
+      const double row = u.value(i < 3 ? Quantity::force : Quantity::moment, v);
+      out[i][j] = j < 3 ? row / per_length : row;
     }
   return out;
 }
@@ -559,6 +560,10 @@ std::string explain_block(const CheckReport& r, Format format) {
                         u.length(s.centroid_x), u.length(s.centroid_y), l);
     text += fmt::format("{}Ixx = {} {}, Iyy = {} {}, Ixy = {} {}\n", in, u.area(s.ixx), a,
                         u.area(s.iyy), a, u.area(s.ixy), a);
+    if (h.heads_moment_x != 0.0 || h.heads_moment_y != 0.0)
+      text += fmt::format("{}fixed heads: the cap puts Mx = {} {}, My = {} {} on the pile heads; Mx and My "
+                          "below are the applied moments less these\n",
+                          in, u.moment(h.heads_moment_x), m, u.moment(h.heads_moment_y), m);
     text += fmt::format("{}V = {} {}, Mx = {} {}, My = {} {}; eccentricity ex = {} {}, ey = {} {}\n",
                         in, u.force(h.vertical), f, u.moment(h.moment_x), m, u.moment(h.moment_y),
                         m, u.length(h.eccentricity_x), l, u.length(h.eccentricity_y), l);

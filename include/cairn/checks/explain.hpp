@@ -37,7 +37,10 @@ struct HandCheck {
   std::string why_not;  // when not available
   GroupSection section;
   double vertical = 0.0;            // V, kN (downward positive)
-  double moment_x = 0.0, moment_y = 0.0;  // about the centroid, kN·m
+  double moment_x = 0.0, moment_y = 0.0;  // about the centroid, kN·m, less the heads' below
+  // Fixed and partially fixed heads: Σ of the moments the cap puts on the pile heads
+  // (head_forces), kN·m. The axial forces carry the applied moments less these.
+  double heads_moment_x = 0.0, heads_moment_y = 0.0;
   double eccentricity_x = 0.0, eccentricity_y = 0.0;  // m
   double x_local = 0.0, y_local = 0.0;  // x'_i, y'_i, m
   double direct = 0.0;            // V/n, kN

@@ -58,6 +58,7 @@ struct SoilLayer {
   std::optional<double> void_ratio;             // e0
   std::optional<double> preconsolidation;       // σ'p, kPa
   std::optional<double> subgrade_modulus;       // kh, horizontal, kN/m³
+  std::optional<double> modulus_gradient;       // nh, kN/m³: Es = nh·z below the pile head
   int line = 0;                                 // 1-based line in the project file, for messages
 };
 

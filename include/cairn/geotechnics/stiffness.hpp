@@ -15,6 +15,10 @@
 // condensed with the restraint `head_restraint`); a lateral stiffness given for such a head
 // is read as the fixed-head k_hh = 4EIλ³ of a long pile on Hetényi's foundation, which fixes
 // λ and so k_hm = −2EIλ² and k_mm = 2EIλ (needs elastic_modulus).
+// A layer at the pile head that gives `modulus_gradient` nh (Es = nh·z, z from the pile head)
+// takes Matlock & Reese's (1960) long-pile terms instead (L ≥ 5T, T = (EI/nh)^(1/5)); a
+// shorter pile, and the moment along any such pile, come from the finite-difference beam of
+// beam_column.hpp on linear springs nh·z.
 // Each value carries its source in plain words for the output.
 #pragma once
 
@@ -40,7 +44,7 @@ struct PileTypeStiffness {
   // sees (pile_head.hpp), and the elastic pile they come from, for the moment along it.
   // Pinned heads: zero terms and no pile (the two springs alone, as always).
   HeadBending bending;
-  std::optional<ElasticPile> beam;
+  std::optional<MomentInfluence> influence;
 };
 
 // Springs of every pile type (indexed like Project::pile_types). `capacities` are the

@@ -13,9 +13,11 @@
 
 namespace cairn {
 
-CheckRun analyse_project(const std::string& file) {
+CheckRun analyse_project(const std::string& file) { return analyse_project(read_project(file)); }
+
+CheckRun analyse_project(Project read) {
   CheckRun run;
-  run.project = read_project(file);
+  run.project = std::move(read);
   const Project& project = run.project;
   run.capacities = compute_capacities(project);
   run.stiffness = pile_type_stiffness(project, run.capacities);

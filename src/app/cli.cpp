@@ -13,6 +13,7 @@
 #include <fmt/format.h>
 
 #include "cairn/app/analysis.hpp"
+#include "cairn/app/design_command.hpp"
 #include "cairn/solver/cap_solver.hpp"
 #include "cairn/geotechnics/capacity_length.hpp"
 #include "cairn/output/capacity_report.hpp"
@@ -43,6 +44,7 @@ std::string describe_options(const Options& o) {
   const char* name = o.command == Command::check      ? "check"
                      : o.command == Command::capacity ? "capacity"
                      : o.command == Command::report   ? "report"
+                     : o.command == Command::design   ? "design"
                                                       : "springs";
   std::string text = fmt::format("cairn {} --format {}", name, format_name(o.format));
   if (o.depth_step) text += fmt::format(" --step {:g}", *o.depth_step);
@@ -324,6 +326,7 @@ int run(const Options& options, std::ostream& out, std::ostream& err) {
       case Command::capacity: return run_capacity(options, out, err);
       case Command::springs: return run_springs(options, out, err);
       case Command::report: return run_report(options, out, err);
+      case Command::design: return run_design(options, out, err);
     }
     return kExitBadInput;
   } catch (const InputError& e) {
@@ -407,11 +410,16 @@ int run_command_line(int argc, const char* const* argv, std::ostream& out, std::
   report->add_flag("--svg", options.plan_svg, "Also write the cap plan alone as SVG");
   report->add_flag("--tables", options.tables,
                    "Also write the tables as CSV and Markdown (report.md, *.csv per cap)");
+  CLI::App* design = app.add_subcommand(
+      "design", "Search pile layouts and lengths for the cheapest that passes every check");
+  add_files_and_format(design, "file", "Project file (YAML) with a design: section", formats);
+  design->add_option("--write", options.write_file,
+                     "Write the chosen layout as a complete project file BEST.yaml");
   // CLI11 takes an unknown command for a stray argument ("A subcommand is required");
   // name it and suggest the nearest command instead.
   if (argc > 1 && argv[1][0] != '-') {
     std::vector<std::string> names;
-    for (const CLI::App* command : {check, capacity, springs, report})
+    for (const CLI::App* command : {check, capacity, springs, report, design})
       names.push_back(command->get_name());
     const std::string given = argv[1];
     if (std::find(names.begin(), names.end(), given) == names.end()) {
@@ -448,6 +456,7 @@ int run_command_line(int argc, const char* const* argv, std::ostream& out, std::
   if (need_basis == "factored") options.need_basis = CapacityBasis::factored;
   if (springs->parsed()) options.command = Command::springs;
   if (report->parsed()) options.command = Command::report;
+  if (design->parsed()) options.command = Command::design;
   return run(options, out, err);
 }
 

@@ -195,7 +195,7 @@ struct Merged {
 
 const std::vector<std::string> kTopKeys = {"title", "units", "include", "cap", "pile_types",
                                            "piles", "soil", "load_cases", "combinations", "columns", "loads_from",
-                                           "group"};
+                                           "group", "design"};
 const std::set<std::string> kNamedSections = {"pile_types", "load_cases", "combinations"};
 
 const std::map<std::string, LoadKind> kLoadKinds = {
@@ -222,7 +222,7 @@ std::vector<std::string> keys_of(const Map& map) {
 
 class Reader {
  public:
-  explicit Reader(Diagnostics& diagnostics) : diag_(diagnostics) {}
+  Reader(Diagnostics& diagnostics, Piles piles) : diag_(diagnostics), piles_(piles) {}
 
   // ---- documents and includes -------------------------------------------------------
 
@@ -647,7 +647,9 @@ class Reader {
     if (const Entry* cap = required("cap")) read_cap(cap->value, project);
     if (required("pile_types")) read_pile_types(merged.named["pile_types"],
                                                 section("pile_types")->value, project);
-    if (const Entry* piles = required("piles")) read_piles(piles->value, project);
+    // `cairn design` reads a file whose piles the search will place (read_design.hpp).
+    if (const Entry* piles = piles_ == Piles::optional ? section("piles") : required("piles"))
+      read_piles(piles->value, project);
     if (const Entry* columns = section("columns")) read_columns(columns->value, project);
     // Reactions imported as combinations (loads_from.combinations) may be all the loads.
     const Entry* from = section("loads_from");
@@ -1776,6 +1778,7 @@ class Reader {
 
  private:
   Diagnostics& diag_;
+  Piles piles_ = Piles::required;
   UnitSystem project_units_ = UnitSystem::SI;
   const std::map<std::string, UnitSystem>* file_units_ = nullptr;
   std::set<std::string>* files_ = nullptr;  // keeps file names alive for locations
@@ -1784,9 +1787,9 @@ class Reader {
 
 }  // namespace
 
-Project read_project(const std::string& path) {
+Project read_project(const std::string& path, Piles piles) {
   Diagnostics diagnostics;
-  Reader reader(diagnostics);
+  Reader reader(diagnostics, piles);
   return reader.read(path);
 }
 

@@ -33,6 +33,10 @@ struct CheckRun {
 // computed from a file with problems).
 CheckRun analyse_project(const std::string& file);
 
+// The same pipeline on a project already in memory (as read_project returns it), e.g. a
+// candidate layout of `cairn design`. Throws InputError as above.
+CheckRun analyse_project(Project project);
+
 // Analyses several files on up to `threads` threads. Each entry holds the run or the
 // input problems of its file, in the order of `files`.
 struct CapOutcome {

@@ -26,12 +26,14 @@ constexpr double kInfinity = std::numeric_limits<double>::infinity();
 constexpr double kCubicYard = 0.764554857984;  // m³ (exact: 0.9144³)
 
 // Rejection reasons, the words of the output.
-const char* const kReasonLength = "pile capacity: no length up to the longest allowed carries the load";
+const char* const kReasonLength = "pile capacity: no length up to design.length.max carries the load";
 const char* const kReasonTension = "tension in a pile type without tension capacity";
 const char* const kReasonStructural = "structural capacity of the pile section";
 const char* const kReasonLateral = "lateral capacity of the pile";
 const char* const kReasonOverturns = "no equilibrium: the compression-only piles cannot hold the cap";
-const char* const kReasonUnresisted = "a horizontal load or torsion no pile resists (no batter, no lateral springs)";
+const char* const kReasonUnresisted =
+    "a load no pile can resist (a moment on one pile or two in line, or a horizontal load "
+    "with no batter and no lateral springs)";
 const char* const kReasonSoil = "no capacity from the soil at any allowed length";
 const char* const kReasonTilt = "tilt of the cap above design.tilt_limit";
 
@@ -116,10 +118,19 @@ TypeTable type_table(const Project& base, const DesignSpec& spec, std::size_t t)
 
 // The loads of every combination without the cap's weight, about the origin, and the
 // factor each combination puts on the self-weight case.
+// Loads on the top of the cap move with its thickness h: W(h) = loads + h·per_height.
 struct CombinationLoads {
-  std::vector<Wrench> loads;
+  std::vector<Wrench> loads;       // loads on top taken at z = 0
+  std::vector<Wrench> per_height;  // change of the wrench per metre of thickness
   std::vector<double> self_weight_factor;
 };
+
+Project loads_on_top_at(Project p, double z) {
+  for (auto& lc : p.load_cases)
+    for (auto& l : lc.loads)
+      if (l.on_top) l.at[2] = z;
+  return p;
+}
 
 CombinationLoads combination_loads(const Project& stripped) {
   CombinationLoads c;
@@ -127,8 +138,13 @@ CombinationLoads combination_loads(const Project& stripped) {
   if (stripped.cap.self_weight)
     for (std::size_t i = 0; i < stripped.load_cases.size(); ++i)
       if (stripped.load_cases[i].id == stripped.cap.self_weight->load_case) weight_case = i;
+  const Project at_zero = loads_on_top_at(stripped, 0.0);
+  const Project at_one = loads_on_top_at(stripped, 1.0);
   for (const auto& combo : stripped.combinations) {
-    c.loads.push_back(combination_load(stripped, combo));
+    c.loads.push_back(combination_load(at_zero, combo));
+    Wrench delta = combination_load(at_one, combo);
+    for (std::size_t i = 0; i < 6; ++i) delta[i] -= c.loads.back()[i];
+    c.per_height.push_back(delta);
     double f = 0.0;
     for (const auto& [index, factor] : combo.factors)
       if (weight_case && index == *weight_case) f += factor;
@@ -169,7 +185,7 @@ class Screen {
     std::vector<std::size_t> seen;
     for (int iteration = 0; iteration < 8; ++iteration) {
       std::vector<Demands> demands;
-      if (const char* why = solve(layout, type, table.stiffness[li], weight, demands))
+      if (const char* why = solve(layout, type, table.stiffness[li], weight, thickness, demands))
         return {why, li, 0.0};
       // The shortest usable length carrying every combination's demand.
       std::optional<std::size_t> needed;
@@ -185,14 +201,23 @@ class Screen {
           why = reason;
         }
       }
-      if (!needed) return {why, li, 0.0};
+      if (!needed) {
+        // The utilization at the longest usable length, for the explanation.
+        double closest = kInfinity;
+        for (std::size_t k = table.lengths.size(); k-- > 0;)
+          if (table.resistance[k]) {
+            closest = utilization(*table.resistance[k], demands).first;
+            break;
+          }
+        return {why, li, closest};
+      }
       if (*needed == li) return {nullptr, li, util_at};
       if (std::find(seen.begin(), seen.end(), *needed) != seen.end()) {
         // Cycling between lengths: take the longer of the two and accept it if it carries
         // its own demand.
         li = std::max(li, *needed);
         std::vector<Demands> again;
-        if (const char* w = solve(layout, type, table.stiffness[li], weight, again)) return {w, li, 0.0};
+        if (const char* w = solve(layout, type, table.stiffness[li], weight, thickness, again)) return {w, li, 0.0};
         const auto [u, reason] = utilization(*table.resistance[li], again);
         return u <= 1.0 ? Screened{nullptr, li, u} : Screened{reason, li, 0.0};
       }
@@ -206,7 +231,7 @@ class Screen {
   // Pile demands per combination for the springs of one length; a reason when the layout
   // cannot hold the loads at all.
   const char* solve(const Layout& layout, const PileType& type, const PileTypeStiffness& k,
-                    const Wrench& weight, std::vector<Demands>& demands) const {
+                    const Wrench& weight, double thickness, std::vector<Demands>& demands) const {
     std::vector<PileSpring> springs;
     springs.reserve(layout.piles.size());
     for (const auto& p : layout.piles) {
@@ -240,7 +265,7 @@ class Screen {
     for (std::size_t k2 = 0; k2 < project_.combinations.size(); ++k2) {
       Wrench w = loads_.loads[k2];
       const double f = loads_.self_weight_factor[k2];
-      for (std::size_t i = 0; i < 6; ++i) w[i] += f * weight[i];
+      for (std::size_t i = 0; i < 6; ++i) w[i] += f * weight[i] + thickness * loads_.per_height[k2][i];
       const CapLoad load = solver.from_origin(w);
       if (any_free) {
         double largest = 0.0;
@@ -383,6 +408,13 @@ Project candidate_project(const Project& base, const DesignSpec& spec, const Can
   Project p = strip_self_weight(base);
   const Layout& layout = c.layout;
   p.cap.thickness = c.thickness;
+  // Loads and columns given without a height stand on the top of the cap, as the reader
+  // puts them at the thickness the file gives.
+  for (auto& lc : p.load_cases)
+    for (auto& l : lc.loads)
+      if (l.on_top) l.at[2] = c.thickness;
+  for (auto& col : p.columns)
+    if (col.on_top) col.at[2] = c.thickness;
   p.cap.outline = layout.outline;
   p.pile_types[layout.type].length = c.length;
   for (std::size_t i = 0; i < layout.piles.size(); ++i) {
@@ -478,7 +510,8 @@ DesignOutcome search_layouts(const Project& read, const DesignSpec& spec, unsign
       const double h = cap_thickness(base, spec, l);
       work.push_back({std::move(l), h});
     }
-    rejected["cap larger than the outline allowed (cap.outline)"] += counts.outside_outline;
+    rejected["cap larger than cap.outline allows"] += counts.outside_outline;
+    rejected["spacing outside design.spacing"] += counts.spacing;
   }
   outcome.layouts = work.size();
   const Screen screen(base, spec, loads);
@@ -488,12 +521,15 @@ DesignOutcome search_layouts(const Project& read, const DesignSpec& spec, unsign
   auto worker = [&] {
     std::vector<Candidate> mine;
     std::map<std::string, std::size_t> why;
+    std::pair<double, std::string> closest{kInfinity, ""};
     for (std::size_t i = next++; i < work.size(); i = next++) {
       const Work& w = work[i];
       const TypeTable& table = tables[w.layout.type];
       const Screened s = screen.run(w.layout, table, w.thickness);
       if (s.reason) {
         ++why[s.reason];
+        if (s.reason == kReasonLength && s.utilization < closest.first)
+          closest = {s.utilization, w.layout.describe() + " of " + base.pile_types[w.layout.type].id};
       } else {
         Candidate c;
         c.layout = w.layout;
@@ -511,6 +547,12 @@ DesignOutcome search_layouts(const Project& read, const DesignSpec& spec, unsign
     std::lock_guard<std::mutex> guard(lock);
     for (auto& c : mine) feasible.push_back(std::move(c));
     for (auto& [k, v] : why) rejected[k] += v;
+    if (closest.first < outcome.closest_utilization.value_or(kInfinity) ||
+        (closest.first == outcome.closest_utilization.value_or(kInfinity) &&
+         closest.second < outcome.closest_layout)) {
+      outcome.closest_utilization = closest.first;
+      outcome.closest_layout = closest.second;
+    }
   };
   std::vector<std::thread> pool;
   const unsigned n = std::max(1u, threads);
@@ -544,6 +586,13 @@ DesignOutcome search_layouts(const Project& read, const DesignSpec& spec, unsign
       const FullResult r = full_check(read, spec, trial);
       if (r.pass) return trial;
       if (first_reason.empty()) first_reason = r.reason;
+      // Only what a longer pile can mend is tried again at the next length.
+      const bool mended_by_length =
+          r.reason == "check: pile compression capacity" || r.reason == "check: pile tension capacity" ||
+          r.reason == "check: group capacity (efficiency or block)" ||
+          r.reason == "check: group uplift" || r.reason == "check: settlement" ||
+          (r.reason == "check: pile lateral capacity" && tries < 2);
+      if (!mended_by_length) break;
     }
     ++rejected[first_reason.empty() ? kReasonLength : first_reason];
     return std::nullopt;

@@ -1140,7 +1140,8 @@ class Reader {
           PointLoad load;
           load.where = at(l);
           if (auto a = point(l.child("at"), true)) load.at = *a;
-          if (std::isnan(load.at[2])) load.at[2] = project.cap.thickness;
+          load.on_top = std::isnan(load.at[2]);
+          if (load.on_top) load.at[2] = project.cap.thickness;
           bool any = false;
           for (std::size_t c = 0; c < 6; ++c) {
             const auto v = number(l, kWrenchNames[c], c < 3 ? Quantity::force : Quantity::moment,
@@ -1230,7 +1231,8 @@ class Reader {
       column.where = at(c);
       column.id = text(c, "id").value_or(fmt::format("#{}", i + 1));
       if (auto a = point(c.child("at"), true)) column.at = *a;
-      if (std::isnan(column.at[2])) column.at[2] = project.cap.thickness;
+      column.on_top = std::isnan(column.at[2]);
+      if (column.on_top) column.at[2] = project.cap.thickness;
       column.support = text(c, "support").value_or("");
       if (!column.support.empty()) {
         auto [it, fresh] = support_owner.emplace(column.support, column.id);
@@ -1338,6 +1340,7 @@ class Reader {
       PointLoad load;
       load.where = row.where;
       load.at = column.at;
+      load.on_top = column.on_top;
       load.note = "column " + column.id;
       for (std::size_t c = 0; c < 6; ++c) load.load[c] = factor * row.values[c];
       return load;

@@ -111,6 +111,12 @@ std::string render_design(const DesignReport& r, Format format) {
     if (!o.rejected.empty())
       verdict += fmt::format(" The limit that rejects most layouts: {} ({} of them).",
                              o.rejected.front().first, o.rejected.front().second);
+    if (o.closest_utilization && std::isfinite(*o.closest_utilization))
+      verdict += fmt::format(" The closest, {}, reaches a utilization of {} at the longest pile "
+                             "allowed ({} {}).",
+                             o.closest_layout, fixed_text(*o.closest_utilization, 3),
+                             general_text(in_units(p, r.spec->max_length)),
+                             unit_label(p.units, Quantity::length));
   }
   std::vector<std::string> notes = {kCapNotSearched};
   if (o.passed_screen > o.checked_fully)
@@ -137,6 +143,8 @@ std::string render_design(const DesignReport& r, Format format) {
     j["rejected"] = nlohmann::json::array();
     for (const auto& [reason, count] : o.rejected) j["rejected"].push_back({{"reason", reason}, {"layouts", count}});
     j["verdict"] = verdict;
+    if (o.closest_utilization && std::isfinite(*o.closest_utilization))
+      j["closest"] = {{"layout", o.closest_layout}, {"max_utilization", *o.closest_utilization}};
     j["notes"] = notes;
     if (r.written) j["written"] = *r.written;
     return j.dump(2) + "\n";

@@ -26,6 +26,7 @@
 
 #include <cstddef>
 #include <functional>
+#include <optional>
 #include <string>
 #include <utility>
 #include <vector>
@@ -57,6 +58,10 @@ struct DesignOutcome {
   std::size_t passed_screen = 0;
   std::size_t checked_fully = 0;
   std::size_t combinations = 0;
+  // Among the layouts no allowed length makes strong enough: the smallest utilization
+  // reached at the longest length, and that layout ("grid 2×3 of PC45").
+  std::optional<double> closest_utilization;
+  std::string closest_layout;
 };
 
 // Called now and then from the searching threads with (done, total) screened layouts.

@@ -566,6 +566,7 @@ DesignOutcome search_layouts(const Project& read, const DesignSpec& spec, unsign
     if (a.score != b.score) return a.score < b.score;
     if (a.layout.piles.size() != b.layout.piles.size()) return a.layout.piles.size() < b.layout.piles.size();
     if (a.max_utilization != b.max_utilization) return a.max_utilization < b.max_utilization;
+    if (a.cap_volume != b.cap_volume) return a.cap_volume < b.cap_volume;
     if (a.layout.type != b.layout.type) return a.layout.type < b.layout.type;
     if (a.layout.piles_file != b.layout.piles_file) return a.layout.piles_file < b.layout.piles_file;
     return a.layout.battered < b.layout.battered;

@@ -104,7 +104,9 @@ void finish(Context& c, Layout layout, std::vector<std::array<double, 2>> heads,
       // Regular octagon whose inscribed circle clears every pile: apothem = ring radius +
       // pile half-width + edge distance, rounded up to the step.
       const double radius = std::max(x1 - centre[0], y1 - centre[1]);
-      const double apothem = up_to(radius + reach, c.step_file);
+      const double least = std::max(c.spec.min_cap_width, c.spec.min_cap_length) /
+                           c.spec.layout_unit / 2;
+      const double apothem = up_to(std::max(radius + reach, least), c.step_file);
       const double corner = apothem / std::cos(kPi / 8);
       layout.polygon_file.clear();
       for (int k = 0; k < 8; ++k) {
@@ -117,8 +119,10 @@ void finish(Context& c, Layout layout, std::vector<std::array<double, 2>> heads,
         outline.polygon.push_back({to_si(c, p[0]), to_si(c, p[1])});
     } else {
       // The reader's rectangle: corners centre ± width/2, length/2, all in m.
-      layout.width_file = up_to(x1 - x0 + 2 * reach, c.step_file);
-      layout.length_file = up_to(y1 - y0 + 2 * reach, c.step_file);
+      layout.width_file =
+          up_to(std::max(x1 - x0 + 2 * reach, c.spec.min_cap_width / c.spec.layout_unit), c.step_file);
+      layout.length_file =
+          up_to(std::max(y1 - y0 + 2 * reach, c.spec.min_cap_length / c.spec.layout_unit), c.step_file);
       layout.center_x_file = tidy((x0 + x1) / 2);
       layout.center_y_file = tidy((y0 + y1) / 2);
       const double w = to_si(c, layout.width_file), l = to_si(c, layout.length_file);

@@ -97,6 +97,10 @@ TypeTable type_table(const Project& base, const DesignSpec& spec, std::size_t t)
   } else {
     table.lengths.push_back(base.pile_types[t].length);
   }
+  // A length may fail where the tip leaves the profile; a type no length works for lacks
+  // data (a method's soil property): that is the file's problem, reported as `check` would.
+  std::optional<InputError> problem;
+  std::optional<std::string> refused;
   for (double length : table.lengths) {
     Project p = base;
     p.pile_types[t].length = length;
@@ -105,14 +109,20 @@ TypeTable type_table(const Project& base, const DesignSpec& spec, std::size_t t)
       auto resolved = resolve_resistances(p, computed_resistances(p, caps));
       table.resistance.push_back(resolved.at(t));
       table.stiffness.push_back(pile_type_stiffness(p, caps).at(t));
-    } catch (const InputError&) {
+    } catch (const InputError& e) {
+      if (!problem) problem = e;
       table.resistance.push_back(std::nullopt);
       table.stiffness.push_back({});
-    } catch (const std::invalid_argument&) {
+    } catch (const std::invalid_argument& e) {
+      if (!refused) refused = e.what();
       table.resistance.push_back(std::nullopt);
       table.stiffness.push_back({});
     }
   }
+  const bool none = std::none_of(table.resistance.begin(), table.resistance.end(),
+                                 [](const auto& r) { return r.has_value(); });
+  if (none && problem) throw *problem;
+  if (none && refused) throw std::invalid_argument(*refused);
   return table;
 }
 

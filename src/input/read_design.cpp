@@ -175,7 +175,9 @@ class DesignReader {
     }
     // Cap.
     if (const YAML::Node c = d["cap"]; c && expect_map(c, "design.cap")) {
-      check_keys(c, "design.cap", {"outline", "thickness"});
+      check_keys(c, "design.cap", {"outline", "thickness", "min_width", "min_length"});
+      spec.min_cap_width = number(c, "min_width", "design.cap", Quantity::length).value_or(0.0);
+      spec.min_cap_length = number(c, "min_length", "design.cap", Quantity::length).value_or(0.0);
       if (const YAML::Node o = c["outline"]) {
         const std::string v = o.IsScalar() ? o.Scalar() : "";
         if (v == "fixed") spec.outline_fixed = true;

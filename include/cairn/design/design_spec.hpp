@@ -54,6 +54,9 @@ struct DesignSpec {
   bool outline_fixed = false;  // true: the cap is the project's outline; false: the cap is
                                // fitted around the piles, inside that outline if one is given
   std::optional<ThicknessRule> thickness;  // absent: the project's cap.thickness, fixed
+  // The fitted cap is never smaller than this (m, along x and y): it must carry the column
+  // or pedestal standing on it.
+  double min_cap_width = 0.0, min_cap_length = 0.0;
   // Spacing, centre to centre, in pile widths; and the step of the spacings tried (m).
   double min_spacing_factor = 3.0;
   double max_spacing_factor = 6.0;

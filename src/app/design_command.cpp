@@ -87,9 +87,8 @@ int run_design(const Options& options, std::ostream& out, std::ostream& err) {
     if (!terminal) return;
     const double elapsed =
         std::chrono::duration<double>(std::chrono::steady_clock::now() - start).count();
-    if (elapsed < 1.0 && done < total) return;
-    if (elapsed < 1.0 && !shown) return;
     std::lock_guard<std::mutex> guard(lock);
+    if (elapsed < 1.0 && !shown) return;  // a search shorter than a second shows no bar
     const int width = 30;
     const int filled = total ? static_cast<int>(width * done / total) : width;
     err << fmt::format("\rcairn design: [{}{}] {}/{} layouts", std::string(filled, '#'),

@@ -691,6 +691,8 @@ expect_status "design: --write over the design file" 2 design "$work/typed.yaml"
 expect_in "design: --write over the design file, said" "$work/err" "is the design file itself"
 expect_status "check: a design file without piles" 2 check "$data/design/typed.yaml"
 expect_in "check: piles missing" "$work/err" "piles: missing"
+{ cat "$data/design/typed.yaml"; printf 'piles:\n  - {id: A, x: -0.6, y: -0.6, type: P40}\n  - {id: B, x: 0.6, y: -0.6, type: P40}\n  - {id: C, x: -0.6, y: 0.6, type: P40}\n  - {id: D, x: 0.6, y: 0.6, type: P40}\n'; } >"$work/with-piles.yaml"
+expect_status "check: a file with piles and a design section ignores the section" 0 check "$work/with-piles.yaml"
 expect_status "design: markdown" 0 design "$data/design/typed.yaml" --format markdown
 expect_in "design: markdown table" "$work/out" "## Best layouts"
 

@@ -15,6 +15,7 @@
 #include <string>
 
 #include "cairn/app/analysis.hpp"
+#include "cairn/app/design_command.hpp"
 #include "cairn/design/search.hpp"
 #include "cairn/input/chosen_file.hpp"
 #include "cairn/input/input.hpp"
@@ -99,8 +100,11 @@ TEST_CASE("design: the search finds the optimum of an exhaustive enumeration", "
   }
 }
 
-TEST_CASE("design: the written file reproduces the search's numbers exactly", "[design]") {
-  const Read r = read("soil.yaml");
+namespace {
+
+// Searches `name`, writes the best layout as --write does, reads it back and checks it.
+void check_round_trip(const std::string& name) {
+  const Read r = read(name);
   const DesignOutcome o = search_layouts(r.project, r.spec, 2);
   REQUIRE(!o.best.empty());
   const Candidate& best = o.best.front();
@@ -108,24 +112,13 @@ TEST_CASE("design: the written file reproduces the search's numbers exactly", "[
   const CheckRun direct = analyse_project(candidate_project(r.project, r.spec, best));
   CHECK(direct.results.summary.max_utilization == best.max_utilization);
   // Written as cairn design --write writes it, read again and checked.
-  ChosenLayout chosen;
-  chosen.pile_type = r.project.pile_types[best.layout.type].id;
-  chosen.length_text = fmt::format("{} m", best.length);
-  chosen.thickness_text = fmt::format("{} m", best.thickness);
-  if (best.layout.polygon_file.empty())
-    chosen.rectangle = std::array<double, 4>{best.layout.width_file, best.layout.length_file,
-                                             best.layout.center_x_file, best.layout.center_y_file};
-  else
-    chosen.polygon = best.layout.polygon_file;
-  for (std::size_t i = 0; i < best.layout.piles.size(); ++i)
-    chosen.piles.push_back({"P" + std::to_string(i + 1), best.layout.piles_file[i][0],
-                            best.layout.piles_file[i][1], best.layout.piles[i].batter});
+  const ChosenLayout chosen = chosen_layout(r.project, kData + name, best);
   const auto dir = std::filesystem::temp_directory_path() / "cairn-test-design";
   std::filesystem::create_directories(dir);
   const auto path = (dir / "best.yaml").string();
   {
     std::ofstream out(path);
-    out << chosen_project_text(kData + "soil.yaml", path, chosen);
+    out << chosen_project_text(kData + name, path, chosen);
   }
   const CheckRun again = analyse_project(path);
   CHECK(again.results.summary.pass);
@@ -136,6 +129,17 @@ TEST_CASE("design: the written file reproduces the search's numbers exactly", "[
       CHECK(again.results.combinations[k].piles[p].axial ==
             direct.results.combinations[k].piles[p].axial);
   std::filesystem::remove_all(dir);
+}
+
+}  // namespace
+
+TEST_CASE("design: the written file reproduces the search's numbers exactly", "[design]") {
+  SECTION("SI, capacities from the soil, a thickness rule, loads on top of the cap") {
+    check_round_trip("soil.yaml");
+  }
+  SECTION("US units: coordinates in ft converted as the reader converts them") {
+    check_round_trip("us.yaml");
+  }
 }
 
 TEST_CASE("design: piles too short for the load are explained, not an empty table", "[design]") {

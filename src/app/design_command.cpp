@@ -35,6 +35,8 @@ std::string length_text(double metres, UnitSystem units, bool with_unit) {
   return fmt::format("{} m", metres);
 }
 
+}  // namespace
+
 ChosenLayout chosen_layout(const Project& project, const std::string& file, const Candidate& c) {
   ChosenLayout chosen;
   chosen.pile_type = project.pile_types[c.layout.type].id;
@@ -61,8 +63,6 @@ ChosenLayout chosen_layout(const Project& project, const std::string& file, cons
       "engineer, and local codes and licensed practice govern."};
   return chosen;
 }
-
-}  // namespace
 
 int run_design(const Options& options, std::ostream& out, std::ostream& err) {
   if (options.files.size() != 1) throw InputError({}, "design: expected one project file");

@@ -35,6 +35,7 @@ struct Context {
   double min_spacing;    // m
   double max_spacing;    // m
   std::array<double, 2> center_file;  // unshifted centroid
+  double box_width = 0.0, box_length = 0.0;  // file unit: the outline limit's extents (or ∞)
   LayoutCounts& counts;
   std::vector<Layout>& out;
 };
@@ -48,6 +49,10 @@ double to_si(const Context& c, double file_value) {
 void finish(Context& c, Layout layout, std::vector<std::array<double, 2>> heads,
             std::vector<std::optional<double>> toward, double sx, double sy,
             std::array<double, 2> centre, bool octagon) {
+  if (c.out.size() >= kMaxLayoutsPerType) {
+    c.counts.truncated = true;
+    return;
+  }
   layout.type = c.type;
   layout.piles.clear();
   layout.piles_file.clear();
@@ -63,6 +68,21 @@ void finish(Context& c, Layout layout, std::vector<std::array<double, 2>> heads,
   }
   layout.battered = std::any_of(layout.piles.begin(), layout.piles.end(),
                                 [](const LayoutPile& p) { return p.batter.has_value(); });
+  // Cheap test first: the piles' extent with the edge distance must fit the limit's extents.
+  if (c.project.cap.outline) {
+    double x0 = 1e300, x1 = -1e300, y0 = 1e300, y1 = -1e300;
+    for (const auto& h : layout.piles_file) {
+      x0 = std::min(x0, h[0]);
+      x1 = std::max(x1, h[0]);
+      y0 = std::min(y0, h[1]);
+      y1 = std::max(y1, h[1]);
+    }
+    const double reach = 2 * (c.width_file / 2 + c.edge_file);
+    if (x1 - x0 + reach > c.box_width * (1 + 1e-9) || y1 - y0 + reach > c.box_length * (1 + 1e-9)) {
+      ++c.counts.outside_outline;
+      return;
+    }
+  }
   // Smallest centre-to-centre distance.
   double smallest = std::numeric_limits<double>::infinity();
   for (std::size_t i = 0; i < layout.piles.size(); ++i)
@@ -225,8 +245,26 @@ std::vector<Layout> generate_layouts(const Project& project, const DesignSpec& s
     const auto m = project.cap.outline->centroid();
     centre = {tidy(m[0] / unit), tidy(m[1] / unit)};
   }
+  double box_width = 1e300, box_length = 1e300;
+  if (project.cap.outline) {
+    double x0 = 1e300, x1 = -1e300, y0 = 1e300, y1 = -1e300;
+    for (const auto& q : project.cap.outline->polygon) {
+      x0 = std::min(x0, q[0]);
+      x1 = std::max(x1, q[0]);
+      y0 = std::min(y0, q[1]);
+      y1 = std::max(y1, q[1]);
+    }
+    box_width = (x1 - x0) / unit;
+    box_length = (y1 - y0) / unit;
+  }
   Context c{project, spec, type, width, width / unit, edge, edge / unit,
-            spec.spacing_step / unit, min_spacing, max_spacing, centre, counts, out};
+            spec.spacing_step / unit, min_spacing, max_spacing, centre, box_width, box_length,
+            counts, out};
+  // Whether a row of n piles at spacing s (file unit) can fit the outline limit at all.
+  const double reach = width / unit + 2 * edge / unit;
+  auto too_wide = [&](std::size_t n, double s, double limit) {
+    return (static_cast<double>(n) - 1) * s + reach > limit * (1 + 1e-9);
+  };
   // Spacings tried: multiples of the step from the smallest to the largest allowed.
   std::vector<double> spacings;
   const double step = c.step_file;
@@ -240,6 +278,7 @@ std::vector<Layout> generate_layouts(const Project& project, const DesignSpec& s
                                           tidy(std::round(toward_point[1] / unit / step) * step)};
     if (std::hypot(target[0] - centre[0], target[1] - centre[1]) > step / 2) centres.push_back(target);
   }
+  const std::size_t variants = centres.size() * (spec.batter_ratio ? 2 : 1);
   const std::size_t max_piles = spec.max_piles;
   auto has = [&](Family f) {
     return std::find(spec.families.begin(), spec.families.end(), f) != spec.families.end();
@@ -267,8 +306,16 @@ std::vector<Layout> generate_layouts(const Project& project, const DesignSpec& s
         if (rows * cols < 3) continue;  // one and two piles are their own families
         const std::vector<double> along_x = cols > 1 ? spacings : std::vector<double>{0.0};
         const std::vector<double> along_y = rows > 1 ? spacings : std::vector<double>{0.0};
-        for (double sx : along_x)
+        for (double sx : along_x) {
+          if (too_wide(cols, sx, box_width)) {  // and every larger spacing too
+            counts.outside_outline += along_y.size() * variants;
+            continue;
+          }
           for (double sy : along_y) {
+            if (too_wide(rows, sy, box_length)) {
+              counts.outside_outline += variants;
+              continue;
+            }
             Layout l;
             l.family = Family::grid;
             l.rows = rows;
@@ -284,6 +331,7 @@ std::vector<Layout> generate_layouts(const Project& project, const DesignSpec& s
               }
             add_variants(c, l, heads, toward, sx, sy, centres, false);
           }
+        }
       }
   if (has(Family::staggered))
     for (std::size_t rows = 2; rows <= max_piles; ++rows)
@@ -294,6 +342,10 @@ std::vector<Layout> generate_layouts(const Project& project, const DesignSpec& s
         for (double sx : spacings)
           for (double sy : spacings) {
             if (sy >= sx) break;  // a row spacing as large as the pile spacing is a grid
+            if (too_wide(cols, sx, box_width) || too_wide(rows, sy, box_length)) {
+              counts.outside_outline += variants;
+              continue;
+            }
             Layout l;
             l.family = Family::staggered;
             l.rows = rows;

@@ -520,6 +520,7 @@ DesignOutcome search_layouts(const Project& read, const DesignSpec& spec, unsign
       const double h = cap_thickness(base, spec, l);
       work.push_back({std::move(l), h});
     }
+    outcome.truncated = outcome.truncated || counts.truncated;
     rejected["cap larger than cap.outline allows"] += counts.outside_outline;
     rejected["spacing outside design.spacing"] += counts.spacing;
   }

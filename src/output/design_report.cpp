@@ -119,6 +119,11 @@ std::string render_design(const DesignReport& r, Format format) {
                              unit_label(p.units, Quantity::length));
   }
   std::vector<std::string> notes = {kCapNotSearched};
+  if (o.truncated)
+    notes.push_back(fmt::format("The search stopped at {} layouts per pile type; narrow the "
+                                "spacing range, raise design.spacing.step or lower "
+                                "design.max_piles to search them all.",
+                                kMaxLayoutsPerType));
   if (o.passed_screen > o.checked_fully)
     notes.push_back("Layouts that passed the screen but cost more than those shown were not "
                     "checked in full.");

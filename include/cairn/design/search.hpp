@@ -62,6 +62,7 @@ struct DesignOutcome {
   // reached at the longest length, and that layout ("grid 2×3 of PC45").
   std::optional<double> closest_utilization;
   std::string closest_layout;
+  bool truncated = false;  // some pile type had more layouts than kMaxLayoutsPerType
 };
 
 // Called now and then from the searching threads with (done, total) screened layouts.

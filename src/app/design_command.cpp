@@ -83,12 +83,15 @@ int run_design(const Options& options, std::ostream& out, std::ostream& err) {
   const auto start = std::chrono::steady_clock::now();
   std::mutex lock;
   bool shown = false;
+  double last = 0.0;  // s, when the bar was last drawn
   DesignProgress progress = [&](std::size_t done, std::size_t total) {
     if (!terminal) return;
     const double elapsed =
         std::chrono::duration<double>(std::chrono::steady_clock::now() - start).count();
     std::lock_guard<std::mutex> guard(lock);
     if (elapsed < 1.0 && !shown) return;  // a search shorter than a second shows no bar
+    if (done < total && elapsed < last + 0.1) return;  // ten updates a second at most
+    last = elapsed;
     const int width = 30;
     const int filled = total ? static_cast<int>(width * done / total) : width;
     err << fmt::format("\rcairn design: [{}{}] {}/{} layouts", std::string(filled, '#'),

@@ -390,8 +390,8 @@ FullResult full_check(const Project& base, const DesignSpec& spec, Candidate& c)
                           s.pile ? ", pile " + run.project.piles[*s.pile].id : "",
                           s.combination ? ", " + run.project.combinations[*s.combination].id : "");
   for (const auto& gc : run.group.per_combination) {
-    if (run.project.combinations[gc.combination].limit_state != LimitState::service) continue;
-    c.tilt = std::max(c.tilt, gc.tilt);
+    if (run.project.combinations[gc.combination].limit_state == LimitState::service)
+      c.tilt = std::max(c.tilt, gc.tilt);
     if (gc.utilization && *gc.utilization > c.max_utilization) {
       c.max_utilization = *gc.utilization;
       c.governs = "group capacity, " + run.project.combinations[gc.combination].id;

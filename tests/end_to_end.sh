@@ -669,6 +669,8 @@ for design in "$src"/projects-demo/*/design.yaml; do
   if [ "$status" -eq 0 ]; then ok; else bad "design $name: exit status $status, expected 0"; fi
   if [ -f "$dir/expected/chosen.yaml" ] && cmp -s "$scratch/chosen.yaml" "$dir/expected/chosen.yaml"; then ok; else
     bad "design $name: chosen.yaml differs from expected/chosen.yaml"; fi
+  if grep -qF "## Best layouts" "$scratch/chosen-search.md" 2>/dev/null; then ok; else
+    bad "design $name: chosen-search.md missing or without the table"; fi
   (cd "$scratch" && "$cairn" check chosen.yaml --format json >check.json 2>"$work/err")
   status=$?
   if [ "$status" -eq 0 ]; then ok; else bad "design $name: check chosen.yaml: exit status $status"; fi

@@ -198,3 +198,23 @@ TEST_CASE("design: layouts keep the spacing limits and the outline", "[design]")
       CHECK(l.outline.distance_to_edge(q.x, q.y) >= width / 2 + 0.225 - 1e-9);
   }
 }
+
+TEST_CASE("design: rings put n piles at R = s / (2 sin(pi/n)) from their centre", "[design]") {
+  Read r = read("typed.yaml");
+  r.spec.families = {Family::ring};
+  r.spec.max_piles = 8;
+  LayoutCounts counts;
+  const auto layouts = generate_layouts(r.project, r.spec, 0, {0.0, 0.0}, counts);
+  REQUIRE(!layouts.empty());
+  for (const auto& l : layouts) {
+    REQUIRE(l.family == Family::ring);
+    const double n = static_cast<double>(l.piles.size());
+    // Hand-derived: neighbours on a circle of radius R are 2R·sin(π/n) apart; R is the
+    // chord formula's radius rounded up to the 0.1 m step, heads kept to 0.1 mm.
+    const double radius = l.spacing_y;
+    for (const auto& q : l.piles)
+      CHECK(std::hypot(q.x - l.shift_x, q.y - l.shift_y) == Approx(radius).margin(2e-4));
+    CHECK(l.spacing == Approx(2 * radius * std::sin(3.14159265358979323846 / n)).margin(3e-4));
+    CHECK(l.spacing >= 3.0 * 0.4 - 1e-9);
+  }
+}

@@ -115,7 +115,11 @@ int run_design(const Options& options, std::ostream& out, std::ostream& err) {
     const std::string text = chosen_project_text(
         file, (fs::path(folder) / target.filename()).string(),
         chosen_layout(project, file, outcome.best.front()));
-    write_files_atomically(folder, {{target.filename().string(), text}});
+    // Beside it, the search itself in Markdown (basis, runners-up, rejections) for the
+    // calculation package.
+    const std::string search_name = target.stem().string() + "-search.md";
+    write_files_atomically(folder, {{target.filename().string(), text},
+                                    {search_name, render_design(report, Format::markdown)}});
   }
   out << rendered;
   return outcome.best.empty() ? kExitFail : kExitPass;

@@ -140,6 +140,9 @@ TEST_CASE("design: the written file reproduces the search's numbers exactly", "[
   SECTION("US units: coordinates in ft converted as the reader converts them") {
     check_round_trip("us.yaml");
   }
+  SECTION("US units, the cap's outline fixed as the file gives it") {
+    check_round_trip("us_fixed.yaml");
+  }
 }
 
 TEST_CASE("design: piles too short for the load are explained, not an empty table", "[design]") {

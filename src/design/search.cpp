@@ -27,6 +27,8 @@ constexpr double kCubicYard = 0.764554857984;  // m³ (exact: 0.9144³)
 
 // Rejection reasons, the words of the output.
 const char* const kReasonLength = "pile capacity: no length up to design.length.max carries the load";
+const char* const kReasonCapacity =
+    "pile capacity: the load exceeds the typed-in capacity (the pile type keeps its length)";
 const char* const kReasonTension = "tension in a pile type without tension capacity";
 const char* const kReasonStructural = "structural capacity of the pile section";
 const char* const kReasonLateral = "lateral capacity of the pile";
@@ -538,8 +540,8 @@ DesignOutcome search_layouts(const Project& read, const DesignSpec& spec, unsign
       const TypeTable& table = tables[w.layout.type];
       const Screened s = screen.run(w.layout, table, w.thickness);
       if (s.reason) {
-        ++why[s.reason];
-        if (s.reason == kReasonLength && s.utilization < closest.first)
+        ++why[s.reason == kReasonLength && table.lengths.size() == 1 ? kReasonCapacity : s.reason];
+        if (s.reason == kReasonLength && table.lengths.size() > 1 && s.utilization < closest.first)
           closest = {s.utilization, w.layout.describe() + " of " + base.pile_types[w.layout.type].id};
       } else {
         Candidate c;

@@ -149,6 +149,8 @@ class DesignReader {
       if (std::find(spec.pile_types.begin(), spec.pile_types.end(), index) == spec.pile_types.end())
         spec.pile_types.push_back(index);
     }
+    if (types && names.empty())
+      diag_.error(at(types), "design.pile_types: the list is empty; expected at least one pile type");
     // Families.
     if (const YAML::Node f = d["families"]) {
       std::vector<YAML::Node> list;
@@ -170,6 +172,8 @@ class DesignReader {
         }
         spec.families.push_back(kFamilies[static_cast<std::size_t>(it - known.begin())]);
       }
+      if (list.empty())
+        diag_.error(at(f), "design.families: the list is empty; expected at least one family");
     } else {
       spec.families = kFamilies;
     }
@@ -208,6 +212,8 @@ class DesignReader {
       if (auto v = number(s, "min", "design.spacing", Quantity::number)) spec.min_spacing_factor = *v;
       if (auto v = number(s, "max", "design.spacing", Quantity::number)) spec.max_spacing_factor = *v;
       if (auto v = number(s, "step", "design.spacing", Quantity::length)) spec.spacing_step = *v;
+      if (spec.spacing_step < 0.001)
+        diag_.error(at(s["step"]), "design.spacing.step: expected at least 1 mm");
       if (spec.min_spacing_factor > spec.max_spacing_factor)
         diag_.error(at(s), fmt::format("design.spacing: the smallest spacing ({:g} pile widths) is "
                                        "larger than the largest ({:g}); no layout can meet both",
@@ -224,7 +230,9 @@ class DesignReader {
       if (auto v = number(l, "min", "design.length", Quantity::length)) spec.min_length = *v;
       if (auto v = number(l, "max", "design.length", Quantity::length)) spec.max_length = *v;
       if (auto v = number(l, "step", "design.length", Quantity::length)) spec.length_step = *v;
-      if (spec.min_length > spec.max_length)
+      if (spec.length_step < 0.001)
+        diag_.error(at(l["step"]), "design.length.step: expected at least 1 mm");
+      else if (spec.min_length > spec.max_length)
         diag_.error(at(l), "design.length: the shortest pile is longer than the longest");
       else if ((spec.max_length - spec.min_length) / spec.length_step > 2000)
         diag_.error(at(l), "design.length: more than 2000 lengths from min to max; use a larger step");

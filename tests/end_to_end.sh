@@ -769,5 +769,45 @@ if diff -q "$work/out" "$work/tolerance-1" >/dev/null; then ok; else bad "tolera
 
 expect_status "as-built: a foundation survey with a cap column" 0 check "$site/foundation.yaml" --as-built "$site/caps_survey.csv"
 expect_in "as-built: second cap's verdict" "$work/out" "Verdict: accept, deviations taken by the piles — governing combination S2"
+# ---- cairn design: the demo's search, its chosen file checked again, limits explained.
+for design in "$src"/projects-demo/*/design.yaml; do
+  [ -e "$design" ] || continue
+  dir=$(dirname "$design")
+  name=$(basename "$dir")
+  scratch="$work/design-$name"
+  mkdir -p "$scratch" && cp "$design" "$scratch/design.yaml"
+  (cd "$scratch" && "$cairn" design design.yaml --write chosen.yaml --format json >design.json 2>"$work/err")
+  status=$?
+  if [ "$status" -eq 0 ]; then ok; else bad "design $name: exit status $status, expected 0"; fi
+  if [ -f "$dir/expected/chosen.yaml" ] && cmp -s "$scratch/chosen.yaml" "$dir/expected/chosen.yaml"; then ok; else
+    bad "design $name: chosen.yaml differs from expected/chosen.yaml"; fi
+  if grep -qF "## Best layouts" "$scratch/chosen-search.md" 2>/dev/null; then ok; else
+    bad "design $name: chosen-search.md missing or without the table"; fi
+  (cd "$scratch" && "$cairn" check chosen.yaml --format json >check.json 2>"$work/err")
+  status=$?
+  if [ "$status" -eq 0 ]; then ok; else bad "design $name: check chosen.yaml: exit status $status"; fi
+  # The chosen file reproduces the search's numbers exactly.
+  if python3 - "$scratch/design.json" "$scratch/check.json" <<'PY'
+import json, sys
+d, c = (json.load(open(f)) for f in sys.argv[1:3])
+sys.exit(0 if d["best"][0]["max_utilization"] == c["summary"]["max_utilization"] else
+         f'{d["best"][0]["max_utilization"]} != {c["summary"]["max_utilization"]}')
+PY
+  then ok; else bad "design $name: the chosen file's utilization differs from the search's"; fi
+done
+expect_status "design: piles too short" 1 design "$data/design/too_short.yaml"
+expect_in "design: none passes, explained" "$work/out" "No layout passes every check. The limit that rejects most layouts: pile capacity: no length up to design.length.max carries the load"
+expect_in "design: rejections counted" "$work/out" "Layouts rejected, by reason"
+expect_status "design: contradictory spacing" 2 design "$data/design/bad_spacing.yaml"
+expect_in "design: spacing named" "$work/err" "bad_spacing.yaml:17:12: error: design.spacing: the smallest spacing (4 pile widths) is larger than the largest (3); no layout can meet both"
+cp "$data/design/typed.yaml" "$work/typed.yaml"
+expect_status "design: --write over the design file" 2 design "$work/typed.yaml" --write "$work/typed.yaml"
+expect_in "design: --write over the design file, said" "$work/err" "is the design file itself"
+expect_status "check: a design file without piles" 2 check "$data/design/typed.yaml"
+expect_in "check: piles missing" "$work/err" "piles: missing"
+{ cat "$data/design/typed.yaml"; printf 'piles:\n  - {id: A, x: -0.6, y: -0.6, type: P40}\n  - {id: B, x: 0.6, y: -0.6, type: P40}\n  - {id: C, x: -0.6, y: 0.6, type: P40}\n  - {id: D, x: 0.6, y: 0.6, type: P40}\n'; } >"$work/with-piles.yaml"
+expect_status "check: a file with piles and a design section ignores the section" 0 check "$work/with-piles.yaml"
+expect_status "design: markdown" 0 design "$data/design/typed.yaml" --format markdown
+expect_in "design: markdown table" "$work/out" "## Best layouts"
 echo "$passed passed, $failed failed"
 [ "$failed" -eq 0 ]

@@ -15,6 +15,8 @@ namespace cairn {
 
 CheckRun analyse_project(const std::string& file) { return analyse(read_project(file)); }
 
+CheckRun analyse_project(Project project) { return analyse(std::move(project)); }
+
 namespace {
 void scale(Resistance& r, double f) {
   for (auto* v : {&r.compression, &r.tension, &r.lateral, &r.structural_axial, &r.structural_moment})

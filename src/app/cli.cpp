@@ -14,6 +14,7 @@
 
 #include "cairn/app/analysis.hpp"
 #include "cairn/app/package.hpp"
+#include "cairn/app/design_command.hpp"
 #include "cairn/solver/cap_solver.hpp"
 #include "cairn/geotechnics/capacity_length.hpp"
 #include "cairn/output/capacity_report.hpp"
@@ -44,6 +45,7 @@ std::string describe_options(const Options& o) {
   const char* name = o.command == Command::check      ? "check"
                      : o.command == Command::capacity ? "capacity"
                      : o.command == Command::report   ? "report"
+                     : o.command == Command::design   ? "design"
                      : o.command == Command::springs  ? "springs"
                                                       : site_command_name(o.command);
   std::string text = fmt::format("cairn {} --format {}", name, format_name(o.format));
@@ -310,6 +312,7 @@ int run(const Options& options, std::ostream& out, std::ostream& err) {
       case Command::tolerance: return run_tolerance(options, describe_options(options), out, err);
       case Command::safe_region: return run_safe_region(options, describe_options(options), out, err);
       case Command::diff: return run_diff(options, describe_options(options), out, err);
+      case Command::design: return run_design(options, out, err);
     }
     return kExitBadInput;
   } catch (const InputError& e) {
@@ -443,11 +446,16 @@ int run_command_line(int argc, const char* const* argv, std::ostream& out, std::
     add_as_built(command);
     command->add_option("--out", options.out_dir, "Also write the result and its plan (SVG) into DIR");
   }
+  CLI::App* design = app.add_subcommand(
+      "design", "Search pile layouts and lengths for the cheapest that passes every check");
+  add_files_and_format(design, "file", "Project file (YAML) with a design: section", formats);
+  design->add_option("--write", options.write_file,
+                     "Write the chosen layout as a complete project file BEST.yaml");
   // CLI11 takes an unknown command for a stray argument ("A subcommand is required");
   // name it and suggest the nearest command instead.
   if (argc > 1 && argv[1][0] != '-') {
     std::vector<std::string> names;
-    for (const CLI::App* command : {check, capacity, springs, report, pile_loss, add_pile, tolerance, safe_region, diff})
+    for (const CLI::App* command : {check, capacity, springs, report, pile_loss, add_pile, tolerance, safe_region, diff, design})
       names.push_back(command->get_name());
     const std::string given = argv[1];
     if (std::find(names.begin(), names.end(), given) == names.end()) {
@@ -489,6 +497,7 @@ int run_command_line(int argc, const char* const* argv, std::ostream& out, std::
   if (tolerance->parsed()) options.command = Command::tolerance;
   if (safe_region->parsed()) options.command = Command::safe_region;
   if (diff->parsed()) options.command = Command::diff;
+  if (design->parsed()) options.command = Command::design;
   return run(options, out, err);
 }
 

@@ -196,7 +196,7 @@ struct Merged {
 
 const std::vector<std::string> kTopKeys = {"title", "units", "include", "cap", "pile_types",
                                            "piles", "soil", "load_cases", "combinations", "columns", "loads_from",
-                                           "group", "package"};
+                                           "group", "package", "design"};
 const std::set<std::string> kNamedSections = {"pile_types", "load_cases", "combinations"};
 
 const std::map<std::string, LoadKind> kLoadKinds = {
@@ -223,7 +223,7 @@ std::vector<std::string> keys_of(const Map& map) {
 
 class Reader {
  public:
-  explicit Reader(Diagnostics& diagnostics) : diag_(diagnostics) {}
+  Reader(Diagnostics& diagnostics, Piles piles) : diag_(diagnostics), piles_(piles) {}
 
   // ---- documents and includes -------------------------------------------------------
 
@@ -648,7 +648,9 @@ class Reader {
     if (const Entry* cap = required("cap")) read_cap(cap->value, project);
     if (required("pile_types")) read_pile_types(merged.named["pile_types"],
                                                 section("pile_types")->value, project);
-    if (const Entry* piles = required("piles")) read_piles(piles->value, project);
+    // `cairn design` reads a file whose piles the search will place (read_design.hpp).
+    if (const Entry* piles = piles_ == Piles::optional ? section("piles") : required("piles"))
+      read_piles(piles->value, project);
     if (const Entry* columns = section("columns")) read_columns(columns->value, project);
     // Reactions imported as combinations (loads_from.combinations) may be all the loads.
     const Entry* from = section("loads_from");
@@ -1138,7 +1140,8 @@ class Reader {
           PointLoad load;
           load.where = at(l);
           if (auto a = point(l.child("at"), true)) load.at = *a;
-          if (std::isnan(load.at[2])) load.at[2] = project.cap.thickness;
+          load.on_top = std::isnan(load.at[2]);
+          if (load.on_top) load.at[2] = project.cap.thickness;
           bool any = false;
           for (std::size_t c = 0; c < 6; ++c) {
             const auto v = number(l, kWrenchNames[c], c < 3 ? Quantity::force : Quantity::moment,
@@ -1228,7 +1231,8 @@ class Reader {
       column.where = at(c);
       column.id = text(c, "id").value_or(fmt::format("#{}", i + 1));
       if (auto a = point(c.child("at"), true)) column.at = *a;
-      if (std::isnan(column.at[2])) column.at[2] = project.cap.thickness;
+      column.on_top = std::isnan(column.at[2]);
+      if (column.on_top) column.at[2] = project.cap.thickness;
       column.support = text(c, "support").value_or("");
       if (!column.support.empty()) {
         auto [it, fresh] = support_owner.emplace(column.support, column.id);
@@ -1336,6 +1340,7 @@ class Reader {
       PointLoad load;
       load.where = row.where;
       load.at = column.at;
+      load.on_top = column.on_top;
       load.note = "column " + column.id;
       for (std::size_t c = 0; c < 6; ++c) load.load[c] = factor * row.values[c];
       return load;
@@ -1777,6 +1782,7 @@ class Reader {
 
  private:
   Diagnostics& diag_;
+  Piles piles_ = Piles::required;
   UnitSystem project_units_ = UnitSystem::SI;
   const std::map<std::string, UnitSystem>* file_units_ = nullptr;
   std::set<std::string>* files_ = nullptr;  // keeps file names alive for locations
@@ -1785,9 +1791,9 @@ class Reader {
 
 }  // namespace
 
-Project read_project(const std::string& path) {
+Project read_project(const std::string& path, Piles piles) {
   Diagnostics diagnostics;
-  Reader reader(diagnostics);
+  Reader reader(diagnostics, piles);
   return reader.read(path);
 }
 

@@ -45,6 +45,9 @@ struct TypeAdjustments {
 
 // The same pipeline on a project already read (the as-built project of a survey).
 CheckRun analyse(Project project, const TypeAdjustments& adjust = {});
+// The same pipeline on a project already in memory (as read_project returns it), e.g. a
+// candidate layout of `cairn design`. Throws InputError as above.
+CheckRun analyse_project(Project project);  // analyse() without adjustments
 
 // Analyses several files on up to `threads` threads. Each entry holds the run or the
 // input problems of its file, in the order of `files`.

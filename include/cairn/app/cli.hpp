@@ -15,7 +15,7 @@
 
 namespace cairn {
 
-enum class Command { check, capacity, springs, report, pile_loss, add_pile, tolerance, safe_region, diff };
+enum class Command { check, capacity, springs, report, pile_loss, add_pile, tolerance, safe_region, diff, design };
 
 struct Options {
   Command command = Command::check;
@@ -35,6 +35,8 @@ struct Options {
   // report: also the plan alone as SVG, and the tables as CSV and Markdown.
   bool plan_svg = false;
   bool tables = false;
+  // design: the chosen layout as a complete project file.
+  std::optional<std::string> write_file;
   // The command as it was run (program name without its folder, then the arguments as
   // given, quoted where a shell would need it), shown in every report header. Empty when
   // run() is called without a command line: the header then shows the options rebuilt.

@@ -156,6 +156,7 @@ struct PointLoad {
   std::array<double, 3> at{};  // m; z defaults to the top of the cap
   Wrench load{};               // forces and moments acting on the cap
   std::string note;            // e.g. "cap self-weight", or a column id
+  bool on_top = false;         // z not given: on the top of the cap (moves with its thickness)
 };
 
 // A column meeting the cap, for loads imported from the structural model.
@@ -164,6 +165,7 @@ struct Column {
   SourceLocation where;
   std::array<double, 3> at{};  // m; z defaults to the top of the cap
   std::string support;         // support name in the imported reactions
+  bool on_top = false;         // z not given: on the top of the cap
 };
 
 // wearing_surface (AASHTO DW), vertical_earth (AASHTO EV) and collision (AASHTO CT/CV) are

@@ -20,7 +20,10 @@ namespace cairn {
 
 // Reads and validates the project file at `path`, following its includes.
 // Throws InputError listing every problem found.
-Project read_project(const std::string& path);
+// `piles: optional` is for `cairn design`, whose search places the piles; every other
+// command needs them. A top-level `design:` section is accepted and left to read_design.hpp.
+enum class Piles { required, optional };
+Project read_project(const std::string& path, Piles piles = Piles::required);
 
 // The cap files a foundation file lists (`caps: [a.yaml, b.yaml]`, paths relative to it);
 // a project file stands for itself. Throws InputError for a foundation file with problems.

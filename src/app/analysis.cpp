@@ -13,11 +13,16 @@
 
 namespace cairn {
 
-CheckRun analyse_project(const std::string& file) {
+CheckRun analyse_project(const std::string& file, const AnalysisOptions& options) {
   CheckRun run;
   run.project = read_project(file);
   const Project& project = run.project;
-  run.capacities = compute_capacities(project);
+  if (options.depth_tables) {
+    const DepthTableRange range = report_depth_table(project);
+    run.capacities = compute_capacities(project, range.step, range.from);
+  } else {
+    run.capacities = compute_capacities(project);
+  }
   run.stiffness = pile_type_stiffness(project, run.capacities);
   const CapSolver solver(pile_springs(project, run.stiffness));
   Diagnostics problems;
@@ -61,14 +66,14 @@ CheckRun analyse_project(const std::string& file) {
 }
 
 std::vector<CapOutcome> analyse_projects(const std::vector<std::string>& files,
-                                         unsigned threads) {
+                                         unsigned threads, const AnalysisOptions& options) {
   std::vector<CapOutcome> outcomes(files.size());
   std::atomic<std::size_t> next{0};
   auto work = [&] {
     for (std::size_t i = next++; i < files.size(); i = next++) {
       outcomes[i].file = files[i];
       try {
-        outcomes[i].run = analyse_project(files[i]);
+        outcomes[i].run = analyse_project(files[i], options);
       } catch (const InputError& e) {
         outcomes[i].problems = e.diagnostics();
       } catch (const std::invalid_argument& e) {

@@ -9,6 +9,7 @@
 #include <stdexcept>
 #include <utility>
 
+#include "cairn/core/defaults.hpp"
 #include "cairn/core/units.hpp"
 
 namespace cairn {
@@ -22,16 +23,13 @@ constexpr double kDepthTolerance = kBoundaryTolerance;
 // Meyerhof (1976): the unit tip develops over about 10 diameters of penetration into a
 // stronger layer, and a weaker layer less than about 10 diameters below the tip reduces it.
 constexpr double kTransitionDiameters = 10.0;
-// 1 short ton-force per square foot in kPa: 2000 lbf · 4.4482216152605 N / (0.3048 m)².
-// O'Neill & Reese (1999) state the drilled-shaft sand tip in tsf.
-constexpr double kTsf = 2000.0 * 4.4482216152605 / (0.3048 * 0.3048) / 1000.0;
+// 1 short ton-force per square foot in kPa (units.hpp). O'Neill & Reese (1999) state the
+// drilled-shaft sand tip in tsf.
+constexpr double kTsf = unit_si::ton_per_square_foot;
 // Meyerhof's (1976) limiting unit shaft friction of driven displacement piles in sand,
 // 1 tsf (FHWA-HI-97-013 quotes it as 2 ksf), from memory. cairn applies it by default to
 // shaft methods whose source gives no limit in sand (beta; meyerhof-spt on bored piles).
 constexpr double kMeyerhofShaftLimit = 1.0 * kTsf;
-// Default factors of safety (common practice): compression, tension.
-constexpr double kDefaultSafetyCompression = 2.5;
-constexpr double kDefaultSafetyTension = 3.0;
 // Shaft uplift in sand / compression shaft when the layer gives none (common practice,
 // from memory; ratios of about 0.5–0.8 are used in the trade).
 constexpr double kSandUpliftFactor = 2.0 / 3.0;

@@ -4,6 +4,7 @@
 
 #include <algorithm>
 #include <cmath>
+#include <numbers>
 #include <array>
 #include <set>
 #include <stdexcept>
@@ -206,7 +207,7 @@ Resistance code_set_resistance(const Project& project, std::size_t type, Resista
 }
 
 SoilProfile en1997_m2_profile(const SoilProfile& profile) {
-  constexpr double kDegree = 3.14159265358979323846 / 180.0;
+  constexpr double kDegree = std::numbers::pi / 180.0;
   auto factored_angle = [&](double degrees) {
     return std::atan(std::tan(degrees * kDegree) / kEn1997GammaPhi) / kDegree;
   };

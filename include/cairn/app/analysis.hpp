@@ -21,7 +21,7 @@ namespace cairn {
 
 struct CheckRun {
   Project project;
-  std::vector<PileTypeCapacity> capacities;
+  std::vector<PileTypeCapacity> capacities;  // with depth tables when asked (AnalysisOptions)
   std::vector<PileTypeStiffness> stiffness;
   std::vector<PileTypeResistance> resistances;
   CheckResults results;
@@ -29,9 +29,16 @@ struct CheckRun {
   std::vector<std::string> assumptions;
 };
 
+// What the analysis builds beyond the check. With `depth_tables`, each computed pile type's
+// capacity-with-depth table over report_depth_table() (project_capacity.hpp), built once here
+// for the calculation package's chart; the renderers only render it.
+struct AnalysisOptions {
+  bool depth_tables = false;
+};
+
 // Reads and checks one project file. Throws InputError for any input problem (nothing is
 // computed from a file with problems).
-CheckRun analyse_project(const std::string& file);
+CheckRun analyse_project(const std::string& file, const AnalysisOptions& options = {});
 
 // Analyses several files on up to `threads` threads. Each entry holds the run or the
 // input problems of its file, in the order of `files`.
@@ -41,7 +48,7 @@ struct CapOutcome {
   std::vector<Diagnostic> problems;
 };
 std::vector<CapOutcome> analyse_projects(const std::vector<std::string>& files,
-                                         unsigned threads);
+                                         unsigned threads, const AnalysisOptions& options = {});
 
 // A report over a run. `explain_pile` names a pile for the hand check; throws InputError
 // when it does not exist. The report points into `run`, which must outlive it.

@@ -212,7 +212,7 @@ struct GroupSettings {
   double min_spacing = 0.0;            // m, absolute minimum c/c spacing
   double min_edge_distance = 0.225;    // m, pile face to cap edge (AASHTO 10.7.1.2)
   bool settlement = false;             // settlement asked for
-  std::optional<double> settlement_limit;  // m; default 25 mm
+  std::optional<double> settlement_limit;  // m; default kDefaultSettlementLimit (defaults.hpp)
   std::optional<double> tip_share;     // share of the working load carried by the tip
   SourceLocation where;
 };

@@ -22,6 +22,7 @@
 #include <string>
 #include <vector>
 
+#include "cairn/core/defaults.hpp"
 #include "cairn/geotechnics/soil.hpp"
 #include "cairn/core/units.hpp"
 
@@ -232,8 +233,8 @@ GroupUplift group_uplift(const SoilProfile& profile, const BlockPlan& plan,
 // Settlement
 // ---------------------------------------------------------------------------------------
 
-// Tolerable total settlement, m (common practice: 25 mm, Terzaghi & Peck for footings on sand).
-inline constexpr double kTolerableSettlement = 0.025;
+// Tolerable total settlement when none is given: kDefaultSettlementLimit, 25 mm
+// (core/defaults.hpp).
 
 // A single pile for Vesić's (1977) settlement method.
 struct VesicPile {

@@ -56,6 +56,7 @@ TEST_CASE("each quantity's unit label in SI and US projects", "[quantity_format]
       {Shown::stiffness, "kN/m", "kip/in"}, {Shown::rotational_stiffness, "kN·m/rad", "kip·ft/rad"},
       {Shown::area, "m²", "ft²"},          {Shown::angle, "°", "°"},
       {Shown::utilization, "", ""},        {Shown::factor, "", ""},
+      {Shown::code_factor, "", ""},
       {Shown::bearing_factor, "", ""},     {Shown::index, "", ""},
       {Shown::strain, "", ""},
   };
@@ -92,6 +93,7 @@ TEST_CASE("each quantity's decimals in SI and US projects", "[quantity_format]")
   CHECK(si.text(Shown::force, 1200.0) == "1200.0 kN");
   CHECK(us.text(Shown::force, 300.0 * kip) == "300.00 kip");
   CHECK(QuantityFormat::factor(0.8) == "0.800");
+  CHECK(QuantityFormat::code_factor(0.6) == "0.60");
   CHECK(QuantityFormat::bearing_factor(9.0) == "9.00");
   CHECK(QuantityFormat::index(123.456) == "123.5");
   CHECK(QuantityFormat::strain(0.0123456) == "0.01235");

@@ -221,9 +221,9 @@ GroupResults evaluate_group(const Project& project, const CheckResults& results,
   }
   if (out.block)
     out.notes.push_back(fmt::format(
-        "Block capacity is divided by FS {:g} for service and multiplied by φ {:.2f} for strength "
+        "Block capacity is divided by FS {:g} for service and multiplied by φ {} for strength "
         "(AASHTO LRFD Table 10.5.5.2.{}-1, from memory).",
-        out.block_factor_of_safety, out.block_resistance_factor, bored ? 4 : 3));
+        out.block_factor_of_safety, QuantityFormat::code_factor(out.block_resistance_factor), bored ? 4 : 3));
 
   out.settlement_asked = g.settlement && project.soil.has_value();
   out.settlement_limit = g.settlement_limit.value_or(kDefaultSettlementLimit);

@@ -40,6 +40,7 @@ Quantity measured(Shown what) {
     case Shown::area:  // length squared, handled by the callers
     case Shown::utilization:
     case Shown::factor:
+    case Shown::code_factor:
     case Shown::bearing_factor:
     case Shown::index:
     case Shown::strain: return Quantity::number;
@@ -77,6 +78,7 @@ int QuantityFormat::decimals(Shown what) const {
     case Shown::angle: return 1;
     case Shown::utilization:
     case Shown::factor: return 3;
+    case Shown::code_factor:
     case Shown::bearing_factor: return 2;
     case Shown::index: return 1;
     case Shown::strain: return 5;

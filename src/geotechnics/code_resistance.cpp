@@ -11,6 +11,7 @@
 
 #include <fmt/format.h>
 
+#include "cairn/core/quantity_format.hpp"
 namespace cairn {
 namespace {
 
@@ -267,8 +268,8 @@ std::vector<std::string> code_resistance_assumptions(
                                         std::pair{"tension", r.tension},
                                         std::pair{"lateral", r.lateral}}) {
         if (!value) continue;
-        values += fmt::format("{}{} {:.1f} {}", values.empty() ? "" : ", ", name,
-                              from_si(u, Quantity::force, *value), unit_label(u, Quantity::force));
+        values += fmt::format("{}{} {}", values.empty() ? "" : ", ", name,
+                              QuantityFormat(u).text(Shown::force, *value));
       }
       list.push_back(fmt::format("Pile type {}: {} resistances{}: {}.", project.pile_types[t].id,
                                  to_string(set), values.empty() ? "" : " " + values, r.source));

@@ -316,9 +316,9 @@ SectionYieldMoment section_yield_moment(const PileType& type,
       return out;
     }
     out.basis = fmt::format("My = Mn = {} from f'c and {} bars by strain compatibility with the "
-                            "ACI 318-19 rectangular stress block (β1 = {:.2f}){}, {}",
+                            "ACI 318-19 rectangular stress block (β1 = {}){}, {}",
                             moment_text(*out.value), *st.bar_count,
-                            stress_block_beta1(*st.concrete_strength), axis_words(), place());
+                            QuantityFormat::code_factor(stress_block_beta1(*st.concrete_strength)), axis_words(), place());
     return out;
   }
   if (st.steel_yield) {

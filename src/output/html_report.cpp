@@ -438,7 +438,7 @@ std::string capacity_section(const Project& p, const std::vector<PileTypeCapacit
   s += eq(fmt::format("allowable tension = T_ult/FS_t = {}/{:g} = {} {}", u.force(c.ultimate_tension),
                       c.safety_factor_tension, u.force(c.allowable_tension), f));
   s += eq(fmt::format("factored compression = φ_tip·Q_tip + Σ φ_s,i·Q_s,i = {}·{} + {}·{} = {} {}",
-                      QuantityFormat::factor(c.phi_tip), u.force(c.tip), QuantityFormat::factor(c.phi_shaft), u.force(c.shaft),
+                      QuantityFormat::code_factor(c.phi_tip), u.force(c.tip), QuantityFormat::factor(c.phi_shaft), u.force(c.shaft),
                       u.force(c.factored_compression), f));
   s += eq(fmt::format("factored tension = Σ φ_up,i·Q_up,i = {}·{} = {} {}", QuantityFormat::factor(c.phi_uplift),
                       u.force(c.uplift_shaft), u.force(c.factored_tension), f));

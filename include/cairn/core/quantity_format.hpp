@@ -20,7 +20,8 @@
 //   area            m², 4           ft², 4           plan and section areas (length squared)
 //   angle           °, 1            °, 1             friction angles, directions
 //   utilization     -, 3            -, 3             demand / capacity; "no capacity" when infinite
-//   factor          -, 3            -, 3             η, K0, μs, reductions, resistance factors
+//   factor          -, 3            -, 3             η, K0, μs, reductions, weighted φ of a shaft
+//   code_factor     -, 2            -, 2             factors read from a code table: φ, β1
 //   bearing_factor  -, 2            -, 2             N*σ, N*c, Skempton Nc
 //   index           -, 1            -, 1             Ir, Irr, N*q, widths
 //   strain          -, 5            -, 5             volumetric strain Δ
@@ -57,6 +58,7 @@ enum class Shown {
   angle,
   utilization,
   factor,
+  code_factor,
   bearing_factor,
   index,
   strain,
@@ -97,6 +99,7 @@ class QuantityFormat {
   // Dimensionless values, the same in both systems.
   static std::string utilization(double u);  // 3 decimals; "no capacity" when infinite
   static std::string factor(double v) { return plain(Shown::factor, v); }
+  static std::string code_factor(double v) { return plain(Shown::code_factor, v); }
   static std::string bearing_factor(double v) { return plain(Shown::bearing_factor, v); }
   static std::string index(double v) { return plain(Shown::index, v); }
   static std::string strain(double v) { return plain(Shown::strain, v); }

@@ -13,6 +13,7 @@
 #include <array>
 #include <cmath>
 #include <cstddef>
+#include <numbers>
 #include <random>
 #include <string>
 #include <vector>
@@ -30,7 +31,7 @@ using cairn::Wrench;
 namespace {
 
 constexpr double kCapThickness = 1.5;  // m: loads act on the top of the cap
-constexpr double kPi = 3.14159265358979323846;
+constexpr double kPi = std::numbers::pi;
 
 // The one comparison helper: `relative` is the margin the comparison allows (say why beside
 // each use), `absolute` covers values that are exactly zero.

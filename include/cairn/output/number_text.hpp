@@ -1,9 +1,9 @@
 // number_text.hpp — numbers and counts written for a reader, the same way in every output.
 //
-// Fixed decimals (fixed_text, general_text) and the quantities with their units and
-// decimals live in core/quantity_format.hpp, the one place for them. Counts agree with their noun ("1 combination",
-// "2 combinations"). Values below what a format can show (round-off such as a rotation of
-// 1e-19 rad) print as 0.
+// Fixed decimals (fixed_text, general_text) and the quantities with their units and decimals
+// live in core/quantity_format.hpp, the one place for them. Counts agree with their noun
+// ("1 combination", "2 combinations"). Values below what a format can show (round-off such as
+// a rotation of 1e-19 rad) print as 0.
 #pragma once
 
 #include <cstddef>

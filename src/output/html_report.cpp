@@ -79,7 +79,9 @@ std::string list_html(const std::vector<std::string>& items) {
 std::string eq(const std::string& text) { return "<div class=\"eq\">" + esc(text) + "</div>\n"; }
 
 std::string units_text(UnitSystem u) {
-  return u == UnitSystem::SI ? "SI (kN, m, kPa, kN·m)" : "US (kip, ft, ksf, kip·ft)";
+  const QuantityFormat f(u);
+  return fmt::format("{} ({}, {}, {}, {})", to_string(u), f.label(Shown::force),
+                     f.label(Shown::length), f.label(Shown::pressure), f.label(Shown::moment));
 }
 
 // ---- Sections ---------------------------------------------------------------------------

@@ -6,7 +6,8 @@
 // International System of Units", Appendix B: 1 ft = 0.3048 m (exact), 1 in = 0.0254 m
 // (exact), 1 lbf = 4.448 221 615 260 5 N (exact: 0.453 592 37 kg × 9.806 65 m/s²),
 // 1 kip = 1000 lbf, 1 ton-force (2000 lb) = 8.896 443 kN (B.8, 7 digits), 1 kilogram-force
-// = 9.806 65 N (exact), 1 lbf/ft² = 47.880 26 Pa (B.8), 1 lbf/ft³ = 157.087 5 N/m³ (B.8).
+// = 9.806 65 N (exact). Derived factors (tsf, pcf, ft²) are computed by hand from the exact
+// definitions; the B.8 values quoted beside them are from memory.
 // The precisions are cairn's own choice (docs/user-guide.md, "Units and precision").
 #include <catch2/catch.hpp>
 
@@ -35,8 +36,9 @@ TEST_CASE("unit factors are the exact definitions of NIST SP 811", "[quantity_fo
   CHECK(unit_si::short_ton_force == Approx(8.896443).epsilon(1e-7));
   // NIST SP 811 (2008), Appendix B.8: kilogram-force = 9.806 65 N exactly; tonne-force 1000 kgf.
   CHECK(unit_si::tonne_force == 9.80665);
-  // 1 tsf = 2000 lbf/ft² = 2000 × 47.880 26 Pa (NIST SP 811 (2008), B.8, pound-force per
-  // square foot) = 95.760 52 kPa.
+  // 1 tsf = 2000 lbf/ft² = 2000 × 4.448 221 615 260 5 N / 0.092 903 04 m² = 95.760 52 kPa
+  // (hand-derived from the exact definitions; NIST SP 811 (2008), B.8 lists 1 lbf/ft² as
+  // 47.880 26 Pa, from memory).
   CHECK(unit_si::ton_per_square_foot == Approx(95.76052).epsilon(1e-7));
 }
 
@@ -131,10 +133,10 @@ TEST_CASE("values in the project's unit", "[quantity_format][published]") {
   CHECK(us.value(Shown::force, 1.0) == Approx(1.0 / 4.4482216152605).epsilon(1e-12));
   // 1 m = 1/0.3048 ft = 3.280 840 ft (NIST SP 811 (2008), B.8, exact foot).
   CHECK(us.value(Shown::length, 1.0) == Approx(3.280839895).epsilon(1e-9));
-  // 1 kN/m³ = 1000/157.087 464 pcf = 6.365 88 pcf (NIST SP 811 (2008), B.8: 1 lbf/ft³ =
-  // 157.087 5 N/m³; exact value 4.448 221 615 260 5 / 0.3048³).
+  // 1 kN/m³ = 1000/157.087 464 pcf = 6.365 88 pcf (hand-derived: 1 lbf/ft³ =
+  // 4.448 221 615 260 5 N / 0.3048³ m³ = 157.087 464 N/m³, exact definitions of NIST SP 811).
   CHECK(us.value(Shown::unit_weight, 1.0) ==
         Approx(0.3048 * 0.3048 * 0.3048 / 4.4482216152605e-3).epsilon(1e-12));
-  // 1 m² = 10.763 91 ft² (NIST SP 811 (2008), B.8: 1 ft² = 9.290 304 E-02 m² exactly).
+  // 1 m² = 10.763 91 ft² (hand-derived: 1 ft² = 0.3048² m² = 0.092 903 04 m² exactly).
   CHECK(us.value(Shown::area, 1.0) == Approx(1.0 / 0.09290304).epsilon(1e-12));
 }

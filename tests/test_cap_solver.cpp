@@ -11,6 +11,7 @@
 #include <array>
 #include <cmath>
 #include <cstddef>
+#include <numbers>
 #include <optional>
 #include <random>
 #include <stdexcept>
@@ -472,7 +473,7 @@ TEST_CASE("cap_solver: solve_combinations agrees with solving each combination d
         project.piles.back().batter =
             cairn::Batter{-springs[i].axis[2] / horizontal,
                           std::atan2(springs[i].axis[1], springs[i].axis[0]) * 180.0 /
-                              3.14159265358979323846};
+                              std::numbers::pi};
     }
     for (int c = 0; c < 4; ++c) {
       cairn::LoadCase lc;
@@ -639,7 +640,7 @@ TEST_CASE("cap_solver: compression-only piles with lateral springs settle", "[ca
     for (int i = -3; i <= 3; ++i)
       for (int j = -3; j <= 3; ++j) {
         const bool edge = std::abs(i) == 3 || std::abs(j) == 3;
-        const auto axis = edge ? batter_axis(6.0, std::atan2(j, i) * 180.0 / 3.14159265358979323846)
+        const auto axis = edge ? batter_axis(6.0, std::atan2(j, i) * 180.0 / std::numbers::pi)
                                : std::array<double, 3>{0.0, 0.0, -1.0};
         springs.push_back(spring(1.2 * i, 1.2 * j, 3e5, edge ? 1.5e4 : 2e4, !edge, axis));
       }
@@ -705,7 +706,7 @@ TEST_CASE("cap_solver: a symmetric group under a centric load shares it equally"
           "[cap_solver]") {
   // Eight piles on a circle of radius 2 m, battered 1H:5V radially outward, compression-only.
   // Cheap invariant (common practice): symmetric layout + centric load → equal pile forces.
-  const double pi = 3.14159265358979323846;
+  const double pi = std::numbers::pi;
   for (double lateral : {0.0, 1e4}) {
     INFO("lateral stiffness " << lateral);
     std::vector<PileSpring> springs;

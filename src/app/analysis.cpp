@@ -13,7 +13,9 @@
 
 namespace cairn {
 
-CheckRun analyse_project(const std::string& file) { return analyse(read_project(file)); }
+CheckRun analyse_project(const std::string& file, const AnalysisOptions& options) {
+  return analyse(read_project(file), {}, options);
+}
 
 CheckRun analyse_project(Project project) { return analyse(std::move(project)); }
 
@@ -24,11 +26,17 @@ void scale(Resistance& r, double f) {
 }
 }  // namespace
 
-CheckRun analyse(Project project_in, const TypeAdjustments& adjust) {
+CheckRun analyse(Project project_in, const TypeAdjustments& adjust,
+                 const AnalysisOptions& options) {
   CheckRun run;
   run.project = std::move(project_in);
   const Project& project = run.project;
-  run.capacities = compute_capacities(project);
+  if (options.depth_tables) {
+    const DepthTableRange range = report_depth_table(project);
+    run.capacities = compute_capacities(project, range.step, range.from);
+  } else {
+    run.capacities = compute_capacities(project);
+  }
   run.stiffness = pile_type_stiffness(project, run.capacities);
   for (std::size_t t = 0; t < adjust.stiffness_factor.size() && t < run.stiffness.size(); ++t) {
     run.stiffness[t].axial *= adjust.stiffness_factor[t];
@@ -87,14 +95,14 @@ CheckRun analyse(Project project_in, const TypeAdjustments& adjust) {
 }
 
 std::vector<CapOutcome> analyse_projects(const std::vector<std::string>& files,
-                                         unsigned threads) {
+                                         unsigned threads, const AnalysisOptions& options) {
   std::vector<CapOutcome> outcomes(files.size());
   std::atomic<std::size_t> next{0};
   auto work = [&] {
     for (std::size_t i = next++; i < files.size(); i = next++) {
       outcomes[i].file = files[i];
       try {
-        outcomes[i].run = analyse_project(files[i]);
+        outcomes[i].run = analyse_project(files[i], options);
       } catch (const InputError& e) {
         outcomes[i].problems = e.diagnostics();
       } catch (const std::invalid_argument& e) {

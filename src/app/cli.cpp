@@ -85,11 +85,13 @@ std::string command_line_text(int argc, const char* const* argv) {
 
 // Every cap of the files given (foundation files expanded), analysed on all cores. Input
 // problems in any cap stop the run before anything is written.
-std::vector<CapOutcome> analyse_all(const std::vector<std::string>& given) {
+std::vector<CapOutcome> analyse_all(const std::vector<std::string>& given,
+                                    const AnalysisOptions& options = {}) {
   std::vector<std::string> files;
   for (const auto& f : given)
     for (const auto& cap : expand_foundation(f)) files.push_back(cap);
-  auto outcomes = analyse_projects(files, std::max(1u, std::thread::hardware_concurrency()));
+  auto outcomes =
+      analyse_projects(files, std::max(1u, std::thread::hardware_concurrency()), options);
   std::vector<Diagnostic> problems;
   for (const auto& o : outcomes) problems.insert(problems.end(), o.problems.begin(), o.problems.end());
   if (!problems.empty()) throw InputError(problems);
@@ -178,15 +180,6 @@ int run_check(const Options& options, std::ostream& out, std::ostream& err) {
   return run.results.summary.pass ? kExitPass : kExitFail;
 }
 
-// The capacity-with-depth table's default step and shortest length, m: 0.5 m from 3 m, or
-// 1 ft from 10 ft in a US project.
-struct DepthTable {
-  double step, from;
-};
-DepthTable default_depth_table(UnitSystem u) {
-  return u == UnitSystem::SI ? DepthTable{0.5, 3.0} : DepthTable{0.3048, 3.048};
-}
-
 // Refuses a --step or --from that is not a plausible length, or a table longer than
 // kMaxDepthRows rows (a step of 1e-9 m would otherwise run for days).
 void check_depth_table(const Project& project, const Options& options, double step, double from) {
@@ -222,7 +215,7 @@ int run_capacity(const Options& options, std::ostream& out, std::ostream& err) {
   const Project project = read_project(options.files.front());
   print_warnings(project, err);
   const UnitSystem u = project.units;
-  const DepthTable table = default_depth_table(u);
+  const DepthTableRange table = default_depth_table(u);
   const double step = options.depth_step ? *options.depth_step * to_si_factor(u, Quantity::length)
                                          : table.step;
   const double from = options.min_length ? *options.min_length * to_si_factor(u, Quantity::length)
@@ -257,7 +250,8 @@ int run_capacity(const Options& options, std::ostream& out, std::ostream& err) {
 // all written at once (app/package.hpp).
 int run_report(const Options& options, std::ostream& out, std::ostream& err) {
   if (!options.out_dir) throw InputError({}, "report: expected --out DIR for the report files");
-  const auto outcomes = analyse_all(options.files);
+  // The analysis builds the capacity-with-depth tables of the chart with the check.
+  const auto outcomes = analyse_all(options.files, AnalysisOptions{.depth_tables = true});
   for (const auto& o : outcomes) print_warnings(o.run->project, err);
   PackageRequest request;
   request.command = describe_options(options);

@@ -17,10 +17,6 @@ namespace {
 
 namespace fs = std::filesystem;
 
-// The capacity-with-depth table of the chart: 0.5 m from 3 m, or 1 ft from 10 ft.
-constexpr double kChartStepSi = 0.5, kChartFromSi = 3.0;
-constexpr double kChartStepUs = 0.3048, kChartFromUs = 3.048;
-
 // Letters and digits in lower case, other runs as one '-', at most 60 characters cut at a
 // word.
 std::string slug(const std::string& text) {
@@ -103,14 +99,16 @@ PackageFiles package_files(const std::vector<CapOutcome>& outcomes, const Packag
         i < request.pass_override.size() ? request.pass_override[i] : run.results.summary.pass;
     out.pass = out.pass && cap_pass;
     const CheckReport report = make_check_report(run, request.command, std::nullopt);
-    // Capacities again, with the capacity-with-depth table for the chart; a soil profile
-    // kilometres deep gets a longer step, not millions of rows.
-    const bool si = p.units == UnitSystem::SI;
-    const double from = si ? kChartFromSi : kChartFromUs;
-    const double longest = p.soil ? p.soil->depth() : 0.0;
-    const double step = std::max(si ? kChartStepSi : kChartStepUs,
-                                 (longest - from) / static_cast<double>(kMaxDepthRows - 1));
-    const auto capacities = compute_capacities(p, step, from);
+    // The capacity-with-depth tables of the chart come with the run (AnalysisOptions); a run
+    // made without them (the as-built cap of a survey) gets them here.
+    const bool tabled = std::any_of(run.capacities.begin(), run.capacities.end(),
+                                    [](const auto& c) { return !c.depth_table.empty(); });
+    const auto capacities = tabled || run.capacities.empty()
+                                ? run.capacities
+                                : [&] {
+                                    const DepthTableRange range = report_depth_table(p);
+                                    return compute_capacities(p, range.step, range.from);
+                                  }();
     const std::string& name = names[i];
     CapPackageInput input;
     input.report.check = &report;

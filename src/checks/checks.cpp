@@ -8,6 +8,7 @@
 
 #include <fmt/format.h>
 
+#include "cairn/core/quantity_format.hpp"
 #include "cairn/geotechnics/code_resistance.hpp"
 #include "cairn/geotechnics/lateral.hpp"
 #include "cairn/geotechnics/section_moment.hpp"
@@ -405,16 +406,14 @@ std::vector<std::string> assumptions(
       auto structural = [&](const Resistance& res, const char* basis) {
         if (!res.structural_axial) return;
         std::string text = fmt::format(
-            "Pile type {}: structural {} axial capacity {:.1f} {} ({} × the factor given)",
-            type.id, basis, from_si(u, Quantity::force, *res.structural_axial),
-            unit_label(u, Quantity::force),
+            "Pile type {}: structural {} axial capacity {} ({} × the factor given)",
+            type.id, basis, QuantityFormat(u).text(Shown::force, *res.structural_axial),
             type.structure && type.structure->concrete_strength
                 ? "Po = 0.85·f'c·(Ag − As) + fy·As, ACI 318-19 eq. 22.4.2.2"
                 : "fy·A of the steel section");
         if (res.structural_moment)
-          text += fmt::format(", moment capacity {:.1f} {}; fixed heads: |P|/Pc + |M|/Mc ≤ 1",
-                              from_si(u, Quantity::moment, *res.structural_moment),
-                              unit_label(u, Quantity::moment));
+          text += fmt::format(", moment capacity {}; fixed heads: |P|/Pc + |M|/Mc ≤ 1",
+                              QuantityFormat(u).text(Shown::moment, *res.structural_moment));
         list.push_back(text + ".");
       };
       structural(r.allowable, "allowable");

@@ -1,5 +1,6 @@
 #include "cairn/checks/group_checks.hpp"
 
+#include "cairn/core/quantity_format.hpp"
 #include "cairn/geotechnics/code_resistance.hpp"
 
 #include <algorithm>
@@ -16,9 +17,6 @@ namespace {
 // and 10.5.5.2.4-1 (drilled shafts, 0.55); group uplift 0.50 / 0.45 (from memory).
 constexpr double kPhiBlockDriven = 0.60, kPhiBlockBored = 0.55;
 constexpr double kPhiGroupUpliftDriven = 0.50, kPhiGroupUpliftBored = 0.45;
-// Tolerable total settlement when the file sets none: 25 mm (common practice, Terzaghi &
-// Peck for isolated footings).
-constexpr double kDefaultSettlementLimit = 0.025;
 // Lengths closer than this are equal (m): coordinates are given to the millimetre at best.
 constexpr double kSpacingTolerance = 1e-9;
 
@@ -193,7 +191,7 @@ GroupResults evaluate_group(const Project& project, const CheckResults& results,
   const std::size_t t = main_type(project);
   const PileType& type = project.pile_types[t];
   const bool bored = type.design.installation == Installation::bored;
-  out.block_factor_of_safety = type.design.safety_factor.value_or(kDefaultSafetyCompression);
+  out.block_factor_of_safety = type.design.safety_factor.value_or(kDefaultBlockSafety);
   out.block_resistance_factor = bored ? kPhiBlockBored : kPhiBlockDriven;
   const double tip = tip_depth(project);
   if (project.soil && tip <= project.soil->depth() + 1e-9) {
@@ -223,17 +221,16 @@ GroupResults evaluate_group(const Project& project, const CheckResults& results,
   }
   if (out.block)
     out.notes.push_back(fmt::format(
-        "Block capacity is divided by FS {:g} for service and multiplied by φ {:.2f} for strength "
+        "Block capacity is divided by FS {:g} for service and multiplied by φ {} for strength "
         "(AASHTO LRFD Table 10.5.5.2.{}-1, from memory).",
-        out.block_factor_of_safety, out.block_resistance_factor, bored ? 4 : 3));
+        out.block_factor_of_safety, QuantityFormat::code_factor(out.block_resistance_factor), bored ? 4 : 3));
 
   out.settlement_asked = g.settlement && project.soil.has_value();
   out.settlement_limit = g.settlement_limit.value_or(kDefaultSettlementLimit);
   if (out.settlement_asked && !g.settlement_limit)
     out.notes.push_back(fmt::format(
-        "Tolerable settlement {:.1f} {} (default, 25 mm; common practice for buildings).",
-        from_si(project.units, Quantity::small_length, kDefaultSettlementLimit),
-        unit_label(project.units, Quantity::small_length)));
+        "Tolerable settlement {} (default, 25 mm; common practice for buildings).",
+        QuantityFormat(project.units).text(Shown::displacement, kDefaultSettlementLimit)));
   std::optional<VesicPile> single;
   if (out.settlement_asked) single = vesic_pile(project, t, nullptr);
   if (out.settlement_asked && project.pile_types.size() > 1)

@@ -11,13 +11,13 @@
 namespace cairn {
 namespace {
 
-// Exact definitions (NIST SP 811, Appendix B).
-constexpr double kFoot = 0.3048;                  // m
-constexpr double kInch = 0.0254;                  // m
-constexpr double kPoundForce = 4.4482216152605e-3;  // kN
-constexpr double kKip = 1000.0 * kPoundForce;     // kN
-constexpr double kShortTonForce = 2000.0 * kPoundForce;  // kN (US ton, 2000 lbf)
-constexpr double kTonneForce = 9.80665;           // kN (metric tonne-force)
+// The units in SI (units.hpp).
+constexpr double kFoot = unit_si::foot;                   // m
+constexpr double kInch = unit_si::inch;                   // m
+constexpr double kPoundForce = unit_si::pound_force;      // kN
+constexpr double kKip = unit_si::kip;                     // kN
+constexpr double kShortTonForce = unit_si::short_ton_force;  // kN (US ton, 2000 lbf)
+constexpr double kTonneForce = unit_si::tonne_force;      // kN (metric tonne-force)
 
 // A unit as powers of force and length with a factor to kN and m.
 struct Dim {

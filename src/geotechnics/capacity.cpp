@@ -9,6 +9,7 @@
 #include <stdexcept>
 #include <utility>
 
+#include "cairn/core/defaults.hpp"
 #include "cairn/core/units.hpp"
 #include "cairn/geotechnics/methods.hpp"
 
@@ -27,9 +28,6 @@ constexpr double kTransitionDiameters = 10.0;
 // 1 tsf (FHWA-HI-97-013 quotes it as 2 ksf), from memory. cairn applies it by default to
 // shaft methods whose source gives no limit in sand (beta; meyerhof-spt on bored piles).
 constexpr double kMeyerhofShaftLimit = 1.0 * kTsf;
-// Default factors of safety (common practice): compression, tension.
-constexpr double kDefaultSafetyCompression = 2.5;
-constexpr double kDefaultSafetyTension = 3.0;
 // Shaft uplift in sand / compression shaft when the layer gives none (common practice,
 // from memory; ratios of about 0.5–0.8 are used in the trade).
 constexpr double kSandUpliftFactor = 2.0 / 3.0;

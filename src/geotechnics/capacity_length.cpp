@@ -8,6 +8,7 @@
 #include <fmt/format.h>
 
 #include "cairn/core/diagnostics.hpp"
+#include "cairn/core/quantity_format.hpp"
 #include "cairn/geotechnics/soil.hpp"
 
 namespace cairn {
@@ -156,7 +157,7 @@ void require_table_within_profile(const Project& project, double min_length,
   if (min_length <= longest + kDepthTolerance) return;
   const UnitSystem u = project.units;
   const char* unit = unit_label(u, Quantity::length);
-  auto length = [&](double v) { return fmt::format("{:g}", from_si(u, Quantity::length, v)); };
+  auto length = [&](double v) { return general_text(from_si(u, Quantity::length, v)); };
   throw InputError(
       {}, fmt::format("{}: expected a pile length whose tip lies within the soil profile (at "
                       "most {} {}: profile {} {} deep, pile heads {} {} below the ground), got "

@@ -4,12 +4,14 @@
 
 #include <algorithm>
 #include <cmath>
+#include <numbers>
 #include <array>
 #include <set>
 #include <stdexcept>
 
 #include <fmt/format.h>
 
+#include "cairn/core/quantity_format.hpp"
 #include "cairn/geotechnics/methods.hpp"
 
 namespace cairn {
@@ -208,7 +210,7 @@ Resistance code_set_resistance(const Project& project, std::size_t type, Resista
 }
 
 SoilProfile en1997_m2_profile(const SoilProfile& profile) {
-  constexpr double kDegree = 3.14159265358979323846 / 180.0;
+  constexpr double kDegree = std::numbers::pi / 180.0;
   auto factored_angle = [&](double degrees) {
     return std::atan(std::tan(degrees * kDegree) / kEn1997GammaPhi) / kDegree;
   };
@@ -272,8 +274,8 @@ std::vector<std::string> code_resistance_assumptions(
                                         std::pair{"tension", r.tension},
                                         std::pair{"lateral", r.lateral}}) {
         if (!value) continue;
-        values += fmt::format("{}{} {:.1f} {}", values.empty() ? "" : ", ", name,
-                              from_si(u, Quantity::force, *value), unit_label(u, Quantity::force));
+        values += fmt::format("{}{} {}", values.empty() ? "" : ", ", name,
+                              QuantityFormat(u).text(Shown::force, *value));
       }
       list.push_back(fmt::format("Pile type {}: {} resistances{}: {}.", project.pile_types[t].id,
                                  to_string(set), values.empty() ? "" : " " + values, r.source));

@@ -9,6 +9,7 @@
 #include <numbers>
 #include <stdexcept>
 
+#include "cairn/core/quantity_format.hpp"
 #include "cairn/core/units.hpp"
 
 namespace cairn {
@@ -18,15 +19,13 @@ constexpr double kPi = std::numbers::pi;
 // Depths closer than this are the same depth (m); guards against round-off in layer sums.
 constexpr double kDepthEpsilon = 1e-9;
 
-std::string number(double value, int decimals = 3) {
-  char buffer[64];
-  std::snprintf(buffer, sizeof buffer, "%.*f", decimals, value);
-  return buffer;
-}
+std::string number(double value, int decimals = 3) { return fixed_text(value, decimals); }
 
-// A length (m) in the project's units with its unit, for notes and reasons.
+// A length (m) in the project's units with its unit, for notes and reasons: three decimals
+// in both systems (spacings and offsets quoted to the millimetre or the thousandth of a foot).
 std::string length_text(double metres, UnitSystem units) {
-  return number(from_si(units, Quantity::length, metres)) + " " + unit_label(units, Quantity::length);
+  const QuantityFormat shown(units);
+  return number(shown.value(Shown::length, metres)) + " " + shown.label(Shown::length);
 }
 
 void add_unique(std::vector<std::string>& notes, const std::string& note) {
@@ -772,10 +771,10 @@ SettlementCheck check_settlement(double settlement, std::optional<double> limit,
   require(!limit || *limit > 0.0, "tolerable settlement must be positive");
   SettlementCheck check;
   check.settlement = settlement;
-  check.limit = limit.value_or(kTolerableSettlement);
+  check.limit = limit.value_or(kDefaultSettlementLimit);
   if (!limit)
     check.notes.push_back("tolerable settlement " +
-                          number(from_si(units, Quantity::small_length, kTolerableSettlement), 1) +
+                          number(from_si(units, Quantity::small_length, kDefaultSettlementLimit), 1) +
                           " " + unit_label(units, Quantity::small_length) +
                           " (25 mm; common practice, Terzaghi & Peck); not given in the project");
   check.ok = settlement <= check.limit;

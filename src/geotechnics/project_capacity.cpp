@@ -6,6 +6,7 @@
 
 #include <fmt/format.h>
 
+#include "cairn/core/quantity_format.hpp"
 #include "cairn/geotechnics/code_resistance.hpp"
 #include "cairn/core/diagnostics.hpp"
 #include "cairn/geotechnics/lateral.hpp"
@@ -73,6 +74,19 @@ SandBroms broms_sand_averaged(const SoilColumn& soil, double head, BromsInput in
 }
 
 }  // namespace
+
+DepthTableRange default_depth_table(UnitSystem units) {
+  return units == UnitSystem::SI ? DepthTableRange{0.5, 3.0}
+                                 : DepthTableRange{unit_si::foot, 10.0 * unit_si::foot};
+}
+
+DepthTableRange report_depth_table(const Project& project) {
+  DepthTableRange range = default_depth_table(project.units);
+  // A soil profile kilometres deep gets a longer step, not millions of rows.
+  const double longest = project.soil ? project.soil->depth() : 0.0;
+  range.step = std::max(range.step, (longest - range.from) / (kMaxDepthRows - 1));
+  return range;
+}
 
 std::vector<PileTypeCapacity> compute_capacities(const Project& project, double depth_step,
                                                  double min_length) {
@@ -162,20 +176,18 @@ std::vector<std::optional<LateralCapacity>> lateral_capacities(
       c.ultimate = b.ultimate_load;
       c.allowable = allowable_lateral_load(b.ultimate_load);
       c.factored = kBromsResistanceFactor * b.ultimate_load;
-      c.method = fmt::format("Broms (1964), {} pile, {} head, in layer '{}': H_ult = {:.1f} {}, "
+      c.method = fmt::format("Broms (1964), {} pile, {} head, in layer '{}': H_ult = {}, "
                              "allowable H_ult/{:g}, factored {:g}·H_ult",
                              to_string(b.mode), to_string(type.head), layer->name,
-                             from_si(project.units, Quantity::force, b.ultimate_load),
-                             unit_label(project.units, Quantity::force), kLateralFactorOfSafety,
+                             QuantityFormat(project.units).text(Shown::force, b.ultimate_load),
+                             kLateralFactorOfSafety,
                              kBromsResistanceFactor);
       c.method += "; " + my.basis;
       if (sand && sand->depth > 0.0)
         c.method += fmt::format(
-            "; γ' = {:.2f} {} averaged over the top {:.2f} {} ({}), with the water table",
-            from_si(project.units, Quantity::unit_weight, sand->unit_weight),
-            unit_label(project.units, Quantity::unit_weight),
-            from_si(project.units, Quantity::length, sand->depth),
-            unit_label(project.units, Quantity::length),
+            "; γ' = {} averaged over the top {} ({}), with the water table",
+            QuantityFormat(project.units).text(Shown::unit_weight, sand->unit_weight),
+            QuantityFormat(project.units).text(Shown::depth, sand->depth),
             sand->result.mode == BromsMode::long_pile ? "to the maximum moment"
                                                       : "the embedded length");
       out[t] = c;

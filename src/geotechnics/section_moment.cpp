@@ -12,6 +12,8 @@
 
 #include <fmt/format.h>
 
+#include "cairn/core/quantity_format.hpp"
+
 namespace cairn {
 namespace {
 
@@ -158,9 +160,7 @@ double concrete_moment_one_layout(const ReinforcedSection& s, BendingAxis axis,
   return std::max(concrete_forces(s, axis, depths, c).second, 0.0);
 }
 
-std::string number(UnitSystem units, Quantity q, double si) {
-  return fmt::format("{:.1f} {}", from_si(units, q, si), unit_label(units, q));
-}
+std::string number(UnitSystem units, Shown q, double si) { return QuantityFormat(units).text(q, si); }
 
 }  // namespace
 
@@ -236,8 +236,8 @@ SectionYieldMoment section_yield_moment(const PileType& type,
                                         const std::optional<AxialRange>& axial,
                                         UnitSystem units) {
   SectionYieldMoment out;
-  const auto moment_text = [&](double si) { return number(units, Quantity::moment, si); };
-  const auto force_text = [&](double si) { return number(units, Quantity::force, si); };
+  const auto moment_text = [&](double si) { return number(units, Shown::moment, si); };
+  const auto force_text = [&](double si) { return number(units, Shown::force, si); };
   if (type.structure && type.structure->yield_moment) {
     out.value = type.structure->yield_moment;
     out.basis = "My = " + moment_text(*out.value) + " (structure.yield_moment)";
@@ -316,9 +316,9 @@ SectionYieldMoment section_yield_moment(const PileType& type,
       return out;
     }
     out.basis = fmt::format("My = Mn = {} from f'c and {} bars by strain compatibility with the "
-                            "ACI 318-19 rectangular stress block (β1 = {:.2f}){}, {}",
+                            "ACI 318-19 rectangular stress block (β1 = {}){}, {}",
                             moment_text(*out.value), *st.bar_count,
-                            stress_block_beta1(*st.concrete_strength), axis_words(), place());
+                            QuantityFormat::code_factor(stress_block_beta1(*st.concrete_strength)), axis_words(), place());
     return out;
   }
   if (st.steel_yield) {

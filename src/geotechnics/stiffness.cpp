@@ -6,6 +6,7 @@
 
 #include <fmt/format.h>
 
+#include "cairn/core/quantity_format.hpp"
 #include "cairn/geotechnics/group.hpp"
 #include "cairn/geotechnics/lateral.hpp"
 #include "cairn/solver/beam_column.hpp"
@@ -35,8 +36,7 @@ std::optional<Subgrade> subgrade_modulus(const SoilLayer& layer, const PileType&
   const double d = type.section.width;
   // kh in the project's units: kN/m³ or pcf.
   auto kh_text = [&](double kh) {
-    return fmt::format("{:.0f} {}", from_si(units, Quantity::unit_weight, kh),
-                       unit_label(units, Quantity::unit_weight));
+    return QuantityFormat(units).text(Shown::subgrade, kh);
   };
   if (layer.subgrade_modulus)
     return Subgrade{*layer.subgrade_modulus,
@@ -182,11 +182,9 @@ std::vector<PileTypeStiffness> pile_type_stiffness(const Project& project,
             const SecantStiffness k = axial_head_stiffness(*pile, q, tip_ult, shaft_ult);
             s.axial = k.stiffness;
             s.axial_source = fmt::format(
-                "secant Q/s from Vesić (1977) settlement at the allowable load: {:.1f} {} over "
-                "{:.3f} {}",
-                from_si(u, Quantity::force, q), unit_label(u, Quantity::force),
-                from_si(u, Quantity::small_length, k.settlement),
-                unit_label(u, Quantity::small_length));
+                "secant Q/s from Vesić (1977) settlement at the allowable load: {} over {}",
+                QuantityFormat(u).text(Shown::force, q),
+                QuantityFormat(u).text(Shown::displacement, k.settlement));
           }
         } else {
           s.axial_source += "; the soil profile lacks soil_modulus for a settlement-based value";

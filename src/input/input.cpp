@@ -14,6 +14,7 @@
 
 #include <fmt/format.h>
 
+#include "cairn/core/quantity_format.hpp"
 #include "cairn/geotechnics/capacity.hpp"
 #include "cairn/input/combinations.hpp"
 #include "cairn/geotechnics/group.hpp"
@@ -1098,11 +1099,9 @@ class Reader {
       const double touching = 0.5 * (project.pile_types[a.type].section.width +
                                      project.pile_types[b.type].section.width);
       diag_.error(b.where, fmt::format(
-          "{}: piles '{}' and '{}' overlap: centres {:.3f} {} apart, closer than their "
-          "width ({:.3f} {})",
-          where, a.id, b.id, from_si(u, Quantity::length, distance),
-          unit_label(u, Quantity::length), from_si(u, Quantity::length, touching),
-          unit_label(u, Quantity::length)));
+          "{}: piles '{}' and '{}' overlap: centres {} apart, closer than their width ({})",
+          where, a.id, b.id, QuantityFormat(u).text(Shown::length, distance),
+          QuantityFormat(u).text(Shown::length, touching)));
     }
     if (same > kShownConflicts)
       diag_.error(at(list), fmt::format("piles: … and {} more piles at positions already used",

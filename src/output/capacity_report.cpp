@@ -13,45 +13,29 @@ namespace {
 
 using nlohmann::json;
 
-struct Fmt {
-  UnitSystem u;
-  std::string force(double v) const {
-    return fixed_text(from_si(u, Quantity::force, v), u == UnitSystem::SI ? 1 : 2);
-  }
-  std::string length(double v) const {
-    return fixed_text(from_si(u, Quantity::length, v), u == UnitSystem::SI ? 2 : 1);
-  }
-  std::string pressure(double v) const {
-    return fixed_text(from_si(u, Quantity::pressure, v), u == UnitSystem::SI ? 1 : 3);
-  }
-  const char* f() const { return unit_label(u, Quantity::force); }
-  const char* l() const { return unit_label(u, Quantity::length); }
-  const char* p() const { return unit_label(u, Quantity::pressure); }
-};
-
-std::string tip_line(const TipDetails& t, const Fmt& f) {
+std::string tip_line(const TipDetails& t, const QuantityFormat& f) {
   std::string text = fmt::format("method {} in '{}' at {} {} below ground: q' = {} {}",
-                                 t.method, t.layer, f.length(t.depth), f.l(),
-                                 f.pressure(t.q_prime), f.p());
-  auto add = [&](const char* name, const std::optional<double>& v, const char* pattern) {
-    if (v) text += fmt::format(", {} = {}", name, fmt::format(fmt::runtime(pattern), *v));
+                                 t.method, t.layer, f.depth(t.depth), f.label(Shown::depth),
+                                 f.pressure(t.q_prime), f.label(Shown::pressure));
+  auto add = [&](const char* name, const std::optional<double>& v, Shown shown) {
+    if (v) text += fmt::format(", {} = {}", name, QuantityFormat::plain(shown, *v));
   };
-  if (t.sigma_o) text += fmt::format(", σ'o = {} {}", f.pressure(*t.sigma_o), f.p());
-  add("K0", t.k0, "{:.3f}");
-  add("μs", t.poisson_ratio, "{:.3f}");
-  add("Δ", t.volumetric_strain, "{:.5f}");
-  add("Ir", t.rigidity_index, "{:.1f}");
-  add("Irr", t.reduced_rigidity_index, "{:.1f}");
-  add("N*σ", t.n_sigma, "{:.2f}");
-  add("N*c", t.n_c, "{:.2f}");
-  add("N*q", t.n_q, "{:.1f}");
-  add("reduction", t.reduction, "{:.3f}");
-  add("bored", t.bored_factor, "{:.3f}");
-  if (t.limit) text += fmt::format(", limit = {} {} ({})", f.pressure(*t.limit), f.p(), t.limit_source);
+  if (t.sigma_o) text += fmt::format(", σ'o = {} {}", f.pressure(*t.sigma_o), f.label(Shown::pressure));
+  add("K0", t.k0, Shown::factor);
+  add("μs", t.poisson_ratio, Shown::factor);
+  add("Δ", t.volumetric_strain, Shown::strain);
+  add("Ir", t.rigidity_index, Shown::index);
+  add("Irr", t.reduced_rigidity_index, Shown::index);
+  add("N*σ", t.n_sigma, Shown::bearing_factor);
+  add("N*c", t.n_c, Shown::bearing_factor);
+  add("N*q", t.n_q, Shown::index);
+  add("reduction", t.reduction, Shown::factor);
+  add("bored", t.bored_factor, Shown::factor);
+  if (t.limit) text += fmt::format(", limit = {} {} ({})", f.pressure(*t.limit), f.label(Shown::pressure), t.limit_source);
   if (t.layer_unit_tip)
     text += fmt::format(", the layer's own q_p = {} {} before the transition near a boundary",
-                        f.pressure(*t.layer_unit_tip), f.p());
-  text += fmt::format("; unit tip q_p = {} {}{}", f.pressure(t.unit_tip), f.p(),
+                        f.pressure(*t.layer_unit_tip), f.label(Shown::pressure));
+  text += fmt::format("; unit tip q_p = {} {}{}", f.pressure(t.unit_tip), f.label(Shown::pressure),
                       t.limited ? " (limited by " + t.governed_by + ")"
                                 : (t.limit ? " (limit not reached)" : " (no limit)"));
   return text;
@@ -64,26 +48,26 @@ const PileTypeLength* length_for(const std::vector<PileTypeLength>& lengths, std
 }
 
 // "1200.0 kN compression and 300.0 kN tension (allowable)"
-std::string need_text(const LengthNeed& need, const Fmt& f) {
+std::string need_text(const LengthNeed& need, const QuantityFormat& f) {
   std::string text;
-  if (need.compression) text += fmt::format("{} {} compression", f.force(*need.compression), f.f());
+  if (need.compression) text += fmt::format("{} {} compression", f.force(*need.compression), f.label(Shown::force));
   if (need.tension)
     text += fmt::format("{}{} {} tension", text.empty() ? "" : " and ", f.force(*need.tension),
-                        f.f());
+                        f.label(Shown::force));
   return text + fmt::format(" ({})", to_string(need.basis));
 }
 
 // A depth below the ground, with its elevation when the profile gives the datum.
-std::string depth_text(const SoilProfile& soil, double depth, const Fmt& f) {
-  std::string text = fmt::format("{} {} below the ground", f.length(depth), f.l());
+std::string depth_text(const SoilProfile& soil, double depth, const QuantityFormat& f) {
+  std::string text = fmt::format("{} {} below the ground", f.depth(depth), f.label(Shown::depth));
   if (const auto elevation = tip_elevation(soil, depth))
-    text += fmt::format(" (elevation {} {})", f.length(*elevation), f.l());
+    text += fmt::format(" (elevation {} {})", f.depth(*elevation), f.label(Shown::depth));
   return text;
 }
 
 // The answer to "what length do I need", in plain words (one or more lines, no prefix).
 std::vector<std::string> length_lines(const Project& project, const PileType& type,
-                                      const LengthChoice& c, const Fmt& f) {
+                                      const LengthChoice& c, const QuantityFormat& f) {
   std::vector<std::string> lines;
   const LengthNeed& need = c.need;
   const std::string asked = "Length needed for " + need_text(need, f) + ": ";
@@ -91,9 +75,9 @@ std::vector<std::string> length_lines(const Project& project, const PileType& ty
     std::string longest;
     if (c.longest)
       longest = fmt::format(" (the longest, {} {}, gives {} compression {} {}, tension {} {})",
-                            f.length(c.longest->length), f.l(), to_string(need.basis),
-                            f.force(compression_on(*c.longest, need.basis)), f.f(),
-                            f.force(tension_on(*c.longest, need.basis)), f.f());
+                            f.depth(c.longest->length), f.label(Shown::depth), to_string(need.basis),
+                            f.force(compression_on(*c.longest, need.basis)), f.label(Shown::force),
+                            f.force(tension_on(*c.longest, need.basis)), f.label(Shown::force));
     lines.push_back(asked + "no length within the soil profile meets it" + longest);
     return lines;
   }
@@ -101,11 +85,11 @@ std::vector<std::string> length_lines(const Project& project, const PileType& ty
   std::string capacities;
   if (need.compression)
     capacities += fmt::format("{} compression {} {}", to_string(need.basis),
-                              f.force(compression_on(row, need.basis)), f.f());
+                              f.force(compression_on(row, need.basis)), f.label(Shown::force));
   if (need.tension)
     capacities += fmt::format("{}{} tension {} {}", capacities.empty() ? "" : ", ",
-                              to_string(need.basis), f.force(tension_on(row, need.basis)), f.f());
-  lines.push_back(asked + fmt::format("length {} {}, tip {} in '{}'; {}", f.length(*c.length), f.l(),
+                              to_string(need.basis), f.force(tension_on(row, need.basis)), f.label(Shown::force));
+  lines.push_back(asked + fmt::format("length {} {}, tip {} in '{}'; {}", f.depth(*c.length), f.label(Shown::depth),
                                       depth_text(*project.soil, row.tip_depth, f), c.tip_layer,
                                       capacities));
   if (c.at_shortest)
@@ -113,44 +97,44 @@ std::vector<std::string> length_lines(const Project& project, const PileType& ty
                     "may too");
   else
     lines.push_back(fmt::format("  found in the table, then refined by bisection to {} {}",
-                                f.length(c.resolution), f.l()));
+                                f.depth(c.resolution), f.label(Shown::depth)));
   if (c.next_boundary)
     lines.push_back(fmt::format(
-        "  next layer boundary to watch: top of '{}' at {}, {} {} ({:.1f} pile widths) below "
+        "  next layer boundary to watch: top of '{}' at {}, {} {} ({} pile widths) below "
         "the tip",
         c.next_layer, depth_text(*project.soil, *c.next_boundary, f),
-        f.length(*c.next_boundary - row.tip_depth), f.l(),
-        (*c.next_boundary - row.tip_depth) / type.section.width));
+        f.depth(*c.next_boundary - row.tip_depth), f.label(Shown::depth),
+        QuantityFormat::index((*c.next_boundary - row.tip_depth) / type.section.width)));
   else
     lines.push_back("  no layer boundary below the tip: the profile's base is the limit of the "
                     "information");
   // Meyerhof (1976): a tip develops its full resistance about 10 D into a stronger layer.
   if (c.tip_layer_top && row.tip_depth - *c.tip_layer_top < 10.0 * type.section.width)
     lines.push_back(fmt::format(
-        "  caution: the tip is only {} {} ({:.1f} pile widths) below the top of '{}' at {}; "
+        "  caution: the tip is only {} {} ({} pile widths) below the top of '{}' at {}; "
         "check the bearing layer's top and the resistance near it (Meyerhof 1976: the full tip "
         "resistance develops over about 10 widths into a stronger layer)",
-        f.length(row.tip_depth - *c.tip_layer_top), f.l(),
-        (row.tip_depth - *c.tip_layer_top) / type.section.width, c.tip_layer,
+        f.depth(row.tip_depth - *c.tip_layer_top), f.label(Shown::depth),
+        QuantityFormat::index((row.tip_depth - *c.tip_layer_top) / type.section.width), c.tip_layer,
         depth_text(*project.soil, *c.tip_layer_top, f)));
   if (c.falls_short_again)
     lines.push_back(fmt::format(
         "  caution: a longer pile of {} {} falls short again (capacity with depth drops, e.g. "
         "a tip entering a weaker layer); read the table",
-        f.length(*c.falls_short_again), f.l()));
+        f.depth(*c.falls_short_again), f.label(Shown::depth)));
   return lines;
 }
 
 // The capacity-with-depth table with ultimate, allowable and factored capacities; the tip
 // elevation when the datum is known; the pile type's id first when `with_type`.
-Table depth_table(const Project& project, const PileTypeCapacity& c, const Fmt& f,
+Table depth_table(const Project& project, const PileTypeCapacity& c, const QuantityFormat& f,
                   const LengthChoice* choice, bool with_type) {
   const bool datum = project.soil && project.soil->ground_level.has_value();
   Table t;
   if (with_type) t.headers.push_back("pile type");
-  t.headers.push_back(fmt::format("length ({})", f.l()));
-  t.headers.push_back(fmt::format("tip depth ({})", f.l()));
-  if (datum) t.headers.push_back(fmt::format("tip elevation ({})", f.l()));
+  t.headers.push_back(fmt::format("length ({})", f.label(Shown::depth)));
+  t.headers.push_back(fmt::format("tip depth ({})", f.label(Shown::depth)));
+  if (datum) t.headers.push_back(fmt::format("tip elevation ({})", f.label(Shown::depth)));
   // Text and Markdown shorten the names (C compression, T tension; a legend follows).
   static constexpr std::array<const char*, 8> kLong = {
       "tip", "shaft", "ultimate compression", "ultimate tension", "allowable compression",
@@ -159,7 +143,7 @@ Table depth_table(const Project& project, const PileTypeCapacity& c, const Fmt& 
       "tip", "shaft", "ultimate C", "ultimate T", "allowable C", "allowable T", "factored C",
       "factored T"};
   for (const char* name : with_type ? kLong : kShort)
-    t.headers.push_back(fmt::format("{} ({})", name, f.f()));
+    t.headers.push_back(fmt::format("{} ({})", name, f.label(Shown::force)));
   if (choice) t.headers.push_back("meets need");
   t.headers.push_back("note");  // a transition near a boundary or a tip limit shaping the row
   t.numeric.assign(t.headers.size(), true);
@@ -169,9 +153,9 @@ Table depth_table(const Project& project, const PileTypeCapacity& c, const Fmt& 
   for (const auto& row : c.depth_table) {
     std::vector<std::string> cells;
     if (with_type) cells.push_back(project.pile_types[c.type].id);
-    cells.push_back(f.length(row.length));
-    cells.push_back(f.length(row.tip_depth));
-    if (datum) cells.push_back(f.length(*tip_elevation(*project.soil, row.tip_depth)));
+    cells.push_back(f.depth(row.length));
+    cells.push_back(f.depth(row.tip_depth));
+    if (datum) cells.push_back(f.depth(*tip_elevation(*project.soil, row.tip_depth)));
     for (double v : {row.tip, row.shaft, row.ultimate, row.tension, row.allowable_compression,
                      row.allowable_tension, row.factored_compression, row.factored_tension})
       cells.push_back(f.force(v));
@@ -186,7 +170,7 @@ Table depth_table(const Project& project, const PileTypeCapacity& c, const Fmt& 
 // the notes and the caution as comment lines.
 std::string capacities_csv(const Project& project, const std::vector<PileTypeCapacity>& capacities,
                            const std::vector<PileTypeLength>& lengths, const std::string& options) {
-  const Fmt f{project.units};
+  const QuantityFormat f(project.units);
   std::string out;
   Table all;
   for (const auto& c : capacities) {
@@ -340,7 +324,7 @@ std::string render_capacities(const Project& project,
   if (format == Format::json)
     return capacities_json(project, capacities, options, lengths).dump(2) + "\n";
   if (format == Format::csv) return capacities_csv(project, capacities, lengths, options);
-  const Fmt f{project.units};
+  const QuantityFormat f(project.units);
   const bool md = format == Format::markdown;
   std::string out =
       md ? fmt::format("# Pile capacity: {}\n\n- tool: cairn {}\n- input: `{}`\n- command: `{}`\n\n",
@@ -356,39 +340,39 @@ std::string render_capacities(const Project& project,
     const std::string head = fmt::format(
         "Pile type {}: {}, {} {} {}, length {} {}, head {} {} below ground", type.id,
         to_string(type.design.installation), to_string(type.section.shape),
-        f.length(type.section.width), f.l(), f.length(type.length), f.l(),
-        f.length(project.cap.depth), f.l());
+        f.depth(type.section.width), f.label(Shown::depth), f.depth(type.length), f.label(Shown::depth),
+        f.depth(project.cap.depth), f.label(Shown::depth));
     out += md ? "## " + head + "\n\n" : head + "\n";
     Table layers;
     layers.title = md ? "" : "Shaft resistance by layer";
-    layers.headers = {"layer", fmt::format("from ({})", f.l()), fmt::format("to ({})", f.l()),
-                      "method", fmt::format("mean unit ({})", f.p()),
-                      fmt::format("shaft ({})", f.f()), fmt::format("uplift ({})", f.f())};
+    layers.headers = {"layer", fmt::format("from ({})", f.label(Shown::depth)), fmt::format("to ({})", f.label(Shown::depth)),
+                      "method", fmt::format("mean unit ({})", f.label(Shown::pressure)),
+                      fmt::format("shaft ({})", f.label(Shown::force)), fmt::format("uplift ({})", f.label(Shown::force))};
     layers.numeric = {false, true, true, false, true, true, true};
     for (const auto& l : r.layers)
-      layers.rows.push_back({l.name, f.length(l.top), f.length(l.bottom), l.method,
+      layers.rows.push_back({l.name, f.depth(l.top), f.depth(l.bottom), l.method,
                              f.pressure(l.unit_average) + (l.limited ? " (limited)" : ""),
                              f.force(l.shaft), f.force(l.uplift)});
     out += render_table(layers, format == Format::markdown ? Format::markdown : Format::text);
     const std::string in = md ? "- " : "  ";
-    out += in + "Tip: " + tip_line(r.tip_details, f) + fmt::format("; Q_tip = {} {}\n", f.force(r.tip), f.f());
+    out += in + "Tip: " + tip_line(r.tip_details, f) + fmt::format("; Q_tip = {} {}\n", f.force(r.tip), f.label(Shown::force));
     for (const auto& l : r.layers)
       if (l.limit)
         out += in + fmt::format("Shaft limit in '{}': unit friction ≤ {} {} ({}); {}\n", l.name,
-                                f.pressure(*l.limit), f.p(), l.limit_source,
+                                f.pressure(*l.limit), f.label(Shown::pressure), l.limit_source,
                                 l.limited ? "governed" : "not reached");
     out += in + fmt::format("Ultimate compression = tip + shaft = {} + {} = {} {}\n", f.force(r.tip),
-                            f.force(r.shaft), f.force(r.ultimate_compression), f.f());
+                            f.force(r.shaft), f.force(r.ultimate_compression), f.label(Shown::force));
     out += in + fmt::format("Ultimate tension = shaft in tension + effective pile weight = {} + {} = {} {}\n",
                             f.force(r.uplift_shaft), f.force(r.pile_weight),
-                            f.force(r.ultimate_tension), f.f());
+                            f.force(r.ultimate_tension), f.label(Shown::force));
     out += in + fmt::format("Allowable: compression {} {} (FS tip {:g}, shaft {:g}), tension {} {} (FS {:g})\n",
-                            f.force(r.allowable_compression), f.f(), r.safety_factor_tip,
-                            r.safety_factor_shaft, f.force(r.allowable_tension), f.f(),
+                            f.force(r.allowable_compression), f.label(Shown::force), r.safety_factor_tip,
+                            r.safety_factor_shaft, f.force(r.allowable_tension), f.label(Shown::force),
                             r.safety_factor_tension);
     out += in + fmt::format("Factored: compression {} {} (φ tip {:g}, φ shaft {:.3g}), tension {} {} (φ uplift {:.3g})\n",
-                            f.force(r.factored_compression), f.f(), r.phi_tip, r.phi_shaft,
-                            f.force(r.factored_tension), f.f(), r.phi_uplift);
+                            f.force(r.factored_compression), f.label(Shown::force), r.phi_tip, r.phi_shaft,
+                            f.force(r.factored_tension), f.label(Shown::force), r.phi_uplift);
     for (const auto& note : r.notes) out += in + "Note: " + note + "\n";
     const PileTypeLength* needed = length_for(lengths, c.type);
     if (needed) out += "\n";

@@ -18,28 +18,6 @@ namespace {
 
 std::string esc(const std::string& s) { return xml_escape(s); }
 
-// Numbers in the project's units, with the precision report.cpp uses for each quantity.
-class Units {
- public:
-  explicit Units(UnitSystem system) : u_(system) {}
-  std::string label(Quantity q) const { return unit_label(u_, q); }
-  double value(Quantity q, double si) const { return from_si(u_, q, si); }
-  std::string force(double si) const { return fixed(value(Quantity::force, si), si_ ? 1 : 2); }
-  std::string length(double si) const { return fixed(value(Quantity::length, si), si_ ? 3 : 2); }
-  std::string moment(double si) const { return fixed(value(Quantity::moment, si), si_ ? 1 : 2); }
-  std::string pressure(double si) const { return fixed(value(Quantity::pressure, si), si_ ? 1 : 3); }
-  std::string area(double si) const {
-    const double f = to_si_factor(u_, Quantity::length);
-    return fixed(si / (f * f), 4);
-  }
-  std::string area_label() const { return label(Quantity::length) + std::string("²"); }
-
- private:
-  static std::string fixed(double v, int digits) { return fixed_text(v, digits); }
-  UnitSystem u_;
-  bool si_ = u_ == UnitSystem::SI;
-};
-
 const char* kStyle = R"(
 :root { --ok: #1e7b34; --fail: #b3261e; }
 body { font-family: Helvetica, Arial, sans-serif; font-size: 10.5pt; color: #111;
@@ -101,7 +79,9 @@ std::string list_html(const std::vector<std::string>& items) {
 std::string eq(const std::string& text) { return "<div class=\"eq\">" + esc(text) + "</div>\n"; }
 
 std::string units_text(UnitSystem u) {
-  return u == UnitSystem::SI ? "SI (kN, m, kPa, kN·m)" : "US (kip, ft, ksf, kip·ft)";
+  const QuantityFormat f(u);
+  return fmt::format("{} ({}, {}, {}, {})", to_string(u), f.label(Shown::force),
+                     f.label(Shown::length), f.label(Shown::pressure), f.label(Shown::moment));
 }
 
 // ---- Sections ---------------------------------------------------------------------------
@@ -132,7 +112,7 @@ std::string title_block(const CheckReport& r) {
 }
 
 std::string capacity_set_text(const Project& p, const CapacitySet& c) {
-  const Units u(p.units);
+  const QuantityFormat u(p.units);
   std::string s = std::string(to_string(c.basis)) + ":";
   auto add = [&](const char* name, const std::optional<double>& v) {
     if (v) s += fmt::format(" {} {} {}", name, u.force(*v), u.label(Quantity::force));
@@ -164,7 +144,7 @@ std::string design_text(const PileType& type) {
 
 std::string basis_section(const CheckReport& r, const CheckTables& tables) {
   const Project& p = *r.project;
-  const Units u(p.units);
+  const QuantityFormat u(p.units);
   std::string s = "<section class=\"basis\" id=\"basis\">\n<h2>1. Basis</h2>\n";
   s += "<p>Units: " + esc(units_text(p.units)) +
        ". Axes: x and y in plan, z up; pile heads at z = 0 (underside of the cap); loads act on "
@@ -241,7 +221,7 @@ std::string source_text(const Project& p, const SourceLocation& where) {
 
 std::string loads_section(const CheckReport& r, const CheckTables& tables) {
   const Project& p = *r.project;
-  const Units u(p.units);
+  const QuantityFormat u(p.units);
   const std::string l = u.label(Quantity::length), f = u.label(Quantity::force),
                     m = u.label(Quantity::moment);
   std::string s = "<section class=\"loads\" id=\"loads\">\n<h2>3. Load cases and combinations</h2>\n";
@@ -302,7 +282,7 @@ std::string shaft_formula(const std::optional<ShaftMethod>& method) {
 // its formula and the soil values come with the details (no look-up of the layer).
 std::vector<std::string> tip_lines(const Project& p, const TipDetails& d, double tip,
                                    double width) {
-  const Units u(p.units);
+  const QuantityFormat u(p.units);
   const std::string kpa = u.label(Quantity::pressure), f = u.label(Quantity::force);
   const double phi = d.friction_angle.value_or(0.0);
   const double cu = d.undrained_strength.value_or(0.0);
@@ -316,43 +296,44 @@ std::vector<std::string> tip_lines(const Project& p, const TipDetails& d, double
   lines.push_back(fmt::format("q' = σ'v at the tip = {} {}", u.pressure(d.q_prime), kpa));
   double expression = NAN;  // the method's unit tip before limits and reductions, kPa
   if (m == TipMethod::vesic && d.n_sigma && d.sigma_o && d.k0) {
-    lines.push_back(fmt::format("K0 = 1 − sin φ = 1 − sin {:.1f}° = {:.3f}", phi, *d.k0));
-    lines.push_back(fmt::format("σ'o = (1 + 2·K0)/3·q' = (1 + 2·{:.3f})/3·{} = {} {}", *d.k0,
+    lines.push_back(fmt::format("K0 = 1 − sin φ = 1 − sin {} = {}", u.text(Shown::angle, phi), QuantityFormat::factor(*d.k0)));
+    lines.push_back(fmt::format("σ'o = (1 + 2·K0)/3·q' = (1 + 2·{})/3·{} = {} {}", QuantityFormat::factor(*d.k0),
                                 u.pressure(d.q_prime), u.pressure(*d.sigma_o), kpa));
     if (d.rigidity_index && d.poisson_ratio && d.soil_modulus)
-      lines.push_back(fmt::format("Ir = Es/[2·(1 + μs)·q'·tan φ] = {}/[2·(1 + {:.3f})·{}·tan {:.1f}°] = {:.1f}",
-                                  u.pressure(*d.soil_modulus), *d.poisson_ratio,
-                                  u.pressure(d.q_prime), phi, *d.rigidity_index));
+      lines.push_back(fmt::format("Ir = Es/[2·(1 + μs)·q'·tan φ] = {}/[2·(1 + {})·{}·tan {}] = {}",
+                                  u.pressure(*d.soil_modulus), QuantityFormat::factor(*d.poisson_ratio),
+                                  u.pressure(d.q_prime), u.text(Shown::angle, phi), QuantityFormat::index(*d.rigidity_index)));
     if (d.reduced_rigidity_index && d.rigidity_index && d.volumetric_strain)
-      lines.push_back(fmt::format("Irr = Ir/(1 + Ir·Δ) = {:.1f}/(1 + {:.1f}·{:.5f}) = {:.1f}",
-                                  *d.rigidity_index, *d.rigidity_index, *d.volumetric_strain,
-                                  *d.reduced_rigidity_index));
+      lines.push_back(fmt::format("Irr = Ir/(1 + Ir·Δ) = {}/(1 + {}·{}) = {}",
+                                  QuantityFormat::index(*d.rigidity_index), QuantityFormat::index(*d.rigidity_index),
+                                  QuantityFormat::strain(*d.volumetric_strain),
+                                  QuantityFormat::index(*d.reduced_rigidity_index)));
     lines.push_back(fmt::format("N*σ = 3/(3 − sin φ)·exp[(π/2 − φ)·tan φ]·tan²(45° + φ/2)·"
-                                "Irr^(4·sin φ/[3·(1 + sin φ)]) = {:.2f}   (Vesić 1977)",
-                                *d.n_sigma));
+                                "Irr^(4·sin φ/[3·(1 + sin φ)]) = {}   (Vesić 1977)",
+                                QuantityFormat::bearing_factor(*d.n_sigma)));
     expression = *d.sigma_o * *d.n_sigma;
-    lines.push_back(fmt::format("{} = {}·{:.2f} = {} {}", formula, u.pressure(*d.sigma_o),
-                                *d.n_sigma, u.pressure(expression), kpa));
+    lines.push_back(fmt::format("{} = {}·{} = {} {}", formula, u.pressure(*d.sigma_o),
+                                QuantityFormat::bearing_factor(*d.n_sigma), u.pressure(expression), kpa));
   } else if (m == TipMethod::vesic && d.n_c && d.reduced_rigidity_index) {
     if (d.soil_modulus && d.rigidity_index)
-      lines.push_back(fmt::format("Ir = Es/(3·cu) = {}/(3·{}) = {:.1f}; Irr = Ir",
-                                  u.pressure(*d.soil_modulus), u.pressure(cu), *d.rigidity_index));
+      lines.push_back(fmt::format("Ir = Es/(3·cu) = {}/(3·{}) = {}; Irr = Ir",
+                                  u.pressure(*d.soil_modulus), u.pressure(cu), QuantityFormat::index(*d.rigidity_index)));
     else if (d.rigidity_index)
-      lines.push_back(fmt::format("Ir = 347·(cu/pa) − 33 ≤ 300 = {:.1f}; Irr = Ir", *d.rigidity_index));
-    lines.push_back(fmt::format("N*c = 4/3·(ln Irr + 1) + π/2 + 1 = 4/3·(ln {:.1f} + 1) + π/2 + 1 = {:.2f}   "
+      lines.push_back(fmt::format("Ir = 347·(cu/pa) − 33 ≤ 300 = {}; Irr = Ir", QuantityFormat::index(*d.rigidity_index)));
+    lines.push_back(fmt::format("N*c = 4/3·(ln Irr + 1) + π/2 + 1 = 4/3·(ln {} + 1) + π/2 + 1 = {}   "
                                 "(Vesić 1977)",
-                                *d.reduced_rigidity_index, *d.n_c));
+                                QuantityFormat::index(*d.reduced_rigidity_index), QuantityFormat::bearing_factor(*d.n_c)));
     expression = cu * *d.n_c;
-    lines.push_back(fmt::format("{} = {}·{:.2f} = {} {}", formula, u.pressure(cu), *d.n_c,
+    lines.push_back(fmt::format("{} = {}·{} = {} {}", formula, u.pressure(cu), QuantityFormat::bearing_factor(*d.n_c),
                                 u.pressure(expression), kpa));
   } else if (m == TipMethod::meyerhof && d.n_q) {
-    lines.push_back(fmt::format("N*q = {:.1f} (φ = {:.1f}°, Meyerhof 1976)", *d.n_q, phi));
+    lines.push_back(fmt::format("N*q = {} (φ = {}, Meyerhof 1976)", QuantityFormat::index(*d.n_q), u.text(Shown::angle, phi)));
     expression = d.q_prime * *d.n_q;
-    lines.push_back(fmt::format("{} = {}·{:.1f} = {} {}", formula, u.pressure(d.q_prime), *d.n_q,
+    lines.push_back(fmt::format("{} = {}·{} = {} {}", formula, u.pressure(d.q_prime), QuantityFormat::index(*d.n_q),
                                 u.pressure(expression), kpa));
     if (d.limit)
-      lines.push_back(fmt::format("limit q_l = 0.5·pa·N*q·tan φ = 0.5·{}·{:.1f}·tan {:.1f}° = {} {}",
-                                  pa, *d.n_q, phi, u.pressure(*d.limit), kpa));
+      lines.push_back(fmt::format("limit q_l = 0.5·pa·N*q·tan φ = 0.5·{}·{}·tan {} = {} {}",
+                                  pa, QuantityFormat::index(*d.n_q), u.text(Shown::angle, phi), u.pressure(*d.limit), kpa));
   } else if (m == TipMethod::meyerhof && d.n_c) {
     expression = *d.n_c * cu;
     lines.push_back(fmt::format("{} = {:g}·{} = {} {}   (Meyerhof 1976)", formula, *d.n_c, u.pressure(cu),
@@ -366,26 +347,26 @@ std::vector<std::string> tip_lines(const Project& p, const TipDetails& d, double
       lines.push_back(fmt::format("limit 4·pa·N60 = 4·{}·{:g} = {} {}", pa, *d.spt_n60,
                                   u.pressure(*d.limit), kpa));
   } else if (m == TipMethod::fhwa && d.n_c) {
-    if (d.rigidity_index) lines.push_back(fmt::format("Ir = {:.1f}", *d.rigidity_index));
-    lines.push_back(fmt::format("N*c = 1.33·(ln Ir + 1) ≤ 9 = {:.2f}   (O'Neill & Reese 1999)", *d.n_c));
+    if (d.rigidity_index) lines.push_back(fmt::format("Ir = {}", QuantityFormat::index(*d.rigidity_index)));
+    lines.push_back(fmt::format("N*c = 1.33·(ln Ir + 1) ≤ 9 = {}   (O'Neill & Reese 1999)", QuantityFormat::bearing_factor(*d.n_c)));
     expression = cu * *d.n_c;
-    lines.push_back(fmt::format("{} = {:.2f}·{} = {} {}", formula, *d.n_c, u.pressure(cu),
+    lines.push_back(fmt::format("{} = {}·{} = {} {}", formula, QuantityFormat::bearing_factor(*d.n_c), u.pressure(cu),
                                 u.pressure(expression), kpa));
     if (d.reduction)
-      lines.push_back(fmt::format("shallow base: × 2/3·(1 + Z/6D) = × {:.3f}", *d.reduction));
+      lines.push_back(fmt::format("shallow base: × 2/3·(1 + Z/6D) = × {}", QuantityFormat::factor(*d.reduction)));
   } else if (m == TipMethod::fhwa && d.spt_n60) {
     expression = 0.6 * *d.spt_n60 * kTsf;
     lines.push_back(fmt::format("{} = 0.6·{:g}·{} = {} {}   (O'Neill & Reese 1999)", formula,
                                 *d.spt_n60, u.pressure(kTsf), u.pressure(expression), kpa));
     if (d.limit) lines.push_back(fmt::format("limit 30 tsf = {} {}", u.pressure(*d.limit), kpa));
-    if (d.reduction) lines.push_back(fmt::format("wide base: × 1.27/Bb = × {:.3f}", *d.reduction));
+    if (d.reduction) lines.push_back(fmt::format("wide base: × 1.27/Bb = × {}", QuantityFormat::factor(*d.reduction)));
   } else if (!m) {
     lines.push_back("No tip method for this soil: the tip resistance is taken as 0.");
   }
   if (d.bored_factor) {
-    lines.push_back(fmt::format("bored pile, driven-pile method in sand: × {:.3f}   (Meyerhof 1976)",
-                                *d.bored_factor));
-    if (d.reduction) lines.push_back(fmt::format("wide base: × 1.27/Bb = × {:.3f}", *d.reduction));
+    lines.push_back(fmt::format("bored pile, driven-pile method in sand: × {}   (Meyerhof 1976)",
+                                QuantityFormat::factor(*d.bored_factor)));
+    if (d.reduction) lines.push_back(fmt::format("wide base: × 1.27/Bb = × {}", QuantityFormat::factor(*d.reduction)));
   }
   if (m) {
     if (std::isnan(expression) || std::abs(expression - d.unit_tip) > 1e-6 * std::max(1.0, d.unit_tip))
@@ -404,7 +385,7 @@ std::string capacity_section(const Project& p, const std::vector<PileTypeCapacit
          "file (section 1).</p>\n";
     return s + "</section>\n";
   }
-  const Units u(p.units);
+  const QuantityFormat u(p.units);
   const std::string f = u.label(Quantity::force), l = u.label(Quantity::length),
                     kpa = u.label(Quantity::pressure);
   const PileTypeCapacity& sample = capacities->front();
@@ -438,7 +419,7 @@ std::string capacity_section(const Project& p, const std::vector<PileTypeCapacit
     t.rows.push_back({layer.name, layer.method, shaft_formula(layer.shaft_method), u.length(layer.top),
                       u.length(layer.bottom), u.length(layer.bottom - layer.top),
                       u.pressure(layer.unit_average), u.force(layer.shaft),
-                      fmt::format("{:.3f}", layer.uplift_factor), u.force(layer.uplift)});
+                      QuantityFormat::factor(layer.uplift_factor), u.force(layer.uplift)});
   s += render_table_html(t);
   if (!c.layers.empty()) {
     const LayerShaft& first = c.layers.front();
@@ -460,10 +441,10 @@ std::string capacity_section(const Project& p, const std::vector<PileTypeCapacit
                       u.force(c.allowable_compression), f));
   s += eq(fmt::format("allowable tension = T_ult/FS_t = {}/{:g} = {} {}", u.force(c.ultimate_tension),
                       c.safety_factor_tension, u.force(c.allowable_tension), f));
-  s += eq(fmt::format("factored compression = φ_tip·Q_tip + Σ φ_s,i·Q_s,i = {:.2f}·{} + {:.3f}·{} = {} {}",
-                      c.phi_tip, u.force(c.tip), c.phi_shaft, u.force(c.shaft),
+  s += eq(fmt::format("factored compression = φ_tip·Q_tip + Σ φ_s,i·Q_s,i = {}·{} + {}·{} = {} {}",
+                      QuantityFormat::code_factor(c.phi_tip), u.force(c.tip), QuantityFormat::factor(c.phi_shaft), u.force(c.shaft),
                       u.force(c.factored_compression), f));
-  s += eq(fmt::format("factored tension = Σ φ_up,i·Q_up,i = {:.3f}·{} = {} {}", c.phi_uplift,
+  s += eq(fmt::format("factored tension = Σ φ_up,i·Q_up,i = {}·{} = {} {}", QuantityFormat::factor(c.phi_uplift),
                       u.force(c.uplift_shaft), u.force(c.factored_tension), f));
   if (!c.notes.empty()) s += "<h3>Notes</h3>\n" + list_html(c.notes);
 
@@ -539,7 +520,7 @@ std::string render_table_html(const Table& table, double scale_max) {
 std::string render_depth_chart_svg(const Project& p, const PileTypeCapacity& capacity) {
   const auto& rows = capacity.depth_table;
   if (rows.empty()) return "";
-  const Units u(p.units);
+  const QuantityFormat u(p.units);
   const double force_of = from_si(p.units, Quantity::force, 1.0);
   const double length_of = from_si(p.units, Quantity::length, 1.0);
   double max_force = 0.0, max_length = 0.0;

@@ -7,20 +7,6 @@
 
 namespace cairn {
 
-std::string fixed_text(double value, int decimals) {
-  if (decimals < 0 || decimals > 12) throw std::logic_error("fixed_text: decimals out of range");
-  std::string text = fmt::format("{:.{}f}", value, decimals);
-  // Rounded to zero: "-0.000" and "-0" lose the sign.
-  if (text.front() == '-' && text.find_first_not_of("-0.") == std::string::npos) text.erase(0, 1);
-  return text;
-}
-
-std::string general_text(double value) {
-  std::string text = fmt::format("{:g}", value);
-  if (text == "-0") text = "0";
-  return text;
-}
-
 std::string count_text(std::size_t count, const std::string& singular, const std::string& plural) {
   const std::string& noun = count == 1 ? singular : (plural.empty() ? singular + "s" : plural);
   return fmt::format("{} {}", count, noun);

@@ -5,6 +5,7 @@
 #include <cmath>
 #include <limits>
 #include <map>
+#include <numbers>
 #include <stdexcept>
 
 #include <fmt/format.h>
@@ -13,8 +14,6 @@
 
 namespace cairn {
 namespace {
-
-constexpr double kPi = 3.14159265358979323846;
 
 // Room around the plan for batter arrows and labels (px).
 constexpr double kMargin = 75.0;
@@ -88,14 +87,14 @@ struct LoadPoint {
 // project's units ("D column C1: Fz −1200.0 kN, My 35.0 kN·m").
 std::string load_text(const Project& p, const LoadCase& lc, const PointLoad& l) {
   const char* names[6] = {"Fx", "Fy", "Fz", "Mx", "My", "Mz"};
-  const int decimals = p.units == UnitSystem::SI ? 1 : 2;
+  const QuantityFormat u(p.units);
   std::string components;
   for (int k = 0; k < 6; ++k) {
-    const Quantity q = k < 3 ? Quantity::force : Quantity::moment;
-    const std::string value = fixed_text(from_si(p.units, q, l.load[k]), decimals);
+    const Shown q = k < 3 ? Shown::force : Shown::moment;
+    const std::string value = u.number(q, l.load[k]);
     if (value.find_first_not_of("0.") == std::string::npos) continue;  // zero as printed
     components += fmt::format("{}{} {} {}", components.empty() ? "" : ", ", names[k], value,
-                              unit_label(p.units, q));
+                              u.label(q));
   }
   return fmt::format("{}{}: {}", lc.id, l.note.empty() ? "" : " " + l.note,
                      components.empty() ? "no load" : components);
@@ -121,11 +120,9 @@ std::vector<LoadPoint> load_points(const Project& p) {
 
 // "L<k> at (x, y) m: load; load; …", wrapped into lines of about kLegendLineChars.
 std::vector<std::string> load_point_lines(const Project& p, std::size_t k, const LoadPoint& lp) {
-  const double to_m = to_si_factor(p.units, Quantity::length);
-  const std::string unit = unit_label(p.units, Quantity::length);
-  std::vector<std::string> lines = {fmt::format("L{} at ({}, {}) {}:", k + 1,
-                                                fixed_text(lp.x / to_m, 3),
-                                                fixed_text(lp.y / to_m, 3), unit)};
+  const QuantityFormat u(p.units);
+  std::vector<std::string> lines = {fmt::format("L{} at ({}, {}) {}:", k + 1, u.length(lp.x),
+                                                u.length(lp.y), u.label(Shown::length))};
   for (std::size_t i = 0; i < lp.loads.size(); ++i) {
     const std::string piece = " " + lp.loads[i] + (i + 1 < lp.loads.size() ? ";" : "");
     if (lines.back().size() + piece.size() > kLegendLineChars && lines.back().size() > 12)
@@ -155,10 +152,6 @@ std::string failing_cross(double cx, double cy, double size) {
                      "fill=\"none\"/><path d=\"{0}\" stroke=\"#000000\" stroke-width=\"2\" "
                      "fill=\"none\"/>",
                      d);
-}
-
-std::string utilization_label(double u) {
-  return std::isinf(u) ? std::string("no capacity") : fmt::format("{:.3f}", u);
 }
 
 }  // namespace
@@ -192,7 +185,8 @@ std::string render_plan_svg(const Project& p, const CheckResults* results,
   const PlanFrame f = plan_frame(p);
   auto X = [&](double x) { return f.origin_x + f.scale * x; };
   auto Y = [&](double y) { return f.origin_y - f.scale * y; };
-  const std::string length_unit = unit_label(p.units, Quantity::length);
+  const QuantityFormat shown(p.units);
+  const std::string length_unit = shown.label(Shown::length);
   const double to_m = to_si_factor(p.units, Quantity::length);
   const double scale_max = utilization_scale_max(results);
   std::string overturned;  // ids of the overturned combinations
@@ -249,15 +243,14 @@ std::string render_plan_svg(const Project& p, const CheckResults* results,
     std::string ink = "#000000";  // the id's colour inside the pile
     bool failing = false;
     std::string tip = fmt::format("{} (type {}) at ({}, {}) {}", pile.id, type.id,
-                                  fixed_text(pile.x / to_m, 3), fixed_text(pile.y / to_m, 3),
-                                  length_unit);
+                                  shown.length(pile.x), shown.length(pile.y), length_unit);
     if (results && i < results->envelope.size()) {
       const PileEnvelope& e = results->envelope[i];
       const Extreme& u = e.max_utilization;
       fill = utilization_colour(u.value, scale_max);
       ink = utilization_text_colour(u.value, scale_max);
       failing = !e.pass || u.value > 1.0;
-      tip += ", max utilization " + utilization_label(u.value);
+      tip += ", max utilization " + QuantityFormat::utilization(u.value);
       if (u.combination && *u.combination < p.combinations.size())
         tip += " (" + p.combinations[*u.combination].id + ")";
       if (failing) tip += overturned.empty() ? ", FAILS" : ", FAILS (the cap overturns in " + overturned + ")";
@@ -265,9 +258,7 @@ std::string render_plan_svg(const Project& p, const CheckResults* results,
     if (resistances && pile.type < resistances->size()) {
       const auto& a = (*resistances)[pile.type].allowable;
       if (a.compression)
-        tip += fmt::format(", allowable compression {:.1f} {}",
-                           from_si(p.units, Quantity::force, *a.compression),
-                           unit_label(p.units, Quantity::force));
+        tip += ", allowable compression " + shown.text(Shown::force, *a.compression);
     }
     s += fmt::format("<g class=\"pile{}\" data-pile=\"{}\" data-utilization-colour=\"{}\">",
                      failing ? " failing" : "", xml_escape(pile.id), fill);
@@ -302,7 +293,7 @@ std::string render_plan_svg(const Project& p, const CheckResults* results,
                        num(cx - size / 2.0 - 2.0), num(cy - size / 2.0 - 2.0),
                        xml_escape(pile.id));
     if (pile.batter && pile.batter->ratio > 0.0) {
-      const double angle = pile.batter->toward_deg * kPi / 180.0;
+      const double angle = pile.batter->toward_deg * std::numbers::pi / 180.0;
       const double ux = std::cos(angle), uy = -std::sin(angle);  // SVG y points down
       const double start = size / 2.0 * (type.section.shape == SectionShape::round
                                              ? 1.0

@@ -11,7 +11,7 @@ using namespace report_detail;
 
 json check_json(const CheckReport& r) {
   const Project& p = *r.project;
-  const Units u(p.units);
+  const QuantityFormat u(p.units);
   json doc;
   doc["tool"] = {{"name", "cairn"}, {"version", CAIRN_VERSION}};
   doc["input"] = p.file;

@@ -37,10 +37,7 @@ std::string csv_cell(const std::string& s) {
 }
 
 
-std::string utilization_text(double u) {
-  if (std::isinf(u)) return "no capacity";
-  return fixed_text(u, 3);
-}
+std::string utilization_text(double u) { return QuantityFormat::utilization(u); }
 
 // A pile's result in a combination: "pass" or "fail", the words of the combination verdict.
 const char* result_text(const PileCheck& p) { return p.pass ? "pass" : "fail"; }
@@ -94,14 +91,14 @@ std::string tilt_text(const Project& p, double tilt) {
   return fmt::format("1 in {:.0f}", 1.0 / tilt);
 }
 
-std::string mm_or_dash(const Units& u, std::optional<double> v) {
+std::string mm_or_dash(const QuantityFormat& u, std::optional<double> v) {
   return v ? u.small(*v) : std::string("-");
 }
 
 GroupParts make_group_parts(const CheckReport& r) {
   const GroupResults& g = *r.group;
   const Project& p = *r.project;
-  const Units u(p.units);
+  const QuantityFormat u(p.units);
   GroupParts parts;
   auto& before = parts.layout;
   before.push_back(fmt::format("Block plan Bg × Lg = {} × {} {} (outer faces).", u.length(g.plan.width),
@@ -120,15 +117,15 @@ GroupParts make_group_parts(const CheckReport& r) {
   for (const auto& e : g.efficiencies.all)
     eff.rows.push_back({std::string(to_string(e.method)) +
                             (e.method == g.applied.method ? " (applied)" : ""),
-                        e.value ? fmt::format("{:.3f}", *e.value) : std::string("-"), e.note});
+                        e.value ? QuantityFormat::factor(*e.value) : std::string("-"), e.note});
   const std::string f = u.label(Quantity::force);
   auto& checks = parts.checks;
   if (g.block)
     checks.push_back(fmt::format("Block failure (clay): Q_block = Bg·Lg·cu·Nc + 2(Bg + Lg)·Σcu·ΔL = {} + "
-                                 "{} = {} {} (Skempton Nc = {:.2f}, cu at base {} {}).",
+                                 "{} = {} {} (Skempton Nc = {}, cu at base {} {}).",
                                  u.force(g.block->base), u.force(g.block->perimeter),
-                                 u.force(g.block->capacity), f, g.block->nc,
-                                 fmt::format("{:.1f}", from_si(p.units, Quantity::pressure, g.block->base_strength)),
+                                 u.force(g.block->capacity), f, QuantityFormat::plain(Shown::bearing_factor, g.block->nc),
+                                 u.pressure(g.block->base_strength),
                                  u.label(Quantity::pressure)));
   if (g.capacity_allowable)
     checks.push_back(fmt::format("Group capacity, allowable: {} {}", u.force(*g.capacity_allowable), f) +
@@ -178,9 +175,9 @@ GroupParts make_group_parts(const CheckReport& r) {
     std::vector<std::string> row = {
         p.combinations[gc.combination].id, u.force(gc.compression),
         gc.capacity ? u.force(*gc.capacity) : "-",
-        gc.utilization ? fmt::format("{:.3f}", *gc.utilization) : "-", u.force(gc.tension),
+        gc.utilization ? QuantityFormat::utilization(*gc.utilization) : "-", u.force(gc.tension),
         gc.uplift_capacity ? u.force(*gc.uplift_capacity) : "-",
-        gc.uplift_utilization ? fmt::format("{:.3f}", *gc.uplift_utilization) : "-",
+        gc.uplift_utilization ? QuantityFormat::utilization(*gc.uplift_utilization) : "-",
         tilt_text(p, gc.tilt)};
     if (g.settlement_asked) {
       row.push_back(mm_or_dash(u, gc.single_settlement));
@@ -220,7 +217,7 @@ std::string group_block(const CheckReport& r, Format format) {
 json group_json(const CheckReport& r) {
   const GroupResults& g = *r.group;
   const Project& p = *r.project;
-  const Units u(p.units);
+  const QuantityFormat u(p.units);
   auto opt = [&](std::optional<double> v, Quantity q) {
     return v ? json(u.value(q, *v)) : json(nullptr);
   };
@@ -276,7 +273,7 @@ json group_json(const CheckReport& r) {
 
 Table pile_types_table(const CheckReport& r) {
   const Project& p = *r.project;
-  const Units u(p.units);
+  const QuantityFormat u(p.units);
   Table t;
   t.title = "Pile types";
   t.headers = {"type", "section", "length (" + u.label(Quantity::length) + ")",
@@ -341,7 +338,7 @@ Table cap_stiffness_table(const CheckReport& r) {
 
 Table piles_table(const CheckReport& r) {
   const Project& p = *r.project;
-  const Units u(p.units);
+  const QuantityFormat u(p.units);
   Table t;
   t.title = "Piles";
   t.headers = {"pile", "type", "x (" + u.label(Quantity::length) + ")",
@@ -369,7 +366,7 @@ Table combinations_table(const CheckReport& r) {
 
 Table combination_table(const CheckReport& r, const CombinationCheck& cc) {
   const Project& p = *r.project;
-  const Units u(p.units);
+  const QuantityFormat u(p.units);
   Table t;
   const Combination& combo = p.combinations[cc.combination];
   t.title = fmt::format("Combination {} ({}): {} — {}", combo.id, to_string(combo.limit_state),
@@ -407,7 +404,7 @@ Table combination_table(const CheckReport& r, const CombinationCheck& cc) {
 
 std::string combination_note(const CheckReport& r, const CombinationCheck& cc) {
   const Project& p = *r.project;
-  const Units u(p.units);
+  const QuantityFormat u(p.units);
   const auto& m = cc.solution.movement;
   std::string text;
   if (cc.solution.overturns) {
@@ -445,7 +442,7 @@ std::string combination_note(const CheckReport& r, const CombinationCheck& cc) {
 
 Table envelope_table(const CheckReport& r) {
   const Project& p = *r.project;
-  const Units u(p.units);
+  const QuantityFormat u(p.units);
   const std::string f = u.label(Quantity::force);
   Table t;
   t.title = "Envelope per pile";
@@ -533,7 +530,7 @@ std::string assumptions_block(const CheckReport& r, Format format) {
 
 std::string explain_block(const CheckReport& r, Format format) {
   const Project& p = *r.project;
-  const Units u(p.units);
+  const QuantityFormat u(p.units);
   const std::size_t pile = *r.explain_pile;
   const std::string f = u.label(Quantity::force), m = u.label(Quantity::moment),
                     l = u.label(Quantity::length), a = u.area_label();

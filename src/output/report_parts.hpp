@@ -1,5 +1,5 @@
 // Building blocks shared by the renderers of a check: the tables, the group block, the
-// header and notes, and the formatting of numbers in the project's units. Private to
+// header and notes. Private to
 // src/output/; the public contract is include/cairn/output/report.hpp.
 #pragma once
 
@@ -11,6 +11,7 @@
 #include <fmt/format.h>
 #include <nlohmann/json.hpp>
 
+#include "cairn/core/quantity_format.hpp"
 #include "cairn/output/number_text.hpp"
 #include "cairn/output/report.hpp"
 
@@ -18,41 +19,8 @@ namespace cairn::report_detail {
 
 using nlohmann::json;
 
-// Numbers in the project's units with a precision that suits each quantity.
-class Units {
- public:
-  explicit Units(UnitSystem system) : u_(system) {}
-  std::string label(Quantity q) const { return unit_label(u_, q); }
-  // The value in the project's unit; a negative zero (or a round-off below the printed
-  // precision) prints as 0.
-  double value(Quantity q, double si) const {
-    const double v = from_si(u_, q, si);
-    return std::abs(v) < 5e-7 ? 0.0 : v;
-  }
-  std::string force(double si) const { return fixed(value(Quantity::force, si), digits(Quantity::force)); }
-  std::string length(double si) const { return fixed(value(Quantity::length, si), digits(Quantity::length)); }
-  std::string moment(double si) const { return fixed(value(Quantity::moment, si), digits(Quantity::moment)); }
-  std::string small(double si) const { return fixed(value(Quantity::small_length, si), 3); }
-  // Fixed decimals without a minus sign on a value that rounds to zero.
-  static std::string fixed(double v, int decimals) { return fixed_text(v, decimals); }
-  std::string stiffness(double si) const {
-    const double v = value(Quantity::stiffness, si);
-    return std::abs(v) >= 1e4 ? fmt::format("{:.0f}", v) : fmt::format("{:.4g}", v);
-  }
-  std::string area(double si) const {
-    const double f = to_si_factor(u_, Quantity::length);
-    return fixed_text(si / (f * f), 4);
-  }
-  std::string area_label() const { return label(Quantity::length) + "²"; }
-  UnitSystem system() const { return u_; }
-
- private:
-  int digits(Quantity q) const {
-    if (q == Quantity::length) return u_ == UnitSystem::SI ? 3 : 2;
-    return u_ == UnitSystem::SI ? 1 : 2;
-  }
-  UnitSystem u_;
-};
+// Numbers in the project's units: QuantityFormat (core/quantity_format.hpp), the one
+// formatter of every output.
 
 std::size_t width(const std::string& s);
 std::string pad(const std::string& s, std::size_t w, bool right);
@@ -68,7 +36,7 @@ bool any_fixed_head(const CheckReport& r);
 double cap_reach(const Project& p);
 double displacement_resolution(UnitSystem u);
 std::string tilt_text(const Project& p, double tilt);
-std::string mm_or_dash(const Units& u, std::optional<double> v);
+std::string mm_or_dash(const QuantityFormat& u, std::optional<double> v);
 GroupParts make_group_parts(const CheckReport& r);
 std::string group_block(const CheckReport& r, Format format);
 json group_json(const CheckReport& r);

@@ -19,7 +19,7 @@ using namespace report_detail;
 
 std::string render_springs(const Project& project, const std::vector<PileTypeStiffness>& stiffness,
                            Format format, const std::string& options) {
-  const Units u(project.units);
+  const QuantityFormat u(project.units);
   const std::string k = u.label(Quantity::stiffness), l = u.label(Quantity::length);
   if (format == Format::json) {
     json piles = json::array();

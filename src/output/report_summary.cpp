@@ -17,7 +17,7 @@ std::string render_cap_summary(const std::vector<CapSummaryRow>& rows, Format fo
   if (format == Format::json) {
     json caps = json::array();
     for (const auto& r : rows) {
-      const Units u(r.units);
+      const QuantityFormat u(r.units);
       caps.push_back({{"file", r.file},
                       {"title", r.title},
                       {"units", to_string(r.units)},
@@ -43,7 +43,7 @@ std::string render_cap_summary(const std::vector<CapSummaryRow>& rows, Format fo
                "check", "settlement", "status"};
   t.numeric = {false, false, true, true, true, false, false, false, true, false};
   for (const auto& r : rows) {
-    const Units u(r.units);
+    const QuantityFormat u(r.units);
     t.rows.push_back({r.title, r.file, std::to_string(r.piles), std::to_string(r.combinations),
                       utilization_text(r.max_utilization), r.pile, r.combination, r.check,
                       r.settlement ? u.small(*r.settlement) + " " + u.label(Quantity::small_length)

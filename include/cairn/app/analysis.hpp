@@ -21,7 +21,7 @@ namespace cairn {
 
 struct CheckRun {
   Project project;
-  std::vector<PileTypeCapacity> capacities;
+  std::vector<PileTypeCapacity> capacities;  // with depth tables when asked (AnalysisOptions)
   std::vector<PileTypeStiffness> stiffness;
   std::vector<PileTypeResistance> resistances;
   CheckResults results;
@@ -31,9 +31,16 @@ struct CheckRun {
   std::array<std::array<double, 6>, 6> cap_stiffness{};
 };
 
+// What the analysis builds beyond the check. With `depth_tables`, each computed pile type's
+// capacity-with-depth table over report_depth_table() (project_capacity.hpp), built once here
+// for the calculation package's chart; the renderers only render it.
+struct AnalysisOptions {
+  bool depth_tables = false;
+};
+
 // Reads and checks one project file. Throws InputError for any input problem (nothing is
 // computed from a file with problems).
-CheckRun analyse_project(const std::string& file);
+CheckRun analyse_project(const std::string& file, const AnalysisOptions& options = {});
 
 // Changes to pile types made after the fact (a damaged pile's type, site/as_built.hpp):
 // factors on the springs and on every resistance, indexed like Project::pile_types
@@ -44,7 +51,8 @@ struct TypeAdjustments {
 };
 
 // The same pipeline on a project already read (the as-built project of a survey).
-CheckRun analyse(Project project, const TypeAdjustments& adjust = {});
+CheckRun analyse(Project project, const TypeAdjustments& adjust = {},
+                 const AnalysisOptions& options = {});
 // The same pipeline on a project already in memory (as read_project returns it), e.g. a
 // candidate layout of `cairn design`. Throws InputError as above.
 CheckRun analyse_project(Project project);  // analyse() without adjustments
@@ -57,7 +65,7 @@ struct CapOutcome {
   std::vector<Diagnostic> problems;
 };
 std::vector<CapOutcome> analyse_projects(const std::vector<std::string>& files,
-                                         unsigned threads);
+                                         unsigned threads, const AnalysisOptions& options = {});
 
 // A report over a run. `explain_pile` names a pile for the hand check; throws InputError
 // when it does not exist. The report points into `run`, which must outlive it.

@@ -22,6 +22,7 @@
 #include <string>
 #include <vector>
 
+#include "cairn/core/defaults.hpp"
 #include "cairn/solver/cap_solver.hpp"
 #include "cairn/core/diagnostics.hpp"
 #include "cairn/core/model.hpp"
@@ -61,10 +62,8 @@ struct ComputedResistance {
   bool aashto_phi = false;  // factored_* use AASHTO φ defaults (no phi_* given)
 };
 
-// Default factors of safety for capacities given as ultimate (common practice: 2.5 in
-// compression and lateral, 3.0 in tension; see docs/methods.md).
-inline constexpr double kDefaultSafetyCompression = 2.5;
-inline constexpr double kDefaultSafetyTension = 3.0;
+// Default factors of safety for capacities given as ultimate: kDefaultSafetyCompression and
+// kDefaultSafetyTension (core/defaults.hpp; see docs/methods.md).
 
 // Resistances per pile type: typed-in capacities win, value by value, over computed ones
 // (`computed` is indexed like Project::pile_types; an empty optional = nothing computed).

@@ -42,14 +42,14 @@ struct GroupResults {
   EfficiencySummary efficiencies;
   Efficiency applied;  // the method the file names (η = 1 for none)
   std::optional<BlockCapacity> block;
-  double block_factor_of_safety = 2.5;  // for service; φ for strength below
+  double block_factor_of_safety = kDefaultBlockSafety;  // for service; φ for strength below
   double block_resistance_factor = 0.60;
   std::optional<double> capacity_allowable, capacity_factored;  // kN, min(η·Σ, block)
   std::string governing;  // "efficiency" or "block"
   SpacingCheck spacing;
   std::optional<EdgeCheck> edge;
   bool settlement_asked = false;
-  double settlement_limit = 0.025;  // m
+  double settlement_limit = kDefaultSettlementLimit;  // m
   std::vector<GroupCombination> per_combination;
   std::vector<std::string> notes;
   bool pass = true;

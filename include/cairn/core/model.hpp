@@ -16,6 +16,7 @@
 #include <string>
 #include <vector>
 
+#include "cairn/core/defaults.hpp"
 #include "cairn/geotechnics/soil.hpp"
 #include "cairn/core/units.hpp"
 
@@ -214,11 +215,11 @@ struct Combination {
 struct GroupSettings {
   std::string efficiency = "none";    // method applied to the group capacity
   bool efficiency_shaft_only = false;  // apply η to the shaft component only
-  double min_spacing_factor = 2.5;     // minimum c/c spacing, in pile widths
+  double min_spacing_factor = kMinSpacingFactor;  // minimum c/c spacing, in pile widths
   double min_spacing = 0.0;            // m, absolute minimum c/c spacing
   double min_edge_distance = 0.225;    // m, pile face to cap edge (AASHTO 10.7.1.2)
   bool settlement = false;             // settlement asked for
-  std::optional<double> settlement_limit;  // m; default 25 mm
+  std::optional<double> settlement_limit;  // m; default kDefaultSettlementLimit (defaults.hpp)
   std::optional<double> tip_share;     // share of the working load carried by the tip
   SourceLocation where;
 };

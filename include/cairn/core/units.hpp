@@ -20,6 +20,18 @@ namespace cairn {
 
 enum class UnitSystem { SI, US };
 
+// One unit in SI, each defined once here and used everywhere (NIST SP 811 (2008),
+// Appendix B; the international foot and the avoirdupois pound are exact definitions).
+namespace unit_si {
+inline constexpr double foot = 0.3048;                       // m, exact
+inline constexpr double inch = 0.0254;                       // m, exact (foot / 12)
+inline constexpr double pound_force = 4.4482216152605e-3;    // kN, exact (0.45359237 kg × 9.80665 m/s²)
+inline constexpr double kip = 1000.0 * pound_force;          // kN
+inline constexpr double short_ton_force = 2000.0 * pound_force;  // kN (US ton, 2000 lbf)
+inline constexpr double tonne_force = 9.80665;               // kN (metric tonne-force), exact
+inline constexpr double ton_per_square_foot = short_ton_force / (foot * foot);  // kPa (tsf)
+}  // namespace unit_si
+
 // What a number measures; decides the default unit and which written units are accepted.
 enum class Quantity {
   length,               // SI m; US ft

@@ -22,6 +22,7 @@
 #include <string>
 #include <vector>
 
+#include "cairn/core/defaults.hpp"
 #include "cairn/geotechnics/methods.hpp"
 #include "cairn/geotechnics/soil.hpp"
 #include "cairn/core/units.hpp"
@@ -49,9 +50,7 @@ struct PilePlan {
 // Default tolerance on positions and spacings when detecting a grid, m (common practice:
 // coordinates copied from a drawing agree to the millimetre; 10 mm leaves room for rounding).
 inline constexpr double kGridTolerance = 0.010;
-// Minimum centre-to-centre spacing, in pile widths (common practice; AASHTO LRFD 10.7.1.2
-// asks for 2.5 D and at least 750 mm for driven piles, from memory).
-inline constexpr double kMinSpacingFactor = 2.5;
+// Minimum centre-to-centre spacing, in pile widths: kMinSpacingFactor (core/defaults.hpp).
 // Minimum clear distance from the side of a pile to the cap edge, m (AASHTO LRFD
 // 10.7.1.2: 9 in = 225 mm, from memory).
 inline constexpr double kMinEdgeDistance = 0.225;
@@ -232,8 +231,8 @@ GroupUplift group_uplift(const SoilProfile& profile, const BlockPlan& plan,
 // Settlement
 // ---------------------------------------------------------------------------------------
 
-// Tolerable total settlement, m (common practice: 25 mm, Terzaghi & Peck for footings on sand).
-inline constexpr double kTolerableSettlement = 0.025;
+// Tolerable total settlement when none is given: kDefaultSettlementLimit, 25 mm
+// (core/defaults.hpp).
 
 // A single pile for Vesić's (1977) settlement method.
 struct VesicPile {

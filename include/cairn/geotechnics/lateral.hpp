@@ -27,6 +27,7 @@
 #include <string>
 #include <vector>
 
+#include "cairn/core/defaults.hpp"
 #include "cairn/core/model.hpp"
 #include "cairn/geotechnics/soil.hpp"
 
@@ -159,9 +160,9 @@ struct BromsResult {
 // (sand), L > 1.5D (clay), My > 0 when given; throws std::invalid_argument otherwise.
 BromsResult broms_ultimate_lateral(const BromsInput& input);
 
-// Factor of safety applied to Broms' ultimate load when no other is given: 2.5. Common
-// practice (2.0 with load tests, 2.5–3.0 from calculation alone).
-inline constexpr double kLateralFactorOfSafety = 2.5;
+// Factor of safety applied to Broms' ultimate load when no other is given:
+// kLateralFactorOfSafety, 2.5 (core/defaults.hpp). Common practice (2.0 with load tests,
+// 2.5–3.0 from calculation alone).
 
 // Allowable lateral load H_ult / FS, kN. Requires ultimate ≥ 0 and FS ≥ 1.
 double allowable_lateral_load(double ultimate_load,

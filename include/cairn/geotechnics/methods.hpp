@@ -37,7 +37,7 @@ namespace cairn {
 // 1 short ton-force per square foot in kPa: 2000 lbf · 4.4482216152605 N/lbf / (0.3048 m)²
 // (NIST SP 811 (2008), Appendix B: 1 lbf = 4.4482216152605 N, 1 ft = 0.3048 m). O'Neill &
 // Reese (1999) and Meyerhof (1976) state their limits in tsf.
-inline constexpr double kTsf = 2000.0 * 4.4482216152605 / (0.3048 * 0.3048) / 1000.0;
+inline constexpr double kTsf = unit_si::ton_per_square_foot;
 
 enum class EfficiencyMethod { none, converse_labarre, los_angeles, feld, block_perimeter };
 

@@ -24,6 +24,19 @@ struct PileTypeCapacity {
   std::vector<DepthRow> depth_table;  // empty unless asked for
 };
 
+// The lengths of a capacity-with-depth table, m: from `from` in steps of `step`.
+struct DepthTableRange {
+  double step = 0.0, from = 0.0;
+};
+
+// The table's default lengths: 0.5 m from 3 m, or 1 ft from 10 ft in a US project (common
+// practice: a pile length is chosen to the half metre or the foot).
+DepthTableRange default_depth_table(UnitSystem units);
+
+// The default lengths for a report's chart, the step lengthened where a soil profile is so
+// deep that the default would give more than kMaxDepthRows rows.
+DepthTableRange report_depth_table(const Project& project);
+
 // Computes the capacity of every pile type that asks for it. `depth_step` > 0 adds the
 // capacity-with-depth table from `min_length` (m) to the profile's base. Throws InputError
 // naming the pile type and layer when a method lacks a property or the pile is too long.

@@ -1,24 +1,17 @@
 // number_text.hpp — numbers and counts written for a reader, the same way in every output.
 //
-// One formatter for fixed decimals, so that no output prints "-0.000": the sign is dropped
-// after rounding when the rounded text is zero. Counts agree with their noun ("1 combination",
-// "2 combinations"). Values below what a format can show (round-off such as a rotation of
-// 1e-19 rad) print as 0.
+// Fixed decimals (fixed_text, general_text) and the quantities with their units and decimals
+// live in core/quantity_format.hpp, the one place for them. Counts agree with their noun
+// ("1 combination", "2 combinations"). Values below what a format can show (round-off such as
+// a rotation of 1e-19 rad) print as 0.
 #pragma once
 
 #include <cstddef>
 #include <string>
 
+#include "cairn/core/quantity_format.hpp"
+
 namespace cairn {
-
-// `value` with `decimals` fixed decimals; a value that rounds to zero prints without a minus
-// sign ("0.000", never "-0.000"). Infinity and NaN print as "inf" and "nan".
-// Requires: 0 <= decimals <= 12.
-std::string fixed_text(double value, int decimals);
-
-// `value` in %g style (shortest of fixed and scientific, 6 significant digits) without a
-// minus sign on zero.
-std::string general_text(double value);
 
 // "1 combination", "2 combinations", "0 combinations"; `plural` defaults to singular + "s".
 std::string count_text(std::size_t count, const std::string& singular,

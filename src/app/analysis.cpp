@@ -73,7 +73,7 @@ std::vector<CapOutcome> analyse_projects(const std::vector<std::string>& files,
         outcomes[i].problems = e.diagnostics();
       } catch (const std::invalid_argument& e) {
         // A method refused its data (outside its range of validity): an input problem.
-        outcomes[i].problems = {{{files[i], 0, 0}, std::string("cannot compute: ") + e.what()}};
+        outcomes[i].problems = {{whole_file(files[i]), std::string("cannot compute: ") + e.what()}};
       }
     }
   };
@@ -103,7 +103,7 @@ CheckReport make_check_report(const CheckRun& run, const std::string& options,
       std::vector<std::string> ids;
       for (const auto& p : piles) ids.push_back(p.id);
       const std::string near = closest_match(*explain, ids);
-      throw InputError({run.project.file, 0, 0},
+      throw InputError(whole_file(run.project.file),
                        fmt::format("--explain: pile '{}' does not exist{}", *explain,
                                    near.empty() ? "" : "; did you mean '" + near + "'?"));
     }

@@ -2,14 +2,8 @@
 // reader (sections.hpp) in a fixed order, and the Project assembled from what they return.
 #include "cairn/input/input.hpp"
 
-#include <yaml-cpp/eventhandler.h>
-#include <yaml-cpp/exceptions.h>
-#include <yaml-cpp/mark.h>
-#include <yaml-cpp/parser.h>
-
 #include <algorithm>
 #include <filesystem>
-#include <sstream>
 
 #include <fmt/format.h>
 
@@ -141,70 +135,10 @@ Project read_project(const std::string& path) {
 namespace cairn {
 namespace {
 
-// Whether a file is a foundation file (its first top-level key other than `title` is
-// `caps`), found from the first keys of its events: a project file is not parsed here,
-// only by read_project (each file is parsed once).
-class FoundationTest : public YAML::EventHandler {
- public:
-  struct Decided {
-    bool foundation;
-  };
-  void OnDocumentStart(const YAML::Mark&) override {}
-  void OnDocumentEnd() override {}
-  void OnNull(const YAML::Mark&, YAML::anchor_t) override { value_done(); }
-  void OnAlias(const YAML::Mark&, YAML::anchor_t) override { value_done(); }
-  void OnScalar(const YAML::Mark&, const std::string&, YAML::anchor_t,
-                const std::string& value) override {
-    if (depth_ == 1 && top_is_map_ && awaiting_key_) {
-      if (value == "caps") throw Decided{true};
-      if (value != "title") throw Decided{false};
-      awaiting_key_ = false;
-      return;
-    }
-    value_done();
-  }
-  void OnSequenceStart(const YAML::Mark&, const std::string&, YAML::anchor_t,
-                       YAML::EmitterStyle::value) override {
-    if (depth_ == 0) throw Decided{false};
-    ++depth_;
-  }
-  void OnSequenceEnd() override { close(); }
-  void OnMapStart(const YAML::Mark&, const std::string&, YAML::anchor_t,
-                  YAML::EmitterStyle::value) override {
-    if (depth_ == 0) top_is_map_ = true;
-    ++depth_;
-  }
-  void OnMapEnd() override { close(); }
-
- private:
-  void value_done() {
-    if (depth_ == 0) throw Decided{false};
-    if (depth_ == 1) awaiting_key_ = true;
-  }
-  void close() {
-    --depth_;
-    value_done_after_close();
-  }
-  void value_done_after_close() {
-    if (depth_ == 1) awaiting_key_ = true;
-  }
-  int depth_ = 0;
-  bool top_is_map_ = false;
-  bool awaiting_key_ = true;
-};
-
+// A foundation file's first top-level key other than `title` is `caps`. Only the first
+// keys are read here: a project file is parsed once, by read_project.
 bool is_foundation(const std::string& text) {
-  FoundationTest test;
-  try {
-    std::istringstream stream(text);
-    YAML::Parser parser(stream);
-    parser.HandleNextDocument(test);
-  } catch (const FoundationTest::Decided& d) {
-    return d.foundation;
-  } catch (const YAML::Exception&) {
-    return false;  // read_project reports the problem with its location
-  }
-  return false;
+  return first_top_level_key(text, {"title"}) == "caps";
 }
 
 }  // namespace

@@ -6,11 +6,12 @@
 
 #include <fmt/format.h>
 
-
 namespace cairn {
 namespace {
+
 using Need = ReadContext::Need;
 using Sign = ReadContext::Sign;
+
 }  // namespace
 
 Cap read_cap(const Located& n, ReadContext& ctx) {

@@ -56,7 +56,7 @@ void generate_combinations_for(const NamedEntry& entry, ReadContext& ctx,
   CombinationSettings settings;
   if (n.is_map()) {
     ctx.check_keys(n, {"codes", "sds", "earth_permanent", "gamma_eq", "pile_kind", "test_profiles",
-                   "rigid_cap", "model_factor"});
+                       "rigid_cap", "model_factor"});
     if (!codes.present()) {
       ctx.error(ctx.at(n), fmt::format("{}.codes: missing; expected a generator name or a list "
                                      "({})",

@@ -7,18 +7,19 @@
 
 #include <fmt/format.h>
 
-
 namespace cairn {
 namespace {
+
 using Need = ReadContext::Need;
 using Sign = ReadContext::Sign;
+
 }  // namespace
 
 GroupSettings read_group(const Located& n, ReadContext& ctx) {
   GroupSettings g;
   if (!ctx.expect_map(n)) return g;
   ctx.check_keys(n, {"efficiency", "efficiency_on", "min_spacing", "min_spacing_absolute",
-                 "min_edge_distance", "settlement"});
+                     "min_edge_distance", "settlement"});
   g.where = ctx.at(n);
   if (auto e = n.child("efficiency"); e.present()) {
     const std::string name = e.is_scalar() ? e.scalar() : scalar_text(e);

@@ -19,7 +19,7 @@ using Sign = ReadContext::Sign;
 void read_capacity_set(const Located& n, CapacitySet& set, ReadContext& ctx) {
   if (!ctx.expect_map(n)) return;
   ctx.check_keys(n, {"basis", "compression", "tension", "lateral", "factor_of_safety",
-                 "factor_of_safety_tension", "resistance_factor", "resistance_factor_tension"});
+                     "factor_of_safety_tension", "resistance_factor", "resistance_factor_tension"});
   set.where = ctx.at(n);
   if (auto b = n.child("basis"); b.present()) {
     if (auto v = ctx.choice<CapacityBasis>(b, {{"allowable", CapacityBasis::allowable},
@@ -48,7 +48,6 @@ void read_capacity_set(const Located& n, CapacitySet& set, ReadContext& ctx) {
                                    "lateral",
                                    n.path));
 }
-
 
 void read_section(const Located& n, Section& section, ReadContext& ctx) {
   if (!ctx.expect_map(n)) return;
@@ -81,7 +80,6 @@ void read_method(const Located& n, const std::map<std::string, T>& names,
   }
 }
 
-
 }  // namespace
 
 std::vector<PileType> read_pile_types(const std::vector<NamedEntry>& entries,
@@ -95,11 +93,11 @@ std::vector<PileType> read_pile_types(const std::vector<NamedEntry>& entries,
     type.where = entry.key_where;
     if (!ctx.expect_map(n)) continue;
     ctx.check_keys(n, {"section", "length", "elastic_modulus", "axial_stiffness",
-                   "lateral_stiffness", "tension", "head", "structure", "capacity", "installation", "tip_method",
-                   "shaft_method", "critical_depth", "factor_of_safety",
-                   "factor_of_safety_tip", "factor_of_safety_shaft", "factor_of_safety_tension",
-                   "resistance_factor_tip", "resistance_factor_shaft",
-                   "resistance_factor_uplift"});
+                       "lateral_stiffness", "tension", "head", "structure", "capacity", "installation", "tip_method",
+                       "shaft_method", "critical_depth", "factor_of_safety",
+                       "factor_of_safety_tip", "factor_of_safety_shaft", "factor_of_safety_tension",
+                       "resistance_factor_tip", "resistance_factor_shaft",
+                       "resistance_factor_uplift"});
     if (auto s = n.child("section"); s.present()) read_section(s, type.section, ctx);
     else ctx.error(ctx.at(n), fmt::format("{}.section: missing; expected {{shape: square, width: …}} "
                                         "or {{shape: round, diameter: …}}", n.path));
@@ -117,8 +115,8 @@ std::vector<PileType> read_pile_types(const std::vector<NamedEntry>& entries,
     type.tension = ctx.flag(n, "tension").value_or(true);
     if (auto st = n.child("structure"); st.present() && ctx.expect_map(st)) {
       ctx.check_keys(st, {"concrete_strength", "steel_yield", "steel_area", "yield_moment",
-                      "allowable_factor", "resistance_factor", "wall_thickness", "bar_count",
-                      "cover_to_bar_center", "bending_strength"});
+                          "allowable_factor", "resistance_factor", "wall_thickness", "bar_count",
+                          "cover_to_bar_center", "bending_strength"});
       Structure structure;
       structure.where = ctx.at(st);
       structure.concrete_strength = ctx.number(st, "concrete_strength", Quantity::pressure, Need::optional);

@@ -1,14 +1,14 @@
 // The `soil:` section (sections.hpp): every range check of a layer's keys is here.
 #include "cairn/input/sections.hpp"
 
-
 #include <fmt/format.h>
-
 
 namespace cairn {
 namespace {
+
 using Need = ReadContext::Need;
 using Sign = ReadContext::Sign;
+
 }  // namespace
 
 std::optional<SoilProfile> read_soil(const Located& n, ReadContext& ctx) {
@@ -28,12 +28,12 @@ std::optional<SoilProfile> read_soil(const Located& n, ReadContext& ctx) {
     const Located l = layers.item(i);
     if (!ctx.expect_map(l)) continue;
     ctx.check_keys(l, {"name", "kind", "thickness", "unit_weight", "saturated_unit_weight",
-                   "undrained_strength", "friction_angle", "soil_modulus", "poisson_ratio",
-                   "volumetric_strain", "shaft_k", "shaft_delta", "spt_n60", "max_unit_shaft",
-                   "max_unit_tip", "max_unit_shaft_reason", "max_unit_tip_reason",
-                   "meyerhof_nq", "lambda", "uplift_factor",
-                   "compression_index", "recompression_index", "void_ratio",
-                   "preconsolidation", "subgrade_modulus"});
+                       "undrained_strength", "friction_angle", "soil_modulus", "poisson_ratio",
+                       "volumetric_strain", "shaft_k", "shaft_delta", "spt_n60", "max_unit_shaft",
+                       "max_unit_tip", "max_unit_shaft_reason", "max_unit_tip_reason",
+                       "meyerhof_nq", "lambda", "uplift_factor",
+                       "compression_index", "recompression_index", "void_ratio",
+                       "preconsolidation", "subgrade_modulus"});
     SoilLayer layer;
     layer.line = ctx.at(l).line;
     layer.name = ctx.text(l, "name", Need::optional).value_or(fmt::format("layer {}", i + 1));

@@ -209,7 +209,7 @@ class Builder : public YAML::EventHandler {
   static constexpr std::size_t kOpen = static_cast<std::size_t>(-1);
 
   struct Frame {
-    YamlValue* value;
+    YamlValue* value = nullptr;
     std::string path;
     std::size_t total = 1;  // values, with every alias written out
     int height = 1;         // levels of lists and maps, this one included
@@ -337,10 +337,11 @@ class Builder : public YAML::EventHandler {
     YamlValue* v = make(mark);
     v->kind = kind;
     remember(anchor, v, kOpen);
-    Frame f{v, std::move(path)};
+    Frame& f = stack_.emplace_back();
+    f.value = v;
+    f.path = std::move(path);
     f.anchor = anchor;
     f.quiet = quiet;
-    stack_.push_back(std::move(f));
   }
 
   void close() {
@@ -361,6 +362,54 @@ class Builder : public YAML::EventHandler {
   std::vector<Frame> stack_;
   std::vector<Anchored> anchored_;
   int ignored_ = 0;  // lists and maps opened after a fatal problem, still to close
+};
+
+// Stops the parser at the first top-level key not in `skip` (or at anything showing that
+// the top is not a map).
+class FirstKey : public YAML::EventHandler {
+ public:
+  explicit FirstKey(const std::vector<std::string>& skip) : skip_(skip) {}
+  struct Decided {
+    std::optional<std::string> key;
+  };
+  void OnDocumentStart(const YAML::Mark&) override {}
+  void OnDocumentEnd() override {}
+  void OnNull(const YAML::Mark&, YAML::anchor_t) override { value_done(); }
+  void OnAlias(const YAML::Mark&, YAML::anchor_t) override { value_done(); }
+  void OnScalar(const YAML::Mark&, const std::string&, YAML::anchor_t,
+                const std::string& value) override {
+    if (depth_ == 1 && top_is_map_ && awaiting_key_) {
+      if (std::find(skip_.begin(), skip_.end(), value) == skip_.end()) throw Decided{value};
+      awaiting_key_ = false;
+      return;
+    }
+    value_done();
+  }
+  void OnSequenceStart(const YAML::Mark&, const std::string&, YAML::anchor_t,
+                       YAML::EmitterStyle::value) override {
+    if (depth_ == 0) throw Decided{std::nullopt};
+    ++depth_;
+  }
+  void OnSequenceEnd() override { close(); }
+  void OnMapStart(const YAML::Mark&, const std::string&, YAML::anchor_t,
+                  YAML::EmitterStyle::value) override {
+    if (depth_ == 0) top_is_map_ = true;
+    ++depth_;
+  }
+  void OnMapEnd() override { close(); }
+
+ private:
+  void value_done() {
+    if (depth_ == 0) throw Decided{std::nullopt};
+    if (depth_ == 1) awaiting_key_ = true;
+  }
+  void close() {
+    if (--depth_ == 1) awaiting_key_ = true;
+  }
+  const std::vector<std::string>& skip_;
+  int depth_ = 0;
+  bool top_is_map_ = false;
+  bool awaiting_key_ = true;
 };
 
 }  // namespace
@@ -402,6 +451,21 @@ std::unique_ptr<YamlDocument> parse_yaml(const std::string& text, const std::str
   for (auto& p : builder.problems) diag.error(p.where, std::move(p.message));
   if (builder.fatal) return nullptr;
   return doc;
+}
+
+std::optional<std::string> first_top_level_key(const std::string& text,
+                                               const std::vector<std::string>& skip) {
+  FirstKey test(skip);
+  try {
+    std::istringstream stream(text);
+    YAML::Parser parser(stream);
+    parser.HandleNextDocument(test);
+  } catch (const FirstKey::Decided& d) {
+    return d.key;
+  } catch (const YAML::Exception&) {
+    return std::nullopt;  // the file's reader reports the problem with its location
+  }
+  return std::nullopt;
 }
 
 // ---- located values ---------------------------------------------------------------------

@@ -68,6 +68,12 @@ struct YamlDocument {
 std::unique_ptr<YamlDocument> parse_yaml(const std::string& text, const std::string& file,
                                          Diagnostics& diagnostics);
 
+// The first key at the top of the document in `text` that is not in `skip`, read from the
+// first events only (the rest of the text is not parsed); nullopt when the top is not a
+// map, has no other key, or the text is not well-formed YAML.
+std::optional<std::string> first_top_level_key(const std::string& text,
+                                               const std::vector<std::string>& skip);
+
 // A value in its file, with its key path.
 struct Located {
   const YamlValue* node = nullptr;  // nullptr: the key is absent

@@ -13,7 +13,9 @@
 
 namespace cairn {
 
-CheckRun analyse_project(const std::string& file) {
+namespace {
+
+CheckRun analyse_read_project(const std::string& file) {
   CheckRun run;
   run.project = read_project(file);
   const Project& project = run.project;
@@ -60,6 +62,18 @@ CheckRun analyse_project(const std::string& file) {
   return run;
 }
 
+}  // namespace
+
+CheckRun analyse_project(const std::string& file) {
+  try {
+    return analyse_read_project(file);
+  } catch (const std::invalid_argument& e) {
+    // A method refused the file's data (outside its range of validity): a problem with the
+    // input, named with its file.
+    throw InputError(whole_file(file), std::string("cannot compute: ") + e.what());
+  }
+}
+
 std::vector<CapOutcome> analyse_projects(const std::vector<std::string>& files,
                                          unsigned threads) {
   std::vector<CapOutcome> outcomes(files.size());
@@ -71,9 +85,6 @@ std::vector<CapOutcome> analyse_projects(const std::vector<std::string>& files,
         outcomes[i].run = analyse_project(files[i]);
       } catch (const InputError& e) {
         outcomes[i].problems = e.diagnostics();
-      } catch (const std::invalid_argument& e) {
-        // A method refused its data (outside its range of validity): an input problem.
-        outcomes[i].problems = {{whole_file(files[i]), std::string("cannot compute: ") + e.what()}};
       }
     }
   };

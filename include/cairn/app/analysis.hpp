@@ -30,7 +30,8 @@ struct CheckRun {
 };
 
 // Reads and checks one project file. Throws InputError for any input problem (nothing is
-// computed from a file with problems).
+// computed from a file with problems); a method that refuses the file's data (outside its
+// range of validity) is one too, named with the file: "file: error: cannot compute: …".
 CheckRun analyse_project(const std::string& file);
 
 // Analyses several files on up to `threads` threads. Each entry holds the run or the

@@ -207,6 +207,7 @@ class Builder : public YAML::EventHandler {
 
  private:
   static constexpr std::size_t kOpen = static_cast<std::size_t>(-1);
+  static constexpr std::size_t kIndexed = 16;
 
   struct Frame {
     YamlValue* value = nullptr;
@@ -220,7 +221,7 @@ class Builder : public YAML::EventHandler {
     bool skip_value = false;  // the key was given twice
     std::string key;
     int key_line = 0, key_column = 0;
-    std::unordered_map<std::string, int> first_line;  // keys seen, at their line
+    std::unordered_map<std::string, int> first_line;  // keys at their line, in big maps
   };
   struct Anchored {
     YamlValue* value = nullptr;
@@ -270,11 +271,26 @@ class Builder : public YAML::EventHandler {
     f.key = key;
     f.key_line = line;
     f.key_column = column;
-    const auto [seen, added] = f.first_line.emplace(key, line);
-    f.skip_value = !added;
-    if (!added)
+    // The line of the same key earlier in this map, if any: small maps are searched, a map
+    // of kIndexed keys or more is indexed (a map of 100,000 combinations stays linear).
+    int earlier = 0;
+    const auto& entries = f.value->entries;
+    if (entries.size() < kIndexed) {
+      for (const auto& e : entries)
+        if (e.key == key) {
+          earlier = e.line;
+          break;
+        }
+    } else {
+      if (f.first_line.empty())
+        for (const auto& e : entries) f.first_line.emplace(e.key, e.line);
+      const auto [seen, added] = f.first_line.emplace(key, line);
+      if (!added) earlier = seen->second;
+    }
+    f.skip_value = earlier > 0;
+    if (f.skip_value)
       error({file_, line, column},
-            fmt::format("{}: given twice (first at line {})", child_path(), seen->second));
+            fmt::format("{}: given twice (first at line {})", child_path(), earlier));
   }
 
   // The path of the value about to be added to the innermost list or map.

@@ -657,5 +657,14 @@ for file in "$data"/fuzz-regressions/fuzz_reactions/*; do
   fuzz_replay "$(basename "$file")" check "$replay/cap.yaml"
 done
 
+# Errors by kind: a file that cannot be opened is named without a line (never file:0:0),
+# alone or among the caps of a foundation file.
+expect_status "a missing project file" 2 check "$work/no-such-cap.yaml"
+expect_in "a missing project file is named" "$work/err" "cairn: $work/no-such-cap.yaml: error: cannot open the project file (does it exist?)"
+if grep -q ':0:0' "$work/err"; then bad "a missing project file: a location with line 0"; else ok; fi
+printf 'title: two caps\ncaps: [no-such-cap.yaml, %s]\n' "$data/base.yaml" >"$work/foundation.yaml"
+expect_status "a foundation file with a missing cap" 2 check "$work/foundation.yaml"
+if grep -q ':0:0' "$work/err"; then bad "a foundation file: a location with line 0"; else ok; fi
+
 echo "$passed passed, $failed failed"
 [ "$failed" -eq 0 ]

@@ -71,9 +71,9 @@ void read_method(const Located& n, const std::map<std::string, T>& names,
                  std::optional<T>& for_clay, std::optional<T>& for_sand, ReadContext& ctx) {
   if (n.is_map()) {
     ctx.check_keys(n, {"clay", "sand"});
-    if (auto c = n.child("clay"); c.present()) for_clay = ctx.template choice<T>(c, names);
-    if (auto s = n.child("sand"); s.present()) for_sand = ctx.template choice<T>(s, names);
-  } else if (auto v = ctx.template choice<T>(n, names)) {
+    if (auto c = n.child("clay"); c.present()) for_clay = ctx.choice<T>(c, names);
+    if (auto s = n.child("sand"); s.present()) for_sand = ctx.choice<T>(s, names);
+  } else if (auto v = ctx.choice<T>(n, names)) {
     // One name for both kinds of soil: used wherever the method applies.
     if (applies_to(*v, SoilKind::clay)) for_clay = v;
     if (applies_to(*v, SoilKind::sand)) for_sand = v;

@@ -809,5 +809,13 @@ expect_in "check: piles missing" "$work/err" "piles: missing"
 expect_status "check: a file with piles and a design section ignores the section" 0 check "$work/with-piles.yaml"
 expect_status "design: markdown" 0 design "$data/design/typed.yaml" --format markdown
 expect_in "design: markdown table" "$work/out" "## Best layouts"
+# Errors by kind: a file that cannot be opened is named without a line (never file:0:0),
+# alone or among the caps of a foundation file.
+expect_status "a missing project file" 2 check "$work/no-such-cap.yaml"
+expect_in "a missing project file is named" "$work/err" "cairn: $work/no-such-cap.yaml: error: cannot open the project file (does it exist?)"
+if grep -q ':0:0' "$work/err"; then bad "a missing project file: a location with line 0"; else ok; fi
+printf 'title: two caps\ncaps: [no-such-cap.yaml, %s]\n' "$data/base.yaml" >"$work/foundation.yaml"
+expect_status "a foundation file with a missing cap" 2 check "$work/foundation.yaml"
+if grep -q ':0:0' "$work/err"; then bad "a foundation file: a location with line 0"; else ok; fi
 echo "$passed passed, $failed failed"
 [ "$failed" -eq 0 ]

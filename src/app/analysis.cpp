@@ -14,7 +14,14 @@
 namespace cairn {
 
 CheckRun analyse_project(const std::string& file, const AnalysisOptions& options) {
-  return analyse(read_project(file), {}, options);
+  Project project = read_project(file);
+  try {
+    return analyse(std::move(project), {}, options);
+  } catch (const std::invalid_argument& e) {
+    // A method refused the file's data (outside its range of validity): a problem with the
+    // input, named with its file.
+    throw InputError(whole_file(file), std::string("cannot compute: ") + e.what());
+  }
 }
 
 CheckRun analyse_project(Project project) { return analyse(std::move(project)); }
@@ -105,9 +112,6 @@ std::vector<CapOutcome> analyse_projects(const std::vector<std::string>& files,
         outcomes[i].run = analyse_project(files[i], options);
       } catch (const InputError& e) {
         outcomes[i].problems = e.diagnostics();
-      } catch (const std::invalid_argument& e) {
-        // A method refused its data (outside its range of validity): an input problem.
-        outcomes[i].problems = {{{files[i], 0, 0}, std::string("cannot compute: ") + e.what()}};
       }
     }
   };
@@ -138,7 +142,7 @@ CheckReport make_check_report(const CheckRun& run, const std::string& options,
       std::vector<std::string> ids;
       for (const auto& p : piles) ids.push_back(p.id);
       const std::string near = closest_match(*explain, ids);
-      throw InputError({run.project.file, 0, 0},
+      throw InputError(whole_file(run.project.file),
                        fmt::format("--explain: pile '{}' does not exist{}", *explain,
                                    near.empty() ? "" : "; did you mean '" + near + "'?"));
     }

@@ -321,7 +321,8 @@ int run(const Options& options, std::ostream& out, std::ostream& err) {
     return kExitBadInput;
   } catch (const std::exception& e) {
     // Our own bugs (std::logic_error and anything unexpected).
-    err << "cairn: internal error: " << e.what() << "\n";
+    err << "cairn: internal error: " << e.what()
+        << " (a fault in cairn, not in the input; please report it with the project file)\n";
     return kExitBadInput;
   }
 }

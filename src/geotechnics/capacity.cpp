@@ -392,6 +392,8 @@ double default_uplift_factor(SoilKind kind) {
 namespace {
 
 // The weights rule is the soil column's (soil.hpp): one of the two unit weights suffices.
+// The ranges of the friction angle (20° to 50°), Poisson's ratio and the volumetric strain
+// are checked where the project file is read (read_soil.cpp), once.
 void check_layer_basics(const SoilLayer& layer, std::vector<std::string>& problems) {
   const std::string who = quoted(layer);
   if (!(layer.thickness > 0.0)) problems.push_back(who + ": thickness must be positive");
@@ -400,8 +402,6 @@ void check_layer_basics(const SoilLayer& layer, std::vector<std::string>& proble
   if (layer.kind == SoilKind::sand) {
     if (!layer.friction_angle)
       problems.push_back(who + ": a sand layer needs friction_angle");
-    else if (!(*layer.friction_angle >= 20.0 && *layer.friction_angle <= 50.0))
-      problems.push_back(who + ": friction_angle must lie between 20 and 50 degrees");
   } else {
     if (!layer.undrained_strength)
       problems.push_back(who + ": a clay layer needs undrained_strength");
@@ -420,10 +420,6 @@ void check_layer_basics(const SoilLayer& layer, std::vector<std::string>& proble
   positive(layer.lambda, "lambda");
   if (layer.shaft_delta && !(*layer.shaft_delta > 0.0 && *layer.shaft_delta < 90.0))
     problems.push_back(who + ": shaft_delta must lie between 0 and 90 degrees");
-  if (layer.poisson_ratio && !(*layer.poisson_ratio >= 0.0 && *layer.poisson_ratio < 0.5))
-    problems.push_back(who + ": poisson_ratio must lie in [0, 0.5)");
-  if (layer.volumetric_strain && !(*layer.volumetric_strain >= 0.0))
-    problems.push_back(who + ": volumetric_strain must not be negative");
   if (layer.uplift_factor && !(*layer.uplift_factor >= 0.0 && *layer.uplift_factor <= 1.0))
     problems.push_back(who + ": uplift_factor must lie between 0 and 1");
 }

@@ -5,29 +5,25 @@
 
 #include <fmt/format.h>
 
+#include "cairn/input/includes.hpp"
+
 namespace cairn {
 namespace {
 
-SourceLocation where_in(const YAML::Node& node, const std::string& file) {
-  if (!node.IsDefined() || node.Mark().line < 0) return {file, 0, 0};
-  return {file, node.Mark().line + 1, node.Mark().column + 1};
-}
-
-std::string shown(const YAML::Node& node) {
-  if (node.IsScalar()) return "'" + node.Scalar() + "'";
-  if (node.IsSequence()) return "a list";
-  if (node.IsMap()) return "a map";
+std::string shown(const Located& node) {
+  if (node.is_scalar()) return "'" + node.scalar() + "'";
+  if (node.is_sequence()) return "a list";
+  if (node.is_map()) return "a map";
   return "nothing";
 }
 
 }  // namespace
 
-void read_package_settings(const YAML::Node& node, const std::string& file, Project& project,
-                           Diagnostics& diagnostics) {
+void read_package_settings(const Located& node, Project& project, Diagnostics& diagnostics) {
   PackageSettings& k = project.package;
-  k.where = where_in(node, file);
-  if (node.IsNull()) return;
-  if (!node.IsMap()) {
+  k.where = node.where();
+  if (!node.present()) return;
+  if (!node.is_map()) {
     diagnostics.error(k.where, fmt::format("package: expected a map of keys (revision, date, "
                                            "prepared_by, checked_by, show_combinations), got {}",
                                            shown(node)));
@@ -35,26 +31,26 @@ void read_package_settings(const YAML::Node& node, const std::string& file, Proj
   }
   const std::vector<std::string> keys = {"revision", "date", "prepared_by", "checked_by",
                                          "show_combinations"};
-  for (auto it = node.begin(); it != node.end(); ++it) {
-    const std::string key = it->first.IsScalar() ? it->first.Scalar() : "";
-    const YAML::Node value = it->second;
-    const SourceLocation at = where_in(it->first, file);
+  for (const auto& e : node.node->entries) {
+    const std::string& key = e.key;
+    const Located value = node.entry(e);
+    const SourceLocation at = key_location(e, *node.file);
     if (key == "show_combinations") {
-      std::vector<YAML::Node> items;
-      if (value.IsSequence())
-        for (std::size_t i = 0; i < value.size(); ++i) items.push_back(value[i]);
+      std::vector<Located> items;
+      if (value.is_sequence())
+        for (std::size_t i = 0; i < value.size(); ++i) items.push_back(value.item(i));
       else
         items.push_back(value);
       std::vector<std::string> ids;
       for (const auto& c : project.combinations) ids.push_back(c.id);
       for (const auto& item : items) {
-        const std::string id = item.IsScalar() ? item.Scalar() : shown(item);
-        if (item.IsScalar() && std::find(ids.begin(), ids.end(), id) != ids.end()) {
+        const std::string id = item.is_scalar() ? item.scalar() : shown(item);
+        if (item.is_scalar() && std::find(ids.begin(), ids.end(), id) != ids.end()) {
           k.show_combinations.push_back(id);
           continue;
         }
         const std::string near = closest_match(id, ids);
-        diagnostics.error(where_in(item, file),
+        diagnostics.error(item.where(),
                           fmt::format("package.show_combinations: combination '{}' does not "
                                       "exist{}",
                                       id, near.empty() ? "" : "; did you mean '" + near + "'?"));
@@ -76,23 +72,25 @@ void read_package_settings(const YAML::Node& node, const std::string& file, Proj
                                               near));
       continue;
     }
-    if (!value.IsScalar()) {
-      diagnostics.error(where_in(value, file),
+    if (!value.is_scalar()) {
+      diagnostics.error(value.where(),
                         fmt::format("package.{}: expected text, got {}", key, shown(value)));
       continue;
     }
-    *field = value.Scalar();
+    *field = value.scalar();
   }
 }
 
 std::string foundation_title(const std::string& path) {
-  try {
-    const YAML::Node root = YAML::LoadFile(path);
-    if (!root.IsMap() || !root["caps"] || !root["title"] || !root["title"].IsScalar()) return "";
-    return root["title"].Scalar();
-  } catch (const YAML::Exception&) {
-    return "";
-  }
+  std::string text;
+  if (!read_text_file(path, text)) return "";
+  Diagnostics ignored;
+  const auto doc = parse_yaml(text, path, ignored);
+  if (!doc || !doc->root) return "";
+  const Located top = Located::of(doc->root, path, "");
+  const Located title = top.child("title");
+  if (!top.is_map() || !top.child("caps").defined() || !title.is_scalar()) return "";
+  return title.scalar();
 }
 
 }  // namespace cairn

@@ -106,7 +106,7 @@ json check_json(const CheckReport& r) {
   }
   doc["envelope"] = envelope;
   if (r.cap_stiffness) {
-    const Units& uu = u;
+    const QuantityFormat& uu = u;
     doc["cap_stiffness"] = {
         {"about", {0.0, 0.0, 0.0}},
         {"units", {{"force_per_length", uu.label(Quantity::force) + "/" + uu.label(Quantity::length)},

@@ -299,7 +299,7 @@ Table pile_types_table(const CheckReport& r) {
 }
 
 std::array<std::array<double, 6>, 6> cap_stiffness_values(const CheckReport& r) {
-  const Units u(r.project->units);
+  const QuantityFormat u(r.project->units);
   std::array<std::array<double, 6>, 6> out{};
   if (!r.cap_stiffness) return out;
   const auto& k = *r.cap_stiffness;
@@ -319,7 +319,7 @@ std::array<std::array<double, 6>, 6> cap_stiffness_values(const CheckReport& r) 
 }
 
 Table cap_stiffness_table(const CheckReport& r) {
-  const Units u(r.project->units);
+  const QuantityFormat u(r.project->units);
   Table t;
   t.title = "Cap stiffness about the origin, every pile active (for the structural model)";
   const std::string f = u.label(Quantity::force), l = u.label(Quantity::length),

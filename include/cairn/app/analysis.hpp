@@ -39,7 +39,8 @@ struct AnalysisOptions {
 };
 
 // Reads and checks one project file. Throws InputError for any input problem (nothing is
-// computed from a file with problems).
+// computed from a file with problems); a method that refuses the file's data (outside its
+// range of validity) is one too, named with the file: "file: error: cannot compute: …".
 CheckRun analyse_project(const std::string& file, const AnalysisOptions& options = {});
 
 // Changes to pile types made after the fact (a damaged pile's type, site/as_built.hpp):

@@ -15,6 +15,11 @@
 
 namespace cairn {
 
+// A problem with a whole file or with the command line rather than with a place in a file
+// (a file that cannot be opened, an option): no line and column, written "file: error: …"
+// (or "<input>: error: …" without a file). A location is never written "file:0:0".
+inline SourceLocation whole_file(const std::string& file) { return {file, 0, 0}; }
+
 struct Diagnostic {
   SourceLocation where;
   std::string message;  // "<key path>: <what was expected>, got '<what was found>'"

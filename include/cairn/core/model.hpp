@@ -3,7 +3,8 @@
 //
 // Every value is held in SI units inside: kN, m, kPa, kN/m³, kN/m, kN·m, angles in degrees
 // only where the field name says so. Conversion from the project's units happens once, in
-// input.cpp; conversion back happens once, in report.cpp.
+// the section readers of src/input/ (sections.hpp); conversion back happens once, in
+// report.cpp.
 //
 // Axes: x and y in plan, z up. Pile heads lie at z = 0 (underside of the cap); the top of
 // the cap is at z = thickness. Loads act on the cap in global axes; moments follow the

@@ -30,6 +30,7 @@
 #include <string_view>
 #include <vector>
 
+#include "cairn/core/units.hpp"
 #include "cairn/geotechnics/soil.hpp"
 
 namespace cairn {

@@ -14,18 +14,16 @@
 
 #include <string>
 
-#include <yaml-cpp/yaml.h>
-
 #include "cairn/core/diagnostics.hpp"
 #include "cairn/core/model.hpp"
+#include "cairn/input/yaml_core.hpp"
 
 namespace cairn {
 
 // Reads `node` (the value of `package:` in `file`) into project.package; problems (an
 // unknown key, a value that is not text, a combination that does not exist) go to
 // `diagnostics`, located in `file`.
-void read_package_settings(const YAML::Node& node, const std::string& file, Project& project,
-                           Diagnostics& diagnostics);
+void read_package_settings(const Located& node, Project& project, Diagnostics& diagnostics);
 
 // The `title:` of a foundation file (a file with `caps:`), else "" (not a foundation file,
 // no title, or a file that cannot be read: read_project reports those).

@@ -13,7 +13,7 @@
 
 namespace cairn {
 
-CheckRun analyse_project(const std::string& file) {
+CheckRun analyse_project(const std::string& file, bool pile_rows) {
   CheckRun run;
   run.project = read_project(file);
   const Project& project = run.project;
@@ -38,8 +38,11 @@ CheckRun analyse_project(const std::string& file) {
   // The cap's pile forces depend on the springs only, so they are known before the
   // resistances; Broms' yield moment is taken at the least favourable of them.
   // (Not when a load cannot be resisted at all: that is reported first.)
+  // Without a soil profile nothing computed depends on the pile forces: a run that keeps no
+  // pile rows then checks each combination as it is solved and keeps none of them.
+  const bool streamed = !pile_rows && !(project.soil && !project.soil->layers.empty());
   std::vector<CapSolution> solutions;
-  if (problems.empty()) solutions = solve_combinations(project, solver);
+  if (problems.empty() && !streamed) solutions = solve_combinations(project, solver);
   const auto lateral = lateral_capacities(project, axial_ranges(project, solutions));
   for (const auto& d : lateral_input_problems(project, lateral, solutions)) problems.error(d.where, d.message);
   run.resistances =
@@ -51,7 +54,17 @@ CheckRun analyse_project(const std::string& file) {
   problems.raise_if_any();
   std::vector<double> moment_per_shear;
   for (const auto& k : run.stiffness) moment_per_shear.push_back(k.head_moment_per_shear);
-  run.results = check_piles(project, std::move(solutions), run.resistances, moment_per_shear);
+  CheckAccumulator accumulator(project, run.resistances, moment_per_shear, pile_rows);
+  if (streamed)
+    solve_combinations(project, solver, [&](std::size_t c, CapSolution&& solution) {
+      accumulator.add(c, std::move(solution));
+    });
+  else
+    for (std::size_t c = 0; c < solutions.size(); ++c) {
+      accumulator.add(c, std::move(solutions[c]));
+      if (!pile_rows) std::vector<PileForce>().swap(solutions[c].piles);
+    }
+  run.results = accumulator.finish();
   run.group = evaluate_group(project, run.results, run.resistances, run.capacities);
   if (!run.group.pass) run.results.summary.pass = false;
   std::vector<std::pair<std::string, std::string>> sources;
@@ -61,14 +74,14 @@ CheckRun analyse_project(const std::string& file) {
 }
 
 std::vector<CapOutcome> analyse_projects(const std::vector<std::string>& files,
-                                         unsigned threads) {
+                                         unsigned threads, bool pile_rows) {
   std::vector<CapOutcome> outcomes(files.size());
   std::atomic<std::size_t> next{0};
   auto work = [&] {
     for (std::size_t i = next++; i < files.size(); i = next++) {
       outcomes[i].file = files[i];
       try {
-        outcomes[i].run = analyse_project(files[i]);
+        outcomes[i].run = analyse_project(files[i], pile_rows);
       } catch (const InputError& e) {
         outcomes[i].problems = e.diagnostics();
       } catch (const std::invalid_argument& e) {

@@ -51,6 +51,7 @@ std::string describe_options(const Options& o) {
   if (o.need_tension) text += fmt::format(" --need-tension {:g}", *o.need_tension);
   if (o.need_compression || o.need_tension)
     text += fmt::format(" --need-basis {}", to_string(o.need_basis));
+  if (o.detail != Detail::full) text += std::string(" --detail ") + to_string(o.detail);
   if (o.out_dir) text += " --out " + *o.out_dir;
   if (o.explain_pile) text += " --explain " + *o.explain_pile;
   return text;
@@ -80,11 +81,12 @@ std::string command_line_text(int argc, const char* const* argv) {
 
 // Every cap of the files given (foundation files expanded), analysed on all cores. Input
 // problems in any cap stop the run before anything is written.
-std::vector<CapOutcome> analyse_all(const std::vector<std::string>& given) {
+std::vector<CapOutcome> analyse_all(const std::vector<std::string>& given, bool pile_rows) {
   std::vector<std::string> files;
   for (const auto& f : given)
     for (const auto& cap : expand_foundation(f)) files.push_back(cap);
-  auto outcomes = analyse_projects(files, std::max(1u, std::thread::hardware_concurrency()));
+  auto outcomes =
+      analyse_projects(files, std::max(1u, std::thread::hardware_concurrency()), pile_rows);
   std::vector<Diagnostic> problems;
   for (const auto& o : outcomes) problems.insert(problems.end(), o.problems.begin(), o.problems.end());
   if (!problems.empty()) throw InputError(problems);
@@ -131,7 +133,8 @@ void print_warnings(const Project& project, std::ostream& err) {
 // problems in any file stop the run before anything is written.
 int run_batch(const Options& options, std::ostream& out, std::ostream& err) {
   if (options.explain_pile) throw InputError({}, "--explain: give a single project file");
-  const auto outcomes = analyse_all(options.files);
+  // The summary table needs no pile rows; the files under --out do at full detail.
+  const auto outcomes = analyse_all(options.files, options.out_dir && options.detail == Detail::full);
   std::vector<CapSummaryRow> rows;
   std::vector<std::pair<std::string, std::string>> written;
   bool pass = true;
@@ -142,7 +145,8 @@ int run_batch(const Options& options, std::ostream& out, std::ostream& err) {
     rows.push_back(summary_row(*o.run));
     pass = pass && rows.back().pass;
     if (options.out_dir) {
-      const CheckReport report = make_check_report(*o.run, described, std::nullopt);
+      CheckReport report = make_check_report(*o.run, described, std::nullopt);
+      report.detail = options.detail;
       const std::string stem = unique_stem(o.file, stems);
       for (auto& [name, content] : check_files(report)) written.emplace_back(stem + "/" + name, content);
     }
@@ -163,9 +167,12 @@ int run_check(const Options& options, std::ostream& out, std::ostream& err) {
   if (options.files.size() != 1) return run_batch(options, out, err);
   const auto caps = expand_foundation(options.files.front());
   if (caps.size() != 1 || caps.front() != options.files.front()) return run_batch(options, out, err);
-  const CheckRun run = analyse_project(options.files.front());
+  // Below full detail no pile rows are kept (the hand check of --explain needs them).
+  const CheckRun run = analyse_project(options.files.front(),
+                                       options.detail == Detail::full || options.explain_pile);
   print_warnings(run.project, err);
-  const CheckReport report = make_check_report(run, describe_options(options), options.explain_pile);
+  CheckReport report = make_check_report(run, describe_options(options), options.explain_pile);
+  report.detail = options.detail;
   const std::string rendered = render_check(report, options.format);
   if (options.out_dir) write_files_atomically(*options.out_dir, check_files(report));
   out << rendered;
@@ -268,7 +275,8 @@ std::string group_section_html(const CheckReport& report) {
 // plan alone as SVG and the tables as CSV and Markdown), all written at once.
 int run_report(const Options& options, std::ostream& out, std::ostream& err) {
   if (!options.out_dir) throw InputError({}, "report: expected --out DIR for the report files");
-  const auto outcomes = analyse_all(options.files);
+  // The summary table needs no pile rows; the files under --out do at full detail.
+  const auto outcomes = analyse_all(options.files, options.out_dir && options.detail == Detail::full);
   for (const auto& o : outcomes) print_warnings(o.run->project, err);
   const std::string described = describe_options(options);
   std::vector<std::pair<std::string, std::string>> written;
@@ -372,7 +380,14 @@ int run_command_line(int argc, const char* const* argv, std::ostream& out, std::
                        "check every cap and print one summary table",
                        formats);
   check->add_option("--out", options.out_dir,
-                    "Also write report.txt, report.md, results.json and CSV tables into DIR");
+                    "Also write report.txt, report.md, results.json and CSV tables (summary.csv, "
+                    "envelope.csv, results.csv: one row per combination and pile) into DIR");
+  std::string detail = "full";
+  check->add_option("--detail", detail,
+                    "How much to show: full (every pile in every combination, default), envelope "
+                    "(per pile over all combinations), governing (per pile and check, the "
+                    "governing combination) or summary (the verdict and the summary row)")
+      ->check(CLI::IsMember({"full", "envelope", "governing", "summary"}));
   check->add_option("--explain", options.explain_pile,
                     "Show the hand check (section properties, substituted formula) for PILE");
   CLI::App* capacity = app.add_subcommand(
@@ -444,6 +459,9 @@ int run_command_line(int argc, const char* const* argv, std::ostream& out, std::
   else if (format == "markdown") options.format = Format::markdown;
   else if (format == "json") options.format = Format::json;
   if (check->parsed()) options.command = Command::check;
+  if (detail == "envelope") options.detail = Detail::envelope;
+  else if (detail == "governing") options.detail = Detail::governing;
+  else if (detail == "summary") options.detail = Detail::summary;
   if (capacity->parsed()) options.command = Command::capacity;
   if (need_basis == "factored") options.need_basis = CapacityBasis::factored;
   if (springs->parsed()) options.command = Command::springs;

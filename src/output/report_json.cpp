@@ -23,14 +23,18 @@ json check_json(const CheckReport& r) {
                   {"moment", u.label(Quantity::moment)},
                   {"displacement", u.label(Quantity::small_length)},
                   {"rotation", "rad"}};
+  if (r.detail != Detail::full) doc["detail"] = to_string(r.detail);
   json combos = json::array();
   const double reach = cap_reach(p), resolution = displacement_resolution(p.units);
   for (const CombinationCheck& cc : r.results->combinations) {
+    // Below full detail only the overturned combinations are listed, without pile rows.
+    const bool rows = r.detail == Detail::full;
+    if (!rows && !cc.solution.overturns) continue;
     const Combination& c = p.combinations[cc.combination];
     json factors = json::object();
     for (const auto& [index, factor] : c.factors) factors[p.load_cases[index].id] = factor;
     json piles = json::array();
-    for (std::size_t i = 0; i < p.piles.size(); ++i) {
+    for (std::size_t i = 0; rows && i < p.piles.size(); ++i) {
       const PileCheck& pc = cc.piles[i];
       // An overturned cap has no pile forces: null, not zeros that would read as computed.
       const bool none = pc.state == PileState::overturned;
@@ -68,7 +72,7 @@ json check_json(const CheckReport& r) {
            {rotation_value(m.rotation[0], reach, resolution),
             rotation_value(m.rotation[1], reach, resolution),
             rotation_value(m.rotation[2], reach, resolution)}}}},
-        {"piles", piles},
+        {"piles", rows ? piles : json(nullptr)},
         {"dropped", dropped},
         {"max_utilization", number_or_null(cc.max_utilization)},
         {"governing_pile", cc.governing_pile ? json(p.piles[*cc.governing_pile].id) : json(nullptr)}};
@@ -93,7 +97,23 @@ json check_json(const CheckReport& r) {
                         {"governing", to_string(e.governing)},
                         {"pass", e.pass}});
   }
-  doc["envelope"] = envelope;
+  if (r.detail == Detail::full || r.detail == Detail::envelope) doc["envelope"] = envelope;
+  if (r.detail == Detail::governing) {
+    json governing = json::array();
+    for (std::size_t i = 0; i < p.piles.size(); ++i) {
+      const PileGoverning& g = r.results->governing[i];
+      for (std::size_t k = 0; k < g.size(); ++k) {
+        if (!g[k].utilization.combination) continue;
+        governing.push_back({{"pile", p.piles[i].id},
+                             {"check", to_string(static_cast<Demand>(k + 1))},
+                             {"demand", u.value(Quantity::force, g[k].demand)},
+                             {"utilization", number_or_null(g[k].utilization.value)},
+                             {"combination", p.combinations[*g[k].utilization.combination].id},
+                             {"pass", g[k].utilization.value <= 1.0}});
+      }
+    }
+    doc["governing"] = governing;
+  }
   if (r.group) doc["group"] = group_json(r);
   const CheckSummary& s = r.results->summary;
   json overturned = json::array();

@@ -83,6 +83,8 @@ std::vector<std::string> failure_reasons(const CheckReport& r);
 std::string joined(const std::vector<std::string>& items, const char* separator);
 Table summary_table(const CheckReport& r);
 std::string header(const CheckReport& r, Format format);
+// render_check below full detail (report_detail.cpp).
+std::string render_check_brief(const CheckReport& r, Format format);
 std::string assumptions_block(const CheckReport& r, Format format);
 std::string explain_block(const CheckReport& r, Format format);
 

@@ -4,6 +4,7 @@
 #include <cmath>
 #include <limits>
 #include <set>
+#include <stdexcept>
 
 namespace cairn {
 
@@ -109,6 +110,9 @@ std::string summary_line(const CheckReport& r) {
 }
 std::string render_check(const CheckReport& r, Format format) {
   if (format == Format::json) return check_json(r).dump(2) + "\n";
+  if (r.detail != Detail::full) return render_check_brief(r, format);
+  if (!r.results->pile_rows)
+    throw std::logic_error("render_check: full detail of a run that kept no pile rows");
   if (format == Format::csv) {
     // One CSV stream: sections separated by a blank line, each headed by a comment line.
     std::string out;
@@ -159,21 +163,18 @@ std::vector<std::pair<std::string, std::string>> check_files(const CheckReport& 
   Table summary = summary_table(r);
   summary.title.clear();
   files.emplace_back("summary.csv", render_table(summary, Format::csv) + trailer);
-  Table envelope = envelope_table(r);
-  envelope.title.clear();
-  files.emplace_back("envelope.csv", render_table(envelope, Format::csv) + trailer);
-  std::set<std::string> used;
-  for (const auto& cc : r.results->combinations) {
-    Table t = combination_table(r, cc);
-    t.title.clear();
-    std::string safe = r.project->combinations[cc.combination].id;
-    for (char& c : safe)
-      if (!(std::isalnum(static_cast<unsigned char>(c)) || c == '-' || c == '_' || c == '.')) c = '_';
-    // Different ids may read the same once made safe ("W+", "W_"): number the repeats.
-    std::string name = safe;
-    for (int n = 2; !used.insert(name).second; ++n) name = safe + "-" + std::to_string(n);
-    files.emplace_back("combination-" + name + ".csv", render_table(t, Format::csv) + trailer);
+  if (r.detail == Detail::full || r.detail == Detail::envelope) {
+    Table envelope = envelope_table(r);
+    envelope.title.clear();
+    files.emplace_back("envelope.csv", render_table(envelope, Format::csv) + trailer);
   }
+  if (r.detail == Detail::governing) {
+    Table governing = governing_table(r);
+    governing.title.clear();
+    files.emplace_back("governing.csv", render_table(governing, Format::csv) + trailer);
+  }
+  // One long table of every combination and pile, instead of a file per combination.
+  if (r.detail == Detail::full) files.emplace_back("results.csv", render_long_csv(r));
   return files;
 }
 
@@ -184,6 +185,7 @@ CheckTables check_tables(const CheckReport& r) {
   t.piles = piles_table(r);
   t.combinations = combinations_table(r);
   for (const auto& cc : r.results->combinations) {
+    if (!r.results->pile_rows) break;  // a run that kept no pile rows
     t.per_combination.push_back(combination_table(r, cc));
     t.per_combination_notes.push_back(combination_note(r, cc));
   }

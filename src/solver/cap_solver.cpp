@@ -568,14 +568,22 @@ Wrench combination_load(const Project& project, const Combination& combination) 
 }
 
 std::vector<CapSolution> solve_combinations(const Project& project, const CapSolver& solver) {
+  std::vector<CapSolution> result;
+  result.reserve(project.combinations.size());
+  solve_combinations(project, solver,
+                     [&](std::size_t, CapSolution&& solution) { result.push_back(std::move(solution)); });
+  return result;
+}
+
+void solve_combinations(const Project& project, const CapSolver& solver,
+                        const std::function<void(std::size_t, CapSolution&&)>& each) {
   std::vector<CapSolution> per_case;
   per_case.reserve(project.load_cases.size());
   for (const auto& lc : project.load_cases)
     per_case.push_back(solver.solve_linear(CapLoad(resultant_about(lc, solver.reference()))));
   constexpr double kResidualLimit = 1e-6;
-  std::vector<CapSolution> result;
-  result.reserve(project.combinations.size());
-  for (const auto& combo : project.combinations) {
+  for (std::size_t c = 0; c < project.combinations.size(); ++c) {
+    const Combination& combo = project.combinations[c];
     const CapLoad load(combination_load(project, combo, solver.reference()));
     std::vector<std::pair<const CapSolution*, double>> parts;
     for (const auto& [index, factor] : combo.factors) parts.emplace_back(&per_case[index], factor);
@@ -585,9 +593,8 @@ std::vector<CapSolution> solve_combinations(const Project& project, const CapSol
       throw std::logic_error(fmt::format(
           "combination '{}' misses equilibrium by {:.3g} of the load", combo.id,
           solution.residual));
-    result.push_back(std::move(solution));
+    each(c, std::move(solution));
   }
-  return result;
 }
 
 }  // namespace cairn

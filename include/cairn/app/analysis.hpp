@@ -30,8 +30,10 @@ struct CheckRun {
 };
 
 // Reads and checks one project file. Throws InputError for any input problem (nothing is
-// computed from a file with problems).
-CheckRun analyse_project(const std::string& file);
+// computed from a file with problems). With pile_rows false the results keep no row per
+// pile and combination (CheckResults::pile_rows): memory grows with piles + combinations
+// (without a soil profile; with one, the pile forces are kept for Broms' yield moment).
+CheckRun analyse_project(const std::string& file, bool pile_rows = true);
 
 // Analyses several files on up to `threads` threads. Each entry holds the run or the
 // input problems of its file, in the order of `files`.
@@ -41,7 +43,7 @@ struct CapOutcome {
   std::vector<Diagnostic> problems;
 };
 std::vector<CapOutcome> analyse_projects(const std::vector<std::string>& files,
-                                         unsigned threads);
+                                         unsigned threads, bool pile_rows = true);
 
 // A report over a run. `explain_pile` names a pile for the hand check; throws InputError
 // when it does not exist. The report points into `run`, which must outlive it.

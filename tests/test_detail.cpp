@@ -3,10 +3,18 @@
 // without keeping a row per pile and combination.
 #include <catch2/catch.hpp>
 
+#include <filesystem>
+#include <fstream>
+#include <iterator>
 #include <sstream>
 #include <string>
 
+#include <unistd.h>
+
+#include <nlohmann/json.hpp>
+
 #include "cairn/app/analysis.hpp"
+#include "cairn/output/output_files.hpp"
 #include "cairn/output/report.hpp"
 
 using namespace cairn;
@@ -112,4 +120,52 @@ TEST_CASE("detail: the long results table holds every row of the per-combination
                           "," + row[5] + "," + row[6] + "," + row[7] + "," + row[8]);
       }
   }
+}
+
+TEST_CASE("detail: the streamed JSON is the document tree's text", "[detail]") {
+  for (const std::string file : {kDemo + "/crane-rail-footing/cap.yaml",
+                                 kDemo + "/conveyor-pier-us/cap.yaml",
+                                 kData + "/outputs/mixed.yaml", kData + "/html/cap.yaml"}) {
+    INFO(file);
+    const CheckRun run = analyse_project(file);
+    CheckReport report = make_check_report(run, "cairn check", std::nullopt);
+    for (Detail d : {Detail::full, Detail::envelope, Detail::governing, Detail::summary}) {
+      report.detail = d;
+      std::ostringstream streamed;
+      write_check(report, Format::json, streamed);
+      CHECK(streamed.str() == check_json(report).dump(2) + "\n");
+    }
+  }
+}
+
+TEST_CASE("detail: streamed output files are all written or none", "[detail]") {
+  namespace fs = std::filesystem;
+  const fs::path dir = fs::temp_directory_path() / ("cairn-detail-" + std::to_string(::getpid()));
+  fs::remove_all(dir);
+  const CheckRun run = analyse_project(kDemo + "/crane-rail-footing/cap.yaml");
+  const CheckReport report = make_check_report(run, "", std::nullopt);
+  write_files_atomically(dir.string(), check_outputs(report));
+  // The same bytes as the files rendered in memory, and the manifest's sizes and hashes.
+  const auto manifest = nlohmann::json::parse(std::ifstream(dir / kManifestName));
+  std::size_t n = 0;
+  for (const auto& [name, content] : check_files(report)) {
+    std::ifstream in(dir / name, std::ios::binary);
+    const std::string written((std::istreambuf_iterator<char>(in)), std::istreambuf_iterator<char>());
+    CHECK(written == content);
+    CHECK(manifest["files"][n]["name"] == name);
+    CHECK(manifest["files"][n]["bytes"] == content.size());
+    CHECK(manifest["files"][n]["sha256"] == sha256_hex(content));
+    ++n;
+  }
+  // A writer that fails midway leaves the folder as it was.
+  const fs::path other = dir / "again";
+  std::vector<OutputFile> failing = {
+      {"a.txt", [](std::ostream& out) { out << "complete\n"; }},
+      {"b.txt", [](std::ostream& out) {
+         out << "half";
+         throw std::runtime_error("stopped");
+       }}};
+  CHECK_THROWS_AS(write_files_atomically(other.string(), failing), std::runtime_error);
+  CHECK_FALSE(fs::exists(other));
+  fs::remove_all(dir);
 }

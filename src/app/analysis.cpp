@@ -2,6 +2,7 @@
 
 #include <algorithm>
 #include <atomic>
+#include <mutex>
 #include <stdexcept>
 #include <thread>
 
@@ -73,10 +74,13 @@ CheckRun analyse_project(const std::string& file, bool pile_rows) {
   return run;
 }
 
-std::vector<CapOutcome> analyse_projects(const std::vector<std::string>& files,
-                                         unsigned threads, bool pile_rows) {
+std::vector<CapOutcome> analyse_projects(
+    const std::vector<std::string>& files, unsigned threads, bool pile_rows,
+    const std::function<void(std::size_t, std::size_t)>& progress) {
   std::vector<CapOutcome> outcomes(files.size());
   std::atomic<std::size_t> next{0};
+  std::size_t done = 0;
+  std::mutex progress_lock;
   auto work = [&] {
     for (std::size_t i = next++; i < files.size(); i = next++) {
       outcomes[i].file = files[i];
@@ -87,6 +91,10 @@ std::vector<CapOutcome> analyse_projects(const std::vector<std::string>& files,
       } catch (const std::invalid_argument& e) {
         // A method refused its data (outside its range of validity): an input problem.
         outcomes[i].problems = {{{files[i], 0, 0}, std::string("cannot compute: ") + e.what()}};
+      }
+      if (progress) {
+        const std::lock_guard<std::mutex> hold(progress_lock);
+        progress(++done, files.size());
       }
     }
   };

@@ -4,6 +4,7 @@
 #include "report_parts.hpp"
 
 #include <cmath>
+#include <sstream>
 
 namespace cairn {
 
@@ -114,7 +115,7 @@ std::string report_detail::render_check_brief(const CheckReport& r, Format forma
   return out;
 }
 
-std::string render_long_csv(const CheckReport& r) {
+void write_long_csv(const CheckReport& r, std::ostream& stream) {
   const Project& p = *r.project;
   const Units u(p.units);
   const bool moments = any_fixed_head(r);
@@ -122,10 +123,10 @@ std::string render_long_csv(const CheckReport& r) {
                     u.label(Quantity::force) + "),";
   if (moments) out += csv_cell("head moment (" + u.label(Quantity::moment) + ")") + ",";
   out += "utilization,check,state,result\n";
-  out.reserve(out.size() + p.combinations.size() * p.piles.size() * 56);
   std::vector<std::string> ids;
   ids.reserve(p.piles.size());
   for (const auto& pile : p.piles) ids.push_back(csv_cell(pile.id));
+  // Rows go into one buffer, handed on a combination at a time.
   for (const auto& cc : r.results->combinations) {
     const std::string combo = csv_cell(p.combinations[cc.combination].id);
     for (std::size_t i = 0; i < cc.piles.size(); ++i) {
@@ -152,8 +153,18 @@ std::string render_long_csv(const CheckReport& r) {
       out += result_text(pc);
       out += '\n';
     }
+    if (out.size() > (1u << 16)) {
+      stream << out;
+      out.clear();
+    }
   }
-  return out + trailer(r);
+  stream << out << trailer(r);
+}
+
+std::string render_long_csv(const CheckReport& r) {
+  std::ostringstream out;
+  write_long_csv(r, out);
+  return std::move(out).str();
 }
 
 }  // namespace cairn

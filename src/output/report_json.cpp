@@ -9,7 +9,72 @@ namespace cairn {
 
 using namespace report_detail;
 
-json check_json(const CheckReport& r) {
+namespace {
+
+// One combination of the JSON document ("combinations" holds them in order); below full
+// detail only overturned combinations are listed, without pile rows.
+json combination_entry(const CheckReport& r, const CombinationCheck& cc, double reach,
+                       double resolution) {
+  const Project& p = *r.project;
+  const Units u(p.units);
+  const bool rows = r.detail == Detail::full;
+  const Combination& c = p.combinations[cc.combination];
+  json factors = json::object();
+  for (const auto& [index, factor] : c.factors) factors[p.load_cases[index].id] = factor;
+  json piles = json::array();
+  for (std::size_t i = 0; rows && i < p.piles.size(); ++i) {
+    const PileCheck& pc = cc.piles[i];
+    // An overturned cap has no pile forces: null, not zeros that would read as computed.
+    const bool none = pc.state == PileState::overturned;
+    json pile = {{"id", p.piles[i].id},
+                 {"axial", none ? json(nullptr) : json(u.value(Quantity::force, pc.axial))},
+                 {"lateral", none ? json(nullptr) : json(u.value(Quantity::force, pc.lateral))},
+                 {"active", pc.active},
+                 {"utilization", none ? json(nullptr) : number_or_null(pc.utilization)},
+                 {"governing", to_string(pc.governing)},
+                 {"state", to_string(pc.state)},
+                 {"pass", pc.pass},
+                 {"axial_stiffness", u.value(Quantity::stiffness, axial_stiffness(r, p.piles[i].type))},
+                 {"lateral_stiffness",
+                  u.value(Quantity::stiffness, lateral_stiffness(r, p.piles[i].type))}};
+    if (r.stiffness && (*r.stiffness)[p.piles[i].type].head == HeadFixity::fixed)
+      pile["head_moment"] =
+          none ? json(nullptr) : json(u.value(Quantity::moment, head_moment(r, i, pc.lateral)));
+    piles.push_back(pile);
+  }
+  const auto& m = cc.solution.movement;
+  json dropped = json::array();
+  for (auto i : cc.solution.dropped) dropped.push_back(p.piles[i].id);
+  json entry = {
+      {"id", c.id},
+      {"limit_state", to_string(c.limit_state)},
+      {"factors", factors},
+      {"source", c.generator.empty() ? std::string("given") : "generated: " + c.generator},
+      {"status", to_string(verdict(cc))},
+      {"cap",
+       {{"translation",
+         {u.value(Quantity::small_length, m.translation[0]),
+          u.value(Quantity::small_length, m.translation[1]),
+          u.value(Quantity::small_length, m.translation[2])}},
+        {"rotation",
+         {rotation_value(m.rotation[0], reach, resolution),
+          rotation_value(m.rotation[1], reach, resolution),
+          rotation_value(m.rotation[2], reach, resolution)}}}},
+      {"piles", rows ? piles : json(nullptr)},
+      {"dropped", dropped},
+      {"max_utilization", number_or_null(cc.max_utilization)},
+      {"governing_pile", cc.governing_pile ? json(p.piles[*cc.governing_pile].id) : json(nullptr)}};
+  if (cc.solution.overturns) entry["message"] = cc.solution.failure;
+  return entry;
+}
+
+bool listed(const CheckReport& r, const CombinationCheck& cc) {
+  return r.detail == Detail::full || cc.solution.overturns;
+}
+
+}  // namespace
+
+static json check_json_head(const CheckReport& r) {
   const Project& p = *r.project;
   const Units u(p.units);
   json doc;
@@ -24,62 +89,6 @@ json check_json(const CheckReport& r) {
                   {"displacement", u.label(Quantity::small_length)},
                   {"rotation", "rad"}};
   if (r.detail != Detail::full) doc["detail"] = to_string(r.detail);
-  json combos = json::array();
-  const double reach = cap_reach(p), resolution = displacement_resolution(p.units);
-  for (const CombinationCheck& cc : r.results->combinations) {
-    // Below full detail only the overturned combinations are listed, without pile rows.
-    const bool rows = r.detail == Detail::full;
-    if (!rows && !cc.solution.overturns) continue;
-    const Combination& c = p.combinations[cc.combination];
-    json factors = json::object();
-    for (const auto& [index, factor] : c.factors) factors[p.load_cases[index].id] = factor;
-    json piles = json::array();
-    for (std::size_t i = 0; rows && i < p.piles.size(); ++i) {
-      const PileCheck& pc = cc.piles[i];
-      // An overturned cap has no pile forces: null, not zeros that would read as computed.
-      const bool none = pc.state == PileState::overturned;
-      json pile = {{"id", p.piles[i].id},
-                   {"axial", none ? json(nullptr) : json(u.value(Quantity::force, pc.axial))},
-                   {"lateral", none ? json(nullptr) : json(u.value(Quantity::force, pc.lateral))},
-                   {"active", pc.active},
-                   {"utilization", none ? json(nullptr) : number_or_null(pc.utilization)},
-                   {"governing", to_string(pc.governing)},
-                   {"state", to_string(pc.state)},
-                   {"pass", pc.pass},
-                   {"axial_stiffness", u.value(Quantity::stiffness, axial_stiffness(r, p.piles[i].type))},
-                   {"lateral_stiffness",
-                    u.value(Quantity::stiffness, lateral_stiffness(r, p.piles[i].type))}};
-      if (r.stiffness && (*r.stiffness)[p.piles[i].type].head == HeadFixity::fixed)
-        pile["head_moment"] =
-            none ? json(nullptr) : json(u.value(Quantity::moment, head_moment(r, i, pc.lateral)));
-      piles.push_back(pile);
-    }
-    const auto& m = cc.solution.movement;
-    json dropped = json::array();
-    for (auto i : cc.solution.dropped) dropped.push_back(p.piles[i].id);
-    json entry = {
-        {"id", c.id},
-        {"limit_state", to_string(c.limit_state)},
-        {"factors", factors},
-        {"source", c.generator.empty() ? std::string("given") : "generated: " + c.generator},
-        {"status", to_string(verdict(cc))},
-        {"cap",
-         {{"translation",
-           {u.value(Quantity::small_length, m.translation[0]),
-            u.value(Quantity::small_length, m.translation[1]),
-            u.value(Quantity::small_length, m.translation[2])}},
-          {"rotation",
-           {rotation_value(m.rotation[0], reach, resolution),
-            rotation_value(m.rotation[1], reach, resolution),
-            rotation_value(m.rotation[2], reach, resolution)}}}},
-        {"piles", rows ? piles : json(nullptr)},
-        {"dropped", dropped},
-        {"max_utilization", number_or_null(cc.max_utilization)},
-        {"governing_pile", cc.governing_pile ? json(p.piles[*cc.governing_pile].id) : json(nullptr)}};
-    if (cc.solution.overturns) entry["message"] = cc.solution.failure;
-    combos.push_back(entry);
-  }
-  doc["combinations"] = combos;
   json envelope = json::array();
   for (std::size_t i = 0; i < p.piles.size(); ++i) {
     const PileEnvelope& e = r.results->envelope[i];
@@ -165,6 +174,63 @@ json check_json(const CheckReport& r) {
   doc["warnings"] = warnings;
   doc["caution"] = kCaution;
   return doc;
+}
+
+}  // namespace cairn
+
+namespace cairn {
+
+json check_json(const CheckReport& r) {
+  json doc = check_json_head(r);
+  json combos = json::array();
+  const double reach = cap_reach(*r.project), resolution = displacement_resolution(r.project->units);
+  for (const CombinationCheck& cc : r.results->combinations)
+    if (listed(r, cc)) combos.push_back(combination_entry(r, cc, reach, resolution));
+  doc["combinations"] = std::move(combos);
+  return doc;
+}
+
+// The document of check_json(r).dump(2) written piece by piece: the small members through
+// nlohmann's own serializer (the same numbers, escaping and indentation), the combinations
+// one at a time, so no tree of the whole output is held in memory.
+void report_detail::write_check_json(const CheckReport& r, std::ostream& out) {
+  using Serializer = nlohmann::detail::serializer<json>;
+  Serializer serializer(nlohmann::detail::output_adapter<char>(out), ' ');
+  auto dump = [&](const json& value, unsigned indent) {
+    serializer.dump(value, true, false, 2, indent);
+  };
+  const json head = check_json_head(r);
+  const double reach = cap_reach(*r.project), resolution = displacement_resolution(r.project->units);
+  bool first = true;
+  auto key = [&](const std::string& name) {
+    out << (first ? "{\n  " : ",\n  ");
+    first = false;
+    dump(json(name), 2);
+    out << ": ";
+  };
+  auto combinations = [&] {
+    key("combinations");
+    bool none = true;
+    for (const CombinationCheck& cc : r.results->combinations) {
+      if (!listed(r, cc)) continue;
+      out << (none ? "[\n    " : ",\n    ");
+      none = false;
+      dump(combination_entry(r, cc, reach, resolution), 4);
+    }
+    out << (none ? "[]" : "\n  ]");
+  };
+  // Members in the order of the tree's (sorted) keys, "combinations" in its place.
+  bool written = false;
+  for (const auto& [name, value] : head.items()) {
+    if (!written && std::string("combinations") < name) {
+      combinations();
+      written = true;
+    }
+    key(name);
+    dump(value, 2);
+  }
+  if (!written) combinations();
+  out << "\n}\n";
 }
 
 }  // namespace cairn

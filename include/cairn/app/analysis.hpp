@@ -5,6 +5,7 @@
 // independently (in parallel) for a foundation.
 #pragma once
 
+#include <functional>
 #include <optional>
 #include <string>
 #include <vector>
@@ -42,8 +43,11 @@ struct CapOutcome {
   std::optional<CheckRun> run;
   std::vector<Diagnostic> problems;
 };
-std::vector<CapOutcome> analyse_projects(const std::vector<std::string>& files,
-                                         unsigned threads, bool pile_rows = true);
+// `progress`, when given, is called (from any thread, one call at a time) with the number
+// of caps done after each.
+std::vector<CapOutcome> analyse_projects(
+    const std::vector<std::string>& files, unsigned threads, bool pile_rows = true,
+    const std::function<void(std::size_t done, std::size_t total)>& progress = {});
 
 // A report over a run. `explain_pile` names a pile for the hand check; throws InputError
 // when it does not exist. The report points into `run`, which must outlive it.

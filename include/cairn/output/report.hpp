@@ -15,11 +15,14 @@
 
 #include <cstddef>
 #include <optional>
+#include <ostream>
 #include <string>
 #include <utility>
 #include <vector>
 
 #include <nlohmann/json.hpp>
+
+#include "cairn/output/output_files.hpp"
 
 #include "cairn/checks/checks.hpp"
 #include "cairn/checks/explain.hpp"
@@ -69,6 +72,9 @@ struct CheckReport {
 };
 
 std::string render_check(const CheckReport& report, Format format);
+// The same written as a stream, piece by piece (JSON included: no tree of the whole
+// document is built), for big runs.
+void write_check(const CheckReport& report, Format format, std::ostream& out);
 nlohmann::json check_json(const CheckReport& report);
 
 // Files for `--out DIR`: report.txt, report.md, results.json, summary.csv, then by detail:
@@ -79,6 +85,11 @@ std::vector<std::pair<std::string, std::string>> check_files(const CheckReport& 
 // The long table of every combination and pile (CSV: combination, pile, axial, lateral,
 // [head moment,] utilization, check, state, result), then the assumptions and the caution.
 std::string render_long_csv(const CheckReport& report);
+void write_long_csv(const CheckReport& report, std::ostream& out);
+
+// check_files() as streamed outputs for write_files_atomically (output_files.hpp); the
+// report must outlive them.
+std::vector<OutputFile> check_outputs(const CheckReport& report);
 
 // The governing combination of each pile and check (Detail::governing) as a table.
 Table governing_table(const CheckReport& report);

@@ -138,7 +138,27 @@ def main():
         run(f"100 × {combos} linear, summary", [cairn, "check", case, "--format", "csv"] +
             detail("summary"), [PY, PEER, "summary", case], a.work)
 
+    # The solver core: cairn's bench_cap_solver (500 × 10,000 linear, streamed, and the floor
+    # of writing its n·m results) against the peer's solve and utilization after reading.
+    bench = os.path.join(os.path.dirname(cairn), "bench_cap_solver")
+    core = None
+    if os.path.exists(bench) and (not a.only or any("core" in o for o in a.only)):
+        import json
+        r = subprocess.run([bench, "--benchmark_filter=Linear500|Floor500",
+                            "--benchmark_format=json"], capture_output=True, text=True)
+        times = {b["name"].split("/")[0]: b["cpu_time"] for b in json.loads(r.stdout)["benchmarks"]}
+        case = make(a.work, f"linear-{n}x{m}-{tag}", n, m) + ".yaml"
+        peer_core = float(subprocess.run([PY, PEER, "core", case], capture_output=True,
+                                         text=True).stdout) * 1000
+        core = (times["BM_SolveLinear500x10000"], times["BM_WriteFloor500x10000"], peer_core)
+
     print()
+    if core:
+        c, floor, p = core
+        print(f"solver core, 500 × 10,000 linear (CPU time): cairn {c:.1f} ms, "
+              f"floor (writing n·m results) {floor:.1f} ms, cairn / floor {c / floor:.2f}; "
+              f"numpy peer {p:.1f} ms, peer / cairn {p / c:.1f}×")
+        print()
     print("| case | cairn | cairn memory | numpy peer | peer memory | peer / cairn |")
     print("|---|---|---|---|---|---|")
     for name, ct, cm, cc, pt, pm, note, size in rows:

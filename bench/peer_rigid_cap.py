@@ -6,6 +6,7 @@ that bench/compare.sh times against cairn on the same generated project files.
     peer_rigid_cap.py full CAP.yaml                the long CSV (one row per combination and pile)
     peer_rigid_cap.py summary CAP.yaml [...]       one summary row per cap
     peer_rigid_cap.py agree CAP.yaml CAIRN.json    compares with cairn's JSON to 1e-9
+    peer_rigid_cap.py core CAP.yaml                CPU seconds of the solve alone
 
 The same method as cairn's solver (docs/methods.md): a rigid cap with six degrees of
 freedom on axial and lateral pile-head springs, K = Σ Tᵢᵀ·Kᵢ·Tᵢ, one factorization, the load
@@ -231,6 +232,15 @@ def main():
         print(f"largest difference {worst:.3g} (forces over the largest force)")
         if not worst <= 1e-9:
             raise SystemExit("peer: does not agree with cairn to 1e-9")
+        return
+    if mode == "core":
+        # The solver core alone, after reading: the axial and lateral force of every pile in
+        # every combination (CPU time, as cairn's bench_cap_solver reports it).
+        import time
+        m = model(load(files[0]))
+        start = time.process_time()
+        solve(m)
+        print(f"{time.process_time() - start:.6f}")
         return
     if mode == "summary":
         print("file,piles,combinations,max utilization,pile,combination,check,result")

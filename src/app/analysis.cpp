@@ -76,7 +76,8 @@ CheckRun analyse_project(const std::string& file, bool pile_rows) {
 
 std::vector<CapOutcome> analyse_projects(
     const std::vector<std::string>& files, unsigned threads, bool pile_rows,
-    const std::function<void(std::size_t, std::size_t)>& progress) {
+    const std::function<void(std::size_t, std::size_t)>& progress,
+    const std::function<void(CapOutcome&)>& reduce) {
   std::vector<CapOutcome> outcomes(files.size());
   std::atomic<std::size_t> next{0};
   std::size_t done = 0;
@@ -92,6 +93,7 @@ std::vector<CapOutcome> analyse_projects(
         // A method refused its data (outside its range of validity): an input problem.
         outcomes[i].problems = {{{files[i], 0, 0}, std::string("cannot compute: ") + e.what()}};
       }
+      if (reduce) reduce(outcomes[i]);
       if (progress) {
         const std::lock_guard<std::mutex> hold(progress_lock);
         progress(++done, files.size());

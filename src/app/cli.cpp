@@ -4,6 +4,7 @@
 
 #include <cctype>
 #include <deque>
+#include <functional>
 #include <chrono>
 #include <unistd.h>
 #include <algorithm>
@@ -87,7 +88,8 @@ std::string command_line_text(int argc, const char* const* argv) {
 // Progress goes to stderr only when it is a terminal, and only once a run has taken more
 // than a second: "cairn: 120 of 500 caps checked", rewritten in place, cleared at the end.
 std::vector<CapOutcome> analyse_all(const std::vector<std::string>& given, bool pile_rows,
-                                    std::ostream& err) {
+                                    std::ostream& err,
+                                    const std::function<void(CapOutcome&)>& reduce = {}) {
   std::vector<std::string> files;
   for (const auto& f : given)
     for (const auto& cap : expand_foundation(f)) files.push_back(cap);
@@ -100,7 +102,7 @@ std::vector<CapOutcome> analyse_all(const std::vector<std::string>& given, bool 
     shown = true;
   };
   auto outcomes = analyse_projects(files, std::max(1u, std::thread::hardware_concurrency()),
-                                   pile_rows, progress);
+                                   pile_rows, progress, reduce);
   if (shown) err << "\r\033[K" << std::flush;
   std::vector<Diagnostic> problems;
   for (const auto& o : outcomes) problems.insert(problems.end(), o.problems.begin(), o.problems.end());
@@ -149,17 +151,29 @@ void print_warnings(const Project& project, std::ostream& err) {
 int run_batch(const Options& options, std::ostream& out, std::ostream& err) {
   if (options.explain_pile) throw InputError({}, "--explain: give a single project file");
   // The summary table needs no pile rows; the files under --out do at full detail.
+  // Without --out only the summary row and the warnings of each cap are kept, as soon as
+  // the cap is done.
+  std::function<void(CapOutcome&)> reduce;
+  if (!options.out_dir)
+    reduce = [](CapOutcome& o) {
+      if (!o.run) return;
+      o.summary = summary_row(*o.run);
+      o.warnings = std::move(o.run->project.warnings);
+      o.run.reset();
+    };
   const auto outcomes =
-      analyse_all(options.files, options.out_dir && options.detail == Detail::full, err);
+      analyse_all(options.files, options.out_dir && options.detail == Detail::full, err, reduce);
   std::vector<CapSummaryRow> rows;
   std::vector<OutputFile> written;
   std::deque<CheckReport> reports;  // the streamed files point into them
   bool pass = true;
   std::set<std::string> stems;
   const std::string described = describe_options(options);
-  for (const auto& o : outcomes) print_warnings(o.run->project, err);
+  for (const auto& o : outcomes)
+    for (const auto& w : o.run ? o.run->project.warnings : o.warnings)
+      err << "cairn: " << format_warning(w) << "\n";
   for (const auto& o : outcomes) {
-    rows.push_back(summary_row(*o.run));
+    rows.push_back(o.run ? summary_row(*o.run) : *o.summary);
     pass = pass && rows.back().pass;
     if (options.out_dir) {
       reports.push_back(make_check_report(*o.run, described, std::nullopt));

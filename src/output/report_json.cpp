@@ -1,6 +1,7 @@
 #include "report_parts.hpp"
 
 #include <algorithm>
+#include <array>
 #include <cmath>
 #include <limits>
 #include <set>
@@ -13,11 +14,12 @@ namespace {
 
 // One combination of the JSON document ("combinations" holds them in order); below full
 // detail only overturned combinations are listed, without pile rows.
+// With_piles false: without the "piles" member (written on its own by the stream).
 json combination_entry(const CheckReport& r, const CombinationCheck& cc, double reach,
-                       double resolution) {
+                       double resolution, bool with_piles = true) {
   const Project& p = *r.project;
   const Units u(p.units);
-  const bool rows = r.detail == Detail::full;
+  const bool rows = r.detail == Detail::full && with_piles;
   const Combination& c = p.combinations[cc.combination];
   json factors = json::object();
   for (const auto& [index, factor] : c.factors) factors[p.load_cases[index].id] = factor;
@@ -65,6 +67,7 @@ json combination_entry(const CheckReport& r, const CombinationCheck& cc, double 
       {"max_utilization", number_or_null(cc.max_utilization)},
       {"governing_pile", cc.governing_pile ? json(p.piles[*cc.governing_pile].id) : json(nullptr)}};
   if (cc.solution.overturns) entry["message"] = cc.solution.failure;
+  if (!with_piles) entry.erase("piles");
   return entry;
 }
 
@@ -208,6 +211,89 @@ void report_detail::write_check_json(const CheckReport& r, std::ostream& out) {
     dump(json(name), 2);
     out << ": ";
   };
+  // The pile rows, the bulk of a full document, are written member by member (the keys in
+  // the tree's sorted order) with their words and stiffnesses escaped once.
+  const Project& p = *r.project;
+  const Units u(p.units);
+  std::vector<std::string> ids, axial_k, lateral_k;
+  for (const Pile& pile : p.piles) ids.push_back(json(pile.id).dump());
+  for (std::size_t t = 0; t < p.pile_types.size(); ++t) {
+    axial_k.push_back(json(u.value(Quantity::stiffness, axial_stiffness(r, t))).dump());
+    lateral_k.push_back(json(u.value(Quantity::stiffness, lateral_stiffness(r, t))).dump());
+  }
+  auto word = [](const char* w) { return json(w).dump(); };
+  const std::array<std::string, 5> demands = {word(to_string(Demand::none)),
+                                              word(to_string(Demand::compression)),
+                                              word(to_string(Demand::tension)),
+                                              word(to_string(Demand::lateral)),
+                                              word(to_string(Demand::structural))};
+  const std::array<std::string, 3> states = {word(to_string(PileState::in_contact)),
+                                             word(to_string(PileState::dropped_out)),
+                                             word(to_string(PileState::overturned))};
+  auto number = [&](double v) {
+    if (std::isfinite(v)) dump(json(v), 0);
+    else out << "null";
+  };
+  auto piles = [&](const CombinationCheck& cc) {
+    if (p.piles.empty()) {
+      out << "[]";
+      return;
+    }
+    for (std::size_t i = 0; i < p.piles.size(); ++i) {
+      const PileCheck& pc = cc.piles[i];
+      const bool none = pc.state == PileState::overturned;
+      const std::size_t type = p.piles[i].type;
+      const char* in = "\n          ";
+      out << (i ? ",\n        {" : "[\n        {") << in << "\"active\": " << (pc.active ? "true" : "false");
+      out << "," << in << "\"axial\": ";
+      if (none) out << "null";
+      else number(u.value(Quantity::force, pc.axial));
+      out << "," << in << "\"axial_stiffness\": " << axial_k[type];
+      out << "," << in << "\"governing\": " << demands[static_cast<std::size_t>(pc.governing)];
+      if (r.stiffness && (*r.stiffness)[type].head == HeadFixity::fixed) {
+        out << "," << in << "\"head_moment\": ";
+        if (none) out << "null";
+        else number(u.value(Quantity::moment, head_moment(r, i, pc.lateral)));
+      }
+      out << "," << in << "\"id\": " << ids[i];
+      out << "," << in << "\"lateral\": ";
+      if (none) out << "null";
+      else number(u.value(Quantity::force, pc.lateral));
+      out << "," << in << "\"lateral_stiffness\": " << lateral_k[type];
+      out << "," << in << "\"pass\": " << (pc.pass ? "true" : "false");
+      out << "," << in << "\"state\": " << states[static_cast<std::size_t>(pc.state)];
+      out << "," << in << "\"utilization\": ";
+      if (none) out << "null";
+      else number(pc.utilization);
+      out << "\n        }";
+    }
+    out << "\n      ]";
+  };
+  auto entry = [&](const CombinationCheck& cc) {
+    if (r.detail != Detail::full) return dump(combination_entry(r, cc, reach, resolution), 4);
+    const json head_of_entry = combination_entry(r, cc, reach, resolution, false);
+    bool first_member = true, placed = false;
+    auto member = [&](const std::string& name) {
+      out << (first_member ? "{\n      " : ",\n      ");
+      first_member = false;
+      dump(json(name), 6);
+      out << ": ";
+    };
+    for (const auto& [name, value] : head_of_entry.items()) {
+      if (!placed && std::string("piles") < name) {
+        member("piles");
+        piles(cc);
+        placed = true;
+      }
+      member(name);
+      dump(value, 6);
+    }
+    if (!placed) {
+      member("piles");
+      piles(cc);
+    }
+    out << "\n    }";
+  };
   auto combinations = [&] {
     key("combinations");
     bool none = true;
@@ -215,7 +301,7 @@ void report_detail::write_check_json(const CheckReport& r, std::ostream& out) {
       if (!listed(r, cc)) continue;
       out << (none ? "[\n    " : ",\n    ");
       none = false;
-      dump(combination_entry(r, cc, reach, resolution), 4);
+      entry(cc);
     }
     out << (none ? "[]" : "\n  ]");
   };

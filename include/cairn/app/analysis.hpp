@@ -42,12 +42,18 @@ struct CapOutcome {
   std::string file;
   std::optional<CheckRun> run;
   std::vector<Diagnostic> problems;
+  // What a caller kept of the run when its `reduce` (below) let the run go.
+  std::optional<CapSummaryRow> summary;
+  std::vector<Warning> warnings;
 };
 // `progress`, when given, is called (from any thread, one call at a time) with the number
-// of caps done after each.
+// of caps done after each. `reduce`, when given, is called on each outcome in the thread
+// that analysed it, as soon as it is done: it may keep what it needs (summary, warnings) and
+// reset the run, so that many caps need the memory of a summary each, not of a run each.
 std::vector<CapOutcome> analyse_projects(
     const std::vector<std::string>& files, unsigned threads, bool pile_rows = true,
-    const std::function<void(std::size_t done, std::size_t total)>& progress = {});
+    const std::function<void(std::size_t done, std::size_t total)>& progress = {},
+    const std::function<void(CapOutcome&)>& reduce = {});
 
 // A report over a run. `explain_pile` names a pile for the hand check; throws InputError
 // when it does not exist. The report points into `run`, which must outlive it.

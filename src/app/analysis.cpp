@@ -14,7 +14,8 @@
 
 namespace cairn {
 
-CheckRun analyse_project(const std::string& file, bool pile_rows) {
+CheckRun analyse_project(const std::string& file, bool pile_rows,
+                         const std::function<void(std::size_t, std::size_t)>& progress) {
   CheckRun run;
   run.project = read_project(file);
   const Project& project = run.project;
@@ -56,14 +57,20 @@ CheckRun analyse_project(const std::string& file, bool pile_rows) {
   std::vector<double> moment_per_shear;
   for (const auto& k : run.stiffness) moment_per_shear.push_back(k.head_moment_per_shear);
   CheckAccumulator accumulator(project, run.resistances, moment_per_shear, pile_rows);
+  const std::size_t total = project.combinations.size();
+  auto report = [&](std::size_t c) {
+    if (progress && (c + 1) % 1000 == 0) progress(c + 1, total);
+  };
   if (streamed)
     solve_combinations(project, solver, [&](std::size_t c, CapSolution&& solution) {
       accumulator.add(c, std::move(solution));
+      report(c);
     });
   else
     for (std::size_t c = 0; c < solutions.size(); ++c) {
       accumulator.add(c, std::move(solutions[c]));
       if (!pile_rows) std::vector<PileForce>().swap(solutions[c].piles);
+      report(c);
     }
   run.results = accumulator.finish();
   run.group = evaluate_group(project, run.results, run.resistances, run.capacities);

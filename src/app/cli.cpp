@@ -201,8 +201,18 @@ int run_check(const Options& options, std::ostream& out, std::ostream& err) {
   const auto caps = expand_foundation(options.files.front());
   if (caps.size() != 1 || caps.front() != options.files.front()) return run_batch(options, out, err);
   // Below full detail no pile rows are kept (the hand check of --explain needs them).
-  const CheckRun run = analyse_project(options.files.front(),
-                                       options.detail == Detail::full || options.explain_pile);
+  // Progress as for many caps: on a terminal only, after a second.
+  const bool terminal = isatty(STDERR_FILENO) != 0;
+  const auto start = std::chrono::steady_clock::now();
+  bool shown = false;
+  auto progress = [&](std::size_t done, std::size_t total) {
+    if (!terminal || std::chrono::steady_clock::now() - start < std::chrono::seconds(1)) return;
+    err << "\rcairn: " << done << " of " << total << " combinations checked" << std::flush;
+    shown = true;
+  };
+  const CheckRun run = analyse_project(
+      options.files.front(), options.detail == Detail::full || options.explain_pile, progress);
+  if (shown) err << "\r\033[K" << std::flush;
   print_warnings(run.project, err);
   CheckReport report = make_check_report(run, describe_options(options), options.explain_pile);
   report.detail = options.detail;

@@ -34,7 +34,10 @@ struct CheckRun {
 // computed from a file with problems). With pile_rows false the results keep no row per
 // pile and combination (CheckResults::pile_rows): memory grows with piles + combinations
 // (without a soil profile; with one, the pile forces are kept for Broms' yield moment).
-CheckRun analyse_project(const std::string& file, bool pile_rows = true);
+// `progress`, when given, is called with (combinations checked, combinations) every 1,000
+// combinations of a big table.
+CheckRun analyse_project(const std::string& file, bool pile_rows = true,
+                         const std::function<void(std::size_t done, std::size_t total)>& progress = {});
 
 // Analyses several files on up to `threads` threads. Each entry holds the run or the
 // input problems of its file, in the order of `files`.

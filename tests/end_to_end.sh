@@ -97,7 +97,7 @@ if [ -s "$work/out" ]; then ok; else bad "--format text: nothing printed"; fi
 # ---- --out writes every file ------------------------------------------------------------
 out="$work/out-pass"
 expect_status "--out" 0 check "$data/e2e/pass.yaml" --out "$out"
-for f in report.txt results.json envelope.csv summary.csv combination-S1.csv combination-S2.csv; do
+for f in report.txt results.json envelope.csv summary.csv results.csv; do
   if [ -s "$out/$f" ]; then ok; else bad "--out: $f missing or empty"; fi
 done
 if json_has_keys combinations envelope summary units <"$out/results.json" 2>"$work/err"; then ok; else
@@ -389,8 +389,8 @@ assert doc["summary"]["reasons"] == ["the cap overturns in S2"], doc["summary"][
 assert all(e["max_tension"]["combination"] is None for e in doc["envelope"])
 ' <"$work/out" 2>"$work/err"; then ok; else bad "json: verdict, states or reasons"; fi
 expect_status "mixed.yaml --out" 1 check "$mixed" --out "$work/mixed-out"
-if [ "$(grep -c ',overturned,fail$' "$work/mixed-out/combination-S2.csv")" -eq 4 ]; then ok; else
-  bad "combination-S2.csv: not every pile overturned and failing"
+if [ "$(grep -c '^S2,.*,overturned,fail$' "$work/mixed-out/results.csv")" -eq 4 ]; then ok; else
+  bad "results.csv: not every pile of S2 overturned and failing"
 fi
 expect_in "summary.csv says why" "$work/mixed-out/summary.csv" "fail,the cap overturns in S2,"
 if awk 'prev ~ /^\|/ && $0 !~ /^\|/ && $0 != "" {bad = 1} {prev = $0} END {exit bad}' \
@@ -817,5 +817,24 @@ if grep -q ':0:0' "$work/err"; then bad "a missing project file: a location with
 printf 'title: two caps\ncaps: [no-such-cap.yaml, %s]\n' "$data/base.yaml" >"$work/foundation.yaml"
 expect_status "a foundation file with a missing cap" 2 check "$work/foundation.yaml"
 if grep -q ':0:0' "$work/err"; then bad "a foundation file: a location with line 0"; else ok; fi
+# ---- --detail: levels below full show the full run's tables ---------------------------
+crane="$src/projects-demo/crane-rail-footing/cap.yaml"
+expect_status "--detail full" 0 check "$crane" --format csv
+awk '/^# envelope/{f=1;next} /^$/{f=0} f' "$work/out" >"$work/envelope-full"
+expect_status "--detail envelope" 0 check "$crane" --format csv --detail envelope
+awk '/^# envelope/{f=1;next} /^$/{f=0} f' "$work/out" >"$work/envelope-brief"
+if [ -s "$work/envelope-full" ] && cmp -s "$work/envelope-full" "$work/envelope-brief"; then ok; else
+  bad "--detail envelope: the envelope differs from the full output's"
+fi
+if grep -q '^# Combination' "$work/out"; then bad "--detail envelope: per-combination tables"; else ok; fi
+expect_status "--detail summary with an overturned combination" 1 check "$mixed" --detail summary
+expect_in "--detail summary names the overturned combination" "$work/out" "Combination S2 (service): 0.25·D + 1.0·O — overturned"
+expect_in "--detail summary: the verdict" "$work/out" "FAIL: 1 of 2 combinations fails; the cap overturns in S2"
+expect_status "--detail governing --out" 1 check "$mixed" --detail governing --out "$work/governing-out"
+for f in report.txt results.json summary.csv governing.csv; do
+  if [ -s "$work/governing-out/$f" ]; then ok; else bad "--detail governing --out: $f missing"; fi
+done
+if [ -e "$work/governing-out/results.csv" ]; then bad "--detail governing --out: results.csv written"; else ok; fi
+expect_status "--detail unknown" 2 check "$crane" --detail everything
 echo "$passed passed, $failed failed"
 [ "$failed" -eq 0 ]

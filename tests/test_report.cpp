@@ -213,35 +213,11 @@ TEST_CASE("report: every output ends with the caution", "[report]") {
   CHECK(ends_with(render_cap_summary({row}, Format::csv, ""), caution + "\n"));
 }
 
-TEST_CASE("report: check_files names one file per output and per combination", "[report]") {
+TEST_CASE("report: check_files names one file per output and one long results table", "[report]") {
   const CheckRun run = analyse_project(kData + "pass.yaml");
   std::vector<std::string> names;
   for (const auto& [name, content] : check_files(make_check_report(run, "", std::nullopt)))
     names.push_back(name);
   CHECK(names == std::vector<std::string>{"report.txt", "report.md", "results.json", "summary.csv",
-                                          "envelope.csv", "combination-S1.csv",
-                                          "combination-S2.csv"});
-
-  SECTION("combination ids are made safe for file names") {
-    Project renamed = run.project;
-    renamed.combinations[1].id = "S 2/wind";
-    CheckReport report = make_check_report(run, "", std::nullopt);
-    report.project = &renamed;
-    const auto files = check_files(report);
-    CHECK(files.back().first == "combination-S_2_wind.csv");
-  }
-
-  SECTION("ids that become the same file name still get a file each") {
-    // "W+" and "W_" both read "W_" once made safe; without a suffix one table would be lost
-    // and the second write of one name breaks the all-or-nothing writing.
-    Project renamed = run.project;
-    renamed.combinations[0].id = "W+";
-    renamed.combinations[1].id = "W_";
-    CheckReport report = make_check_report(run, "", std::nullopt);
-    report.project = &renamed;
-    const auto files = check_files(report);
-    REQUIRE(files.size() == 7);
-    CHECK(files[5].first == "combination-W_.csv");
-    CHECK(files[6].first == "combination-W_-2.csv");
-  }
+                                          "envelope.csv", "results.csv"});
 }

@@ -2,6 +2,7 @@
 
 #include <algorithm>
 #include <atomic>
+#include <mutex>
 #include <stdexcept>
 #include <thread>
 
@@ -22,6 +23,14 @@ CheckRun analyse_project(const std::string& file, const AnalysisOptions& options
     // input, named with its file.
     throw InputError(whole_file(file), std::string("cannot compute: ") + e.what());
   }
+}
+
+CheckRun analyse_project(const std::string& file, bool pile_rows,
+                         const std::function<void(std::size_t, std::size_t)>& progress) {
+  AnalysisOptions options;
+  options.pile_rows = pile_rows;
+  options.progress = progress;
+  return analyse_project(file, options);
 }
 
 CheckRun analyse_project(Project project) { return analyse(std::move(project)); }
@@ -69,8 +78,11 @@ CheckRun analyse(Project project_in, const TypeAdjustments& adjust,
   // The cap's pile forces depend on the springs only, so they are known before the
   // resistances; Broms' yield moment is taken at the least favourable of them.
   // (Not when a load cannot be resisted at all: that is reported first.)
+  // Without a soil profile nothing computed depends on the pile forces: a run that keeps no
+  // pile rows then checks each combination as it is solved and keeps none of them.
+  const bool streamed = !options.pile_rows && !(project.soil && !project.soil->layers.empty());
   std::vector<CapSolution> solutions;
-  if (problems.empty()) solutions = solve_combinations(project, solver);
+  if (problems.empty() && !streamed) solutions = solve_combinations(project, solver);
   const auto lateral = lateral_capacities(project, axial_ranges(project, solutions));
   for (const auto& d : lateral_input_problems(project, lateral, solutions)) problems.error(d.where, d.message);
   run.resistances =
@@ -89,10 +101,25 @@ CheckRun analyse(Project project_in, const TypeAdjustments& adjust,
   std::vector<double> moment_per_shear;
   for (const auto& k : run.stiffness) moment_per_shear.push_back(k.head_moment_per_shear);
   std::vector<std::optional<MomentInfluence>> influence;
-  for (const auto& k : run.stiffness)
-    influence.push_back(k.influence);
-  run.results =
-      check_piles(project, std::move(solutions), run.resistances, moment_per_shear, influence);
+  for (const auto& k : run.stiffness) influence.push_back(k.influence);
+  CheckAccumulator accumulator(project, run.resistances, moment_per_shear, options.pile_rows,
+                               influence);
+  const std::size_t total = project.combinations.size();
+  auto report = [&](std::size_t c) {
+    if (options.progress && (c + 1) % 1000 == 0) options.progress(c + 1, total);
+  };
+  if (streamed)
+    solve_combinations(project, solver, [&](std::size_t c, CapSolution&& solution) {
+      accumulator.add(c, std::move(solution));
+      report(c);
+    });
+  else
+    for (std::size_t c = 0; c < solutions.size(); ++c) {
+      accumulator.add(c, std::move(solutions[c]));
+      if (!options.pile_rows) std::vector<PileForce>().swap(solutions[c].piles);
+      report(c);
+    }
+  run.results = accumulator.finish();
   run.group = evaluate_group(project, run.results, run.resistances, run.capacities);
   if (!run.group.pass) run.results.summary.pass = false;
   std::vector<std::pair<std::string, std::string>> sources;
@@ -101,10 +128,14 @@ CheckRun analyse(Project project_in, const TypeAdjustments& adjust,
   return run;
 }
 
-std::vector<CapOutcome> analyse_projects(const std::vector<std::string>& files,
-                                         unsigned threads, const AnalysisOptions& options) {
+std::vector<CapOutcome> analyse_projects(
+    const std::vector<std::string>& files, unsigned threads, const AnalysisOptions& options,
+    const std::function<void(std::size_t, std::size_t)>& progress,
+    const std::function<void(CapOutcome&)>& reduce) {
   std::vector<CapOutcome> outcomes(files.size());
   std::atomic<std::size_t> next{0};
+  std::size_t done = 0;
+  std::mutex progress_lock;
   auto work = [&] {
     for (std::size_t i = next++; i < files.size(); i = next++) {
       outcomes[i].file = files[i];
@@ -112,6 +143,11 @@ std::vector<CapOutcome> analyse_projects(const std::vector<std::string>& files,
         outcomes[i].run = analyse_project(files[i], options);
       } catch (const InputError& e) {
         outcomes[i].problems = e.diagnostics();
+      }
+      if (reduce) reduce(outcomes[i]);
+      if (progress) {
+        const std::lock_guard<std::mutex> hold(progress_lock);
+        progress(++done, files.size());
       }
     }
   };

@@ -3,6 +3,10 @@
 #include <CLI/CLI.hpp>
 
 #include <cctype>
+#include <deque>
+#include <functional>
+#include <chrono>
+#include <unistd.h>
 #include <algorithm>
 #include <filesystem>
 #include <set>
@@ -55,6 +59,7 @@ std::string describe_options(const Options& o) {
   if (o.need_tension) text += fmt::format(" --need-tension {:g}", *o.need_tension);
   if (o.need_compression || o.need_tension)
     text += fmt::format(" --need-basis {}", to_string(o.need_basis));
+  if (o.detail != Detail::full) text += std::string(" --detail ") + to_string(o.detail);
   if (o.out_dir) text += " --out " + *o.out_dir;
   if (o.explain_pile) text += " --explain " + *o.explain_pile;
   if (o.as_built) text += " --as-built " + *o.as_built;
@@ -85,13 +90,25 @@ std::string command_line_text(int argc, const char* const* argv) {
 
 // Every cap of the files given (foundation files expanded), analysed on all cores. Input
 // problems in any cap stop the run before anything is written.
+// Progress goes to stderr only when it is a terminal, and only once a run has taken more
+// than a second: "cairn: 120 of 500 caps checked", rewritten in place, cleared at the end.
 std::vector<CapOutcome> analyse_all(const std::vector<std::string>& given,
-                                    const AnalysisOptions& options = {}) {
+                                    const AnalysisOptions& options, std::ostream& err,
+                                    const std::function<void(CapOutcome&)>& reduce = {}) {
   std::vector<std::string> files;
   for (const auto& f : given)
     for (const auto& cap : expand_foundation(f)) files.push_back(cap);
-  auto outcomes =
-      analyse_projects(files, std::max(1u, std::thread::hardware_concurrency()), options);
+  const bool terminal = isatty(STDERR_FILENO) != 0;
+  const auto start = std::chrono::steady_clock::now();
+  bool shown = false;
+  auto progress = [&](std::size_t done, std::size_t total) {
+    if (!terminal || std::chrono::steady_clock::now() - start < std::chrono::seconds(1)) return;
+    err << "\rcairn: " << done << " of " << total << " caps checked" << std::flush;
+    shown = true;
+  };
+  auto outcomes = analyse_projects(files, std::max(1u, std::thread::hardware_concurrency()),
+                                   options, progress, reduce);
+  if (shown) err << "\r\033[K" << std::flush;
   std::vector<Diagnostic> problems;
   for (const auto& o : outcomes) problems.insert(problems.end(), o.problems.begin(), o.problems.end());
   if (!problems.empty()) throw InputError(problems);
@@ -138,27 +155,47 @@ void print_warnings(const Project& project, std::ostream& err) {
 // problems in any file stop the run before anything is written.
 int run_batch(const Options& options, std::ostream& out, std::ostream& err) {
   if (options.explain_pile) throw InputError({}, "--explain: give a single project file");
-  const auto outcomes = analyse_all(options.files);
+  // The summary table needs no pile rows; the files under --out do at full detail.
+  // Without --out only the summary row and the warnings of each cap are kept, as soon as
+  // the cap is done.
+  std::function<void(CapOutcome&)> reduce;
+  if (!options.out_dir)
+    reduce = [](CapOutcome& o) {
+      if (!o.run) return;
+      o.summary = summary_row(*o.run);
+      o.warnings = std::move(o.run->project.warnings);
+      o.run.reset();
+    };
+  const auto outcomes =
+      analyse_all(options.files,
+                  AnalysisOptions{.pile_rows = options.out_dir && options.detail == Detail::full},
+                  err, reduce);
   std::vector<CapSummaryRow> rows;
-  std::vector<std::pair<std::string, std::string>> written;
+  std::vector<OutputFile> written;
+  std::deque<CheckReport> reports;  // the streamed files point into them
   bool pass = true;
   std::set<std::string> stems;
   const std::string described = describe_options(options);
-  for (const auto& o : outcomes) print_warnings(o.run->project, err);
+  for (const auto& o : outcomes)
+    for (const auto& w : o.run ? o.run->project.warnings : o.warnings)
+      err << "cairn: " << format_warning(w) << "\n";
   for (const auto& o : outcomes) {
-    rows.push_back(summary_row(*o.run));
+    rows.push_back(o.run ? summary_row(*o.run) : *o.summary);
     pass = pass && rows.back().pass;
     if (options.out_dir) {
-      const CheckReport report = make_check_report(*o.run, described, std::nullopt);
+      reports.push_back(make_check_report(*o.run, described, std::nullopt));
+      reports.back().detail = options.detail;
       const std::string stem = unique_stem(o.file, stems);
-      for (auto& [name, content] : check_files(report)) written.emplace_back(stem + "/" + name, content);
+      for (auto& file : check_outputs(reports.back()))
+        written.push_back({stem + "/" + file.name, std::move(file.write)});
     }
   }
   const std::string rendered = render_cap_summary(rows, options.format, described);
   if (options.out_dir) {
-    written.emplace_back("summary.txt", render_cap_summary(rows, Format::text, described));
-    written.emplace_back("summary.csv", render_cap_summary(rows, Format::csv, described));
-    written.emplace_back("summary.json", render_cap_summary(rows, Format::json, described));
+    for (const Format f : {Format::text, Format::csv, Format::json}) {
+      const char* name = f == Format::text ? "summary.txt" : f == Format::csv ? "summary.csv" : "summary.json";
+      written.push_back({name, [text = render_cap_summary(rows, f, described)](std::ostream& o) { o << text; }});
+    }
     write_files_atomically(*options.out_dir, written);
   }
   out << rendered;
@@ -171,12 +208,25 @@ int run_check(const Options& options, std::ostream& out, std::ostream& err) {
   if (options.files.size() != 1) return run_batch(options, out, err);
   const auto caps = expand_foundation(options.files.front());
   if (caps.size() != 1 || caps.front() != options.files.front()) return run_batch(options, out, err);
-  const CheckRun run = analyse_project(options.files.front());
+  // Below full detail no pile rows are kept (the hand check of --explain needs them).
+  // Progress as for many caps: on a terminal only, after a second.
+  const bool terminal = isatty(STDERR_FILENO) != 0;
+  const auto start = std::chrono::steady_clock::now();
+  bool shown = false;
+  auto progress = [&](std::size_t done, std::size_t total) {
+    if (!terminal || std::chrono::steady_clock::now() - start < std::chrono::seconds(1)) return;
+    err << "\rcairn: " << done << " of " << total << " combinations checked" << std::flush;
+    shown = true;
+  };
+  const CheckRun run = analyse_project(
+      options.files.front(), options.detail == Detail::full || options.explain_pile, progress);
+  if (shown) err << "\r\033[K" << std::flush;
   print_warnings(run.project, err);
-  const CheckReport report = make_check_report(run, describe_options(options), options.explain_pile);
-  const std::string rendered = render_check(report, options.format);
-  if (options.out_dir) write_files_atomically(*options.out_dir, check_files(report));
-  out << rendered;
+  CheckReport report = make_check_report(run, describe_options(options), options.explain_pile);
+  report.detail = options.detail;
+  // The files first (all or nothing), then the output streamed to the terminal or pipe.
+  if (options.out_dir) write_files_atomically(*options.out_dir, check_outputs(report));
+  write_check(report, options.format, out);
   return run.results.summary.pass ? kExitPass : kExitFail;
 }
 
@@ -250,8 +300,9 @@ int run_capacity(const Options& options, std::ostream& out, std::ostream& err) {
 // all written at once (app/package.hpp).
 int run_report(const Options& options, std::ostream& out, std::ostream& err) {
   if (!options.out_dir) throw InputError({}, "report: expected --out DIR for the report files");
-  // The analysis builds the capacity-with-depth tables of the chart with the check.
-  const auto outcomes = analyse_all(options.files, AnalysisOptions{.depth_tables = true});
+  // The analysis builds the capacity-with-depth tables of the chart with the check; the
+  // package shows every pile in every combination.
+  const auto outcomes = analyse_all(options.files, AnalysisOptions{.depth_tables = true}, err);
   for (const auto& o : outcomes) print_warnings(o.run->project, err);
   PackageRequest request;
   request.command = describe_options(options);
@@ -356,7 +407,14 @@ int run_command_line(int argc, const char* const* argv, std::ostream& out, std::
                        "check every cap and print one summary table",
                        formats);
   check->add_option("--out", options.out_dir,
-                    "Also write report.txt, report.md, results.json and CSV tables into DIR");
+                    "Also write report.txt, report.md, results.json and CSV tables (summary.csv, "
+                    "envelope.csv, results.csv: one row per combination and pile) into DIR");
+  std::string detail = "full";
+  check->add_option("--detail", detail,
+                    "How much to show: full (every pile in every combination, default), envelope "
+                    "(per pile over all combinations), governing (per pile and check, the "
+                    "governing combination) or summary (the verdict and the summary row)")
+      ->check(CLI::IsMember({"full", "envelope", "governing", "summary"}));
   check->add_option("--explain", options.explain_pile,
                     "Show the hand check (section properties, substituted formula) for PILE");
   // check and report: the as-built re-check of a survey (site/as_built.hpp).
@@ -483,6 +541,9 @@ int run_command_line(int argc, const char* const* argv, std::ostream& out, std::
   else if (format == "markdown") options.format = Format::markdown;
   else if (format == "json") options.format = Format::json;
   if (check->parsed()) options.command = Command::check;
+  if (detail == "envelope") options.detail = Detail::envelope;
+  else if (detail == "governing") options.detail = Detail::governing;
+  else if (detail == "summary") options.detail = Detail::summary;
   if (capacity->parsed()) options.command = Command::capacity;
   if (need_basis == "factored") options.need_basis = CapacityBasis::factored;
   if (springs->parsed()) options.command = Command::springs;

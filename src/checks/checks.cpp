@@ -239,118 +239,161 @@ std::vector<Diagnostic> missing_resistances(const Project& project,
   return problems;
 }
 
+CheckAccumulator::CheckAccumulator(const Project& project,
+                                   const std::vector<PileTypeResistance>& resistances,
+                                   const std::vector<double>& head_moment_per_shear,
+                                   bool keep_pile_rows,
+                                   const std::vector<std::optional<MomentInfluence>>& moment_influence)
+    : project_(project),
+      resistances_(resistances),
+      head_moment_per_shear_(head_moment_per_shear),
+      moment_influence_(moment_influence) {
+  results_.envelope.assign(project.piles.size(), PileEnvelope{});
+  results_.governing.assign(project.piles.size(), PileGoverning{});
+  results_.pile_rows = keep_pile_rows;
+  results_.combinations.reserve(project.combinations.size());
+}
+
+void CheckAccumulator::add(std::size_t c, CapSolution solution) {
+  const Project& project = project_;
+  const auto& resistances = resistances_;
+  const auto& head_moment_per_shear = head_moment_per_shear_;
+  CheckResults& results = results_;
+  CheckSummary& summary = results.summary;
+  const std::size_t n = project.piles.size();
+  const Combination& combo = project.combinations[c];
+  CombinationCheck check;
+  check.combination = c;
+  check.solution = std::move(solution);
+  check.piles.resize(n);
+  const bool overturns = check.solution.overturns;
+  for (std::size_t i = 0; i < n; ++i) {
+    PileCheck& p = check.piles[i];
+    PileEnvelope& e = results.envelope[i];
+    if (overturns) {
+      // No equilibrium: the solver's forces mean nothing, and no pile can be shown safe.
+      p.active = check.solution.piles[i].active;
+      p.state = PileState::overturned;
+      p.pass = false;
+      e.pass = false;
+      continue;
+    }
+    const PileForce& force = check.solution.piles[i];
+    const Pile& pile = project.piles[i];
+    const Resistance& r = combo.resistance_set != ResistanceSet::basis
+                              ? resistances[pile.type].by_set.at(combo.resistance_set)
+                          : combo.limit_state == LimitState::service
+                              ? resistances[pile.type].allowable
+                              : resistances[pile.type].factored;
+    p.axial = force.axial;
+    p.lateral = force.lateral;
+    p.active = force.active;
+    p.state = force.active ? PileState::in_contact : PileState::dropped_out;
+    PileGoverning& g = results.governing[i];
+    // The governing combination of one check: the first of its largest utilization.
+    auto govern = [&](Demand kind, double u, double demand) {
+      GoverningCheck& x = g[static_cast<std::size_t>(kind) - 1];
+      if (u > 0.0 && (!x.utilization.combination || u > x.utilization.value)) {
+        x.utilization = {u, c};
+        x.demand = demand;
+      }
+    };
+    auto consider = [&](double demand, std::optional<double> capacity, Demand kind) {
+      if (demand <= kForceTolerance) return;
+      const double u = capacity && *capacity > 0 ? demand / *capacity : kInfinity;
+      govern(kind, u, demand);
+      if (u > p.utilization || p.governing == Demand::none) {
+        p.utilization = std::max(u, p.utilization);
+        p.governing = kind;
+      }
+    };
+    consider(p.axial, r.compression, Demand::compression);
+    consider(-p.axial, r.tension, Demand::tension);
+    consider(p.lateral, r.lateral, Demand::lateral);
+    if (pile.type < moment_influence_.size() && moment_influence_[pile.type]) {
+      const MomentPeak peak =
+          largest_moment_along(*moment_influence_[pile.type], pile.axis(), force.head_forces);
+      p.head_moment = peak.head;
+      p.max_moment = peak.value;
+      p.max_moment_depth = peak.depth;
+    } else if (pile.type < head_moment_per_shear.size()) {
+      p.head_moment = p.lateral * head_moment_per_shear[pile.type];
+      p.max_moment = p.head_moment;
+    }
+    if (r.structural_axial && *r.structural_axial > 0) {
+      double u = std::abs(p.axial) / *r.structural_axial;
+      if (p.max_moment > 0 && r.structural_moment && *r.structural_moment > 0)
+        u = axial_bending_utilization(p.axial, *r.structural_axial, p.max_moment,
+                                      *r.structural_moment);
+      govern(Demand::structural, u, p.axial);
+      if (u > p.utilization) {
+        p.utilization = u;
+        p.governing = Demand::structural;
+      }
+    }
+    if (p.axial > 0) check.total_compression += p.axial;
+    else check.total_tension -= p.axial;
+    p.pass = p.utilization <= 1.0;
+    if (!p.pass) {
+      check.pass = false;
+      e.pass = false;
+    }
+    if (!check.governing_pile || p.utilization > check.max_utilization) {
+      check.max_utilization = p.utilization;
+      check.governing_pile = i;
+      check.governing = p.governing;
+    }
+    // A zero value names no combination: "max tension 0.0 in S1" of a pile never in
+    // tension would point the reader at nothing.
+    auto raise = [&](Extreme& x, double v, double tolerance) {
+      if (v > tolerance && (!x.combination || v > x.value)) {
+        x.value = v;
+        x.combination = c;
+      }
+    };
+    raise(e.max_compression, p.axial, kForceTolerance);
+    raise(e.max_tension, -p.axial, kForceTolerance);
+    raise(e.max_lateral, p.lateral, kForceTolerance);
+    if (p.utilization > 0.0 &&
+        (!e.max_utilization.combination || p.utilization > e.max_utilization.value))
+      e.governing = p.governing;
+    raise(e.max_utilization, p.utilization, 0.0);
+  }
+  if (check.solution.overturns) {
+    check.pass = false;
+    summary.overturned.push_back(c);
+  }
+  if (!check.pass) ++summary.failed_combinations;
+  // An overturned combination has no pile forces to speak of: it fails on its own line
+  // and does not name a governing pile.
+  if (!check.solution.overturns &&
+      (!summary.combination || check.max_utilization > summary.max_utilization)) {
+    summary.max_utilization = check.max_utilization;
+    summary.combination = c;
+    summary.pile = check.governing_pile;
+    summary.check = check.governing;
+  }
+  if (!results.pile_rows) {
+    // Only what a summary needs: the verdict, its governing pile, the movement.
+    std::vector<PileCheck>().swap(check.piles);
+    std::vector<PileForce>().swap(check.solution.piles);
+  }
+  results.combinations.push_back(std::move(check));
+}
+
+CheckResults CheckAccumulator::finish() {
+  results_.summary.pass = results_.summary.failed_combinations == 0;
+  return std::move(results_);
+}
+
 CheckResults check_piles(const Project& project, const std::vector<CapSolution>& solutions,
                          const std::vector<PileTypeResistance>& resistances,
                          const std::vector<double>& head_moment_per_shear,
                          const std::vector<std::optional<MomentInfluence>>& moment_influence) {
-  CheckResults results;
-  const std::size_t n = project.piles.size();
-  results.envelope.assign(n, PileEnvelope{});
-  CheckSummary& summary = results.summary;
-  for (std::size_t c = 0; c < project.combinations.size(); ++c) {
-    const Combination& combo = project.combinations[c];
-    CombinationCheck check;
-    check.combination = c;
-    check.solution = solutions[c];
-    check.piles.resize(n);
-    const bool overturns = check.solution.overturns;
-    for (std::size_t i = 0; i < n; ++i) {
-      PileCheck& p = check.piles[i];
-      PileEnvelope& e = results.envelope[i];
-      if (overturns) {
-        // No equilibrium: the solver's forces mean nothing, and no pile can be shown safe.
-        p.active = check.solution.piles[i].active;
-        p.state = PileState::overturned;
-        p.pass = false;
-        e.pass = false;
-        continue;
-      }
-      const PileForce& force = check.solution.piles[i];
-      const Pile& pile = project.piles[i];
-      const Resistance& r = combo.resistance_set != ResistanceSet::basis
-                                ? resistances[pile.type].by_set.at(combo.resistance_set)
-                            : combo.limit_state == LimitState::service
-                                ? resistances[pile.type].allowable
-                                : resistances[pile.type].factored;
-      p.axial = force.axial;
-      p.lateral = force.lateral;
-      p.active = force.active;
-      p.state = force.active ? PileState::in_contact : PileState::dropped_out;
-      auto consider = [&](double demand, std::optional<double> capacity, Demand kind) {
-        if (demand <= kForceTolerance) return;
-        const double u = capacity && *capacity > 0 ? demand / *capacity : kInfinity;
-        if (u > p.utilization || p.governing == Demand::none) {
-          p.utilization = std::max(u, p.utilization);
-          p.governing = kind;
-        }
-      };
-      consider(p.axial, r.compression, Demand::compression);
-      consider(-p.axial, r.tension, Demand::tension);
-      consider(p.lateral, r.lateral, Demand::lateral);
-      if (pile.type < moment_influence.size() && moment_influence[pile.type]) {
-        const MomentPeak peak =
-            largest_moment_along(*moment_influence[pile.type], pile.axis(), force.head_forces);
-        p.head_moment = peak.head;
-        p.max_moment = peak.value;
-        p.max_moment_depth = peak.depth;
-      } else if (pile.type < head_moment_per_shear.size()) {
-        p.head_moment = p.lateral * head_moment_per_shear[pile.type];
-        p.max_moment = p.head_moment;
-      }
-      if (r.structural_axial && *r.structural_axial > 0) {
-        double u = std::abs(p.axial) / *r.structural_axial;
-        if (p.max_moment > 0 && r.structural_moment && *r.structural_moment > 0)
-          u = axial_bending_utilization(p.axial, *r.structural_axial, p.max_moment,
-                                        *r.structural_moment);
-        if (u > p.utilization) {
-          p.utilization = u;
-          p.governing = Demand::structural;
-        }
-      }
-      p.pass = p.utilization <= 1.0;
-      if (!p.pass) {
-        check.pass = false;
-        e.pass = false;
-      }
-      if (!check.governing_pile || p.utilization > check.max_utilization) {
-        check.max_utilization = p.utilization;
-        check.governing_pile = i;
-        check.governing = p.governing;
-      }
-      // A zero value names no combination: "max tension 0.0 in S1" of a pile never in
-      // tension would point the reader at nothing.
-      auto raise = [&](Extreme& x, double v, double tolerance) {
-        if (v > tolerance && (!x.combination || v > x.value)) {
-          x.value = v;
-          x.combination = c;
-        }
-      };
-      raise(e.max_compression, p.axial, kForceTolerance);
-      raise(e.max_tension, -p.axial, kForceTolerance);
-      raise(e.max_lateral, p.lateral, kForceTolerance);
-      if (p.utilization > 0.0 &&
-          (!e.max_utilization.combination || p.utilization > e.max_utilization.value))
-        e.governing = p.governing;
-      raise(e.max_utilization, p.utilization, 0.0);
-    }
-    if (check.solution.overturns) {
-      check.pass = false;
-      summary.overturned.push_back(c);
-    }
-    if (!check.pass) ++summary.failed_combinations;
-    // An overturned combination has no pile forces to speak of: it fails on its own line
-    // and does not name a governing pile.
-    if (!check.solution.overturns &&
-        (!summary.combination || check.max_utilization > summary.max_utilization)) {
-      summary.max_utilization = check.max_utilization;
-      summary.combination = c;
-      summary.pile = check.governing_pile;
-      summary.check = check.governing;
-    }
-    results.combinations.push_back(std::move(check));
-  }
-  summary.pass = summary.failed_combinations == 0;
-  return results;
+  CheckAccumulator accumulator(project, resistances, head_moment_per_shear, true,
+                               moment_influence);
+  for (std::size_t c = 0; c < project.combinations.size(); ++c) accumulator.add(c, solutions[c]);
+  return accumulator.finish();
 }
 
 std::vector<std::string> assumptions(

@@ -244,10 +244,8 @@ GroupResults evaluate_group(const Project& project, const CheckResults& results,
     const bool service = combo.limit_state == LimitState::service;
     GroupCombination gc;
     gc.combination = cc.combination;
-    for (const PileCheck& p : cc.piles) {
-      if (p.axial > 0) gc.compression += p.axial;
-      else gc.tension -= p.axial;
-    }
+    gc.compression = cc.total_compression;
+    gc.tension = cc.total_tension;
     const auto& rot = cc.solution.movement.rotation;
     gc.tilt = std::hypot(rot[0], rot[1]);
     gc.capacity = service ? out.capacity_allowable : out.capacity_factored;

@@ -1,14 +1,17 @@
 #include "cairn/output/output_files.hpp"
 
+#include <algorithm>
 #include <array>
 #include <cerrno>
 #include <chrono>
 #include <cstdint>
+#include <cstring>
 #include <ctime>
 #include <filesystem>
 #include <fstream>
 #include <optional>
 #include <set>
+#include <streambuf>
 #include <signal.h>
 #include <unistd.h>
 
@@ -58,6 +61,87 @@ void sha256_block(std::array<std::uint32_t, 8>& h, const unsigned char* block) {
   }
   h[0] += a, h[1] += b, h[2] += c, h[3] += d, h[4] += e, h[5] += f, h[6] += g, h[7] += k;
 }
+
+// Incremental SHA-256 of a stream of bytes.
+class Sha256 {
+ public:
+  void update(const char* data, std::size_t n) {
+    total_ += n;
+    while (n > 0) {
+      const std::size_t take = std::min<std::size_t>(n, 64 - fill_);
+      std::memcpy(block_ + fill_, data, take);
+      fill_ += take, data += take, n -= take;
+      if (fill_ == 64) {
+        sha256_block(h_, block_);
+        fill_ = 0;
+      }
+    }
+  }
+  std::string hex() {
+    // Padding: 0x80, zeros to 56 bytes mod 64, the length in bits as a big-endian 64-bit number.
+    const std::uint64_t bits = total_ * 8;
+    const char one = '\x80', zero = '\0';
+    update(&one, 1);
+    while (fill_ != 56) update(&zero, 1);
+    for (int i = 7; i >= 0; --i) {
+      const char byte = static_cast<char>((bits >> (8 * i)) & 0xff);
+      update(&byte, 1);
+    }
+    std::string text;
+    for (const std::uint32_t word : h_) text += fmt::format("{:08x}", word);
+    return text;
+  }
+  std::uint64_t bytes() const { return total_; }
+
+ private:
+  std::array<std::uint32_t, 8> h_ = {0x6a09e667, 0xbb67ae85, 0x3c6ef372, 0xa54ff53a,
+                                     0x510e527f, 0x9b05688c, 0x1f83d9ab, 0x5be0cd19};
+  unsigned char block_[64]{};
+  std::size_t fill_ = 0;
+  std::uint64_t total_ = 0;
+};
+
+// A stream buffer that passes everything on to `sink` and hashes it on the way.
+class HashingBuffer : public std::streambuf {
+ public:
+  explicit HashingBuffer(std::streambuf* sink) : sink_(sink), buffer_(1 << 16) {
+    setp(buffer_.data(), buffer_.data() + buffer_.size());
+  }
+  bool drain() {
+    const std::streamsize n = pptr() - pbase();
+    if (n > 0) {
+      sha_.update(pbase(), static_cast<std::size_t>(n));
+      if (sink_->sputn(pbase(), n) != n) ok_ = false;
+    }
+    setp(buffer_.data(), buffer_.data() + buffer_.size());
+    return ok_;
+  }
+  Sha256& sha() { return sha_; }
+
+ protected:
+  int_type overflow(int_type c) override {
+    if (!drain()) return traits_type::eof();
+    if (!traits_type::eq_int_type(c, traits_type::eof())) {
+      *pptr() = traits_type::to_char_type(c);
+      pbump(1);
+    }
+    return traits_type::not_eof(c);
+  }
+  int sync() override { return drain() ? 0 : -1; }
+
+ private:
+  std::streambuf* sink_;
+  std::vector<char> buffer_;
+  Sha256 sha_;
+  bool ok_ = true;
+};
+
+// What the manifest says of one file written.
+struct Written {
+  std::string name;
+  std::uint64_t bytes = 0;
+  std::string sha256;
+};
 
 // ---- the folder ---------------------------------------------------------------------------
 
@@ -171,12 +255,12 @@ void check_target(const fs::path& folder, const std::string& name,
 
 // The manifest as JSON text. Names that are not UTF-8 (a file name may be any bytes) are
 // written with U+FFFD in place of the bad bytes.
-std::string manifest_text(const std::vector<std::pair<std::string, std::string>>& files,
+std::string manifest_text(const std::vector<Written>& files,
                           const std::vector<std::string>& earlier, bool complete,
                           const std::string& written) {
   nlohmann::ordered_json list = nlohmann::ordered_json::array();
-  for (const auto& [name, content] : files)
-    list.push_back({{"name", name}, {"bytes", content.size()}, {"sha256", sha256_hex(content)}});
+  for (const auto& f : files)
+    list.push_back({{"name", f.name}, {"bytes", f.bytes}, {"sha256", f.sha256}});
   const nlohmann::ordered_json doc = {
       {"tool", "cairn"},
       {"version", CAIRN_VERSION},
@@ -209,32 +293,27 @@ void write_through_temporary(const fs::path& path, const std::string& content) {
 }  // namespace
 
 std::string sha256_hex(std::string_view bytes) {
-  std::array<std::uint32_t, 8> h = {0x6a09e667, 0xbb67ae85, 0x3c6ef372, 0xa54ff53a,
-                                    0x510e527f, 0x9b05688c, 0x1f83d9ab, 0x5be0cd19};
-  const std::size_t whole = bytes.size() / 64 * 64;
-  for (std::size_t i = 0; i < whole; i += 64)
-    sha256_block(h, reinterpret_cast<const unsigned char*>(bytes.data() + i));
-  // Padding: 0x80, zeros to 56 bytes mod 64, the length in bits as a big-endian 64-bit number.
-  std::string tail(bytes.substr(whole));
-  tail += '\x80';
-  while (tail.size() % 64 != 56) tail += '\0';
-  const std::uint64_t bits = std::uint64_t(bytes.size()) * 8;
-  for (int i = 7; i >= 0; --i) tail += static_cast<char>((bits >> (8 * i)) & 0xff);
-  for (std::size_t b = 0; b < tail.size(); b += 64)
-    sha256_block(h, reinterpret_cast<const unsigned char*>(tail.data() + b));
-  std::string hex;
-  for (const std::uint32_t word : h) hex += fmt::format("{:08x}", word);
-  return hex;
+  Sha256 sha;
+  sha.update(bytes.data(), bytes.size());
+  return sha.hex();
 }
 
 void write_files_atomically(const std::string& folder_name,
-                            const std::vector<std::pair<std::string, std::string>>& files) {
+                            const std::vector<std::pair<std::string, std::string>>& contents) {
+  std::vector<OutputFile> files;
+  files.reserve(contents.size());
+  for (const auto& [name, content] : contents)
+    files.push_back({name, [&content = content](std::ostream& out) { out << content; }});
+  write_files_atomically(folder_name, files);
+}
+
+void write_files_atomically(const std::string& folder_name, const std::vector<OutputFile>& files) {
   // Two files of one name would share a temporary, and the second rename would fail after
   // the first had already put its file in place: callers must give distinct names.
   std::set<std::string> names;
   for (const auto& file : files)
-    if (!names.insert(file.first).second || file.first == kManifestName)
-      throw std::logic_error("output file '" + file.first + "' named twice, or as the manifest");
+    if (!names.insert(file.name).second || file.name == kManifestName)
+      throw std::logic_error("output file '" + file.name + "' named twice, or as the manifest");
   // A name that is also the folder of another ("a.txt" and "a.txt/b.csv", from a project
   // file named a.txt.yaml) would fail among the renames.
   for (const auto& name : names)
@@ -251,12 +330,12 @@ void write_files_atomically(const std::string& folder_name,
   if (fs::exists(folder_status) && !fs::is_directory(folder_status))
     throw OutputError(fmt::format("'{}' is not a folder; nothing was written", folder_name));
   const std::set<std::string> ours = names_written_by_cairn(folder / kManifestName);
-  for (const auto& file : files) check_target(folder, file.first, ours);
+  for (const auto& file : files) check_target(folder, file.name, ours);
 
   // 2. Folders, remembering those made here; stale temporaries go.
   std::vector<fs::path> made_folders;
   std::set<fs::path> folders = {folder};
-  for (const auto& file : files) folders.insert((folder / file.first).parent_path());
+  for (const auto& file : files) folders.insert((folder / file.name).parent_path());
   std::vector<fs::path> temporaries;
   auto undo = [&] {
     std::error_code ignored;  // keeps `ec`, the error being reported
@@ -285,14 +364,28 @@ void write_files_atomically(const std::string& folder_name,
       remove_stale_temporaries(dir);
   }
 
-  // 3. Every file in full under its temporary name.
-  for (const auto& [name, content] : files) {
+  // 3. Every file in full under its temporary name, streamed and hashed on the way.
+  std::vector<Written> done;
+  for (const auto& [name, write] : files) {
     const fs::path temp = temporary_of(folder / name);
     std::ofstream out(temp, std::ios::binary | std::ios::trunc);
     if (out) temporaries.push_back(temp);
-    out << content;
+    HashingBuffer hashing(out.rdbuf());
+    bool streamed = false;
+    if (out) {
+      std::ostream through(&hashing);
+      try {
+        write(through);
+      } catch (...) {
+        undo();
+        throw;
+      }
+      through.flush();
+      streamed = through.good() && hashing.drain();
+    }
+    done.push_back({name, hashing.sha().bytes(), hashing.sha().hex()});
     out.close();
-    if (!out) {
+    if (!out || !streamed) {
       undo();
       throw OutputError(fmt::format("cannot write '{}'; nothing was written",
                                     (folder / name).string()));
@@ -309,15 +402,15 @@ void write_files_atomically(const std::string& folder_name,
   const std::string written = utc_now();
   try {
     write_through_temporary(folder / kManifestName,
-                            manifest_text(files, earlier, false, written));
+                            manifest_text(done, earlier, false, written));
   } catch (const OutputError&) {
     undo();
     throw;
   }
   for (std::size_t i = 0; i < files.size(); ++i) {
-    fs::rename(temporaries[i], folder / files[i].first, ec);
+    fs::rename(temporaries[i], folder / files[i].name, ec);
     if (ec) {
-      const std::string failed = (folder / files[i].first).string();
+      const std::string failed = (folder / files[i].name).string();
       temporaries.erase(temporaries.begin(), temporaries.begin() + std::ptrdiff_t(i));
       made_folders.clear();  // some hold files now
       undo();
@@ -327,7 +420,7 @@ void write_files_atomically(const std::string& folder_name,
     }
   }
   // 5. Last, the manifest that vouches for the set.
-  write_through_temporary(folder / kManifestName, manifest_text(files, earlier, true, written));
+  write_through_temporary(folder / kManifestName, manifest_text(done, earlier, true, written));
 }
 
 }  // namespace cairn

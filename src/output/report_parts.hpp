@@ -54,6 +54,10 @@ std::vector<std::string> failure_reasons(const CheckReport& r);
 std::string joined(const std::vector<std::string>& items, const char* separator);
 Table summary_table(const CheckReport& r);
 std::string header(const CheckReport& r, Format format);
+// render_check below full detail (report_detail.cpp).
+std::string render_check_brief(const CheckReport& r, Format format);
+// The JSON document of check_json() written as a stream (report_json.cpp).
+void write_check_json(const CheckReport& r, std::ostream& out);
 std::string assumptions_block(const CheckReport& r, Format format);
 std::string explain_block(const CheckReport& r, Format format);
 

@@ -4,6 +4,8 @@
 #include <cmath>
 #include <limits>
 #include <set>
+#include <sstream>
+#include <stdexcept>
 
 namespace cairn {
 
@@ -107,77 +109,109 @@ std::string summary_line(const CheckReport& r) {
                      overturned.empty() ? "" : "; the cap overturns in " + overturned, utilization,
                      group_fails ? "; group checks fail (see Group checks)" : "");
 }
-std::string render_check(const CheckReport& r, Format format) {
-  if (format == Format::json) return check_json(r).dump(2) + "\n";
+void write_check(const CheckReport& r, Format format, std::ostream& out) {
+  if (format == Format::json) return write_check_json(r, out);
+  if (r.detail != Detail::full) {
+    out << render_check_brief(r, format);
+    return;
+  }
+  if (!r.results->pile_rows)
+    throw std::logic_error("render_check: full detail of a run that kept no pile rows");
   if (format == Format::csv) {
     // One CSV stream: sections separated by a blank line, each headed by a comment line.
-    std::string out;
-    out += "# summary\n" + render_table(summary_table(r), Format::csv) + "\n";
-    out += "# envelope\n" + render_table(envelope_table(r), Format::csv);
+    out << "# summary\n" << render_table(summary_table(r), Format::csv) << "\n";
+    out << "# envelope\n" << render_table(envelope_table(r), Format::csv);
     for (const auto& cc : r.results->combinations) {
       Table t = combination_table(r, cc);
-      out += "\n# " + t.title + "\n";
+      out << "\n# " << t.title << "\n";
       t.title.clear();
-      out += render_table(t, Format::csv);
+      out << render_table(t, Format::csv);
     }
-    out += "\n";
-    for (const auto& a : r.assumptions) out += "# assumption: " + a + "\n";
-    out += std::string("# ") + kCaution + "\n";
-    return out;
+    out << "\n";
+    for (const auto& a : r.assumptions) out << "# assumption: " << a << "\n";
+    out << "# " << kCaution << "\n";
+    return;
   }
-  std::string out = header(r, format);
-  out += render_table(pile_types_table(r), format);
-  out += render_table(piles_table(r), format);
-  out += render_table(combinations_table(r), format);
+  out << header(r, format);
+  out << render_table(pile_types_table(r), format);
+  out << render_table(piles_table(r), format);
+  out << render_table(combinations_table(r), format);
   for (const auto& cc : r.results->combinations) {
-    out += render_table(combination_table(r, cc), format);
+    std::string table = render_table(combination_table(r, cc), format);
     // Markdown: the note is its own paragraph after the table's blank line, or a renderer
     // would take it for one more table row.
     if (format == Format::markdown)
-      out += combination_note(r, cc) + "\n\n";
+      table += combination_note(r, cc) + "\n\n";
     else
-      out.insert(out.size() - 1, "  " + combination_note(r, cc) + "\n");
+      table.insert(table.size() - 1, "  " + combination_note(r, cc) + "\n");
+    out << table;
   }
-  out += render_table(envelope_table(r), format);
-  if (r.cap_stiffness) out += render_table(cap_stiffness_table(r), format);
-  if (r.group) out += group_block(r, format);
-  if (r.explain_pile) out += explain_block(r, format);
-  out += assumptions_block(r, format);
+  out << render_table(envelope_table(r), format);
+  if (r.cap_stiffness) out << render_table(cap_stiffness_table(r), format);
+  if (r.group) out << group_block(r, format);
+  if (r.explain_pile) out << explain_block(r, format);
+  out << assumptions_block(r, format);
   const std::string line = summary_line(r);
-  out += format == Format::markdown ? "**" + line + "**\n\n" : line + "\n\n";
-  out += format == Format::markdown ? std::string("_") + kCaution + "_\n" : kCaution + std::string("\n");
-  return out;
+  out << (format == Format::markdown ? "**" + line + "**\n\n" : line + "\n\n");
+  out << (format == Format::markdown ? std::string("_") + kCaution + "_\n" : kCaution + std::string("\n"));
 }
 
-std::vector<std::pair<std::string, std::string>> check_files(const CheckReport& r) {
+std::string render_check(const CheckReport& r, Format format) {
+  std::ostringstream out;
+  write_check(r, format, out);
+  return std::move(out).str();
+}
+
+namespace {
+
+// summary.csv and, by detail, envelope.csv or governing.csv.
+std::vector<std::pair<std::string, std::string>> check_files_small(const CheckReport& r) {
   std::vector<std::pair<std::string, std::string>> files;
-  files.emplace_back("report.txt", render_check(r, Format::text));
-  files.emplace_back("report.md", render_check(r, Format::markdown));
-  files.emplace_back("results.json", render_check(r, Format::json));
   std::string trailer;
   for (const auto& a : r.assumptions) trailer += "# assumption: " + a + "\n";
   trailer += std::string("# ") + kCaution + "\n";
   Table summary = summary_table(r);
   summary.title.clear();
   files.emplace_back("summary.csv", render_table(summary, Format::csv) + trailer);
-  Table envelope = envelope_table(r);
-  envelope.title.clear();
-  files.emplace_back("envelope.csv", render_table(envelope, Format::csv) + trailer);
-  std::set<std::string> used;
-  for (const auto& cc : r.results->combinations) {
-    Table t = combination_table(r, cc);
-    t.title.clear();
-    std::string safe = r.project->combinations[cc.combination].id;
-    for (char& c : safe)
-      if (!(std::isalnum(static_cast<unsigned char>(c)) || c == '-' || c == '_' || c == '.')) c = '_';
-    // Different ids may read the same once made safe ("W+", "W_"): number the repeats.
-    std::string name = safe;
-    for (int n = 2; !used.insert(name).second; ++n) name = safe + "-" + std::to_string(n);
-    files.emplace_back("combination-" + name + ".csv", render_table(t, Format::csv) + trailer);
+  if (r.detail == Detail::full || r.detail == Detail::envelope) {
+    Table envelope = envelope_table(r);
+    envelope.title.clear();
+    files.emplace_back("envelope.csv", render_table(envelope, Format::csv) + trailer);
+  }
+  if (r.detail == Detail::governing) {
+    Table governing = governing_table(r);
+    governing.title.clear();
+    files.emplace_back("governing.csv", render_table(governing, Format::csv) + trailer);
   }
   return files;
 }
 
+}  // namespace
+
+std::vector<std::pair<std::string, std::string>> check_files(const CheckReport& r) {
+  std::vector<std::pair<std::string, std::string>> files;
+  files.emplace_back("report.txt", render_check(r, Format::text));
+  files.emplace_back("report.md", render_check(r, Format::markdown));
+  files.emplace_back("results.json", render_check(r, Format::json));
+  for (auto& file : check_files_small(r)) files.push_back(std::move(file));
+  // One long table of every combination and pile, instead of a file per combination.
+  if (r.detail == Detail::full) files.emplace_back("results.csv", render_long_csv(r));
+  return files;
+}
+
+
+std::vector<OutputFile> check_outputs(const CheckReport& r) {
+  std::vector<OutputFile> files;
+  files.push_back({"report.txt", [&r](std::ostream& out) { write_check(r, Format::text, out); }});
+  files.push_back({"report.md", [&r](std::ostream& out) { write_check(r, Format::markdown, out); }});
+  files.push_back({"results.json", [&r](std::ostream& out) { write_check(r, Format::json, out); }});
+  // The small tables as they are; the long one streamed.
+  for (auto& [name, content] : check_files_small(r))
+    files.push_back({name, [content = std::move(content)](std::ostream& out) { out << content; }});
+  if (r.detail == Detail::full)
+    files.push_back({"results.csv", [&r](std::ostream& out) { write_long_csv(r, out); }});
+  return files;
+}
 
 CheckTables check_tables(const CheckReport& r) {
   CheckTables t;
@@ -185,6 +219,7 @@ CheckTables check_tables(const CheckReport& r) {
   t.piles = piles_table(r);
   t.combinations = combinations_table(r);
   for (const auto& cc : r.results->combinations) {
+    if (!r.results->pile_rows) break;  // a run that kept no pile rows
     t.per_combination.push_back(combination_table(r, cc));
     t.per_combination_notes.push_back(combination_note(r, cc));
   }

@@ -5,6 +5,7 @@
 // independently (in parallel) for a foundation.
 #pragma once
 
+#include <functional>
 #include <optional>
 #include <string>
 #include <vector>
@@ -36,6 +37,12 @@ struct CheckRun {
 // for the calculation package's chart; the renderers only render it.
 struct AnalysisOptions {
   bool depth_tables = false;
+  // With pile_rows false the results keep no row per pile and combination
+  // (CheckResults::pile_rows): memory grows with piles + combinations (without a soil
+  // profile; with one, the pile forces are kept for Broms' yield moment).
+  bool pile_rows = true;
+  // When given, called with (combinations checked, combinations) every 1,000 combinations.
+  std::function<void(std::size_t done, std::size_t total)> progress;
 };
 
 // Reads and checks one project file. Throws InputError for any input problem (nothing is
@@ -57,6 +64,9 @@ CheckRun analyse(Project project, const TypeAdjustments& adjust = {},
 // The same pipeline on a project already in memory (as read_project returns it), e.g. a
 // candidate layout of `cairn design`. Throws InputError as above.
 CheckRun analyse_project(Project project);  // analyse() without adjustments
+// The same with pile_rows (see AnalysisOptions) and progress given directly.
+CheckRun analyse_project(const std::string& file, bool pile_rows,
+                         const std::function<void(std::size_t done, std::size_t total)>& progress = {});
 
 // Analyses several files on up to `threads` threads. Each entry holds the run or the
 // input problems of its file, in the order of `files`.
@@ -64,9 +74,18 @@ struct CapOutcome {
   std::string file;
   std::optional<CheckRun> run;
   std::vector<Diagnostic> problems;
+  // What a caller kept of the run when its `reduce` (below) let the run go.
+  std::optional<CapSummaryRow> summary;
+  std::vector<Warning> warnings;
 };
-std::vector<CapOutcome> analyse_projects(const std::vector<std::string>& files,
-                                         unsigned threads, const AnalysisOptions& options = {});
+// `progress`, when given, is called (from any thread, one call at a time) with the number
+// of caps done after each. `reduce`, when given, is called on each outcome in the thread
+// that analysed it, as soon as it is done: it may keep what it needs (summary, warnings) and
+// reset the run, so that many caps need the memory of a summary each, not of a run each.
+std::vector<CapOutcome> analyse_projects(
+    const std::vector<std::string>& files, unsigned threads, const AnalysisOptions& options = {},
+    const std::function<void(std::size_t done, std::size_t total)>& progress = {},
+    const std::function<void(CapOutcome&)>& reduce = {});
 
 // A report over a run. `explain_pile` names a pile for the hand check; throws InputError
 // when it does not exist. The report points into `run`, which must outlive it.

@@ -23,6 +23,8 @@ struct Options {
   Format format = Format::text;
   std::optional<std::string> out_dir;
   std::optional<std::string> explain_pile;
+  // check: how much the outputs show (report.hpp); full keeps every pile row in memory.
+  Detail detail = Detail::full;
   // capacity: the capacity-with-depth table, in the project's length unit; defaults
   // 0.5 m or 1 ft for the step, 3 m or 10 ft for the shortest length.
   std::optional<double> depth_step;

@@ -16,6 +16,7 @@
 // Units: kN.
 #pragma once
 
+#include <array>
 #include <cstddef>
 #include <map>
 #include <optional>
@@ -118,6 +119,9 @@ struct CombinationCheck {
   double max_utilization = 0.0;
   std::optional<std::size_t> governing_pile;
   Demand governing = Demand::none;
+  // Σ of the piles' compressions and Σ of their tensions (kN, magnitudes), for the group
+  // checks; kept when `piles` is not (a run that keeps no pile rows).
+  double total_compression = 0.0, total_tension = 0.0;
 };
 
 // The verdict on one checked combination.
@@ -149,10 +153,45 @@ struct CheckSummary {
   std::vector<std::size_t> overturned;  // combinations with no equilibrium
 };
 
+// For one pile and one check (compression, tension, lateral, structural): the combination
+// with the largest utilization of that check alone, its demand (kN; kN for structural: the
+// axial force) and the utilization. No combination when the check never has a demand.
+struct GoverningCheck {
+  Extreme utilization;
+  double demand = 0.0;
+};
+// Indexed by Demand − 1: compression, tension, lateral, structural.
+using PileGoverning = std::array<GoverningCheck, 4>;
+
 struct CheckResults {
   std::vector<CombinationCheck> combinations;
   std::vector<PileEnvelope> envelope;  // per pile
+  std::vector<PileGoverning> governing;  // per pile
   CheckSummary summary;
+  // false: the combinations carry no pile rows (CombinationCheck::piles and the solution's
+  // pile forces are empty); the envelope, governing checks and summary are complete.
+  bool pile_rows = true;
+};
+
+// Checks combination by combination, folding the envelope, the governing checks and the
+// summary as it goes; with keep_pile_rows false, memory grows with piles + combinations and
+// not their product. check_piles() is this over all solutions.
+class CheckAccumulator {
+ public:
+  // `head_moment_per_shear` and `moment_influence` as for check_piles() below.
+  CheckAccumulator(const Project& project, const std::vector<PileTypeResistance>& resistances,
+                   const std::vector<double>& head_moment_per_shear, bool keep_pile_rows,
+                   const std::vector<std::optional<MomentInfluence>>& moment_influence = {});
+  // The combination's solution (combinations in order, index c).
+  void add(std::size_t c, CapSolution solution);
+  CheckResults finish();
+
+ private:
+  const Project& project_;
+  const std::vector<PileTypeResistance>& resistances_;
+  std::vector<double> head_moment_per_shear_;
+  std::vector<std::optional<MomentInfluence>> moment_influence_;
+  CheckResults results_;
 };
 
 // Checks every pile in every combination. `solutions` is indexed like the combinations.

@@ -16,6 +16,8 @@
 // the run created, are removed.
 #pragma once
 
+#include <functional>
+#include <ostream>
 #include <stdexcept>
 #include <string>
 #include <string_view>
@@ -44,6 +46,15 @@ inline constexpr int kStaleTemporaryAge = 3600;
 // incomplete.
 void write_files_atomically(const std::string& folder,
                             const std::vector<std::pair<std::string, std::string>>& files);
+
+// One output file written as a stream: `write` puts its content into the stream it is
+// given (the file's temporary, hashed on the way), so no file is held whole in memory. An
+// exception from `write` removes the temporaries and passes on.
+struct OutputFile {
+  std::string name;
+  std::function<void(std::ostream&)> write;
+};
+void write_files_atomically(const std::string& folder, const std::vector<OutputFile>& files);
 
 // SHA-256 digest of `bytes` as 64 lowercase hex digits (FIPS 180-4), for the manifest.
 std::string sha256_hex(std::string_view bytes);

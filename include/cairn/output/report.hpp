@@ -15,11 +15,14 @@
 
 #include <cstddef>
 #include <optional>
+#include <ostream>
 #include <string>
 #include <utility>
 #include <vector>
 
 #include <nlohmann/json.hpp>
+
+#include "cairn/output/output_files.hpp"
 
 #include "cairn/checks/checks.hpp"
 #include "cairn/checks/explain.hpp"
@@ -30,6 +33,16 @@
 namespace cairn {
 
 enum class Format { text, csv, markdown, json };
+
+// How much of a check the outputs show (`cairn check --detail`):
+//   full       every table, one row per pile and combination (the default)
+//   envelope   per pile over all combinations
+//   governing  per pile and check (compression, tension, lateral, structural), the
+//              combination that governs it
+//   summary    the verdict lines and the summary row
+// Overturned or unstable combinations are listed at every level.
+enum class Detail { full, envelope, governing, summary };
+const char* to_string(Detail);
 
 // A table with a header row; cells are already formatted.
 struct Table {
@@ -57,14 +70,32 @@ struct CheckReport {
   // The cap's 6×6 stiffness about the origin, every pile active (CapSolver::stiffness_about):
   // kN/m, kN/rad, kN·m/m, kN·m/rad. Absent: not written.
   std::optional<std::array<std::array<double, 6>, 6>> cap_stiffness;
+  // Below full, the renderers need no pile rows (CheckResults::pile_rows may be false).
+  Detail detail = Detail::full;
 };
 
 std::string render_check(const CheckReport& report, Format format);
+// The same written as a stream, piece by piece (JSON included: no tree of the whole
+// document is built), for big runs.
+void write_check(const CheckReport& report, Format format, std::ostream& out);
 nlohmann::json check_json(const CheckReport& report);
 
-// Files for `--out DIR`: report.txt, report.md, results.json, summary.csv, envelope.csv and
-// one combination-<id>.csv per combination. (name, content) pairs.
+// Files for `--out DIR`: report.txt, report.md, results.json, summary.csv, then by detail:
+// envelope.csv (full and envelope), governing.csv (governing) and results.csv (full: one long
+// table, a row per combination and pile). (name, content) pairs.
 std::vector<std::pair<std::string, std::string>> check_files(const CheckReport& report);
+
+// The long table of every combination and pile (CSV: combination, pile, axial, lateral,
+// [head moment,] utilization, check, state, result), then the assumptions and the caution.
+std::string render_long_csv(const CheckReport& report);
+void write_long_csv(const CheckReport& report, std::ostream& out);
+
+// check_files() as streamed outputs for write_files_atomically (output_files.hpp); the
+// report must outlive them.
+std::vector<OutputFile> check_outputs(const CheckReport& report);
+
+// The governing combination of each pile and check (Detail::governing) as a table.
+Table governing_table(const CheckReport& report);
 
 // The group checks section alone (text or Markdown); empty when the report has none.
 std::string render_group(const CheckReport& report, Format format);

@@ -39,6 +39,7 @@
 
 #include <array>
 #include <cstddef>
+#include <functional>
 #include <memory>
 #include <string>
 #include <vector>
@@ -181,6 +182,10 @@ std::vector<UnresistedCase> unresisted_cases(const Project& project, const CapSo
 // their points. Requires unresisted_cases() to be empty.
 // Throws std::logic_error when equilibrium is missed by more than 1e-6 (CapSolution::residual).
 std::vector<CapSolution> solve_combinations(const Project& project, const CapSolver& solver);
+// The same, handing each combination's solution to `each` (index, solution) in order instead
+// of keeping them all.
+void solve_combinations(const Project& project, const CapSolver& solver,
+                        const std::function<void(std::size_t, CapSolution&&)>& each);
 
 
 // Total load of a combination as a wrench about the origin (for display).

@@ -1,7 +1,8 @@
 // The equilibrium section of the calculation package: for the governing combinations, the
-// forces the cap puts on the pile heads summed about the origin beside the applied
-// resultant, and the hand check of the governing pile — the closed form where it is exact
-// (explain.hpp), else the rigid cap's general equations with the numbers substituted.
+// actions the cap puts on the pile heads (the solver's head_forces, head moments included)
+// summed about the origin beside the applied resultant, and the hand check of the governing
+// pile — the closed form where it is exact (explain.hpp), else the rigid cap's general
+// equations with the numbers substituted.
 #include <algorithm>
 #include <cmath>
 #include <set>
@@ -15,6 +16,7 @@
 #include "cairn/output/markup.hpp"
 #include "cairn/output/number_text.hpp"
 #include "cairn/solver/head_forces.hpp"
+#include "cairn/solver/pile_head.hpp"
 
 namespace cairn {
 namespace {
@@ -57,50 +59,59 @@ std::string balance_table(const CheckReport& r, const std::vector<PileSpring>& s
             html_escape(cc.solution.failure) + "), so there are no pile forces to sum.</p>\n";
     return html;
   }
-  const auto forces = pile_head_forces(springs, cc.solution);
+  const HeadBalance b = head_balance(springs, cc.solution, combination_load(p, c));
+  // Head moment columns where some pile's head is not pinned.
+  bool held = false;
+  for (const auto& pile : p.piles)
+    if (p.pile_types[pile.type].head != HeadFixity::pinned) held = true;
   Table t;
-  t.title = "Forces on the pile heads and their moments about the origin, " + c.id;
+  t.title = held ? "Forces and moments of the cap on the pile heads, and their moments about "
+                   "the origin, " + c.id
+                 : "Forces on the pile heads and their moments about the origin, " + c.id;
   const std::string f = s.f(), m = s.m(), l = s.l();
   t.headers = {"pile", "x (" + l + ")", "y (" + l + ")", "N (" + f + ")", "Fx (" + f + ")",
-               "Fy (" + f + ")", "Fz (" + f + ")", "Mx (" + m + ")", "My (" + m + ")",
-               "Mz (" + m + ")"};
-  t.numeric = {false, true, true, true, true, true, true, true, true, true};
-  Wrench sum{};
-  for (std::size_t i = 0; i < forces.size() && i < p.piles.size(); ++i) {
-    const auto& F = forces[i];
+               "Fy (" + f + ")", "Fz (" + f + ")"};
+  if (held)
+    for (const char* axis : {"x", "y", "z"})
+      t.headers.push_back(std::string("head M") + axis + " (" + m + ")");
+  // With head moments beside them, the moments about the origin say so.
+  for (const char* axis : {"Mx", "My", "Mz"})
+    t.headers.push_back(std::string(axis) + (held ? " about origin (" : " (") + m + ")");
+  t.numeric.assign(t.headers.size(), true);
+  t.numeric[0] = false;
+  Wrench heads{};
+  for (std::size_t i = 0; i < b.piles.size() && i < p.piles.size(); ++i) {
+    const Wrench& w = b.piles[i];
     const auto& h = springs[i].head;
-    const Wrench w = {F[0], F[1], F[2], h[1] * F[2] - h[2] * F[1], h[2] * F[0] - h[0] * F[2],
-                      h[0] * F[1] - h[1] * F[0]};
-    for (int k = 0; k < 6; ++k) sum[k] += w[k];
     std::vector<std::string> row = {p.piles[i].id, s.length(h[0]), s.length(h[1]),
                                     s.force(cc.piles[i].axial)};
     for (int k = 0; k < 3; ++k) row.push_back(s.force(w[k]));
+    if (held)
+      for (int k = 3; k < 6; ++k) {
+        heads[k] += cc.solution.piles[i].head_forces[k];
+        row.push_back(s.moment(cc.solution.piles[i].head_forces[k]));
+      }
     for (int k = 3; k < 6; ++k) row.push_back(s.moment(w[k]));
     t.rows.push_back(row);
   }
-  const Wrench applied = combination_load(p, c);
-  Wrench residual{};
-  double largest = 0.0, off = 0.0;
-  for (int k = 0; k < 6; ++k) {
-    residual[k] = sum[k] - applied[k];
-    largest = std::max(largest, std::abs(applied[k]));
-    off = std::max(off, std::abs(residual[k]));
-  }
-  auto total_row = [&](const std::string& name, const Wrench& w) {
+  auto total_row = [&](const std::string& name, const Wrench& w, bool with_heads) {
     std::vector<std::string> row = {name, "", "", ""};
     for (int k = 0; k < 3; ++k) row.push_back(s.force(w[k]));
+    if (held)
+      for (int k = 3; k < 6; ++k) row.push_back(with_heads ? s.moment(heads[k]) : std::string());
     for (int k = 3; k < 6; ++k) row.push_back(s.moment(w[k]));
     t.rows.push_back(row);
   };
-  total_row("Σ piles", sum);
-  total_row("applied", applied);
-  total_row("residual", residual);
+  total_row("Σ piles", b.sum, true);
+  total_row("applied", b.applied, false);
+  total_row("residual", b.residual, false);
   html += render_table_html(t);
-  html += fmt::format("<p class=\"note\">Residual = Σ piles − applied; largest component "
-                      "{} of the largest applied component (forces and moments mixed in the "
-                      "project's units). The solver's own check, about its reference point: "
-                      "{:.1e}.</p>\n",
-                      largest > 0 ? fmt::format("{:.1e}", off / largest) : std::string("0"),
+  html += fmt::format("<p class=\"note\">Residual = Σ piles − applied; its largest component "
+                      "is {} of the largest applied component (moments divided by {} {}, the "
+                      "largest distance of a pile head from the origin, so that forces and "
+                      "moments compare in one unit). The solver's own check, about its "
+                      "reference point: {:.1e}.</p>\n",
+                      fmt::format("{:.1e}", b.relative), s.length(b.lever), l,
                       cc.solution.residual);
   return html;
 }
@@ -148,6 +159,29 @@ std::string general_equations(const CheckReport& r, const std::vector<PileSpring
                          s.force(active ? k.axial * along : 0.0), s.f(),
                          active ? "" : " (dropped out: no axial spring)",
                          s.force(cc.piles[pile].axial), s.f()));
+  if (k.bending.any()) {
+    // A head held against rotation: the bending terms of pile_head.hpp, with numbers.
+    const HeadBending& hb = k.bending;
+    html += eq("held head: F = k_a·(a·u)·a + k_l·(u − (a·u)·a) + K_lr·(a × r),   M = K_lr·(u × a) "
+               "+ K_rr·(r − (a·r)·a) + k_t·(a·r)·a");
+    html += eq(fmt::format("K_lr = {} {}/rad,   K_rr = {} {}/rad,   k_t = {} {}/rad", s.force(hb.coupling),
+                           s.f(), s.moment(hb.rotational), s.m(), s.moment(hb.torsional), s.m()));
+    const double uu[3] = {u[0], u[1], u[2]};
+    const double w[3] = {mv.rotation[0], mv.rotation[1], mv.rotation[2]};
+    double fb[3], mb[3];
+    head_bending_action<double>(k.axis, hb, uu, w, fb, mb);
+    std::array<double, 3> force{}, moment{};
+    const double axial = active ? k.axial : 0.0;
+    for (int j = 0; j < 3; ++j) {
+      force[j] = axial * along * k.axis[j] + k.lateral * (u[j] - along * k.axis[j]) + fb[j];
+      moment[j] = mb[j];
+    }
+    const Wrench& a = cc.solution.piles[pile].head_forces;
+    html += eq(fmt::format("F = {} {},   M = {} {}   (solver: {} {}, {} {})",
+                           s.vector(force, &Shown::force), s.f(), s.vector(moment, &Shown::moment), s.m(),
+                           s.vector({a[0], a[1], a[2]}, &Shown::force), s.f(),
+                           s.vector({a[3], a[4], a[5]}, &Shown::moment), s.m()));
+  }
   return html;
 }
 
@@ -187,12 +221,15 @@ std::string render_equilibrium_section_html(const CheckReport& r) {
   std::string html = "<section class=\"equilibrium\" id=\"equilibrium\">\n<h2>Equilibrium "
                      "and hand check</h2>\n";
   html += "<p>For the governing combinations (largest utilization, largest compression, "
-          "tension and lateral force, and any that overturns): the force each pile head takes "
-          "from the cap, F = K·u in global axes (N is the axial force, compression positive; "
-          "a battered pile's axial force has horizontal components), and its moment about the "
-          "origin, p × F. Their sum is set beside the resultant of the applied loads about "
-          "the origin; the residual, Σ piles − applied, should read 0. Pinned heads: the piles return forces only; the head moments of "
-          "fixed-head piles are checked with the pile and are not part of this sum.</p>\n";
+          "tension and lateral force, and any that overturns): the action of the cap on each "
+          "pile head as the solver returns it, in global axes — the force F (N is the axial "
+          "force, compression positive, so a compression pile has Fz &lt; 0; a battered "
+          "pile's axial force has horizontal components) and, for fixed and partially fixed "
+          "heads, the head moment M (zero for a pinned head) — and its moment about the "
+          "origin, p × F + M. The pile's reaction on the cap is the opposite, so the cap is "
+          "in equilibrium when these actions add up to the resultant of the applied loads "
+          "about the origin (load heights and the cap's self-weight included), which is set "
+          "beside their sum; the residual, Σ piles − applied, should read 0.</p>\n";
   const auto chosen = governing_combinations(*r.results);
   for (std::size_t index : chosen) html += balance_table(r, springs, index);
 
@@ -216,9 +253,16 @@ std::string render_equilibrium_section_html(const CheckReport& r) {
       CheckReport one = r;
       one.explain_pile = pile;
       one.hand_checks = {*h};
+      const bool heads = h->heads_moment_x != 0.0 || h->heads_moment_y != 0.0;
       html += "<p>All active piles are vertical with equal axial springs: the closed form "
               "applies (as <code>cairn check --explain " +
-              html_escape(p.piles[pile].id) + "</code> prints it).</p>\n<pre>" +
+              html_escape(p.piles[pile].id) + "</code> prints it)." +
+              (heads ? std::string(" The heads are held against rotation: the moments the cap "
+                                   "puts on them (Σ of the head Mx, My in the table above) "
+                                   "take part of the applied moments, and the axial forces "
+                                   "carry the rest.")
+                     : std::string()) +
+              "</p>\n<pre>" +
               html_escape(hand_check_text(one)) + "</pre>\n";
     } else {
       html += "<p>No one-line formula applies here" +

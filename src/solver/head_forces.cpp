@@ -1,5 +1,8 @@
 #include "cairn/solver/head_forces.hpp"
 
+#include <algorithm>
+#include <cmath>
+#include <limits>
 #include <stdexcept>
 
 namespace cairn {
@@ -13,22 +16,39 @@ std::array<double, 3> head_displacement(const PileSpring& s, const CapMovement& 
           t[2] + r[0] * d[1] - r[1] * d[0]};
 }
 
-std::vector<std::array<double, 3>> pile_head_forces(const std::vector<PileSpring>& springs,
-                                                    const CapSolution& solution) {
-  std::vector<std::array<double, 3>> forces(springs.size(), std::array<double, 3>{});
-  if (solution.overturns) return forces;
-  if (solution.piles.size() != springs.size())
-    throw std::logic_error("pile_head_forces: one force per spring expected");
-  for (std::size_t i = 0; i < springs.size(); ++i) {
-    const PileSpring& s = springs[i];
-    const auto u = head_displacement(s, solution.movement);
-    const auto& a = s.axis;
-    const double along = a[0] * u[0] + a[1] * u[1] + a[2] * u[2];
-    const double axial = solution.piles[i].active ? s.axial : 0.0;
-    for (int k = 0; k < 3; ++k)
-      forces[i][k] = axial * along * a[k] + s.lateral * (u[k] - along * a[k]);
+HeadBalance head_balance(const std::vector<PileSpring>& springs, const CapSolution& solution,
+                         const Wrench& applied, const std::array<double, 3>& point) {
+  HeadBalance b;
+  b.applied = applied;
+  b.piles.assign(springs.size(), Wrench{});
+  double lever = 0.0;
+  for (const auto& s : springs)
+    lever = std::max(lever, std::hypot(s.head[0] - point[0], s.head[1] - point[1],
+                                       s.head[2] - point[2]));
+  if (lever > 0.0) b.lever = lever;
+  if (!solution.overturns) {
+    if (solution.piles.size() != springs.size())
+      throw std::logic_error("head_balance: one pile force per spring expected");
+    for (std::size_t i = 0; i < springs.size(); ++i) {
+      const Wrench& a = solution.piles[i].head_forces;
+      const std::array<double, 3> d = {springs[i].head[0] - point[0],
+                                       springs[i].head[1] - point[1],
+                                       springs[i].head[2] - point[2]};
+      const Wrench w = {a[0], a[1], a[2], d[1] * a[2] - d[2] * a[1] + a[3],
+                        d[2] * a[0] - d[0] * a[2] + a[4], d[0] * a[1] - d[1] * a[0] + a[5]};
+      b.piles[i] = w;
+      for (int k = 0; k < 6; ++k) b.sum[k] += w[k];
+    }
   }
-  return forces;
+  double largest = 0.0, off = 0.0;
+  for (int k = 0; k < 6; ++k) {
+    b.residual[k] = b.sum[k] - applied[k];
+    const double scale = k < 3 ? 1.0 : 1.0 / b.lever;
+    largest = std::max(largest, std::abs(applied[k]) * scale);
+    off = std::max(off, std::abs(b.residual[k]) * scale);
+  }
+  b.relative = largest > 0.0 ? off / largest : (off == 0.0 ? 0.0 : std::numeric_limits<double>::infinity());
+  return b;
 }
 
 }  // namespace cairn

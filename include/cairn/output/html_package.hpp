@@ -34,9 +34,10 @@ std::string render_group_section_html(const CheckReport& report);
 // force's over all piles, and every overturned one.
 std::vector<std::size_t> governing_combinations(const CheckResults& results);
 
-// For the governing combinations, the forces on the pile heads (global axes, battered
-// piles' horizontal components included) and their moments about the origin, summed beside
-// the applied resultant (combination_load) with the residual; then the hand check of the
+// For the governing combinations, the solver's actions of the cap on the pile heads (global
+// axes, battered piles' horizontal components included; head moments of fixed and partially
+// fixed heads in columns of their own) and their moments about the origin, p × F + M, summed
+// beside the applied resultant (combination_load) with the residual (head_forces.hpp); then the hand check of the
 // governing pile: the closed form of explain.hpp where it is exact, else the rigid cap's
 // general 6-DOF equations with the numbers substituted. Empty when nothing was checked.
 std::string render_equilibrium_section_html(const CheckReport& report);

@@ -34,25 +34,24 @@
 namespace cairn {
 namespace {
 
-const char* format_name(Format f) {
-  switch (f) {
-    case Format::text: return "text";
-    case Format::csv: return "csv";
-    case Format::markdown: return "markdown";
-    case Format::json: return "json";
-  }
-  return "text";
+// The words of --format and --detail, in the order of their enums (report.hpp).
+const std::vector<std::string> kFormats = {"text", "csv", "markdown", "json"};
+const std::vector<std::string> kDetails = {"full", "envelope", "governing", "summary"};
+
+const char* format_name(Format f) { return kFormats[static_cast<std::size_t>(f)].c_str(); }
+
+// The value of the word CLI11 has checked to be one of `words`.
+template <class E>
+E chosen(const std::vector<std::string>& words, const std::string& word) {
+  return static_cast<E>(std::find(words.begin(), words.end(), word) - words.begin());
 }
+
+const char* command_name(Command command);  // from the table of subcommands below
 
 std::string describe_options(const Options& o) {
   if (!o.command_line.empty()) return o.command_line;
-  const char* name = o.command == Command::check      ? "check"
-                     : o.command == Command::capacity ? "capacity"
-                     : o.command == Command::report   ? "report"
-                     : o.command == Command::design   ? "design"
-                     : o.command == Command::springs  ? "springs"
-                                                      : site_command_name(o.command);
-  std::string text = fmt::format("cairn {} --format {}", name, format_name(o.format));
+  std::string text =
+      fmt::format("cairn {} --format {}", command_name(o.command), format_name(o.format));
   if (o.depth_step) text += fmt::format(" --step {:g}", *o.depth_step);
   if (o.min_length) text += fmt::format(" --from {:g}", *o.min_length);
   if (o.need_compression) text += fmt::format(" --need-compression {:g}", *o.need_compression);
@@ -88,6 +87,30 @@ std::string command_line_text(int argc, const char* const* argv) {
   return text;
 }
 
+// Progress on stderr, only when it is a terminal and once the run has taken more than a
+// second: "cairn: 120 of 500 caps checked", rewritten in place; clear() wipes the line.
+class Progress {
+ public:
+  Progress(std::ostream& err, const char* what) : err_(err), what_(what) {}
+  std::function<void(std::size_t, std::size_t)> callback() {
+    return [this](std::size_t done, std::size_t total) {
+      if (!terminal_ || std::chrono::steady_clock::now() - start_ < std::chrono::seconds(1)) return;
+      err_ << "\rcairn: " << done << " of " << total << " " << what_ << " checked" << std::flush;
+      shown_ = true;
+    };
+  }
+  void clear() {
+    if (shown_) err_ << "\r\033[K" << std::flush;
+  }
+
+ private:
+  std::ostream& err_;
+  const char* what_;
+  const bool terminal_ = isatty(STDERR_FILENO) != 0;
+  const std::chrono::steady_clock::time_point start_ = std::chrono::steady_clock::now();
+  bool shown_ = false;
+};
+
 // Every cap of the files given (foundation files expanded), analysed on all cores. Input
 // problems in any cap stop the run before anything is written.
 // Progress goes to stderr only when it is a terminal, and only once a run has taken more
@@ -98,17 +121,10 @@ std::vector<CapOutcome> analyse_all(const std::vector<std::string>& given,
   std::vector<std::string> files;
   for (const auto& f : given)
     for (const auto& cap : expand_foundation(f)) files.push_back(cap);
-  const bool terminal = isatty(STDERR_FILENO) != 0;
-  const auto start = std::chrono::steady_clock::now();
-  bool shown = false;
-  auto progress = [&](std::size_t done, std::size_t total) {
-    if (!terminal || std::chrono::steady_clock::now() - start < std::chrono::seconds(1)) return;
-    err << "\rcairn: " << done << " of " << total << " caps checked" << std::flush;
-    shown = true;
-  };
+  Progress progress(err, "caps");
   auto outcomes = analyse_projects(files, std::max(1u, std::thread::hardware_concurrency()),
-                                   options, progress, reduce);
-  if (shown) err << "\r\033[K" << std::flush;
+                                   options, progress.callback(), reduce);
+  progress.clear();
   std::vector<Diagnostic> problems;
   for (const auto& o : outcomes) problems.insert(problems.end(), o.problems.begin(), o.problems.end());
   if (!problems.empty()) throw InputError(problems);
@@ -210,17 +226,11 @@ int run_check(const Options& options, std::ostream& out, std::ostream& err) {
   if (caps.size() != 1 || caps.front() != options.files.front()) return run_batch(options, out, err);
   // Below full detail no pile rows are kept (the hand check of --explain needs them).
   // Progress as for many caps: on a terminal only, after a second.
-  const bool terminal = isatty(STDERR_FILENO) != 0;
-  const auto start = std::chrono::steady_clock::now();
-  bool shown = false;
-  auto progress = [&](std::size_t done, std::size_t total) {
-    if (!terminal || std::chrono::steady_clock::now() - start < std::chrono::seconds(1)) return;
-    err << "\rcairn: " << done << " of " << total << " combinations checked" << std::flush;
-    shown = true;
-  };
-  const CheckRun run = analyse_project(
-      options.files.front(), options.detail == Detail::full || options.explain_pile, progress);
-  if (shown) err << "\r\033[K" << std::flush;
+  Progress progress(err, "combinations");
+  const CheckRun run =
+      analyse_project(options.files.front(), options.detail == Detail::full || options.explain_pile,
+                      progress.callback());
+  progress.clear();
   print_warnings(run.project, err);
   CheckReport report = make_check_report(run, describe_options(options), options.explain_pile);
   report.detail = options.detail;
@@ -343,23 +353,200 @@ int run_springs(const Options& options, std::ostream& out, std::ostream& err) {
   return kExitPass;
 }
 
+// What the command line fills in before it becomes Options: the options themselves, and the
+// choices given as words.
+struct CommandLine {
+  Options options;
+  std::string format = "text";
+  std::string detail = "full";
+  std::string need_basis = "allowable";
+};
+
+// The project file(s) and --format, which every command but report takes.
+void add_files_and_format(CLI::App* command, CommandLine& line, const std::string& name,
+                          const std::string& files_help) {
+  command->add_option(name, line.options.files, files_help)->required();
+  std::string names;
+  for (std::size_t i = 0; i < kFormats.size(); ++i)
+    names += (i == 0 ? "" : i + 1 == kFormats.size() ? " or " : ", ") + kFormats[i];
+  command->add_option("--format", line.format, "Output format: " + names)
+      ->check(CLI::IsMember(kFormats));
+}
+
+// check, report and the site studies: the as-built re-check of a survey (site/as_built.hpp).
+void add_as_built(CLI::App* command, CommandLine& line) {
+  command->add_option("--as-built", line.options.as_built,
+                      "Re-check the cap as installed, from the pile survey SURVEY.csv");
+  command->add_option("--plan-tolerance", line.options.plan_tolerance,
+                      "With --as-built: plan position tolerance in mm (SI) or in (US); "
+                      "default 75 mm or 3 in (common practice)");
+  command->add_option("--batter-tolerance", line.options.batter_tolerance,
+                      "With --as-built: batter tolerance 1 in N; default 50 (common practice)");
+}
+
+// The site studies (site/studies.hpp) end with --as-built and --out.
+void add_study_options(CLI::App* command, CommandLine& line) {
+  add_as_built(command, line);
+  command->add_option("--out", line.options.out_dir,
+                      "Also write the result and its plan (SVG) into DIR");
+}
+
+void check_options(CLI::App* check, CommandLine& line) {
+  check->add_option("--out", line.options.out_dir,
+                    "Also write report.txt, report.md, results.json and CSV tables (summary.csv, "
+                    "envelope.csv, results.csv: one row per combination and pile) into DIR");
+  check
+      ->add_option("--detail", line.detail,
+                   "How much to show: full (every pile in every combination, default), envelope "
+                   "(per pile over all combinations), governing (per pile and check, the "
+                   "governing combination) or summary (the verdict and the summary row)")
+      ->check(CLI::IsMember(kDetails));
+  check->add_option("--explain", line.options.explain_pile,
+                    "Show the hand check (section properties, substituted formula) for PILE");
+  add_as_built(check, line);
+}
+
+void capacity_options(CLI::App* capacity, CommandLine& line) {
+  capacity->add_option("--step", line.options.depth_step,
+                       "Length step of the capacity-with-depth table, in the project's length "
+                       "unit (default 0.5 m or 1 ft)");
+  capacity->add_option("--from", line.options.min_length,
+                       "Shortest pile length in the table (default 3 m or 10 ft)");
+  capacity->add_option("--need-compression", line.options.need_compression,
+                       "Find the shortest length carrying this compression, in the project's "
+                       "force unit");
+  capacity->add_option("--need-tension", line.options.need_tension,
+                       "Find the shortest length carrying this tension, in the project's force "
+                       "unit");
+  capacity
+      ->add_option("--need-basis", line.need_basis,
+                   "Basis of --need-compression/--need-tension: allowable (service loads, "
+                   "default) or factored (strength loads)")
+      ->check(CLI::IsMember({"allowable", "factored"}));
+}
+
+void report_options(CLI::App* report, CommandLine& line) {
+  report->add_option("files", line.options.files, "Project files or a foundation file")->required();
+  report->add_option("--out", line.options.out_dir, "Folder for the report files")->required();
+  report->add_flag("--svg", line.options.plan_svg, "Also write the cap plan alone as SVG");
+  report->add_flag("--tables", line.options.tables,
+                   "Also write the tables as CSV and Markdown (report.md, *.csv per cap)");
+  add_as_built(report, line);
+}
+
+void pile_loss_options(CLI::App* pile_loss, CommandLine& line) {
+  pile_loss->add_flag("--pairs", line.options.pairs, "Also remove every pair of piles");
+}
+
+void add_pile_options(CLI::App* add_pile, CommandLine& line) {
+  add_pile->add_option("--type", line.options.added_type, "Pile type of the added pile")
+      ->required();
+  add_pile->add_option("--step", line.options.grid_step,
+                       "Grid step in mm (SI) or in (US); default 50 mm or 2 in");
+  add_pile->add_option("--most", line.options.most_added, "Most piles to add: 1 or 2 (default 2)");
+  add_pile->add_option("--lose", line.options.lose, "Take this pile out first (may repeat)");
+}
+
+void tolerance_options(CLI::App* tolerance, CommandLine& line) {
+  tolerance->add_option("--trials", line.options.trials, "Number of random trials (default 10000)");
+  tolerance->add_option("--seed", line.options.seed, "Seed of the random trials (default 1)");
+  tolerance->add_flag("--normal", line.options.normal,
+                      "Normal offsets with the tolerance as two standard deviations (default: "
+                      "uniform over the tolerance circle)");
+}
+
+void safe_region_options(CLI::App* safe_region, CommandLine& line) {
+  safe_region->add_option("--rays", line.options.rays,
+                          "Rays traced where piles may drop out (default 72; 0: linear only)");
+}
+
+void diff_options(CLI::App* diff, CommandLine& line) {
+  diff->add_option("--out", line.options.out_dir, "Also write diff.md and diff.json into DIR");
+}
+
+void design_options(CLI::App* design, CommandLine& line) {
+  design->add_option("--write", line.options.write_file,
+                     "Write the chosen layout as a complete project file BEST.yaml");
+}
+
+// A site command, which also takes the command line as described for its report headers.
+template <int (*Run)(const Options&, const std::string&, std::ostream&, std::ostream&)>
+int with_description(const Options& options, std::ostream& out, std::ostream& err) {
+  return Run(options, describe_options(options), out, err);
+}
+
+// One subcommand: its name and description (as --help shows them, in this order), how its
+// options are added (the file argument and --format first unless `files` is null, then its
+// own, then those of a site study), and what runs it.
+struct Subcommand {
+  Command command;
+  const char* name;
+  const char* description;
+  const char* files;
+  const char* files_help;
+  void (*add_options)(CLI::App*, CommandLine&);
+  bool site_study;
+  int (*run)(const Options&, std::ostream&, std::ostream&);
+};
+
+const char* const kOneFile = "Project file (YAML)";
+
+const Subcommand kSubcommands[] = {
+    {Command::check, "check",
+     "Share the cap's loads among the piles and check each pile in every combination", "files",
+     "Project file (YAML); several files, or a foundation file listing caps, check every cap and "
+     "print one summary table",
+     check_options, false, run_check},
+    {Command::capacity, "capacity",
+     "Compute each pile type's capacity from the soil profile, layer by layer and with depth",
+     "file", kOneFile, capacity_options, false, run_capacity},
+    {Command::springs, "springs",
+     "Write each pile's head springs (axial and lateral stiffness) for the global structural "
+     "model",
+     "file", kOneFile, nullptr, false, run_springs},
+    {Command::report, "report",
+     "Write the calculation package: a self-contained HTML report per cap, for a checking "
+     "engineer",
+     nullptr, nullptr, report_options, false, run_report},
+    {Command::pile_loss, "pile-loss",
+     "Remove each pile in turn (or each pair) and report the cap's largest utilization", "file",
+     kOneFile, pile_loss_options, true, with_description<run_pile_loss>},
+    {Command::add_pile, "add-pile",
+     "Search the cap outline for one (then two) added piles that make every combination pass",
+     "file", kOneFile, add_pile_options, true, with_description<run_add_pile>},
+    {Command::tolerance, "tolerance",
+     "Random installation offsets within the plan tolerance: the distribution of the cap's "
+     "largest utilization",
+     "file", kOneFile, tolerance_options, true, with_description<run_tolerance>},
+    {Command::safe_region, "safe-region",
+     "Where each combination's vertical load may stand in plan with every pile passing, and "
+     "the smallest margin",
+     "file", kOneFile, safe_region_options, true, with_description<run_safe_region>},
+    {Command::diff, "diff",
+     "Compare two revisions of a cap: piles, inputs, forces and utilizations", "files",
+     "OLD and NEW project files (YAML)", diff_options, false, with_description<run_diff>},
+    {Command::design, "design",
+     "Search pile layouts and lengths for the cheapest that passes every check", "file",
+     "Project file (YAML) with a design: section", design_options, false, run_design},
+};
+
+const Subcommand* find_subcommand(Command command) {
+  for (const Subcommand& s : kSubcommands)
+    if (s.command == command) return &s;
+  return nullptr;
+}
+
+const char* command_name(Command command) {
+  const Subcommand* s = find_subcommand(command);
+  return s ? s->name : "check";
+}
+
 }  // namespace
 
 int run(const Options& options, std::ostream& out, std::ostream& err) {
   try {
-    switch (options.command) {
-      case Command::check: return run_check(options, out, err);
-      case Command::capacity: return run_capacity(options, out, err);
-      case Command::springs: return run_springs(options, out, err);
-      case Command::report: return run_report(options, out, err);
-      case Command::pile_loss: return run_pile_loss(options, describe_options(options), out, err);
-      case Command::add_pile: return run_add_pile(options, describe_options(options), out, err);
-      case Command::tolerance: return run_tolerance(options, describe_options(options), out, err);
-      case Command::safe_region: return run_safe_region(options, describe_options(options), out, err);
-      case Command::diff: return run_diff(options, describe_options(options), out, err);
-      case Command::design: return run_design(options, out, err);
-    }
-    return kExitBadInput;
+    const Subcommand* s = find_subcommand(options.command);
+    return s ? s->run(options, out, err) : kExitBadInput;
   } catch (const InputError& e) {
     for (const auto& d : e.diagnostics()) err << "cairn: " << d.format() << "\n";
     return kExitBadInput;
@@ -384,132 +571,21 @@ int run_command_line(int argc, const char* const* argv, std::ostream& out, std::
                "licensed practice govern."};
   app.set_version_flag("--version", std::string("cairn ") + CAIRN_VERSION);
   app.require_subcommand(1);
-  Options options;
-  std::string format = "text";
-  const std::vector<std::string> formats = {"text", "csv", "markdown", "json"};
-
-  // The project file(s) and --format, which every command takes.
-  auto add_files_and_format = [&](CLI::App* command, const std::string& name,
-                                  const std::string& files_help,
-                                  const std::vector<std::string>& allowed) {
-    command->add_option(name, options.files, files_help)->required();
-    std::string names;
-    for (std::size_t i = 0; i < allowed.size(); ++i)
-      names += (i == 0 ? "" : i + 1 == allowed.size() ? " or " : ", ") + allowed[i];
-    command->add_option("--format", format, "Output format: " + names)
-        ->check(CLI::IsMember(allowed));
-  };
-
-  CLI::App* check = app.add_subcommand(
-      "check", "Share the cap's loads among the piles and check each pile in every combination");
-  add_files_and_format(check, "files",
-                       "Project file (YAML); several files, or a foundation file listing caps, "
-                       "check every cap and print one summary table",
-                       formats);
-  check->add_option("--out", options.out_dir,
-                    "Also write report.txt, report.md, results.json and CSV tables (summary.csv, "
-                    "envelope.csv, results.csv: one row per combination and pile) into DIR");
-  std::string detail = "full";
-  check->add_option("--detail", detail,
-                    "How much to show: full (every pile in every combination, default), envelope "
-                    "(per pile over all combinations), governing (per pile and check, the "
-                    "governing combination) or summary (the verdict and the summary row)")
-      ->check(CLI::IsMember({"full", "envelope", "governing", "summary"}));
-  check->add_option("--explain", options.explain_pile,
-                    "Show the hand check (section properties, substituted formula) for PILE");
-  // check and report: the as-built re-check of a survey (site/as_built.hpp).
-  auto add_as_built = [&](CLI::App* command) {
-    command->add_option("--as-built", options.as_built,
-                        "Re-check the cap as installed, from the pile survey SURVEY.csv");
-    command->add_option("--plan-tolerance", options.plan_tolerance,
-                        "With --as-built: plan position tolerance in mm (SI) or in (US); "
-                        "default 75 mm or 3 in (common practice)");
-    command->add_option("--batter-tolerance", options.batter_tolerance,
-                        "With --as-built: batter tolerance 1 in N; default 50 (common practice)");
-  };
-  add_as_built(check);
-  CLI::App* capacity = app.add_subcommand(
-      "capacity", "Compute each pile type's capacity from the soil profile, layer by layer and "
-                  "with depth");
-  add_files_and_format(capacity, "file", "Project file (YAML)", {"text", "csv", "markdown", "json"});
-  capacity->add_option("--step", options.depth_step,
-                       "Length step of the capacity-with-depth table, in the project's length "
-                       "unit (default 0.5 m or 1 ft)");
-  capacity->add_option("--from", options.min_length,
-                       "Shortest pile length in the table (default 3 m or 10 ft)");
-  capacity->add_option("--need-compression", options.need_compression,
-                       "Find the shortest length carrying this compression, in the project's "
-                       "force unit");
-  capacity->add_option("--need-tension", options.need_tension,
-                       "Find the shortest length carrying this tension, in the project's force "
-                       "unit");
-  std::string need_basis = "allowable";
-  capacity->add_option("--need-basis", need_basis,
-                       "Basis of --need-compression/--need-tension: allowable (service loads, "
-                       "default) or factored (strength loads)")
-      ->check(CLI::IsMember({"allowable", "factored"}));
-  CLI::App* springs = app.add_subcommand(
-      "springs", "Write each pile's head springs (axial and lateral stiffness) for the global "
-                 "structural model");
-  add_files_and_format(springs, "file", "Project file (YAML)", formats);
-  CLI::App* report = app.add_subcommand(
-      "report", "Write the calculation package: a self-contained HTML report per cap, for a "
-                "checking engineer");
-  report->add_option("files", options.files, "Project files or a foundation file")->required();
-  report->add_option("--out", options.out_dir, "Folder for the report files")->required();
-  report->add_flag("--svg", options.plan_svg, "Also write the cap plan alone as SVG");
-  report->add_flag("--tables", options.tables,
-                   "Also write the tables as CSV and Markdown (report.md, *.csv per cap)");
-  add_as_built(report);
-  // The site studies (site/studies.hpp).
-  CLI::App* pile_loss = app.add_subcommand(
-      "pile-loss", "Remove each pile in turn (or each pair) and report the cap's largest "
-                   "utilization");
-  add_files_and_format(pile_loss, "file", "Project file (YAML)", formats);
-  pile_loss->add_flag("--pairs", options.pairs, "Also remove every pair of piles");
-  CLI::App* add_pile = app.add_subcommand(
-      "add-pile", "Search the cap outline for one (then two) added piles that make every "
-                  "combination pass");
-  add_files_and_format(add_pile, "file", "Project file (YAML)", formats);
-  add_pile->add_option("--type", options.added_type, "Pile type of the added pile")->required();
-  add_pile->add_option("--step", options.grid_step,
-                       "Grid step in mm (SI) or in (US); default 50 mm or 2 in");
-  add_pile->add_option("--most", options.most_added, "Most piles to add: 1 or 2 (default 2)");
-  add_pile->add_option("--lose", options.lose, "Take this pile out first (may repeat)");
-  CLI::App* tolerance = app.add_subcommand(
-      "tolerance", "Random installation offsets within the plan tolerance: the distribution of "
-                   "the cap's largest utilization");
-  add_files_and_format(tolerance, "file", "Project file (YAML)", formats);
-  tolerance->add_option("--trials", options.trials, "Number of random trials (default 10000)");
-  tolerance->add_option("--seed", options.seed, "Seed of the random trials (default 1)");
-  tolerance->add_flag("--normal", options.normal,
-                      "Normal offsets with the tolerance as two standard deviations (default: "
-                      "uniform over the tolerance circle)");
-  CLI::App* safe_region = app.add_subcommand(
-      "safe-region", "Where each combination's vertical load may stand in plan with every pile "
-                     "passing, and the smallest margin");
-  add_files_and_format(safe_region, "file", "Project file (YAML)", formats);
-  safe_region->add_option("--rays", options.rays,
-                          "Rays traced where piles may drop out (default 72; 0: linear only)");
-  CLI::App* diff = app.add_subcommand(
-      "diff", "Compare two revisions of a cap: piles, inputs, forces and utilizations");
-  add_files_and_format(diff, "files", "OLD and NEW project files (YAML)", formats);
-  diff->add_option("--out", options.out_dir, "Also write diff.md and diff.json into DIR");
-  for (CLI::App* command : {pile_loss, add_pile, tolerance, safe_region}) {
-    add_as_built(command);
-    command->add_option("--out", options.out_dir, "Also write the result and its plan (SVG) into DIR");
+  CommandLine line;
+  Options& options = line.options;
+  std::vector<std::pair<const Subcommand*, CLI::App*>> commands;
+  for (const Subcommand& s : kSubcommands) {
+    CLI::App* command = app.add_subcommand(s.name, s.description);
+    if (s.files) add_files_and_format(command, line, s.files, s.files_help);
+    if (s.add_options) s.add_options(command, line);
+    if (s.site_study) add_study_options(command, line);
+    commands.push_back({&s, command});
   }
-  CLI::App* design = app.add_subcommand(
-      "design", "Search pile layouts and lengths for the cheapest that passes every check");
-  add_files_and_format(design, "file", "Project file (YAML) with a design: section", formats);
-  design->add_option("--write", options.write_file,
-                     "Write the chosen layout as a complete project file BEST.yaml");
   // CLI11 takes an unknown command for a stray argument ("A subcommand is required");
   // name it and suggest the nearest command instead.
   if (argc > 1 && argv[1][0] != '-') {
     std::vector<std::string> names;
-    for (const CLI::App* command : {check, capacity, springs, report, pile_loss, add_pile, tolerance, safe_region, diff, design})
-      names.push_back(command->get_name());
+    for (const Subcommand& s : kSubcommands) names.push_back(s.name);
     const std::string given = argv[1];
     if (std::find(names.begin(), names.end(), given) == names.end()) {
       const std::string near = closest_match(given, names);
@@ -537,23 +613,11 @@ int run_command_line(int argc, const char* const* argv, std::ostream& out, std::
     return kExitBadInput;
   }
   options.command_line = command_line_text(argc, argv);
-  if (format == "csv") options.format = Format::csv;
-  else if (format == "markdown") options.format = Format::markdown;
-  else if (format == "json") options.format = Format::json;
-  if (check->parsed()) options.command = Command::check;
-  if (detail == "envelope") options.detail = Detail::envelope;
-  else if (detail == "governing") options.detail = Detail::governing;
-  else if (detail == "summary") options.detail = Detail::summary;
-  if (capacity->parsed()) options.command = Command::capacity;
-  if (need_basis == "factored") options.need_basis = CapacityBasis::factored;
-  if (springs->parsed()) options.command = Command::springs;
-  if (report->parsed()) options.command = Command::report;
-  if (pile_loss->parsed()) options.command = Command::pile_loss;
-  if (add_pile->parsed()) options.command = Command::add_pile;
-  if (tolerance->parsed()) options.command = Command::tolerance;
-  if (safe_region->parsed()) options.command = Command::safe_region;
-  if (diff->parsed()) options.command = Command::diff;
-  if (design->parsed()) options.command = Command::design;
+  options.format = chosen<Format>(kFormats, line.format);
+  options.detail = chosen<Detail>(kDetails, line.detail);
+  if (line.need_basis == "factored") options.need_basis = CapacityBasis::factored;
+  for (const auto& [s, command] : commands)
+    if (command->parsed()) options.command = s->command;
   return run(options, out, err);
 }
 

@@ -19,17 +19,6 @@
 
 namespace cairn {
 
-const char* site_command_name(Command command) {
-  switch (command) {
-    case Command::add_pile: return "add-pile";
-    case Command::pile_loss: return "pile-loss";
-    case Command::tolerance: return "tolerance";
-    case Command::safe_region: return "safe-region";
-    case Command::diff: return "diff";
-    default: return "check";
-  }
-}
-
 AsBuiltReport AsBuiltRun::report(const std::string& options) const {
   AsBuiltReport r;
   r.model = &model;
@@ -118,41 +107,45 @@ int run_as_built_check(const Options& options, const std::string& described, std
 namespace cairn {
 namespace {
 
-const CheckRun& single_run(const Options& options, std::unique_ptr<AsBuiltRun>& site,
-                           std::optional<CheckRun>& design, std::ostream& err,
-                           const char* command) {
-  if (options.files.size() != 1)
-    throw InputError({}, fmt::format("{}: expected one project file", command));
-  design = analyse_project(options.files.front());
-  for (const auto& w : design->project.warnings) err << "cairn: " << format_warning(w) << "\n";
-  if (!options.as_built) return *design;
-  site = as_built_run(*design, *options.as_built, options);
-  return site->as_built;
-}
+// The one cap of a site study: its design run and, with --as-built, the as-built run, which
+// the study then works on. Built in place, so that the runs never move.
+struct StudyCap {
+  std::optional<CheckRun> design;
+  std::unique_ptr<AsBuiltRun> site;
+  StudyCap(const Options& options, std::ostream& err, const char* command) {
+    if (options.files.size() != 1)
+      throw InputError({}, fmt::format("{}: expected one project file", command));
+    design = analyse_project(options.files.front());
+    for (const auto& w : design->project.warnings) err << "cairn: " << format_warning(w) << "\n";
+    if (options.as_built) site = as_built_run(*design, *options.as_built, options);
+  }
+  const CheckRun& run() const { return site ? site->as_built : *design; }
+};
 
-void write_outputs(const Options& options, const std::string& name, const std::string& rendered,
-                   const std::string& svg) {
-  if (!options.out_dir) return;
-  const char* ext = options.format == Format::json       ? ".json"
-                    : options.format == Format::csv      ? ".csv"
-                    : options.format == Format::markdown ? ".md"
-                                                         : ".txt";
-  write_files_atomically(*options.out_dir, {{name + ext, rendered}, {name + ".svg", svg}});
+// The files under --out (all or none), then the result on `out`.
+void show_outputs(const Options& options, const std::string& name, const std::string& rendered,
+                  const std::string& svg, std::ostream& out) {
+  if (options.out_dir) {
+    const char* ext = options.format == Format::json       ? ".json"
+                      : options.format == Format::csv      ? ".csv"
+                      : options.format == Format::markdown ? ".md"
+                                                           : ".txt";
+    write_files_atomically(*options.out_dir, {{name + ext, rendered}, {name + ".svg", svg}});
+  }
+  out << rendered;
 }
 
 }  // namespace
 
 int run_pile_loss(const Options& options, const std::string& described, std::ostream& out,
                   std::ostream& err) {
-  std::unique_ptr<AsBuiltRun> site;
-  std::optional<CheckRun> design;
-  const CheckRun& run = single_run(options, site, design, err, "pile-loss");
+  const StudyCap cap(options, err, "pile-loss");
+  const CheckRun& run = cap.run();
   const FastGroup group(run);
   const LossStudy study = each_pile_lost(group, options.pairs);
   const SiteStudyHeader header{&run.project, described};
   const std::string rendered = render_pile_loss(header, study, options.format);
-  write_outputs(options, "pile-loss", rendered, render_pile_loss_svg(run.project, study));
-  out << rendered;
+  show_outputs(options, "pile-loss", rendered, render_pile_loss_svg(run.project, study), out);
   for (const auto& c : study.single)
     if (c.outcome.max_utilization > 1.0) return kExitFail;
   return kExitPass;
@@ -160,9 +153,8 @@ int run_pile_loss(const Options& options, const std::string& described, std::ost
 
 int run_add_pile(const Options& options, const std::string& described, std::ostream& out,
                  std::ostream& err) {
-  std::unique_ptr<AsBuiltRun> site;
-  std::optional<CheckRun> design;
-  const CheckRun& run = single_run(options, site, design, err, "add-pile");
+  const StudyCap cap(options, err, "add-pile");
+  const CheckRun& run = cap.run();
   const Project& p = run.project;
   const UnitSystem u = p.units;
   if (!p.cap.outline)
@@ -210,10 +202,10 @@ int run_add_pile(const Options& options, const std::string& described, std::ostr
     s.in_ground.push_back({pile.x, pile.y, p.pile_types[pile.type].section.width});
     if (!keep[i]) s.lost.push_back({pile.x, pile.y});
   }
-  if (site)
-    for (const AsBuiltPile& a : site->model.piles) {
+  if (cap.site)
+    for (const AsBuiltPile& a : cap.site->model.piles) {
       if (!a.as_built)
-        s.in_ground.push_back({a.x, a.y, site->design.project.pile_types[a.type].section.width});
+        s.in_ground.push_back({a.x, a.y, cap.site->design.project.pile_types[a.type].section.width});
       if (!a.as_built || a.status == PileStatus::damaged) s.lost.push_back({a.x, a.y});
     }
   const FastGroup group(run);
@@ -223,16 +215,14 @@ int run_add_pile(const Options& options, const std::string& described, std::ostr
     if (keep[i]) standing.push_back(p.piles[i].id);
   const SiteStudyHeader header{&p, described};
   const std::string rendered = render_added_piles(header, result, standing, options.format);
-  write_outputs(options, "add-pile", rendered, render_added_piles_svg(p, result, keep));
-  out << rendered;
+  show_outputs(options, "add-pile", rendered, render_added_piles_svg(p, result, keep), out);
   return !result.best.empty() && result.best.front().pass() ? kExitPass : kExitFail;
 }
 
 int run_tolerance(const Options& options, const std::string& described, std::ostream& out,
                   std::ostream& err) {
-  std::unique_ptr<AsBuiltRun> site;
-  std::optional<CheckRun> design;
-  const CheckRun& run = single_run(options, site, design, err, "tolerance");
+  const StudyCap cap(options, err, "tolerance");
+  const CheckRun& run = cap.run();
   const UnitSystem u = run.project.units;
   ToleranceSettings s;
   s.plan = default_tolerances(u).plan;
@@ -259,23 +249,20 @@ int run_tolerance(const Options& options, const std::string& described, std::ost
   const ToleranceStudy study = tolerance_study(group, s);
   const SiteStudyHeader header{&run.project, described};
   const std::string rendered = render_tolerance(header, s, study, options.format);
-  write_outputs(options, "tolerance", rendered, render_plan_svg(run.project, &run.results, &run.resistances));
-  out << rendered;
+  show_outputs(options, "tolerance", rendered, render_plan_svg(run.project, &run.results, &run.resistances), out);
   return std::max(study.max, study.worst_outcome.max_utilization) > 1.0 ? kExitFail : kExitPass;
 }
 
 int run_safe_region(const Options& options, const std::string& described, std::ostream& out,
                     std::ostream& err) {
-  std::unique_ptr<AsBuiltRun> site;
-  std::optional<CheckRun> design;
-  const CheckRun& run = single_run(options, site, design, err, "safe-region");
+  const StudyCap cap(options, err, "safe-region");
+  const CheckRun& run = cap.run();
   if (options.rays < 0 || options.rays > 3600)
     throw InputError({}, fmt::format("--rays: expected 0 to 3600, got '{}'", options.rays));
   const SafeRegions regions = safe_regions(run, options.rays);
   const SiteStudyHeader header{&run.project, described};
   const std::string rendered = render_safe_regions(header, regions, options.format);
-  write_outputs(options, "safe-region", rendered, render_safe_regions_svg(run.project, regions));
-  out << rendered;
+  show_outputs(options, "safe-region", rendered, render_safe_regions_svg(run.project, regions), out);
   for (const auto& c : regions.combinations)
     if (!c.upward && !c.inside) return kExitFail;
   return kExitPass;

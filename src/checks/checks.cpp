@@ -8,6 +8,7 @@
 
 #include <fmt/format.h>
 
+#include "cairn/core/enum_names.hpp"
 #include "cairn/core/quantity_format.hpp"
 #include "cairn/geotechnics/code_resistance.hpp"
 #include "cairn/geotechnics/lateral.hpp"
@@ -27,34 +28,15 @@ void fill(std::optional<double>& into, std::optional<double> from) {
 
 }  // namespace
 
-const char* to_string(Demand d) {
-  switch (d) {
-    case Demand::none: return "none";
-    case Demand::compression: return "compression";
-    case Demand::tension: return "tension";
-    case Demand::lateral: return "lateral";
-    case Demand::structural: return "structural";
-  }
-  return "?";
-}
+// Names in the order the enum declares its values (enum_names.hpp).
+constexpr const char* kDemandNames[] = {"none", "compression", "tension", "lateral", "structural"};
+const char* to_string(Demand d) { return name_in(kDemandNames, d); }
 
-const char* to_string(PileState s) {
-  switch (s) {
-    case PileState::in_contact: return "in contact";
-    case PileState::dropped_out: return "dropped out";
-    case PileState::overturned: return "overturned";
-  }
-  return "?";
-}
+constexpr const char* kPileStateNames[] = {"in contact", "dropped out", "overturned"};
+const char* to_string(PileState s) { return name_in(kPileStateNames, s); }
 
-const char* to_string(Verdict v) {
-  switch (v) {
-    case Verdict::pass: return "pass";
-    case Verdict::fail: return "fail";
-    case Verdict::overturned: return "overturned";
-  }
-  return "?";
-}
+constexpr const char* kVerdictNames[] = {"pass", "fail", "overturned"};
+const char* to_string(Verdict v) { return name_in(kVerdictNames, v); }
 
 Verdict verdict(const CombinationCheck& check) {
   if (check.solution.overturns) return Verdict::overturned;
@@ -67,19 +49,19 @@ std::vector<PileTypeResistance> resolve_resistances(
   for (std::size_t t = 0; t < project.pile_types.size(); ++t) {
     const PileType& type = project.pile_types[t];
     PileTypeResistance& r = result[t];
+    auto take_given = [](Resistance& into, const CapacitySet& set, const char* source) {
+      into.compression = set.compression;
+      into.tension = set.tension;
+      into.lateral = set.lateral;
+      into.source = source;
+    };
     for (const CapacitySet& set : type.capacities) {
       switch (set.basis) {
         case CapacityBasis::allowable:
-          r.allowable.compression = set.compression;
-          r.allowable.tension = set.tension;
-          r.allowable.lateral = set.lateral;
-          r.allowable.source = "allowable values given";
+          take_given(r.allowable, set, "allowable values given");
           break;
         case CapacityBasis::factored:
-          r.factored.compression = set.compression;
-          r.factored.tension = set.tension;
-          r.factored.lateral = set.lateral;
-          r.factored.source = "factored resistances given";
+          take_given(r.factored, set, "factored resistances given");
           break;
         case CapacityBasis::ultimate: break;  // below, so that given bases win
       }

@@ -5,6 +5,9 @@
 #include <limits>
 #include <numbers>
 
+#include "cairn/core/enum_names.hpp"
+#include "cairn/core/plan.hpp"
+
 namespace cairn {
 
 double Section::area() const {
@@ -31,15 +34,7 @@ std::array<double, 3> Pile::axis() const {
   return {h * std::cos(a) / n, h * std::sin(a) / n, -1.0 / n};
 }
 
-double Outline::area() const {
-  double twice = 0.0;
-  for (std::size_t i = 0; i < polygon.size(); ++i) {
-    const auto& p = polygon[i];
-    const auto& q = polygon[(i + 1) % polygon.size()];
-    twice += p[0] * q[1] - q[0] * p[1];
-  }
-  return std::abs(twice) / 2.0;
-}
+double Outline::area() const { return polygon_area(polygon); }
 
 std::array<double, 2> Outline::centroid() const {
   double twice = 0.0, cx = 0.0, cy = 0.0;
@@ -82,64 +77,25 @@ double Outline::distance_to_edge(double x, double y) const {
   return best;
 }
 
-const char* to_string(LimitState s) {
-  switch (s) {
-    case LimitState::service: return "service";
-    case LimitState::strength: return "strength";
-    case LimitState::seismic_overstrength: return "seismic-overstrength";
-  }
-  return "?";
-}
+// Names in the order the enum declares its values (enum_names.hpp).
+constexpr const char* kLimitStateNames[] = {"service", "strength", "seismic-overstrength"};
+const char* to_string(LimitState s) { return name_in(kLimitStateNames, s); }
 
-const char* to_string(CapacityBasis b) {
-  switch (b) {
-    case CapacityBasis::allowable: return "allowable";
-    case CapacityBasis::factored: return "factored";
-    case CapacityBasis::ultimate: return "ultimate";
-  }
-  return "?";
-}
+constexpr const char* kCapacityBasisNames[] = {"allowable", "factored", "ultimate"};
+const char* to_string(CapacityBasis b) { return name_in(kCapacityBasisNames, b); }
 
-const char* to_string(LoadKind k) {
-  switch (k) {
-    case LoadKind::dead: return "dead";
-    case LoadKind::live: return "live";
-    case LoadKind::roof_live: return "roof_live";
-    case LoadKind::snow: return "snow";
-    case LoadKind::rain: return "rain";
-    case LoadKind::wind: return "wind";
-    case LoadKind::seismic: return "seismic";
-    case LoadKind::earth: return "earth";
-    case LoadKind::fluid: return "fluid";
-    case LoadKind::temperature: return "temperature";
-    case LoadKind::other: return "other";
-    case LoadKind::wearing_surface: return "wearing_surface";
-    case LoadKind::vertical_earth: return "vertical_earth";
-    case LoadKind::collision: return "collision";
-  }
-  return "?";
-}
+constexpr const char* kLoadKindNames[] = {
+    "dead",           "live",     "roof_live", "snow",        "rain",  "wind",
+    "seismic",        "earth",    "fluid",     "temperature", "other", "wearing_surface",
+    "vertical_earth", "collision"};
+const char* to_string(LoadKind k) { return name_in(kLoadKindNames, k); }
 
-const char* to_string(ResistanceSet r) {
-  switch (r) {
-    case ResistanceSet::basis: return "basis";
-    case ResistanceSet::en1997_r1: return "EN 1997 R1";
-    case ResistanceSet::en1997_r2: return "EN 1997 R2";
-    case ResistanceSet::en1997_r3: return "EN 1997 R3";
-    case ResistanceSet::en1997_r4: return "EN 1997 R4";
-    case ResistanceSet::aashto_extreme: return "AASHTO extreme event";
-  }
-  return "?";
-}
+constexpr const char* kResistanceSetNames[] = {"basis",      "EN 1997 R1", "EN 1997 R2",
+                                               "EN 1997 R3", "EN 1997 R4", "AASHTO extreme event"};
+const char* to_string(ResistanceSet r) { return name_in(kResistanceSetNames, r); }
 
-const char* to_string(En1997PileKind k) {
-  switch (k) {
-    case En1997PileKind::driven: return "driven";
-    case En1997PileKind::bored: return "bored";
-    case En1997PileKind::cfa: return "cfa";
-  }
-  return "?";
-}
+constexpr const char* kEn1997PileKindNames[] = {"driven", "bored", "cfa"};
+const char* to_string(En1997PileKind k) { return name_in(kEn1997PileKindNames, k); }
 
 const char* to_string(SectionShape s) { return s == SectionShape::square ? "square" : "round"; }
 

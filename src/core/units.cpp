@@ -220,24 +220,22 @@ const char* unit_label(UnitSystem system, Quantity quantity) {
 const char* to_string(UnitSystem system) { return system == UnitSystem::SI ? "SI" : "US"; }
 
 std::string describe(Quantity quantity, UnitSystem system) {
+  const char* what = nullptr;  // followed by " in " and the unit
   switch (quantity) {
     case Quantity::length:
-    case Quantity::small_length:
-      return std::string("a length in ") + unit_label(system, quantity);
-    case Quantity::force: return std::string("a force in ") + unit_label(system, quantity);
-    case Quantity::moment: return std::string("a moment in ") + unit_label(system, quantity);
-    case Quantity::pressure:
-      return std::string("a pressure or modulus in ") + unit_label(system, quantity);
-    case Quantity::unit_weight:
-      return std::string("a unit weight in ") + unit_label(system, quantity);
-    case Quantity::area: return std::string("an area in ") + unit_label(system, quantity);
-    case Quantity::stiffness: return std::string("a stiffness in ") + unit_label(system, quantity);
-    case Quantity::rotational_stiffness:
-      return std::string("a rotational stiffness in ") + unit_label(system, quantity);
+    case Quantity::small_length: what = "a length"; break;
+    case Quantity::force: what = "a force"; break;
+    case Quantity::moment: what = "a moment"; break;
+    case Quantity::pressure: what = "a pressure or modulus"; break;
+    case Quantity::unit_weight: what = "a unit weight"; break;
+    case Quantity::area: what = "an area"; break;
+    case Quantity::stiffness: what = "a stiffness"; break;
+    case Quantity::rotational_stiffness: what = "a rotational stiffness"; break;
     case Quantity::angle: return "an angle in degrees";
     case Quantity::number: return "a number";
   }
-  return "a number";
+  if (!what) return "a number";
+  return std::string(what) + " in " + unit_label(system, quantity);
 }
 
 namespace {

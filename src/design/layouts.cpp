@@ -6,6 +6,7 @@
 
 #include <fmt/format.h>
 
+#include "cairn/core/plan.hpp"
 #include "cairn/solver/cap_solver.hpp"
 
 namespace cairn {
@@ -70,13 +71,7 @@ void finish(Context& c, Layout layout, std::vector<std::array<double, 2>> heads,
                                 [](const LayoutPile& p) { return p.batter.has_value(); });
   // Cheap test first: the piles' extent with the edge distance must fit the limit's extents.
   if (c.project.cap.outline) {
-    double x0 = 1e300, x1 = -1e300, y0 = 1e300, y1 = -1e300;
-    for (const auto& h : layout.piles_file) {
-      x0 = std::min(x0, h[0]);
-      x1 = std::max(x1, h[0]);
-      y0 = std::min(y0, h[1]);
-      y1 = std::max(y1, h[1]);
-    }
+    const auto [x0, x1, y0, y1] = bounding_box(layout.piles_file);
     const double reach = 2 * (c.width_file / 2 + c.edge_file);
     if (x1 - x0 + reach > c.box_width * (1 + 1e-9) || y1 - y0 + reach > c.box_length * (1 + 1e-9)) {
       ++c.counts.outside_outline;
@@ -111,13 +106,7 @@ void finish(Context& c, Layout layout, std::vector<std::array<double, 2>> heads,
         return;
       }
   } else {
-    double x0 = 1e300, x1 = -1e300, y0 = 1e300, y1 = -1e300;
-    for (const auto& h : layout.piles_file) {
-      x0 = std::min(x0, h[0]);
-      x1 = std::max(x1, h[0]);
-      y0 = std::min(y0, h[1]);
-      y1 = std::max(y1, h[1]);
-    }
+    const auto [x0, x1, y0, y1] = bounding_box(layout.piles_file);
     const double reach = c.width_file / 2 + c.edge_file;  // pile centre to cap edge
     Outline outline;
     if (octagon) {
@@ -247,13 +236,7 @@ std::vector<Layout> generate_layouts(const Project& project, const DesignSpec& s
   }
   double box_width = 1e300, box_length = 1e300;
   if (project.cap.outline) {
-    double x0 = 1e300, x1 = -1e300, y0 = 1e300, y1 = -1e300;
-    for (const auto& q : project.cap.outline->polygon) {
-      x0 = std::min(x0, q[0]);
-      x1 = std::max(x1, q[0]);
-      y0 = std::min(y0, q[1]);
-      y1 = std::max(y1, q[1]);
-    }
+    const auto [x0, x1, y0, y1] = bounding_box(project.cap.outline->polygon);
     box_width = (x1 - x0) / unit;
     box_length = (y1 - y0) / unit;
   }
@@ -300,6 +283,28 @@ std::vector<Layout> generate_layouts(const Project& project, const DesignSpec& s
       l.columns = 1;
       add_variants(c, l, {{0.0, -s / 2}, {0.0, s / 2}}, {270.0, 90.0}, 0.0, s, centres, false);
     }
+  // Rows of piles centred on the cap, rows sy apart and piles sx apart along a row: a grid has
+  // cols piles in every row; a staggered layout cols and cols − 1 alternately, the short rows
+  // centred between. A pile leans outward at the ends of a full row and in the first and last row.
+  auto add_rows = [&](Family family, std::size_t rows, std::size_t cols, double sx, double sy) {
+    Layout l;
+    l.family = family;
+    l.rows = rows;
+    l.columns = cols;
+    std::vector<std::array<double, 2>> heads;
+    std::vector<std::optional<double>> toward;
+    for (std::size_t i = 0; i < rows; ++i) {
+      const bool full_row = family != Family::staggered || i % 2 == 0;
+      const std::size_t m = full_row ? cols : cols - 1;
+      for (std::size_t j = 0; j < m; ++j) {
+        heads.push_back({(static_cast<double>(j) - (m - 1) / 2.0) * sx,
+                         (static_cast<double>(i) - (rows - 1) / 2.0) * sy});
+        toward.push_back(outward(full_row && cols > 1 && j == 0, full_row && cols > 1 && j + 1 == m,
+                                 rows > 1 && i == 0, rows > 1 && i + 1 == rows));
+      }
+    }
+    add_variants(c, l, heads, toward, sx, sy, centres, false);
+  };
   if (has(Family::grid))
     for (std::size_t rows = 1; rows <= max_piles; ++rows)
       for (std::size_t cols = 1; rows * cols <= max_piles; ++cols) {
@@ -316,20 +321,7 @@ std::vector<Layout> generate_layouts(const Project& project, const DesignSpec& s
               counts.outside_outline += variants;
               continue;
             }
-            Layout l;
-            l.family = Family::grid;
-            l.rows = rows;
-            l.columns = cols;
-            std::vector<std::array<double, 2>> heads;
-            std::vector<std::optional<double>> toward;
-            for (std::size_t i = 0; i < rows; ++i)
-              for (std::size_t j = 0; j < cols; ++j) {
-                heads.push_back({(static_cast<double>(j) - (cols - 1) / 2.0) * sx,
-                                 (static_cast<double>(i) - (rows - 1) / 2.0) * sy});
-                toward.push_back(outward(cols > 1 && j == 0, cols > 1 && j + 1 == cols,
-                                         rows > 1 && i == 0, rows > 1 && i + 1 == rows));
-              }
-            add_variants(c, l, heads, toward, sx, sy, centres, false);
+            add_rows(Family::grid, rows, cols, sx, sy);
           }
         }
       }
@@ -346,23 +338,7 @@ std::vector<Layout> generate_layouts(const Project& project, const DesignSpec& s
               counts.outside_outline += variants;
               continue;
             }
-            Layout l;
-            l.family = Family::staggered;
-            l.rows = rows;
-            l.columns = cols;
-            std::vector<std::array<double, 2>> heads;
-            std::vector<std::optional<double>> toward;
-            for (std::size_t i = 0; i < rows; ++i) {
-              const bool long_row = i % 2 == 0;
-              const std::size_t m = long_row ? cols : cols - 1;
-              for (std::size_t j = 0; j < m; ++j) {
-                heads.push_back({(static_cast<double>(j) - (m - 1) / 2.0) * sx,
-                                 (static_cast<double>(i) - (rows - 1) / 2.0) * sy});
-                toward.push_back(outward(long_row && j == 0, long_row && j + 1 == m, i == 0,
-                                         i + 1 == rows));
-              }
-            }
-            add_variants(c, l, heads, toward, sx, sy, centres, false);
+            add_rows(Family::staggered, rows, cols, sx, sy);
           }
       }
   for (Family f : {Family::ring, Family::ring_centre}) {

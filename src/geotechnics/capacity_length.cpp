@@ -30,24 +30,24 @@ DepthRow row_at(const SoilProfile& profile, PileGeometry pile, const PileDesign&
   return row;
 }
 
-}  // namespace
-
-double compression_on(const DepthRow& row, CapacityBasis basis) {
+// The one of three values that belongs to `basis`.
+double on_basis(CapacityBasis basis, double allowable, double factored, double ultimate) {
   switch (basis) {
-    case CapacityBasis::allowable: return row.allowable_compression;
-    case CapacityBasis::factored: return row.factored_compression;
-    case CapacityBasis::ultimate: return row.ultimate;
+    case CapacityBasis::allowable: return allowable;
+    case CapacityBasis::factored: return factored;
+    case CapacityBasis::ultimate: return ultimate;
   }
   return 0.0;
 }
 
+}  // namespace
+
+double compression_on(const DepthRow& row, CapacityBasis basis) {
+  return on_basis(basis, row.allowable_compression, row.factored_compression, row.ultimate);
+}
+
 double tension_on(const DepthRow& row, CapacityBasis basis) {
-  switch (basis) {
-    case CapacityBasis::allowable: return row.allowable_tension;
-    case CapacityBasis::factored: return row.factored_tension;
-    case CapacityBasis::ultimate: return row.tension;
-  }
-  return 0.0;
+  return on_basis(basis, row.allowable_tension, row.factored_tension, row.tension);
 }
 
 bool meets(const DepthRow& row, const LengthNeed& need) {

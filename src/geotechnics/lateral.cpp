@@ -12,6 +12,8 @@
 #include <string>
 #include <utility>
 
+#include "cairn/core/enum_names.hpp"
+
 namespace cairn {
 namespace {
 
@@ -552,30 +554,16 @@ double axial_bending_utilization(double axial, double axial_capacity, double mom
   return std::abs(axial) / axial_capacity + std::abs(moment) / moment_capacity;
 }
 
-const char* to_string(HeadFixity head) {
-  switch (head) {
-    case HeadFixity::fixed: return "fixed";
-    case HeadFixity::partial: return "partially fixed";
-    default: return "pinned";
-  }
-}
+// Names in the order the enum declares its values (enum_names.hpp).
+constexpr const char* kHeadFixityNames[] = {"pinned", "fixed", "partially fixed"};
+const char* to_string(HeadFixity head) { return name_in(kHeadFixityNames, head, "pinned"); }
 
-const char* to_string(BromsMode mode) {
-  switch (mode) {
-    case BromsMode::short_pile: return "short";
-    case BromsMode::intermediate: return "intermediate";
-    case BromsMode::long_pile: return "long";
-  }
-  return "?";
-}
+// Broms modes and length classes share their names (short_pile, intermediate, long_pile).
+constexpr const char* kShortToLongNames[] = {"short", "intermediate", "long"};
+const char* to_string(BromsMode mode) { return name_in(kShortToLongNames, mode); }
 
 const char* to_string(PileLengthClass length_class) {
-  switch (length_class) {
-    case PileLengthClass::short_pile: return "short";
-    case PileLengthClass::intermediate: return "intermediate";
-    case PileLengthClass::long_pile: return "long";
-  }
-  return "?";
+  return name_in(kShortToLongNames, length_class);
 }
 
 }  // namespace cairn

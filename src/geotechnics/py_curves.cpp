@@ -19,22 +19,29 @@ void require_depth(double z) {
 double radians(double degrees) { return degrees * std::numbers::pi / 180.0; }
 double sign_of(double y) { return y < 0.0 ? -1.0 : 1.0; }
 
+// The clay curves' ultimate resistance per length at depth z: the lesser of the wedge
+// (3 + γ'z/c + J·z/b)·c·b and the flow around the pile 9·c·b; J = 0.5 for stiff clay.
+double clay_ultimate(double c, double gamma, double b, double j, double z) {
+  require_positive(c, "undrained strength c");
+  require_positive(gamma, "effective unit weight γ'");
+  require_positive(b, "pile width b");
+  require_depth(z);
+  return std::min((3.0 + gamma * z / c + j * z / b) * c * b, 9.0 * c * b);
+}
+// The clay curves' deflection at half the ultimate resistance, y50 = 2.5·ε50·b.
+double clay_y50(double strain_50, double b) {
+  require_positive(strain_50, "ε50");
+  require_positive(b, "pile width b");
+  return 2.5 * strain_50 * b;
+}
+
 }  // namespace
 
 double SoftClayPy::ultimate(double z) const {
-  require_positive(undrained_strength, "undrained strength c");
-  require_positive(effective_unit_weight, "effective unit weight γ'");
-  require_positive(width, "pile width b");
-  require_depth(z);
-  const double c = undrained_strength, b = width;
-  return std::min((3.0 + effective_unit_weight * z / c + j * z / b) * c * b, 9.0 * c * b);
+  return clay_ultimate(undrained_strength, effective_unit_weight, width, j, z);
 }
 
-double SoftClayPy::y50() const {
-  require_positive(strain_50, "ε50");
-  require_positive(width, "pile width b");
-  return 2.5 * strain_50 * width;
-}
+double SoftClayPy::y50() const { return clay_y50(strain_50, width); }
 
 double SoftClayPy::transition_depth() const {
   return 6.0 * undrained_strength * width / (effective_unit_weight * width + j * undrained_strength);
@@ -62,19 +69,10 @@ double SoftClayPy::resistance(double z, double y) const {
 }
 
 double StiffClayDryPy::ultimate(double z) const {
-  require_positive(undrained_strength, "undrained strength c");
-  require_positive(effective_unit_weight, "effective unit weight γ'");
-  require_positive(width, "pile width b");
-  require_depth(z);
-  const double c = undrained_strength, b = width;
-  return std::min((3.0 + effective_unit_weight * z / c + 0.5 * z / b) * c * b, 9.0 * c * b);
+  return clay_ultimate(undrained_strength, effective_unit_weight, width, 0.5, z);
 }
 
-double StiffClayDryPy::y50() const {
-  require_positive(strain_50, "ε50");
-  require_positive(width, "pile width b");
-  return 2.5 * strain_50 * width;
-}
+double StiffClayDryPy::y50() const { return clay_y50(strain_50, width); }
 
 double StiffClayDryPy::deflection(double z, double p) const {
   if (!(cycles >= 1.0)) throw std::invalid_argument("cycles must be at least 1");

@@ -6,6 +6,7 @@
 #include <cstdio>
 #include <stdexcept>
 
+#include "cairn/core/enum_names.hpp"
 #include "cairn/core/units.hpp"
 #include "cairn/geotechnics/methods.hpp"
 
@@ -129,20 +130,13 @@ double SoilProfile::depth() const {
   return total;
 }
 
-const char* to_string(SoilKind kind) {
-  switch (kind) {
-    case SoilKind::clay: return "clay";
-    case SoilKind::sand: return "sand";
-  }
-  return "?";
-}
+// Names in the order the enum declares its values (enum_names.hpp).
+constexpr const char* kSoilKindNames[] = {"clay", "sand"};
+const char* to_string(SoilKind kind) { return name_in(kSoilKindNames, kind); }
 
+constexpr const char* kInstallationNames[] = {"driven", "bored"};
 const char* to_string(Installation installation) {
-  switch (installation) {
-    case Installation::driven: return "driven";
-    case Installation::bored: return "bored";
-  }
-  return "?";
+  return name_in(kInstallationNames, installation);
 }
 
 // The names are the ones written in a project file (tip_method: vesic), from the method

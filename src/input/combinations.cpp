@@ -15,28 +15,6 @@
 namespace cairn {
 namespace {
 
-// Kind names as they appear in project files; kept here so that this module does not depend
-// on model.cpp.
-const char* kind_name(LoadKind kind) {
-  switch (kind) {
-    case LoadKind::dead: return "dead";
-    case LoadKind::live: return "live";
-    case LoadKind::roof_live: return "roof_live";
-    case LoadKind::snow: return "snow";
-    case LoadKind::rain: return "rain";
-    case LoadKind::wind: return "wind";
-    case LoadKind::seismic: return "seismic";
-    case LoadKind::earth: return "earth";
-    case LoadKind::fluid: return "fluid";
-    case LoadKind::temperature: return "temperature";
-    case LoadKind::other: return "other";
-    case LoadKind::wearing_surface: return "wearing_surface";
-    case LoadKind::vertical_earth: return "vertical_earth";
-    case LoadKind::collision: return "collision";
-  }
-  return "other";
-}
-
 bool is_directional(LoadKind kind) { return kind == LoadKind::wind || kind == LoadKind::seismic; }
 
 // The load cases sorted into what the formulas name: per kind, the case ids in input order;
@@ -88,8 +66,9 @@ void require_kinds(std::string_view generator, const std::vector<CaseToCombine>&
   for (const auto& c : cases) {
     if (std::find(accepted.begin(), accepted.end(), c.kind) != accepted.end()) continue;
     std::string list;
-    for (const LoadKind kind : accepted) list += (list.empty() ? "" : ", ") + std::string(kind_name(kind));
-    throw std::invalid_argument("load case '" + c.id + "' has kind '" + kind_name(c.kind) +
+    for (const LoadKind kind : accepted)
+      list += (list.empty() ? "" : ", ") + std::string(to_string(kind));
+    throw std::invalid_argument("load case '" + c.id + "' has kind '" + to_string(c.kind) +
                                 "', which generator '" + std::string(generator) +
                                 "' does not combine (it combines " + list + ")" + hint);
   }

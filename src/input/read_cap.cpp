@@ -7,19 +7,14 @@
 #include <fmt/format.h>
 
 namespace cairn {
-namespace {
-
-using Need = ReadContext::Need;
-using Sign = ReadContext::Sign;
-
-}  // namespace
 
 Cap read_cap(const Located& n, ReadContext& ctx) {
   Cap cap;
   if (!ctx.expect_map(n)) return cap;
   ctx.check_keys(n, {"thickness", "outline", "self_weight", "depth"});
   cap.thickness = ctx.number(n, "thickness", Quantity::length).value_or(0.0);
-  cap.depth = ctx.number(n, "depth", Quantity::length, Need::optional, Sign::non_negative)
+  cap.depth = ctx.number(n, "depth", Quantity::length, ReadContext::Need::optional,
+                         ReadContext::Sign::non_negative)
                   .value_or(0.0);
   if (auto o = n.child("outline"); o.present() && ctx.expect_map(o)) {
     Outline outline;

@@ -60,6 +60,16 @@ class DesignReader {
     }
   }
 
+  // A map {min, max, step}: min and max of `q`, the step a length; each given replaces its
+  // default.
+  void range(const YAML::Node& n, const std::string& path, Quantity q, double& min, double& max,
+             double& step) {
+    check_keys(n, path, {"min", "max", "step"});
+    if (auto v = number(n, "min", path, q)) min = *v;
+    if (auto v = number(n, "max", path, q)) max = *v;
+    if (auto v = number(n, "step", path, Quantity::length)) step = *v;
+  }
+
   // A positive (or non-negative) number of `q`, converted to SI.
   std::optional<double> number(const YAML::Node& parent, const std::string& key,
                                const std::string& path, Quantity q, bool allow_zero = false) {
@@ -208,10 +218,8 @@ class DesignReader {
     }
     // Spacing, in pile widths; the step as a length.
     if (const YAML::Node s = d["spacing"]; s && expect_map(s, "design.spacing")) {
-      check_keys(s, "design.spacing", {"min", "max", "step"});
-      if (auto v = number(s, "min", "design.spacing", Quantity::number)) spec.min_spacing_factor = *v;
-      if (auto v = number(s, "max", "design.spacing", Quantity::number)) spec.max_spacing_factor = *v;
-      if (auto v = number(s, "step", "design.spacing", Quantity::length)) spec.spacing_step = *v;
+      range(s, "design.spacing", Quantity::number, spec.min_spacing_factor,
+            spec.max_spacing_factor, spec.spacing_step);
       if (spec.spacing_step < 0.001)
         diag_.error(at(s["step"]), "design.spacing.step: expected at least 1 mm");
       if (spec.min_spacing_factor > spec.max_spacing_factor)
@@ -226,10 +234,8 @@ class DesignReader {
                               spec.min_spacing_factor, project.group.min_spacing_factor));
     spec.edge_distance = number(d, "edge_distance", "design", Quantity::length, true);
     if (const YAML::Node l = d["length"]; l && expect_map(l, "design.length")) {
-      check_keys(l, "design.length", {"min", "max", "step"});
-      if (auto v = number(l, "min", "design.length", Quantity::length)) spec.min_length = *v;
-      if (auto v = number(l, "max", "design.length", Quantity::length)) spec.max_length = *v;
-      if (auto v = number(l, "step", "design.length", Quantity::length)) spec.length_step = *v;
+      range(l, "design.length", Quantity::length, spec.min_length, spec.max_length,
+            spec.length_step);
       if (spec.length_step < 0.001)
         diag_.error(at(l["step"]), "design.length.step: expected at least 1 mm");
       else if (spec.min_length > spec.max_length)

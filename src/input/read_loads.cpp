@@ -56,14 +56,7 @@ std::vector<Column> read_columns(const Located& n, ReadContext& ctx, double cap_
 std::vector<LoadCase> read_load_cases(const std::vector<NamedEntry>& entries,
                                       const Located& whole, ReadContext& ctx,
                                       double cap_thickness) {
-  std::vector<LoadCase> cases;
-  if (!ctx.expect_map(whole)) return cases;
-  for (const auto& entry : entries) {
-    const Located& n = entry.value;
-    LoadCase lc;
-    lc.id = entry.name;
-    lc.where = entry.key_where;
-    if (!ctx.expect_map(n)) continue;
+  return read_named_entries<LoadCase>(entries, whole, ctx, [&](const Located& n, LoadCase& lc) {
     ctx.check_keys(n, {"kind", "loads", "description", "direction"});
     if (auto d = ctx.text(n, "direction", Need::optional)) lc.direction = *d;
     if (auto k = n.child("kind"); k.present()) {
@@ -100,9 +93,7 @@ std::vector<LoadCase> read_load_cases(const std::vector<NamedEntry>& entries,
         lc.loads.push_back(load);
       }
     }
-    cases.push_back(std::move(lc));
-  }
-  return cases;
+  });
 }
 
 }  // namespace cairn

@@ -86,14 +86,7 @@ void read_method(const Located& n, const std::map<std::string, T>& names,
 
 std::vector<PileType> read_pile_types(const std::vector<NamedEntry>& entries,
                                       const Located& whole, ReadContext& ctx, bool has_soil) {
-  std::vector<PileType> types;
-  if (!ctx.expect_map(whole)) return types;
-  for (const auto& entry : entries) {
-    const Located& n = entry.value;
-    PileType type;
-    type.id = entry.name;
-    type.where = entry.key_where;
-    if (!ctx.expect_map(n)) continue;
+  return read_named_entries<PileType>(entries, whole, ctx, [&](const Located& n, PileType& type) {
     ctx.check_keys(n, {"section", "length", "elastic_modulus", "axial_stiffness",
                        "lateral_stiffness", "tension", "head", "head_restraint", "torsional_stiffness", "structure", "capacity", "installation", "tip_method",
                        "shaft_method", "critical_depth", "factor_of_safety",
@@ -243,9 +236,7 @@ std::vector<PileType> read_pile_types(const std::vector<NamedEntry>& entries,
     // Methods or default resistance factors that belong to the other installation.
     for (const auto& caution : installation_cautions(design))
       ctx.warn(ctx.at(n), fmt::format("{}: {}", n.path, caution));
-    types.push_back(std::move(type));
-  }
-  return types;
+  });
 }
 
 }  // namespace cairn

@@ -6,6 +6,7 @@
 #include <nlohmann/json.hpp>
 
 #include "cairn/checks/checks.hpp"
+#include "cairn/core/plan.hpp"
 #include "cairn/output/number_text.hpp"
 
 namespace cairn {
@@ -15,13 +16,7 @@ double in_units(const Project& p, double metres) { return from_si(p.units, Quant
 
 std::string cap_text(const Project& p, const Candidate& c) {
   const auto& o = c.layout.outline;
-  double x0 = 1e300, x1 = -1e300, y0 = 1e300, y1 = -1e300;
-  for (const auto& q : o.polygon) {
-    x0 = std::min(x0, q[0]);
-    x1 = std::max(x1, q[0]);
-    y0 = std::min(y0, q[1]);
-    y1 = std::max(y1, q[1]);
-  }
+  const auto [x0, x1, y0, y1] = bounding_box(o.polygon);
   return fmt::format("{} × {} × {}{}", fixed_text(in_units(p, x1 - x0), 2),
                      fixed_text(in_units(p, y1 - y0), 2), fixed_text(in_units(p, c.thickness), 2),
                      o.polygon.size() == 8 ? " (octagon)" : "");

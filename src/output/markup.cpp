@@ -78,16 +78,15 @@ const char* utilization_text_colour(double u, double scale_max) {
   return y < 0.179 ? "#ffffff" : "#000000";
 }
 
+// xml_escape, then the line breaks and tabs as character references (the entities
+// xml_escape writes hold none of them).
 std::string attribute_escape(std::string_view text) {
   std::string out;
-  out.reserve(text.size());
-  for (char c : text) {
-    switch (c) {
-      case '\n': out += "&#10;"; break;
-      case '\r': out += "&#13;"; break;
-      case '\t': out += "&#9;"; break;
-      default: out += xml_escape(std::string_view(&c, 1));
-    }
+  for (char c : xml_escape(text)) {
+    if (c == '\n') out += "&#10;";
+    else if (c == '\r') out += "&#13;";
+    else if (c == '\t') out += "&#9;";
+    else out += c;
   }
   return out;
 }

@@ -339,11 +339,11 @@ Table cap_stiffness_table(const CheckReport& r) {
 Table piles_table(const CheckReport& r) {
   const Project& p = *r.project;
   const QuantityFormat u(p.units);
-  Table t;
-  t.title = "Piles";
-  t.headers = {"pile", "type", "x (" + u.label(Quantity::length) + ")",
-               "y (" + u.label(Quantity::length) + ")", "batter"};
-  t.numeric = {false, false, true, true, false};
+  const std::string length = " (" + u.label(Quantity::length) + ")";
+  Table t{.title = "Piles",
+          .headers = {"pile", "type", "x" + length, "y" + length, "batter"},
+          .rows = {},
+          .numeric = {false, false, true, true, false}};
   for (const Pile& pile : p.piles) {
     t.rows.push_back({pile.id, p.pile_types[pile.type].id, u.length(pile.x), u.length(pile.y),
                       pile.batter ? fmt::format("1:{:g} toward {:g}°", pile.batter->ratio,

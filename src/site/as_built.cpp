@@ -6,6 +6,8 @@
 
 #include <fmt/format.h>
 
+#include "cairn/core/enum_names.hpp"
+
 namespace cairn {
 namespace {
 
@@ -42,14 +44,10 @@ SiteTolerances default_tolerances(UnitSystem units) {
   return t;
 }
 
-const char* to_string(SiteVerdict v) {
-  switch (v) {
-    case SiteVerdict::accept: return "accept as built";
-    case SiteVerdict::accept_with_deviations: return "accept, deviations taken by the piles";
-    case SiteVerdict::remedial: return "remedial work needed";
-  }
-  return "?";
-}
+// Names in the order the enum declares its values (enum_names.hpp).
+constexpr const char* kSiteVerdictNames[] = {
+    "accept as built", "accept, deviations taken by the piles", "remedial work needed"};
+const char* to_string(SiteVerdict v) { return name_in(kSiteVerdictNames, v); }
 
 AsBuiltProject build_as_built(const Project& design, const Survey& survey,
                               const std::string& cap_name, const SiteTolerances& tolerances) {

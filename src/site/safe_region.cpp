@@ -4,6 +4,7 @@
 #include <cmath>
 #include <limits>
 
+#include "cairn/core/plan.hpp"
 #include "cairn/solver/cap_solver.hpp"
 
 namespace cairn {
@@ -51,15 +52,7 @@ bool passes(const CheckRun& run, const Combination& combo, const CapSolution& s)
 
 }  // namespace
 
-double area(const Polygon& p) {
-  double a = 0.0;
-  for (std::size_t i = 0; i < p.size(); ++i) {
-    const auto& u = p[i];
-    const auto& w = p[(i + 1) % p.size()];
-    a += u[0] * w[1] - w[0] * u[1];
-  }
-  return std::abs(a) / 2.0;
-}
+double area(const Polygon& p) { return polygon_area(p); }
 
 double signed_distance(const Polygon& p, double x, double y) {
   if (p.size() < 3) return -std::numeric_limits<double>::infinity();

@@ -28,9 +28,6 @@ struct AsBuiltRun {
 std::unique_ptr<AsBuiltRun> as_built_run(CheckRun design, const std::string& survey_path,
                                          const Options& options);
 
-// "add-pile", "pile-loss", "tolerance", "safe-region", "diff" ("check" for any other).
-const char* site_command_name(Command command);
-
 // `cairn check CAP.yaml --as-built SURVEY.csv`: exit 1 when remedial work is needed.
 int run_as_built_check(const Options& options, const std::string& described, std::ostream& out,
                        std::ostream& err);

@@ -43,6 +43,25 @@ std::optional<SoilProfile> read_soil(const Located& n, ReadContext& ctx);
 // self-weight.
 Cap read_cap(const Located& n, ReadContext& ctx);
 
+// The entries of a section of named maps, one T each: `read_one(n, item)` fills an item
+// whose id and place are set already. A section or entry that is not a map is reported and
+// its items left out.
+template <class T, class ReadOne>
+std::vector<T> read_named_entries(const std::vector<NamedEntry>& entries, const Located& whole,
+                                  ReadContext& ctx, ReadOne read_one) {
+  std::vector<T> items;
+  if (!ctx.expect_map(whole)) return items;
+  for (const auto& entry : entries) {
+    T item;
+    item.id = entry.name;
+    item.where = entry.key_where;
+    if (!ctx.expect_map(entry.value)) continue;
+    read_one(entry.value, item);
+    items.push_back(std::move(item));
+  }
+  return items;
+}
+
 // `pile_types:` — one PileType per named entry; `has_soil` says whether methods that
 // compute capacities from the soil can be used. Installation cautions are warnings.
 std::vector<PileType> read_pile_types(const std::vector<NamedEntry>& entries,

@@ -42,7 +42,7 @@ struct AnalysisOptions {
   // profile; with one, the pile forces are kept for Broms' yield moment).
   bool pile_rows = true;
   // When given, called with (combinations checked, combinations) every 1,000 combinations.
-  std::function<void(std::size_t done, std::size_t total)> progress;
+  std::function<void(std::size_t done, std::size_t total)> progress{};
 };
 
 // Reads and checks one project file. Throws InputError for any input problem (nothing is

@@ -125,6 +125,8 @@ TEST_CASE("detail: the long results table holds every row of the per-combination
 TEST_CASE("detail: the streamed JSON is the document tree's text", "[detail]") {
   for (const std::string file : {kDemo + "/crane-rail-footing/cap.yaml",
                                  kDemo + "/conveyor-pier-us/cap.yaml",
+                                 kDemo + "/pier-fixed-heads/cap.yaml",  // head moments
+                                 kData + "/bending/fixed_heads.yaml",
                                  kData + "/outputs/mixed.yaml", kData + "/html/cap.yaml"}) {
     INFO(file);
     const CheckRun run = analyse_project(file);

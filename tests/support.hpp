@@ -27,6 +27,17 @@ inline Approx close(double value, double relative, double absolute = 1e-9) {
   return Approx(value).epsilon(relative).margin(absolute);
 }
 
+// Text checks on rendered outputs: whether `what` occurs in `text`, and how often.
+inline bool has(const std::string& text, const std::string& what) {
+  return text.find(what) != std::string::npos;
+}
+
+inline std::size_t count(const std::string& text, const std::string& what) {
+  std::size_t n = 0;
+  for (auto at = text.find(what); at != std::string::npos; at = text.find(what, at + 1)) ++n;
+  return n;
+}
+
 // Cap thickness of the builders' projects, m: loads act at the top of the cap, z = 1.5.
 inline constexpr double kCapThickness = 1.5;
 

@@ -14,22 +14,17 @@
 #include "cairn/output/markup.hpp"
 #include "cairn/output/output_files.hpp"
 
+#include "support.hpp"
+
 using namespace cairn;
+
+using cairn::test::has;
+using cairn::test::count;
 
 namespace {
 
 const std::string kData = std::string(CAIRN_TEST_DATA) + "/";
 const std::string kDemo = std::string(CAIRN_DEMO_DIR) + "/";
-
-bool has(const std::string& text, const std::string& what) {
-  return text.find(what) != std::string::npos;
-}
-
-std::size_t count(const std::string& text, const std::string& what) {
-  std::size_t n = 0;
-  for (auto at = text.find(what); at != std::string::npos; at = text.find(what, at + 1)) ++n;
-  return n;
-}
 
 std::vector<std::string> formatted(const InputError& e) {
   std::vector<std::string> out;

@@ -11,7 +11,11 @@
 #include "cairn/output/html_report.hpp"
 #include "cairn/output/plan_svg.hpp"
 
+#include "support.hpp"
+
 using namespace cairn;
+
+using cairn::test::count;
 
 namespace {
 
@@ -106,12 +110,6 @@ double attribute_after(const std::string& text, const std::string& marker, const
   const auto attr = text.find(" " + name + "=\"", at);
   REQUIRE(attr != std::string::npos);
   return std::stod(text.substr(attr + name.size() + 3));
-}
-
-std::size_t count(const std::string& text, const std::string& what) {
-  std::size_t n = 0;
-  for (auto at = text.find(what); at != std::string::npos; at = text.find(what, at + 1)) ++n;
-  return n;
 }
 
 // A sample Vesić tip in sand, with the intermediate values of the capacity module's output

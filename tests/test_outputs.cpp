@@ -21,21 +21,16 @@
 #include "cairn/output/plan_svg.hpp"
 #include "cairn/output/report.hpp"
 
+#include "support.hpp"
+
 using namespace cairn;
+
+using cairn::test::has;
+using cairn::test::count;
 
 namespace {
 
 const std::string kMixed = std::string(CAIRN_TEST_DATA) + "/outputs/mixed.yaml";
-
-bool has(const std::string& text, const std::string& what) {
-  return text.find(what) != std::string::npos;
-}
-
-std::size_t count(const std::string& text, const std::string& what) {
-  std::size_t n = 0;
-  for (auto at = text.find(what); at != std::string::npos; at = text.find(what, at + 1)) ++n;
-  return n;
-}
 
 std::vector<std::string> lines_of(const std::string& text) {
   std::vector<std::string> lines;

@@ -16,16 +16,16 @@
 #include "cairn/output/html_package.hpp"
 #include "cairn/solver/head_forces.hpp"
 
+#include "support.hpp"
+
 using namespace cairn;
+
+using cairn::test::has;
 
 namespace {
 
 const std::string kData = std::string(CAIRN_TEST_DATA) + "/";
 const std::string kDemo = std::string(CAIRN_DEMO_DIR) + "/";
-
-bool has(const std::string& text, const std::string& what) {
-  return text.find(what) != std::string::npos;
-}
 
 // The largest component of `miss` over the largest of `applied`, moments over `lever` (m).
 double relative(const Wrench& miss, const Wrench& applied, double lever) {

@@ -56,7 +56,7 @@ std::optional<double> brute_force_cost(const Read& r, const std::vector<double>&
         c.cost = candidate_cost(r.project, r.spec, layout.piles.size(), length, c.cap_volume);
         if (best && c.cost >= *best) continue;
         try {
-          const CheckRun run = analyse_project(candidate_project(r.project, r.spec, c));
+          const CheckRun run = analyse(candidate_project(r.project, r.spec, c));
           if (run.results.summary.pass) best = c.cost;
         } catch (const InputError&) {
           // A load the layout cannot resist at all (a moment on two piles in line): fails.
@@ -109,7 +109,7 @@ void check_round_trip(const std::string& name) {
   REQUIRE(!o.best.empty());
   const Candidate& best = o.best.front();
   // The candidate's project is the one the full check ran on.
-  const CheckRun direct = analyse_project(candidate_project(r.project, r.spec, best));
+  const CheckRun direct = analyse(candidate_project(r.project, r.spec, best));
   CHECK(direct.results.summary.max_utilization == best.max_utilization);
   // Written as cairn design --write writes it, read again and checked.
   const ChosenLayout chosen = chosen_layout(r.project, kData + name, best);

@@ -41,7 +41,7 @@ TEST_CASE("detail: levels below full show the full run's envelope and summary", 
                                  kData + "/outputs/mixed.yaml", kData + "/html/cap.yaml"}) {
     INFO(file);
     const CheckRun full = analyse_project(file);
-    const CheckRun brief = analyse_project(file, false);
+    const CheckRun brief = analyse_project(file, AnalysisOptions{.pile_rows = false});
     CHECK_FALSE(brief.results.pile_rows);
     for (const auto& cc : brief.results.combinations) {
       CHECK(cc.piles.empty());
@@ -92,7 +92,7 @@ TEST_CASE("detail: the governing combination of each check is the full run's lar
     CHECK(g.demand == largest);
     CHECK(r.envelope[i].max_compression.combination == where);
   }
-  const CheckRun brief = analyse_project(kDemo + "/crane-rail-footing/cap.yaml", false);
+  const CheckRun brief = analyse_project(kDemo + "/crane-rail-footing/cap.yaml", AnalysisOptions{.pile_rows = false});
   CheckReport a = make_check_report(full, "", std::nullopt);
   CheckReport b = make_check_report(brief, "", std::nullopt);
   CHECK(csv(governing_table(a)) == csv(governing_table(b)));

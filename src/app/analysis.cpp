@@ -25,16 +25,6 @@ CheckRun analyse_project(const std::string& file, const AnalysisOptions& options
   }
 }
 
-CheckRun analyse_project(const std::string& file, bool pile_rows,
-                         const std::function<void(std::size_t, std::size_t)>& progress) {
-  AnalysisOptions options;
-  options.pile_rows = pile_rows;
-  options.progress = progress;
-  return analyse_project(file, options);
-}
-
-CheckRun analyse_project(Project project) { return analyse(std::move(project)); }
-
 namespace {
 void scale(Resistance& r, double f) {
   for (auto* v : {&r.compression, &r.tension, &r.lateral, &r.structural_axial, &r.structural_moment})

@@ -227,9 +227,10 @@ int run_check(const Options& options, std::ostream& out, std::ostream& err) {
   // Below full detail no pile rows are kept (the hand check of --explain needs them).
   // Progress as for many caps: on a terminal only, after a second.
   Progress progress(err, "combinations");
-  const CheckRun run =
-      analyse_project(options.files.front(), options.detail == Detail::full || options.explain_pile,
-                      progress.callback());
+  AnalysisOptions analysis;
+  analysis.pile_rows = options.detail == Detail::full || options.explain_pile.has_value();
+  analysis.progress = progress.callback();
+  const CheckRun run = analyse_project(options.files.front(), analysis);
   progress.clear();
   print_warnings(run.project, err);
   CheckReport report = make_check_report(run, describe_options(options), options.explain_pile);
@@ -312,7 +313,7 @@ int run_report(const Options& options, std::ostream& out, std::ostream& err) {
   if (!options.out_dir) throw InputError({}, "report: expected --out DIR for the report files");
   // The analysis builds the capacity-with-depth tables of the chart with the check; the
   // package shows every pile in every combination.
-  const auto outcomes = analyse_all(options.files, AnalysisOptions{.depth_tables = true}, err);
+  auto outcomes = analyse_all(options.files, AnalysisOptions{.depth_tables = true}, err);
   for (const auto& o : outcomes) print_warnings(o.run->project, err);
   PackageRequest request;
   request.command = describe_options(options);
@@ -327,17 +328,16 @@ int run_report(const Options& options, std::ostream& out, std::ostream& err) {
   }
   // --as-built: each cap's page is the as-built cap's, with the as-built section, and the
   // survey joins the input echo.
-  std::vector<CapOutcome> checked = outcomes;
   if (options.as_built) {
     request.extra_inputs.push_back({*options.as_built, "pile survey"});
-    for (auto& o : checked) {
+    for (auto& o : outcomes) {
       const auto site = as_built_run(*o.run, *options.as_built, options);
       request.extra_sections.push_back({as_built_section_html(site->report(request.command))});
       request.pass_override.push_back(site->comparison.verdict != SiteVerdict::remedial);
       o.run = site->as_built;
     }
   }
-  const PackageFiles package = package_files(checked, request);
+  const PackageFiles package = package_files(outcomes, request);
   // Nothing is said about the files until all of them are in place.
   write_files_atomically(*options.out_dir, package.files);
   out << package.listing;

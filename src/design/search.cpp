@@ -384,7 +384,7 @@ struct FullResult {
 
 // The full check of a candidate; fills its utilization, governing check and tilt.
 FullResult full_check(const Project& base, const DesignSpec& spec, Candidate& c) {
-  const CheckRun run = analyse_project(candidate_project(base, spec, c));
+  const CheckRun run = analyse(candidate_project(base, spec, c));
   c.checked_fully = true;
   const CheckSummary& s = run.results.summary;
   c.max_utilization = s.max_utilization;

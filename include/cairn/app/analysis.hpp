@@ -58,15 +58,10 @@ struct TypeAdjustments {
   std::vector<double> capacity_factor;
 };
 
-// The same pipeline on a project already read (the as-built project of a survey).
+// The same pipeline on a project already read: the as-built project of a survey, a
+// candidate layout of `cairn design`. Throws InputError as above.
 CheckRun analyse(Project project, const TypeAdjustments& adjust = {},
                  const AnalysisOptions& options = {});
-// The same pipeline on a project already in memory (as read_project returns it), e.g. a
-// candidate layout of `cairn design`. Throws InputError as above.
-CheckRun analyse_project(Project project);  // analyse() without adjustments
-// The same with pile_rows (see AnalysisOptions) and progress given directly.
-CheckRun analyse_project(const std::string& file, bool pile_rows,
-                         const std::function<void(std::size_t done, std::size_t total)>& progress = {});
 
 // Analyses several files on up to `threads` threads. Each entry holds the run or the
 // input problems of its file, in the order of `files`.

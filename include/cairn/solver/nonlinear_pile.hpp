@@ -1,0 +1,90 @@
+// nonlinear_pile.hpp — one pile held by the cap, on nonlinear soil: the action of the cap on
+// the pile head for a given head movement, its tangent stiffness, and the pile's profile with
+// depth (deflection, moment, shear, axial force). The building block of the nonlinear group
+// analysis (nonlinear_cap.hpp): the cap's six displacements are found by Newton iteration on
+// the sum of these head responses.
+//
+// Conventions (the same as pile_head.hpp and cap_solver.hpp): global axes x, y, z (z up);
+// the pile axis a is the unit vector from head to toe; the head moves u (m) and the cap
+// rotates ω (rad); the action of the cap on the pile at its head is (F, M) in global axes
+// (kN, kN·m about the head): a pile pushed into the ground has F·a > 0. Depths z along the
+// pile are measured from the head (m), deflections across the axis.
+//
+// Lateral: the pile is a beam-column on p-y springs in two orthogonal bending planes (round or
+// square sections: the same EI in both), solved with the head deflection prescribed and the
+// head rotation held by the cap through the head restraint (pinned: no moment; fixed: the
+// cap's rotation; partial: a rotational spring k_r). Axial: the pile is a bar of axial
+// rigidity EA on t-z springs along the shaft and a Q-z spring at the tip, the head movement
+// along the axis prescribed. Torsion: the linear torsional stiffness where given.
+//
+// Units: kN, m, rad.
+#pragma once
+
+#include <array>
+#include <functional>
+#include <string>
+#include <vector>
+
+#include "cairn/solver/pile_head.hpp"
+
+namespace cairn {
+
+// What the soil gives one pile, depths along the pile from its head (m).
+struct PileCurves {
+  // p(z, y): lateral resistance per unit length (kN/m) at deflection y (m); odd in y. Any
+  // p-multiplier for group action is applied by the caller of pile_head_response, not here.
+  std::function<double(double, double)> lateral;
+  // t(z, w): shaft resistance per unit length of pile (kN/m: unit friction times perimeter)
+  // at a movement w (m) of the pile relative to the soil, positive into the ground; odd in w.
+  std::function<double(double, double)> shaft;
+  // Q(w): tip resistance (kN) at a tip movement w (m) into the ground; 0 for w ≤ 0.
+  std::function<double(double)> tip;
+  std::string description;  // which curves, in plain words, for the report
+};
+
+struct NonlinearPileSpec {
+  std::array<double, 3> head{};  // m, global
+  std::array<double, 3> axis{};  // unit, head → toe
+  double length = 0.0;             // m, along the axis
+  double bending_stiffness = 0.0;  // EI, kN·m²
+  double axial_rigidity = 0.0;     // EA, kN
+  double width = 0.0;              // b, m (for the report)
+  HeadRestraint restraint;         // pinned, fixed or partial (k_r)
+  double torsional = 0.0;          // k_t, kN·m/rad, linear
+  bool tension = true;             // false: the pile takes no tension (no axial action < 0)
+  PileCurves curves;
+  int segments = 60;               // finite-difference segments along the pile
+};
+
+// The head movement of one pile: u (m) and ω (rad), global.
+using HeadMovement = std::array<double, 6>;
+
+struct PileHeadResponse {
+  bool converged = false;
+  std::string message;             // why not, in plain words
+  std::array<double, 6> action{};  // (F, M) of the cap on the pile at its head, global
+  Matrix6Rows tangent{};           // ∂action/∂movement, global (symmetric in the linear limit)
+};
+
+// The head action for a head movement, with every p-y spring scaled by `p_multiplier` (group
+// action, 1 for a single pile). Does not throw on non-convergence.
+PileHeadResponse pile_head_response(const NonlinearPileSpec& pile, const HeadMovement& movement,
+                                    double p_multiplier = 1.0);
+
+// The pile along its length at a head movement: the resultant of the two bending planes.
+struct PileProfile {
+  bool converged = false;
+  std::string message;
+  std::vector<double> depth;       // m from the head
+  std::vector<double> deflection;  // m, resultant across the axis
+  std::vector<double> moment;      // kN·m, resultant bending moment
+  std::vector<double> shear;       // kN, resultant shear
+  std::vector<double> axial;       // kN, compression positive
+  double max_moment = 0.0;         // kN·m
+  double max_moment_depth = 0.0;   // m
+  double head_deflection = 0.0;    // m
+};
+PileProfile pile_profile(const NonlinearPileSpec& pile, const HeadMovement& movement,
+                         double p_multiplier = 1.0);
+
+}  // namespace cairn

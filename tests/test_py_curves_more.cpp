@@ -8,6 +8,7 @@
 #include <algorithm>
 #include <cmath>
 #include <functional>
+#include <stdexcept>
 #include <string>
 #include <vector>
 
@@ -328,4 +329,23 @@ TEST_CASE("p-y: the two sand models agree where O'Neill & Murchison fitted their
   CHECK(reese.factor_a(shallow) == Approx(api.factor(shallow)).epsilon(0.06));
   // Both start on the same line k·z·y.
   CHECK(reese.initial_slope(2.0) == Approx(api.initial_slope(2.0)));
+}
+
+TEST_CASE("p-y: impossible soil values are refused, not computed", "[py_curves_more]") {
+  auto sand = mustang_island(PyLoading::static_load);
+  sand.friction_angle = 95.0;
+  CHECK_THROWS_AS(sand.resistance(1.0, 0.01), std::invalid_argument);
+  sand = mustang_island(PyLoading::static_load);
+  sand.initial_modulus = 0.0;
+  CHECK_THROWS_AS(sand.resistance(1.0, 0.01), std::invalid_argument);
+  sand = mustang_island(PyLoading::static_load);
+  CHECK_THROWS_AS(sand.resistance(-1.0, 0.01), std::invalid_argument);
+  auto clay = stiff_clay(PyLoading::cyclic);
+  clay.strength_gradient = -1.0;
+  CHECK_THROWS_AS(clay.resistance(1.0, 0.01), std::invalid_argument);
+  clay = stiff_clay(PyLoading::cyclic);
+  clay.strain_50 = 0.0;
+  CHECK_THROWS_AS(clay.resistance(1.0, 0.01), std::invalid_argument);
+  CHECK_THROWS_AS(cairn::stiff_clay_subgrade_modulus(0.0, PyLoading::static_load),
+                  std::invalid_argument);
 }

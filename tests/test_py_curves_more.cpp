@@ -8,11 +8,13 @@
 #include <algorithm>
 #include <cmath>
 #include <functional>
+#include <numbers>
 #include <stdexcept>
 #include <string>
 #include <vector>
 
 #include "cairn/geotechnics/py_curves.hpp"
+#include "cairn/solver/beam_column.hpp"
 
 namespace {
 
@@ -348,4 +350,32 @@ TEST_CASE("p-y: impossible soil values are refused, not computed", "[py_curves_m
   CHECK_THROWS_AS(clay.resistance(1.0, 0.01), std::invalid_argument);
   CHECK_THROWS_AS(cairn::stiff_clay_subgrade_modulus(0.0, PyLoading::static_load),
                   std::invalid_argument);
+}
+
+TEST_CASE("p-y: a pile on the new curves at a small load is the linear pile on their initial slopes",
+          "[py_curves_more][published]") {
+  // Both new curves start on p = k·z·y, a modulus growing linearly with depth (n_h = k). Matlock &
+  // Reese (1960), long pile, free head (from memory): y0 = 2.435·H·T³/EI, T = (EI/n_h)^(1/5).
+  // The Mustang Island pile, from memory: 24 in × 0.375 in steel pipe, EI = 200 GPa ·
+  // π/64·(0.6096⁴ − 0.5906⁴) = 161 500 kN·m² (hand calculation).
+  const double ei = 200e6 * std::numbers::pi / 64.0 * (std::pow(0.6096, 4) - std::pow(0.5906, 4));
+  const auto check_small_load = [ei](const std::function<double(double, double)>& soil, double k) {
+    const double t = std::pow(ei / k, 0.2);
+    cairn::BeamColumnPile pile;
+    pile.bending_stiffness = ei;
+    pile.length = 8.0 * t;
+    pile.segments = 400;
+    pile.soil = soil;
+    const double h = 0.5;  // kN: deflections of micrometres, on the initial line
+    const auto r = cairn::solve_beam_column(pile, {h, false, 0.0, 0.0});
+    REQUIRE(r.converged);
+    CHECK(r.head_deflection == Approx(2.435 * h * t * t * t / ei).epsilon(1e-2));
+  };
+  const auto sand = mustang_island(PyLoading::static_load);
+  check_small_load([sand](double z, double y) { return sand.resistance(z, y); },
+                   sand.initial_modulus);
+  auto clay = stiff_clay(PyLoading::static_load);
+  clay.initial_modulus = 135000.0;
+  check_small_load([clay](double z, double y) { return clay.resistance(z, y); },
+                   clay.initial_modulus);
 }

@@ -17,9 +17,11 @@
 #pragma once
 
 #include <cstddef>
+#include <optional>
 #include <string>
 #include <vector>
 
+#include "cairn/output/html_nonlinear.hpp"
 #include "cairn/output/html_report.hpp"
 #include "cairn/output/report.hpp"
 
@@ -72,6 +74,9 @@ struct CapPackageInput {
   std::vector<InputFileText> inputs;   // the project file first
   std::string project_name;            // running header: the foundation, else the cap
   std::string all_combinations_file;   // the full CSV's name beside the page, when written
+  // The nonlinear soil response (html_nonlinear.hpp), placed after the equilibrium section
+  // when it holds a governing pile or a pushover curve; absent for a linear run.
+  std::optional<NonlinearSection> nonlinear;
 };
 
 // The whole page of one cap ("<!DOCTYPE html>…").

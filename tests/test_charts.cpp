@@ -39,7 +39,8 @@ std::string markup_problem(const std::string& text, bool one_root) {
       const std::size_t end = text.find(';', at);
       if (end == std::string::npos || end - at > 8) return "bare '&' at " + std::to_string(at);
       const std::string ref = text.substr(at + 1, end - at - 1);
-      const bool named = ref == "amp" || ref == "lt" || ref == "gt" || ref == "quot" || ref == "apos";
+      const bool named =
+          ref == "amp" || ref == "lt" || ref == "gt" || ref == "quot" || ref == "apos";
       const bool numeric = ref.size() > 1 && ref[0] == '#' &&
                            ref.find_first_not_of("0123456789", 1) == std::string::npos;
       if (!named && !numeric) return "unknown reference &" + ref + ";";
@@ -150,8 +151,8 @@ PushoverCurve bilinear_curve(double step = 0.25) {
     PushoverPoint p;
     p.load_factor = l;
     p.load = l * h;
-    p.displacement = l <= yield_lambda ? l * h / k
-                                       : yield_lambda * h / k + (l - yield_lambda) * h / (0.1 * k);
+    p.displacement =
+        l <= yield_lambda ? l * h / k : yield_lambda * h / k + (l - yield_lambda) * h / (0.1 * k);
     p.cap_movement[0] = p.displacement;
     c.points.push_back(p);
   }
@@ -175,7 +176,8 @@ bool one_two_five(double step) {
 }
 
 // The SVG coordinate of attribute `name` ("cy") in the element after `marker`.
-double coordinate_after(const std::string& svg, const std::string& marker, const std::string& name) {
+double coordinate_after(const std::string& svg, const std::string& marker,
+                        const std::string& name) {
   const std::size_t at = svg.find(marker);
   REQUIRE(at != std::string::npos);
   return attribute_numbers(svg, name, at).front();
@@ -239,7 +241,8 @@ TEST_CASE("charts: the moment diagram of a long pile marks Hetényi's maximum at
   // rounded to 4 digits).
   CHECK(p.max_moment_depth == Approx(std::numbers::pi / (4.0 * l)).margin(0.025));
   CHECK(p.max_moment == close(0.3224 * kH / l, 1e-3));
-  CHECK(p.max_moment == close(kH / l * std::exp(-std::numbers::pi / 4) * std::sin(std::numbers::pi / 4), 1e-4));
+  CHECK(p.max_moment ==
+        close(kH / l * std::exp(-std::numbers::pi / 4) * std::sin(std::numbers::pi / 4), 1e-4));
 
   const std::vector<GoverningPileProfile> piles = {{"P1", "ULS-2", p}};
   const std::string svg = render_profile_chart_svg(ProfileQuantity::moment, piles, UnitSystem::SI);
@@ -268,8 +271,9 @@ TEST_CASE("charts: the moment diagram of a long pile marks Hetényi's maximum at
   const double cy = coordinate_after(svg, "class=\"max-moment\"", "cy");
   const double cx = coordinate_after(svg, "class=\"max-moment\"", "cx");
   CHECK(cy == Approx(plot[1] + plot[3] * p.max_moment_depth / depth_axis[1]).margin(0.01));
-  CHECK(cx == Approx(plot[0] + plot[2] * (p.max_moment - value_axis[0]) /
-                                   (value_axis[1] - value_axis[0])).margin(0.01));
+  CHECK(cx ==
+        Approx(plot[0] + plot[2] * (p.max_moment - value_axis[0]) / (value_axis[1] - value_axis[0]))
+            .margin(0.01));
 
   // In US units: kN·m → kip·ft and m → ft with 1 kip = 4.4482216152605 kN and
   // 1 ft = 0.3048 m (NIST SP 811 (2008), Appendix B): 57.33 kN·m = 42.29 kip·ft, 1.40 m = 4.6 ft.
@@ -286,8 +290,7 @@ TEST_CASE("charts: the moment diagram of a long pile marks Hetényi's maximum at
   CHECK(has(us, ">70</text>"));
 }
 
-TEST_CASE("charts: deflection and shear diagrams, several piles told apart by dashes",
-          "[charts]") {
+TEST_CASE("charts: deflection and shear diagrams, several piles told apart by dashes", "[charts]") {
   PileProfile second = hetenyi_profile();
   for (auto& v : second.deflection) v *= 0.5;
   for (auto& v : second.moment) v *= 0.5;
@@ -311,20 +314,25 @@ TEST_CASE("charts: deflection and shear diagrams, several piles told apart by da
   // Units of the deflection (mm, in) and shear (kN, kip) axes. The head deflection
   // 2·H·λ/k = 2.812 mm (Hetényi 1946, closed form above) is 0.111 in (1 in = 25.4 mm,
   // NIST SP 811 (2008), Appendix B).
-  const std::string si = render_profile_chart_svg(ProfileQuantity::deflection, piles, UnitSystem::SI);
-  const std::string us = render_profile_chart_svg(ProfileQuantity::deflection, piles, UnitSystem::US);
+  const std::string si =
+      render_profile_chart_svg(ProfileQuantity::deflection, piles, UnitSystem::SI);
+  const std::string us =
+      render_profile_chart_svg(ProfileQuantity::deflection, piles, UnitSystem::US);
   CHECK(has(si, "deflection across the pile (mm)</text>"));
   CHECK(has(us, "deflection across the pile (in)</text>"));
-  CHECK(attribute_numbers(si, "data-value-axis")[1] == 3.0);  // 2.812 mm on a round axis
+  CHECK(attribute_numbers(si, "data-value-axis")[1] == 3.0);           // 2.812 mm on a round axis
   CHECK(attribute_numbers(us, "data-value-axis")[1] == Approx(0.12));  // 0.111 in, steps of 0.02
-  CHECK(has(render_profile_chart_svg(ProfileQuantity::shear, piles, UnitSystem::SI), "shear force (kN)</text>"));
-  const std::string shear_us = render_profile_chart_svg(ProfileQuantity::shear, piles, UnitSystem::US);
+  CHECK(has(render_profile_chart_svg(ProfileQuantity::shear, piles, UnitSystem::SI),
+            "shear force (kN)</text>"));
+  const std::string shear_us =
+      render_profile_chart_svg(ProfileQuantity::shear, piles, UnitSystem::US);
   CHECK(has(shear_us, "shear force (kip)</text>"));
   // The shear changes sign below the head (cos λz − sin λz < 0 for λz > π/4): the axis holds
   // negative values and the zero line inside the plot.
   CHECK(attribute_numbers(shear_us, "data-value-axis")[0] < 0.0);
   // Nothing to draw: no string.
-  CHECK(render_profile_chart_svg(ProfileQuantity::moment, {{"P9", "C", failed}}, UnitSystem::SI).empty());
+  CHECK(render_profile_chart_svg(ProfileQuantity::moment, {{"P9", "C", failed}}, UnitSystem::SI)
+            .empty());
   CHECK(render_profile_chart_svg(ProfileQuantity::moment, {}, UnitSystem::SI).empty());
 }
 
@@ -414,10 +422,12 @@ TEST_CASE("html_nonlinear: the section escapes user text and lists each governin
   CHECK(has(html, "iteration &lt;stalled&gt;"));
   CHECK(has(html, "Pile P&quot;9 in ULS-5: the pile's solution did not converge"));
   // The table: max moment, its depth, head deflection (2·H·λ/k = 2.812 mm, Hetényi 1946).
-  CHECK(has(html, "<th>max moment (kN·m)</th><th>depth of max moment (m)</th><th>head "
-                  "deflection (mm)</th>"));
-  CHECK(has(html, "<td class=\"num\">57.3</td><td class=\"num\">1.40</td><td "
-                  "class=\"num\">2.812</td>"));
+  CHECK(has(html,
+            "<th>max moment (kN·m)</th><th>depth of max moment (m)</th><th>head "
+            "deflection (mm)</th>"));
+  CHECK(has(html,
+            "<td class=\"num\">57.3</td><td class=\"num\">1.40</td><td "
+            "class=\"num\">2.812</td>"));
   // Three depth diagrams and the pushover chart, each in a figure.
   CHECK(count(html, "<div class=\"figure\">") == 4);
   CHECK(count(html, "<svg ") == 4);
@@ -425,8 +435,9 @@ TEST_CASE("html_nonlinear: the section escapes user text and lists each governin
   // US units in the table: 57.3 kN·m = 42.29 kip·ft, 1.40 m = 4.6 ft, 2.812 mm = 0.111 in
   // (NIST SP 811 (2008), Appendix B factors).
   const std::string us = render_nonlinear_section_html(section, UnitSystem::US);
-  CHECK(has(us, "<td class=\"num\">42.29</td><td class=\"num\">4.6</td><td "
-                "class=\"num\">0.111</td>"));
+  CHECK(has(us,
+            "<td class=\"num\">42.29</td><td class=\"num\">4.6</td><td "
+            "class=\"num\">0.111</td>"));
   // Only a curve, or only piles.
   NonlinearSection only_curve;
   only_curve.pushover = bilinear_curve();
@@ -435,8 +446,7 @@ TEST_CASE("html_nonlinear: the section escapes user text and lists each governin
 
 TEST_CASE("html_nonlinear: the package shows the section only when it is given",
           "[charts][package]") {
-  const CheckRun run =
-      analyse_project(std::string(CAIRN_DEMO_DIR) + "/conveyor-pier-us/cap.yaml");
+  const CheckRun run = analyse_project(std::string(CAIRN_DEMO_DIR) + "/conveyor-pier-us/cap.yaml");
   const CheckReport report = make_check_report(run, "cairn report cap.yaml --out x", std::nullopt);
   CapPackageInput input;
   input.report.check = &report;

@@ -16,18 +16,17 @@ namespace {
 // The drawing: 640 px wide (the column of the package at 100 %), the plot inside margins
 // that hold the tick labels and axis titles.
 constexpr double kWidth = 640.0;
-constexpr double kLeft = 78.0;     // px, left edge of the plot: depth ticks and axis title
-constexpr double kTop = 58.0;      // px, top of the plot: value ticks and axis title above
+constexpr double kLeft = 78.0;  // px, left edge of the plot: depth ticks and axis title
+constexpr double kTop = 58.0;   // px, top of the plot: value ticks and axis title above
 constexpr double kPlotWidth = 520.0;
 constexpr double kPlotHeight = 400.0;
-constexpr double kLine = 16.0;     // px, one legend or caption line
+constexpr double kLine = 16.0;             // px, one legend or caption line
 constexpr std::size_t kCaptionChars = 96;  // about one line of 11 px text in 600 px
 
 // Series styles: a dash pattern each, so the lines part in black-and-white print; the inks
 // only help on screen (dark enough to print as near-black).
 constexpr const char* kDash[kSeriesStyles] = {"", "9 4", "2 3", "12 3 2 3", "5 5"};
-constexpr const char* kInk[kSeriesStyles] = {"#000000", "#1f4e9a", "#b3261e", "#1e7b34",
-                                             "#6a3d9a"};
+constexpr const char* kInk[kSeriesStyles] = {"#000000", "#1f4e9a", "#b3261e", "#1e7b34", "#6a3d9a"};
 
 std::string num(double v) { return fixed_text(v, 2); }  // px, no "-0.00"
 
@@ -69,8 +68,10 @@ std::vector<std::string> wrap(const std::string& text, std::size_t width) {
     word.clear();
   };
   for (char c : text) {
-    if (c == ' ' || c == '\n') flush_word();
-    else word += c;
+    if (c == ' ' || c == '\n')
+      flush_word();
+    else
+      word += c;
   }
   flush_word();
   if (!line.empty()) lines.push_back(line);
@@ -113,12 +114,13 @@ std::string axes(const Axis& x, const Axis& y, bool x_on_top, const std::string&
     s += fmt::format("<line x1=\"{0}\" y1=\"{1}\" x2=\"{0}\" y2=\"{2}\"/>\n", num(x(v)), num(top),
                      num(bottom));
   for (double v : y.ticks)
-    s += fmt::format("<line x1=\"{1}\" y1=\"{0}\" x2=\"{2}\" y2=\"{0}\"/>\n", num(y(v)),
-                     num(left), num(right));
+    s += fmt::format("<line x1=\"{1}\" y1=\"{0}\" x2=\"{2}\" y2=\"{0}\"/>\n", num(y(v)), num(left),
+                     num(right));
   s += "</g>\n";
-  s += fmt::format("<rect class=\"frame\" x=\"{}\" y=\"{}\" width=\"{}\" height=\"{}\" "
-                   "fill=\"none\" stroke=\"#000000\" stroke-width=\"1\"/>\n",
-                   num(left), num(top), num(right - left), num(bottom - top));
+  s += fmt::format(
+      "<rect class=\"frame\" x=\"{}\" y=\"{}\" width=\"{}\" height=\"{}\" "
+      "fill=\"none\" stroke=\"#000000\" stroke-width=\"1\"/>\n",
+      num(left), num(top), num(right - left), num(bottom - top));
   s += "<g class=\"ticks\" fill=\"#000000\">\n";
   const double tick_y = x_on_top ? top - 6.0 : bottom + 15.0;
   for (double v : x.ticks)
@@ -129,13 +131,15 @@ std::string axes(const Axis& x, const Axis& y, bool x_on_top, const std::string&
                      num(y(v) + 4.0), tick_text(v, y.step()));
   s += "</g>\n";
   const double title_y = x_on_top ? top - 26.0 : bottom + 34.0;
-  s += fmt::format("<text class=\"axis-label\" x=\"{}\" y=\"{}\" text-anchor=\"middle\" "
-                   "font-size=\"12\">{}</text>\n",
-                   num((left + right) / 2.0), num(title_y), xml_escape(x_title));
+  s += fmt::format(
+      "<text class=\"axis-label\" x=\"{}\" y=\"{}\" text-anchor=\"middle\" "
+      "font-size=\"12\">{}</text>\n",
+      num((left + right) / 2.0), num(title_y), xml_escape(x_title));
   const double ty = (top + bottom) / 2.0;
-  s += fmt::format("<text class=\"axis-label\" x=\"20\" y=\"{0}\" text-anchor=\"middle\" "
-                   "font-size=\"12\" transform=\"rotate(-90 20 {0})\">{1}</text>\n",
-                   num(ty), xml_escape(y_title));
+  s += fmt::format(
+      "<text class=\"axis-label\" x=\"20\" y=\"{0}\" text-anchor=\"middle\" "
+      "font-size=\"12\" transform=\"rotate(-90 20 {0})\">{1}</text>\n",
+      num(ty), xml_escape(y_title));
   return s;
 }
 
@@ -284,9 +288,10 @@ std::string render_profile_chart_svg(ProfileQuantity what,
   s += axes(x, y, true, fmt::format("{} ({})", view.axis_name, value_unit),
             fmt::format("depth below the pile head ({})", depth_unit));
   // The zero line, heavier than the grid.
-  s += fmt::format("<line class=\"zero\" x1=\"{0}\" y1=\"{1}\" x2=\"{0}\" y2=\"{2}\" "
-                   "stroke=\"#000000\" stroke-width=\"1.2\"/>\n",
-                   num(x(0.0)), num(kTop), num(kTop + kPlotHeight));
+  s += fmt::format(
+      "<line class=\"zero\" x1=\"{0}\" y1=\"{1}\" x2=\"{0}\" y2=\"{2}\" "
+      "stroke=\"#000000\" stroke-width=\"1.2\"/>\n",
+      num(x(0.0)), num(kTop), num(kTop + kPlotHeight));
 
   for (std::size_t k = 0; k < drawn.size(); ++k) {
     const PileProfile& p = drawn[k]->profile;
@@ -296,10 +301,10 @@ std::string render_profile_chart_svg(ProfileQuantity what,
       xs.push_back(x(shown.value(view.shown, values[i])));
       ys.push_back(y(shown.value(Shown::depth, p.depth[i])));
     }
-    s += fmt::format("<path class=\"series\" data-series=\"{}\" d=\"{}\" fill=\"none\" "
-                     "stroke-linejoin=\"round\" {}><title>{}</title></path>\n",
-                     attribute_escape(names[k]), path_data(xs, ys), series_stroke(k),
-                     xml_escape(names[k]));
+    s += fmt::format(
+        "<path class=\"series\" data-series=\"{}\" d=\"{}\" fill=\"none\" "
+        "stroke-linejoin=\"round\" {}><title>{}</title></path>\n",
+        attribute_escape(names[k]), path_data(xs, ys), series_stroke(k), xml_escape(names[k]));
   }
 
   // The largest moment of each pile: a ring on the curve, its value and depth beside it.
@@ -313,13 +318,14 @@ std::string render_profile_chart_svg(ProfileQuantity what,
       const bool left_of = mx > kLeft + kPlotWidth * 0.6;
       s += fmt::format(
           "<g class=\"max-moment\" data-pile=\"{}\" data-moment=\"{}\" data-depth=\"{}\">"
-          "<circle cx=\"{}\" cy=\"{}\" r=\"4.5\" fill=\"#ffffff\" stroke=\"{}\" stroke-width=\"2\"/>"
+          "<circle cx=\"{}\" cy=\"{}\" r=\"4.5\" fill=\"#ffffff\" stroke=\"{}\" "
+          "stroke-width=\"2\"/>"
           "<text x=\"{}\" y=\"{}\" text-anchor=\"{}\" font-weight=\"bold\" paint-order=\"stroke\" "
           "stroke=\"#ffffff\" stroke-width=\"3\">{}</text></g>\n",
           attribute_escape(drawn[k]->pile), shown.number(Shown::moment, p.max_moment),
-          shown.number(Shown::depth, p.max_moment_depth), num(mx), num(my),
-          kInk[k % kSeriesStyles], num(left_of ? mx - 8.0 : mx + 8.0), num(my + 4.0 + 13.0 * k),
-          left_of ? "end" : "start", xml_escape(label));
+          shown.number(Shown::depth, p.max_moment_depth), num(mx), num(my), kInk[k % kSeriesStyles],
+          num(left_of ? mx - 8.0 : mx + 8.0), num(my + 4.0 + 13.0 * k), left_of ? "end" : "start",
+          xml_escape(label));
     }
   }
 
@@ -331,10 +337,11 @@ std::string render_profile_chart_svg(ProfileQuantity what,
     if (marks)
       text += fmt::format(": max {} at {}", shown.text(Shown::moment, drawn[k]->profile.max_moment),
                           shown.text(Shown::depth, drawn[k]->profile.max_moment_depth));
-    s += fmt::format("<line x1=\"{0}\" y1=\"{1}\" x2=\"{2}\" y2=\"{1}\" {3}/><text x=\"{4}\" "
-                     "y=\"{5}\">{6}</text>\n",
-                     num(kLeft), num(ly), num(kLeft + 40.0), series_stroke(k), num(kLeft + 48.0),
-                     num(ly + 4.0), xml_escape(text));
+    s += fmt::format(
+        "<line x1=\"{0}\" y1=\"{1}\" x2=\"{2}\" y2=\"{1}\" {3}/><text x=\"{4}\" "
+        "y=\"{5}\">{6}</text>\n",
+        num(kLeft), num(ly), num(kLeft + 40.0), series_stroke(k), num(kLeft + 48.0), num(ly + 4.0),
+        xml_escape(text));
   }
   s += "</g>\n</svg>\n";
   return s;
@@ -352,7 +359,8 @@ PushoverMarks pushover_marks(const PushoverCurve& curve) {
     const double a = pts[i].load_factor, b = pts[i + 1].load_factor;
     if (a <= 1.0 && b >= 1.0 && b > a) {
       const double t = (1.0 - a) / (b - a);
-      m.factored_displacement = pts[i].displacement + t * (pts[i + 1].displacement - pts[i].displacement);
+      m.factored_displacement =
+          pts[i].displacement + t * (pts[i + 1].displacement - pts[i].displacement);
       break;
     }
   }
@@ -412,15 +420,16 @@ std::string render_pushover_chart_svg(const PushoverCurve& curve, UnitSystem uni
   }
   if (marks.capacity_point) {
     const PushoverPoint& c = curve.points[*marks.capacity_point];
-    capacity_text = fmt::format("capacity λ = {}: {} at {}", lambda_cap,
-                                shown.text(Shown::force, c.load),
-                                shown.text(Shown::displacement, c.displacement));
+    capacity_text =
+        fmt::format("capacity λ = {}: {} at {}", lambda_cap, shown.text(Shown::force, c.load),
+                    shown.text(Shown::displacement, c.displacement));
   }
   const std::string title = "Load–displacement (pushover) curve of the group" +
                             (curve.combination.empty() ? std::string() : ", " + curve.combination);
-  std::string desc = fmt::format("The {} ({}) against the cap's displacement along it ({}) as "
-                                 "the combination's loads grow by the factor λ.",
-                                 load_name, force_unit, disp_unit);
+  std::string desc = fmt::format(
+      "The {} ({}) against the cap's displacement along it ({}) as "
+      "the combination's loads grow by the factor λ.",
+      load_name, force_unit, disp_unit);
   if (!factored_text.empty()) desc += " Marked: the " + factored_text + ".";
   if (!capacity_text.empty()) desc += " Marked: the " + capacity_text + ".";
   desc += " " + end_text + ".";
@@ -440,9 +449,10 @@ std::string render_pushover_chart_svg(const PushoverCurve& curve, UnitSystem uni
     xs.push_back(x(shown.value(Shown::displacement, p->displacement)));
     ys.push_back(y(shown.value(Shown::force, p->load)));
   }
-  s += fmt::format("<path class=\"series\" data-series=\"pushover\" d=\"{}\" fill=\"none\" "
-                   "stroke=\"#000000\" stroke-width=\"2\" stroke-linejoin=\"round\"/>\n",
-                   path_data(xs, ys));
+  s += fmt::format(
+      "<path class=\"series\" data-series=\"pushover\" d=\"{}\" fill=\"none\" "
+      "stroke=\"#000000\" stroke-width=\"2\" stroke-linejoin=\"round\"/>\n",
+      path_data(xs, ys));
   for (std::size_t i = 0; i < xs.size(); ++i)
     s += fmt::format("<circle class=\"step\" cx=\"{}\" cy=\"{}\" r=\"1.8\" fill=\"#000000\"/>\n",
                      num(xs[i]), num(ys[i]));
@@ -450,49 +460,54 @@ std::string render_pushover_chart_svg(const PushoverCurve& curve, UnitSystem uni
   // λ = 1: a dashed level across the plot, and a ring where the curve reaches it.
   if (marks.factored_load) {
     const double fy = y(shown.value(Shown::force, *marks.factored_load));
-    s += fmt::format("<g class=\"factored\" data-load=\"{0}\"><line x1=\"{1}\" y1=\"{2}\" "
-                     "x2=\"{3}\" y2=\"{2}\" stroke=\"#000000\" stroke-width=\"1.2\" "
-                     "stroke-dasharray=\"7 4\"/>",
-                     shown.number(Shown::force, *marks.factored_load), num(kLeft), num(fy),
-                     num(kLeft + kPlotWidth));
+    s += fmt::format(
+        "<g class=\"factored\" data-load=\"{0}\"><line x1=\"{1}\" y1=\"{2}\" "
+        "x2=\"{3}\" y2=\"{2}\" stroke=\"#000000\" stroke-width=\"1.2\" "
+        "stroke-dasharray=\"7 4\"/>",
+        shown.number(Shown::force, *marks.factored_load), num(kLeft), num(fy),
+        num(kLeft + kPlotWidth));
     if (marks.factored_displacement)
-      s += fmt::format("<circle cx=\"{}\" cy=\"{}\" r=\"5\" fill=\"#ffffff\" stroke=\"#000000\" "
-                       "stroke-width=\"2\" data-displacement=\"{}\"/>",
-                       num(x(shown.value(Shown::displacement, *marks.factored_displacement))),
-                       num(fy), shown.number(Shown::displacement, *marks.factored_displacement));
-    s += fmt::format("<text x=\"{}\" y=\"{}\" text-anchor=\"end\" paint-order=\"stroke\" "
-                     "stroke=\"#ffffff\" stroke-width=\"3\">{}</text></g>\n",
-                     num(kLeft + kPlotWidth - 6.0), num(fy + 14.0), xml_escape(factored_text));
+      s += fmt::format(
+          "<circle cx=\"{}\" cy=\"{}\" r=\"5\" fill=\"#ffffff\" stroke=\"#000000\" "
+          "stroke-width=\"2\" data-displacement=\"{}\"/>",
+          num(x(shown.value(Shown::displacement, *marks.factored_displacement))), num(fy),
+          shown.number(Shown::displacement, *marks.factored_displacement));
+    s += fmt::format(
+        "<text x=\"{}\" y=\"{}\" text-anchor=\"end\" paint-order=\"stroke\" "
+        "stroke=\"#ffffff\" stroke-width=\"3\">{}</text></g>\n",
+        num(kLeft + kPlotWidth - 6.0), num(fy + 14.0), xml_escape(factored_text));
   }
   // The capacity: a filled square on the last point with equilibrium.
   if (marks.capacity_point) {
     const PushoverPoint& c = curve.points[*marks.capacity_point];
     const double cx = x(shown.value(Shown::displacement, c.displacement));
     const double cy = y(shown.value(Shown::force, c.load));
-    s += fmt::format("<g class=\"capacity\" data-load-factor=\"{}\" data-load=\"{}\"><rect x=\"{}\" "
-                     "y=\"{}\" width=\"10\" height=\"10\" fill=\"#000000\"/><text x=\"{}\" y=\"{}\" "
-                     "text-anchor=\"end\" font-weight=\"bold\" paint-order=\"stroke\" "
-                     "stroke=\"#ffffff\" stroke-width=\"3\">{}</text></g>\n",
-                     lambda_cap, shown.number(Shown::force, c.load), num(cx - 5.0), num(cy - 5.0),
-                     num(std::max(cx - 10.0, kLeft + 200.0)), num(cy - 10.0),
-                     xml_escape(capacity_text));
+    s += fmt::format(
+        "<g class=\"capacity\" data-load-factor=\"{}\" data-load=\"{}\"><rect x=\"{}\" "
+        "y=\"{}\" width=\"10\" height=\"10\" fill=\"#000000\"/><text x=\"{}\" y=\"{}\" "
+        "text-anchor=\"end\" font-weight=\"bold\" paint-order=\"stroke\" "
+        "stroke=\"#ffffff\" stroke-width=\"3\">{}</text></g>\n",
+        lambda_cap, shown.number(Shown::force, c.load), num(cx - 5.0), num(cy - 5.0),
+        num(std::max(cx - 10.0, kLeft + 200.0)), num(cy - 10.0), xml_escape(capacity_text));
   }
   // Key and caption under the plot.
   s += "<g class=\"legend\">\n";
   double ly = legend_top;
   if (!factored_text.empty()) {
-    s += fmt::format("<line x1=\"{0}\" y1=\"{1}\" x2=\"{2}\" y2=\"{1}\" stroke=\"#000000\" "
-                     "stroke-width=\"1.2\" stroke-dasharray=\"7 4\"/><text x=\"{3}\" y=\"{4}\">"
-                     "{5}</text>\n",
-                     num(kLeft), num(ly), num(kLeft + 40.0), num(kLeft + 48.0), num(ly + 4.0),
-                     xml_escape(factored_text));
+    s += fmt::format(
+        "<line x1=\"{0}\" y1=\"{1}\" x2=\"{2}\" y2=\"{1}\" stroke=\"#000000\" "
+        "stroke-width=\"1.2\" stroke-dasharray=\"7 4\"/><text x=\"{3}\" y=\"{4}\">"
+        "{5}</text>\n",
+        num(kLeft), num(ly), num(kLeft + 40.0), num(kLeft + 48.0), num(ly + 4.0),
+        xml_escape(factored_text));
     ly += kLine;
   }
   if (!capacity_text.empty()) {
-    s += fmt::format("<rect x=\"{}\" y=\"{}\" width=\"10\" height=\"10\" fill=\"#000000\"/>"
-                     "<text x=\"{}\" y=\"{}\">{}</text>\n",
-                     num(kLeft + 15.0), num(ly - 5.0), num(kLeft + 48.0), num(ly + 4.0),
-                     xml_escape(capacity_text));
+    s += fmt::format(
+        "<rect x=\"{}\" y=\"{}\" width=\"10\" height=\"10\" fill=\"#000000\"/>"
+        "<text x=\"{}\" y=\"{}\">{}</text>\n",
+        num(kLeft + 15.0), num(ly - 5.0), num(kLeft + 48.0), num(ly + 4.0),
+        xml_escape(capacity_text));
     ly += kLine;
   }
   s += "</g>\n<g class=\"caption\">\n";

@@ -28,7 +28,8 @@ std::string piles_table(const NonlinearSection& section, const QuantityFormat& s
       t.rows.push_back({g.pile, g.combination, "-", "-", "-"});
       failed += "<p class=\"note fail\">Pile " + html_escape(g.pile) + " in " +
                 html_escape(g.combination) + ": the pile's solution did not converge" +
-                (g.profile.message.empty() ? std::string() : " (" + html_escape(g.profile.message) + ")") +
+                (g.profile.message.empty() ? std::string()
+                                           : " (" + html_escape(g.profile.message) + ")") +
                 "; it is left out of the diagrams.</p>\n";
       continue;
     }
@@ -71,20 +72,22 @@ bool has_content(const NonlinearSection& section) {
 std::string render_nonlinear_section_html(const NonlinearSection& section, UnitSystem units) {
   if (!has_content(section)) return "";
   const QuantityFormat shown(units);
-  std::string html = "<section class=\"nonlinear\" id=\"nonlinear\">\n<h2>Nonlinear soil "
-                     "response: pile diagrams and pushover curve</h2>\n";
-  html += "<p>These results come from the nonlinear analysis, in which the soil's resistance "
-          "follows curves that soften as the pile moves instead of straight springs. Each "
-          "governing pile was solved along its length under the cap's movement in the "
-          "combination named; the diagrams show, against depth below the pile head, how far "
-          "the pile moves sideways (deflection), how much it bends (bending moment, its "
-          "largest value and depth marked) and the shear force, as the resultants of the two "
-          "bending planes. The pushover curve shows how far the cap moves along the load as "
-          "the combination's loads are scaled by a growing factor λ: λ = 1 is the load the "
-          "combination gives, and the largest λ at which the group still finds equilibrium is "
-          "its capacity, so the gap between the two is the group's reserve against lateral "
-          "failure. Every number depends on the soil curves chosen and should be checked "
-          "against the site's data.</p>\n";
+  std::string html =
+      "<section class=\"nonlinear\" id=\"nonlinear\">\n<h2>Nonlinear soil "
+      "response: pile diagrams and pushover curve</h2>\n";
+  html +=
+      "<p>These results come from the nonlinear analysis, in which the soil's resistance "
+      "follows curves that soften as the pile moves instead of straight springs. Each "
+      "governing pile was solved along its length under the cap's movement in the "
+      "combination named; the diagrams show, against depth below the pile head, how far "
+      "the pile moves sideways (deflection), how much it bends (bending moment, its "
+      "largest value and depth marked) and the shear force, as the resultants of the two "
+      "bending planes. The pushover curve shows how far the cap moves along the load as "
+      "the combination's loads are scaled by a growing factor λ: λ = 1 is the load the "
+      "combination gives, and the largest λ at which the group still finds equilibrium is "
+      "its capacity, so the gap between the two is the group's reserve against lateral "
+      "failure. Every number depends on the soil curves chosen and should be checked "
+      "against the site's data.</p>\n";
   html += "<p class=\"caution\">" + html_escape(kCaution) + "</p>\n";
   if (!section.piles.empty()) {
     html += "<h3>Governing piles</h3>\n";
@@ -97,8 +100,9 @@ std::string render_nonlinear_section_html(const NonlinearSection& section, UnitS
     html += "<h3>Pushover curve of the group</h3>\n";
     html += pushover_summary(*section.pushover, shown);
     const std::string chart = render_pushover_chart_svg(*section.pushover, units);
-    html += chart.empty() ? std::string("<p class=\"note\">The curve has fewer than two points: "
-                                        "nothing to draw.</p>\n")
+    html += chart.empty() ? std::string(
+                                "<p class=\"note\">The curve has fewer than two points: "
+                                "nothing to draw.</p>\n")
                           : figure(chart);
   }
   return html + "</section>";

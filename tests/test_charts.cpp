@@ -256,7 +256,7 @@ TEST_CASE("charts: the moment diagram of a long pile marks Hetényi's maximum at
   CHECK(count(svg, "class=\"max-moment\"") == 1);
   // λ = 0.5623/m: M_max = 57.33 kN·m at 1.3966 m, found on the grid at 1.40 m.
   CHECK(has(svg, "data-moment=\"57.3\" data-depth=\"1.40\""));
-  CHECK(has(svg, "max 57.3 kN·m at 1.40 m"));
+  CHECK(has(svg, "P1: max 57.3 kN·m at 1.40 m</text>"));
   CHECK(count(svg, "class=\"zero\"") == 1);
   // The marker sits at its depth on the plot: Y = top + height·z / (axis bottom).
   const auto plot = attribute_numbers(svg, "data-plot");
@@ -330,6 +330,26 @@ TEST_CASE("charts: deflection and shear diagrams, several piles told apart by da
   // The shear changes sign below the head (cos λz − sin λz < 0 for λz > π/4): the axis holds
   // negative values and the zero line inside the plot.
   CHECK(attribute_numbers(shear_us, "data-value-axis")[0] < 0.0);
+  // Two maxima at the same depth: their labels are set apart instead of overprinting.
+  const std::string moments =
+      render_profile_chart_svg(ProfileQuantity::moment, piles, UnitSystem::SI);
+  const std::size_t first_mark = moments.find("class=\"max-moment\"");
+  const std::size_t second_mark = moments.find("class=\"max-moment\"", first_mark + 1);
+  REQUIRE(second_mark != std::string::npos);
+  const double label1 = attribute_numbers(moments, "y", moments.find("<text", first_mark)).front();
+  const double label2 = attribute_numbers(moments, "y", moments.find("<text", second_mark)).front();
+  CHECK(std::abs(label2 - label1) >= 13.0);
+  // Gaps in the data (a non-finite point) break the line; an unknown maximum is not marked;
+  // nothing prints "nan".
+  PileProfile gappy = hetenyi_profile();
+  gappy.moment[10] = std::nan("");
+  gappy.max_moment = std::nan("");
+  const std::string gap_svg =
+      render_profile_chart_svg(ProfileQuantity::moment, {{"P2", "C", gappy}}, UnitSystem::SI);
+  CHECK(markup_problem(gap_svg, true).empty());
+  CHECK_FALSE(has(gap_svg, "nan"));
+  CHECK_FALSE(has(gap_svg, "class=\"max-moment\""));
+  CHECK(count(gap_svg, " M") == 1);  // the path starts again once, after the gap
   // Nothing to draw: no string.
   CHECK(render_profile_chart_svg(ProfileQuantity::moment, {{"P9", "C", failed}}, UnitSystem::SI)
             .empty());

@@ -185,6 +185,27 @@ std::string series_name(const GoverningPileProfile& g) {
   return "pile " + g.pile + (g.combination.empty() ? std::string() : " (" + g.combination + ")");
 }
 
+// Whether the profile's largest moment can be marked (finite value and depth).
+bool marked(const PileProfile& p) {
+  return std::isfinite(p.max_moment) && std::isfinite(p.max_moment_depth);
+}
+
+// The y of each marker's label: at its marker, moved down where it would sit closer than
+// `gap` px to the label above it, so that labels at the same depth do not overprint.
+std::vector<double> label_rows(const std::vector<double>& wanted, double gap) {
+  std::vector<std::size_t> order(wanted.size());
+  for (std::size_t i = 0; i < order.size(); ++i) order[i] = i;
+  std::stable_sort(order.begin(), order.end(),
+                   [&](std::size_t a, std::size_t b) { return wanted[a] < wanted[b]; });
+  std::vector<double> rows(wanted.size());
+  double last = -std::numeric_limits<double>::infinity();
+  for (std::size_t i : order) {
+    rows[i] = std::max(wanted[i], last + gap);
+    last = rows[i];
+  }
+  return rows;
+}
+
 bool drawable(const GoverningPileProfile& g, const ProfileView& view) {
   return g.profile.converged && !g.profile.depth.empty() && !view.values(g.profile).empty();
 }
@@ -255,6 +276,12 @@ std::string render_profile_chart_svg(ProfileQuantity what,
       vmax = std::max(vmax, shown.value(view.shown, values[i]));
       dmax = std::max(dmax, shown.value(Shown::depth, depth[i]));
     }
+    // The marked maximum lies inside the plot even where the solver found it between points.
+    if (what == ProfileQuantity::moment && marked(g->profile)) {
+      vmin = std::min(vmin, shown.value(Shown::moment, g->profile.max_moment));
+      vmax = std::max(vmax, shown.value(Shown::moment, g->profile.max_moment));
+      dmax = std::max(dmax, shown.value(Shown::depth, g->profile.max_moment_depth));
+    }
   }
   Axis x{nice_ticks(vmin, vmax, 8), kLeft, kLeft + kPlotWidth};
   Axis y{nice_ticks(0.0, dmax, 8), kTop, kTop + kPlotHeight};
@@ -274,9 +301,10 @@ std::string render_profile_chart_svg(ProfileQuantity what,
       depth_unit, value_unit);
   if (marks)
     for (const auto* g : drawn)
-      desc += fmt::format(" Pile {}: largest moment {} at {} depth.", g->pile,
-                          shown.text(Shown::moment, g->profile.max_moment),
-                          shown.text(Shown::depth, g->profile.max_moment_depth));
+      if (marked(g->profile))
+        desc += fmt::format(" Pile {}: largest moment {} at {} depth.", g->pile,
+                            shown.text(Shown::moment, g->profile.max_moment),
+                            shown.text(Shown::depth, g->profile.max_moment_depth));
 
   const double legend_top = kTop + kPlotHeight + 26.0;
   const double height = legend_top + kLine * static_cast<double>(drawn.size()) + 14.0;
@@ -309,12 +337,20 @@ std::string render_profile_chart_svg(ProfileQuantity what,
 
   // The largest moment of each pile: a ring on the curve, its value and depth beside it.
   if (marks) {
+    std::vector<double> wanted;
+    for (const auto* g : drawn)
+      wanted.push_back(marked(g->profile)
+                           ? y(shown.value(Shown::depth, g->profile.max_moment_depth)) + 4.0
+                           : 0.0);
+    const std::vector<double> rows = label_rows(wanted, 13.0);
     for (std::size_t k = 0; k < drawn.size(); ++k) {
       const PileProfile& p = drawn[k]->profile;
+      if (!marked(p)) continue;
       const double mx = x(shown.value(Shown::moment, p.max_moment));
       const double my = y(shown.value(Shown::depth, p.max_moment_depth));
-      const std::string label = fmt::format("max {} at {}", shown.text(Shown::moment, p.max_moment),
-                                            shown.text(Shown::depth, p.max_moment_depth));
+      const std::string label =
+          fmt::format("{}: max {} at {}", drawn[k]->pile, shown.text(Shown::moment, p.max_moment),
+                      shown.text(Shown::depth, p.max_moment_depth));
       const bool left_of = mx > kLeft + kPlotWidth * 0.6;
       s += fmt::format(
           "<g class=\"max-moment\" data-pile=\"{}\" data-moment=\"{}\" data-depth=\"{}\">"
@@ -324,7 +360,7 @@ std::string render_profile_chart_svg(ProfileQuantity what,
           "stroke=\"#ffffff\" stroke-width=\"3\">{}</text></g>\n",
           attribute_escape(drawn[k]->pile), shown.number(Shown::moment, p.max_moment),
           shown.number(Shown::depth, p.max_moment_depth), num(mx), num(my), kInk[k % kSeriesStyles],
-          num(left_of ? mx - 8.0 : mx + 8.0), num(my + 4.0 + 13.0 * k), left_of ? "end" : "start",
+          num(left_of ? mx - 8.0 : mx + 8.0), num(rows[k]), left_of ? "end" : "start",
           xml_escape(label));
     }
   }
@@ -334,7 +370,7 @@ std::string render_profile_chart_svg(ProfileQuantity what,
   for (std::size_t k = 0; k < drawn.size(); ++k) {
     const double ly = legend_top + kLine * static_cast<double>(k);
     std::string text = names[k];
-    if (marks)
+    if (marks && marked(drawn[k]->profile))
       text += fmt::format(": max {} at {}", shown.text(Shown::moment, drawn[k]->profile.max_moment),
                           shown.text(Shown::depth, drawn[k]->profile.max_moment_depth));
     s += fmt::format(

@@ -102,7 +102,7 @@ std::vector<double> attribute_numbers(const std::string& svg, const std::string&
 
 // A long pile in uniform elastic soil with a lateral load H at a free head, no head moment:
 // the closed form of the beam on an elastic foundation (Hetényi 1946, Beams on Elastic
-// Foundation, the semi-infinite beam with an end force), with λ = (k/(4·EI))^¼ and k the
+// Foundation, the semi-infinite beam with an end force; the closed form from memory), with λ = (k/(4·EI))^¼ and k the
 // soil's modulus per unit length of pile (kN/m²):
 //     y(z) = (2·H·λ/k)·e^(−λz)·cos λz,   M(z) = (H/λ)·e^(−λz)·sin λz,
 //     V(z) = dM/dz = H·e^(−λz)·(cos λz − sin λz).
@@ -243,6 +243,25 @@ TEST_CASE("charts: the moment diagram of a long pile marks Hetényi's maximum at
   CHECK(p.max_moment == close(0.3224 * kH / l, 1e-3));
   CHECK(p.max_moment ==
         close(kH / l * std::exp(-std::numbers::pi / 4) * std::sin(std::numbers::pi / 4), 1e-4));
+
+  // The recalled closed form solves the beam on elastic foundation, EI·y⁗ + k·y = 0, with
+  // the moment EI·y″ (sign as plotted) and the shear dM/dz: checked by central differences
+  // (h = 1e-2 m, error of order h² ≈ 1e-4 relative), and the head is free (M(0) = 0, V(0) = H).
+  const auto y = [&](double z) {
+    return 2.0 * kH * l / kSoil * std::exp(-l * z) * std::cos(l * z);
+  };
+  const double h = 1e-2;
+  for (double z : {0.5, 1.0, 2.0, 3.5}) {
+    CAPTURE(z);
+    const double d2 = (y(z + h) - 2.0 * y(z) + y(z - h)) / (h * h);
+    const double d4 =
+        (y(z + 2 * h) - 4 * y(z + h) + 6 * y(z) - 4 * y(z - h) + y(z - 2 * h)) / std::pow(h, 4);
+    CHECK(kEI * d4 + kSoil * y(z) == Approx(0.0).margin(1e-3 * kSoil * std::abs(y(0.0))));
+    const double moment = kH / l * std::exp(-l * z) * std::sin(l * z);
+    CHECK(kEI * d2 == close(moment, 1e-3));
+  }
+  CHECK(p.moment.front() == Approx(0.0).margin(1e-12));
+  CHECK(p.shear.front() == close(kH, 1e-12));
 
   const std::vector<GoverningPileProfile> piles = {{"P1", "ULS-2", p}};
   const std::string svg = render_profile_chart_svg(ProfileQuantity::moment, piles, UnitSystem::SI);

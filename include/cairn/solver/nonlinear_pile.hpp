@@ -54,6 +54,10 @@ struct NonlinearPileSpec {
   bool tension = true;             // false: the pile takes no tension (no axial action < 0)
   PileCurves curves;
   int segments = 60;               // finite-difference segments along the pile
+  // The largest head deflection (resultant across the axis, m) the curves are used for;
+  // beyond it pile_head_response returns converged = false (the pile has reached its lateral
+  // capacity). 0: the pile's width, or L/10 without a width.
+  double deflection_limit = 0.0;
 };
 
 // The head movement of one pile: u (m) and ω (rad), global.

@@ -372,3 +372,25 @@ TEST_CASE("nonlinear pile: the profile's moment and shear at the head match the 
   const double lambda = std::pow(12000.0 / (4.0 * kEI), 0.25);
   REQUIRE(free_head.max_moment_depth == close(std::numbers::pi / 4.0 / lambda, 0.1));
 }
+
+TEST_CASE("nonlinear pile: a call started from a nearby state gives the same answer",
+          "[nonlinear_pile]") {
+  // Common practice (Newton's method): the solution does not depend on the starting point.
+  cairn::SoftClayPy clay;
+  clay.undrained_strength = 30.0;
+  clay.effective_unit_weight = 8.0;
+  clay.width = 0.6;
+  NonlinearPileSpec pile = linear_pile(0.0, fixed());
+  pile.curves.lateral = [clay](double z, double y) { return clay.resistance(z, y); };
+  cairn::PileState state;
+  REQUIRE(cairn::pile_head_response(pile, {0.02, 0.01, -0.004, 0, 0.002, 0}, 1.0, &state).converged);
+  REQUIRE_FALSE(state.lateral.empty());
+  const HeadMovement next{0.025, 0.008, -0.005, 0.0005, 0.0015, 0};
+  const auto warm = cairn::pile_head_response(pile, next, 1.0, &state);
+  const auto cold = cairn::pile_head_response(pile, next);
+  REQUIRE(warm.converged);
+  for (int i = 0; i < 6; ++i) {
+    REQUIRE(warm.action[i] == close(cold.action[i], 1e-7, 1e-6));
+    for (int j = 0; j < 6; ++j) REQUIRE(warm.tangent[i][j] == close(cold.tangent[i][j], 1e-6, 1e-3));
+  }
+}

@@ -31,7 +31,9 @@ using Vec3 = std::array<double, 3>;
 constexpr double kTiny = 1e-6;
 constexpr int kNewtonLimit = 60;
 constexpr int kSecantLimit = 200;
-constexpr double kTolerance = 1e-10;  // relative size of the last Newton correction
+// The last Newton correction relative to the largest movement: with quadratic convergence the
+// error left after it is of its square.
+constexpr double kTolerance = 1e-8;
 
 double dot(const Vec3& p, const Vec3& q) { return p[0] * q[0] + p[1] * q[1] + p[2] * q[2]; }
 Vec3 cross(const Vec3& p, const Vec3& q) {
@@ -39,10 +41,14 @@ Vec3 cross(const Vec3& p, const Vec3& q) {
 }
 
 // A symmetric banded matrix, upper triangle stored row by row: (i, j) for i ≤ j ≤ i + band.
+// From row `inner_from` on the band is `inner_band` (narrower: the head's rows couple farther),
+// and only that trailing block is factored and solved.
 class Band {
  public:
   Band() = default;
-  Band(int size, int band) : size_(size), band_(band), a_(static_cast<std::size_t>(size * (band + 1)), 0.0) {}
+  Band(int size, int band, int inner_from, int inner_band)
+      : size_(size), band_(band), inner_from_(inner_from), inner_band_(inner_band),
+        a_(static_cast<std::size_t>(size * (band + 1)), 0.0) {}
   int size() const { return size_; }
   double get(int i, int j) const {
     if (j < i) std::swap(i, j);
@@ -51,7 +57,8 @@ class Band {
   }
   void add(int i, int j, double v) {
     if (j < i) std::swap(i, j);
-    if (j - i > band_) throw std::logic_error("nonlinear pile: entry outside the band");
+    if (j - i > (i >= inner_from_ ? inner_band_ : band_))
+      throw std::logic_error("nonlinear pile: entry outside the band");
     a_[index(i, j)] += v;
   }
   // y = A·x.
@@ -59,35 +66,39 @@ class Band {
     std::fill(y.begin(), y.end(), 0.0);
     for (int i = 0; i < size_; ++i) {
       const double* row = &a_[index(i, i)];
-      y[static_cast<std::size_t>(i)] += row[0] * x[static_cast<std::size_t>(i)];
-      const int last = std::min(size_ - 1, i + band_);
+      const double xi = x[static_cast<std::size_t>(i)];
+      double yi = y[static_cast<std::size_t>(i)] + row[0] * xi;
+      const int last = std::min(size_ - 1, i + (i >= inner_from_ ? inner_band_ : band_));
       for (int j = i + 1; j <= last; ++j) {
         const double v = row[j - i];
-        y[static_cast<std::size_t>(i)] += v * x[static_cast<std::size_t>(j)];
-        y[static_cast<std::size_t>(j)] += v * x[static_cast<std::size_t>(i)];
+        yi += v * x[static_cast<std::size_t>(j)];
+        y[static_cast<std::size_t>(j)] += v * xi;
       }
+      y[static_cast<std::size_t>(i)] = yi;
     }
   }
-  // In place A = Uᵀ·D·U on the rows and columns from `first` on (U unit upper triangular,
-  // stored above the diagonal, D on it). False when a pivot is not clearly non-zero (or, with
-  // `positive`, not clearly positive): the matrix is singular or indefinite.
-  bool factor(int first, bool positive) {
-    for (int k = first; k < size_; ++k) {
+  // In place A = Uᵀ·D·U on the trailing block (U unit upper triangular, stored above the
+  // diagonal, D on it). False when a pivot is not clearly non-zero (or, with `positive`, not
+  // clearly positive) against the diagonal before factoring: the matrix is singular or
+  // indefinite.
+  bool factor(bool positive) {
+    for (int k = inner_from_; k < size_; ++k) {
       double* row = &a_[index(k, k)];
       const double d = row[0];
       const double scale = std::abs(diagonal_before_[static_cast<std::size_t>(k)]);
       if (!std::isfinite(d) || std::abs(d) <= 1e-11 * scale || (positive && d <= 0.0) ||
           scale == 0.0)
         return false;
-      const int last = std::min(size_ - 1, k + band_);
+      const int last = std::min(size_ - 1, k + inner_band_);
       for (int j = k + 1; j <= last; ++j) {
         const double ukj = row[j - k];
         if (ukj == 0.0) continue;
         const double factor_j = ukj / d;
-        double* rj = &a_[index(j, j)];
-        for (int m = j; m <= last; ++m) rj[m - j] -= factor_j * row[m - k];
+        double* rj = &a_[index(j, j)] - j;
+        for (int m = j; m <= last; ++m) rj[m] -= factor_j * row[m - k];
       }
-      for (int j = k + 1; j <= last; ++j) row[j - k] /= d;
+      const double inverse = 1.0 / d;
+      for (int j = k + 1; j <= last; ++j) row[j - k] *= inverse;
     }
     return true;
   }
@@ -95,18 +106,18 @@ class Band {
     diagonal_before_.resize(static_cast<std::size_t>(size_));
     for (int i = 0; i < size_; ++i) diagonal_before_[static_cast<std::size_t>(i)] = a_[index(i, i)];
   }
-  // Solves the factored trailing block for b (indices from `first`), in place.
-  void solve(int first, std::vector<double>& b) const {
-    for (int k = first; k < size_; ++k) {
+  // Solves the factored trailing block for b (its entries from inner_from on), in place.
+  void solve(std::vector<double>& b) const {
+    for (int k = inner_from_; k < size_; ++k) {
       const double* row = &a_[index(k, k)];
       const double bk = b[static_cast<std::size_t>(k)];
-      const int last = std::min(size_ - 1, k + band_);
+      const int last = std::min(size_ - 1, k + inner_band_);
       for (int j = k + 1; j <= last; ++j) b[static_cast<std::size_t>(j)] -= row[j - k] * bk;
+      b[static_cast<std::size_t>(k)] = bk / row[0];
     }
-    for (int k = first; k < size_; ++k) b[static_cast<std::size_t>(k)] /= a_[index(k, k)];
-    for (int k = size_ - 1; k >= first; --k) {
+    for (int k = size_ - 1; k >= inner_from_; --k) {
       const double* row = &a_[index(k, k)];
-      const int last = std::min(size_ - 1, k + band_);
+      const int last = std::min(size_ - 1, k + inner_band_);
       double s = b[static_cast<std::size_t>(k)];
       for (int j = k + 1; j <= last; ++j) s -= row[j - k] * b[static_cast<std::size_t>(j)];
       b[static_cast<std::size_t>(k)] = s;
@@ -117,7 +128,7 @@ class Band {
   std::size_t index(int i, int j) const {
     return static_cast<std::size_t>(i * (band_ + 1) + (j - i));
   }
-  int size_ = 0, band_ = 0;
+  int size_ = 0, band_ = 0, inner_from_ = 0, inner_band_ = 0;
   std::vector<double> a_;
   std::vector<double> diagonal_before_;
 };
@@ -205,7 +216,8 @@ struct AxialResult {
   std::vector<double> element_force;  // per element, compression positive, kN
 };
 
-AxialResult solve_axial(const NonlinearPileSpec& pile, double head_movement) {
+AxialResult solve_axial(const NonlinearPileSpec& pile, double head_movement,
+                        const std::vector<double>* start) {
   const int n = pile.segments;
   const double h = pile.length / n, ea = pile.axial_rigidity, k_bar = ea / h;
   const auto& shaft = pile.curves.shaft;
@@ -239,6 +251,7 @@ AxialResult solve_axial(const NonlinearPileSpec& pile, double head_movement) {
   };
   AxialResult out;
   std::vector<double> w(static_cast<std::size_t>(n + 1), 0.0);
+  if (start && start->size() == w.size()) w = *start;
   w[0] = head_movement;
   // Interior unknowns 1 … n: tridiagonal, diagonal d, off-diagonal −EA/h.
   std::vector<double> force(static_cast<std::size_t>(n + 1)), tangent(static_cast<std::size_t>(n + 1));
@@ -348,7 +361,7 @@ class Lateral {
       : pile_(pile), multiplier_(multiplier), n_(pile.segments), h_(pile.length / pile.segments),
         fixed_(pile.restraint.kind == HeadRestraint::Kind::fixed),
         first_(4), size_((fixed_ ? 4 : 6) + 4 * n_), axial_(axial_force) {
-    linear_ = Band(size_, kBand);
+    linear_ = Band(size_, kBand, first_, kInnerBand);
     const double ei = pile.bending_stiffness, h = h_;
     for (int plane = 0; plane < 2; ++plane)
       for (int e = 0; e < n_; ++e) {
@@ -401,8 +414,10 @@ class Lateral {
   }
 
   // Solves for the head's prescribed deflections y0 and cap slopes φ = −θ_cap per plane.
-  bool solve(const std::array<double, 4>& boundary, std::string& message) {
+  bool solve(const std::array<double, 4>& boundary, const std::vector<double>* start,
+             std::string& message) {
     d_.assign(static_cast<std::size_t>(size_), 0.0);
+    if (start && start->size() == d_.size()) d_ = *start;
     for (int i = 0; i < 4; ++i) d_[static_cast<std::size_t>(i)] = boundary[static_cast<std::size_t>(i)];
     std::vector<double> f(static_cast<std::size_t>(size_)), step(static_cast<std::size_t>(size_)),
         trial(static_cast<std::size_t>(size_)), f_trial(static_cast<std::size_t>(size_));
@@ -416,13 +431,13 @@ class Lateral {
       if (!secant_mode) {
         add_soil(k, Tangent::clipped);
         k.remember_diagonal();
-        if (!k.factor(first_, true)) secant_mode = true;
+        if (!k.factor(true)) secant_mode = true;
       }
       if (secant_mode) {
         k = linear_;
         add_soil(k, Tangent::secant);
         k.remember_diagonal();
-        if (!k.factor(first_, true)) {
+        if (!k.factor(true)) {
           message = unstable_message();
           return false;
         }
@@ -431,7 +446,7 @@ class Lateral {
       // with f from the secant matrix, which is the same since f = K_sec·d.
       std::fill(step.begin(), step.end(), 0.0);
       for (int i = first_; i < size_; ++i) step[static_cast<std::size_t>(i)] = -f[static_cast<std::size_t>(i)];
-      k.solve(first_, step);
+      k.solve(step);
       double g0 = 0.0;
       for (int i = first_; i < size_; ++i) g0 += step[static_cast<std::size_t>(i)] * f[static_cast<std::size_t>(i)];
       auto slope = [&](double alpha) {
@@ -482,14 +497,14 @@ class Lateral {
     add_soil(k, Tangent::full);
     Band factored = k;
     factored.remember_diagonal();
-    if (!factored.factor(first_, false)) {
+    if (!factored.factor(false)) {
       // The true tangent is singular (every spring at its ultimate with a pinned head: the pile
       // turns as a rigid body); try the clipped one, else say so.
       factored = linear_;
       add_soil(factored, Tangent::clipped);
       k = factored;
       factored.remember_diagonal();
-      if (!factored.factor(first_, true)) {
+      if (!factored.factor(true)) {
         message = unstable_message();
         return false;
       }
@@ -502,7 +517,7 @@ class Lateral {
         column[static_cast<std::size_t>(i)] = k.get(b, i);
         any = any || column[static_cast<std::size_t>(i)] != 0.0;
       }
-      if (any) factored.solve(first_, column);
+      if (any) factored.solve(column);
       for (int a = 0; a < 4; ++a) {
         double s = k.get(a, b);
         if (any)
@@ -533,7 +548,9 @@ class Lateral {
   }
 
  private:
-  static constexpr int kBand = 9;
+  // The head's rows reach 9 places right; from the first interior unknown on, 5 (node i's
+  // v1 to node i + 1's s1).
+  static constexpr int kBand = 9, kInnerBand = 5;
   enum class Tangent { full, clipped, secant };
 
   double tributary(int node) const { return (node == 0 || node == n_) ? 0.5 * h_ : h_; }
@@ -549,6 +566,13 @@ class Lateral {
     return c;
   }
 
+  // The soil's secant p(r)/r at node `node` (one evaluation of the curve), kN/m per m.
+  double soil_secant(int node, double r) const {
+    const double z = node * h_, scale = multiplier_ * tributary(node);
+    const double at = std::max(r, kTiny);
+    return scale * pile_.curves.lateral(z, at) / at;
+  }
+
   // f = K_lin·d + the soil's nodal forces (p along the resultant deflection).
   void forces(const std::vector<double>& d, std::vector<double>& f) const {
     linear_.multiply(d, f);
@@ -557,9 +581,9 @@ class Lateral {
       const double y1 = d[static_cast<std::size_t>(i1)], y2 = d[static_cast<std::size_t>(i2)];
       const double r = std::hypot(y1, y2);
       if (r == 0.0) continue;
-      const CurvePoint c = soil(node, r);
-      f[static_cast<std::size_t>(i1)] += c.secant * y1;
-      f[static_cast<std::size_t>(i2)] += c.secant * y2;
+      const double secant = soil_secant(node, r);
+      f[static_cast<std::size_t>(i1)] += secant * y1;
+      f[static_cast<std::size_t>(i2)] += secant * y2;
     }
   }
 
@@ -629,7 +653,7 @@ struct Solved {
 };
 
 void solve_pile(const NonlinearPileSpec& pile, const HeadMovement& movement, double multiplier,
-                Solved& out) {
+                PileState* state, Solved& out) {
   validate(pile, movement, multiplier);
   const Vec3& a = pile.axis;
   const Vec3 u{movement[0], movement[1], movement[2]}, w{movement[3], movement[4], movement[5]};
@@ -647,7 +671,7 @@ void solve_pile(const NonlinearPileSpec& pile, const HeadMovement& movement, dou
                                                           : "a tenth of the pile's length");
     return;
   }
-  out.axial = solve_axial(pile, dot(u, a));
+  out.axial = solve_axial(pile, dot(u, a), state ? &state->axial : nullptr);
   if (!out.axial.converged) {
     out.message = out.axial.message;
     return;
@@ -659,17 +683,26 @@ void solve_pile(const NonlinearPileSpec& pile, const HeadMovement& movement, dou
   const std::array<double, 4> boundary{dot(out.e1, u), dot(out.e2, u), -dot(out.g1, w),
                                        -dot(out.g2, w)};
   out.lateral.emplace(pile, out.axial.element_force, multiplier);
-  if (!out.lateral->solve(boundary, out.message)) return;
+  if (!out.lateral->solve(boundary, state ? &state->lateral : nullptr, out.message)) return;
   out.converged = true;
+  if (state) {
+    state->axial = out.axial.movement;
+    state->lateral = out.lateral->state();
+  }
 }
 
 }  // namespace
 
 PileHeadResponse pile_head_response(const NonlinearPileSpec& pile, const HeadMovement& movement,
                                     double p_multiplier) {
+  return pile_head_response(pile, movement, p_multiplier, nullptr);
+}
+
+PileHeadResponse pile_head_response(const NonlinearPileSpec& pile, const HeadMovement& movement,
+                                    double p_multiplier, PileState* state) {
   PileHeadResponse out;
   Solved s;
-  solve_pile(pile, movement, p_multiplier, s);
+  solve_pile(pile, movement, p_multiplier, state, s);
   if (!s.converged) {
     out.message = s.message;
     return out;
@@ -713,7 +746,7 @@ PileProfile pile_profile(const NonlinearPileSpec& pile, const HeadMovement& move
                          double p_multiplier) {
   PileProfile out;
   Solved s;
-  solve_pile(pile, movement, p_multiplier, s);
+  solve_pile(pile, movement, p_multiplier, nullptr, s);
   if (!s.converged) {
     out.message = s.message;
     return out;

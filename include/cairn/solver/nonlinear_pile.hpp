@@ -75,6 +75,17 @@ struct PileHeadResponse {
 PileHeadResponse pile_head_response(const NonlinearPileSpec& pile, const HeadMovement& movement,
                                     double p_multiplier = 1.0);
 
+// The converged deflected shape of one pile (the solver's unknowns), kept by the caller
+// between calls for the same pile and multiplier: a call given the state of a nearby movement
+// starts its Newton iteration from it instead of from rest (a few iterations instead of about
+// ten). Empty, or from another pile: ignored. Updated on convergence only.
+struct PileState {
+  std::vector<double> lateral;  // deflections and slopes of the nodes, both planes
+  std::vector<double> axial;    // movements of the nodes along the axis
+};
+PileHeadResponse pile_head_response(const NonlinearPileSpec& pile, const HeadMovement& movement,
+                                    double p_multiplier, PileState* state);
+
 // The pile along its length at a head movement: the resultant of the two bending planes.
 struct PileProfile {
   bool converged = false;

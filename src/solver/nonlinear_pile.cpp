@@ -229,10 +229,17 @@ AxialResult solve_axial(const NonlinearPileSpec& pile, double head_movement,
     force = 0.0;
     tangent = 0.0;
     if (shaft) {
-      const double z = i * h, r = std::abs(w);
-      const CurvePoint c = curve_point([&](double x) { return shaft(z, x); }, r);
-      force += trib(i) * std::copysign(c.value, w);
-      tangent += trib(i) * c.tangent;
+      // t(z, w) need not be odd (less friction in tension): evaluated on its own side.
+      const double z = i * h;
+      if (std::abs(w) < kTiny) {
+        const double k = w < 0.0 ? -shaft(z, -kTiny) / kTiny : shaft(z, kTiny) / kTiny;
+        force += trib(i) * k * w;
+        tangent += trib(i) * k;
+      } else {
+        const double step = 1e-6 * std::abs(w);
+        force += trib(i) * shaft(z, w);
+        tangent += trib(i) * (shaft(z, w + step) - shaft(z, w - step)) / (2.0 * step);
+      }
     }
     if (i == n && tip) {
       // Q(w) is 0 for w ≤ 0: its slope at rest is the one into the ground.
@@ -653,7 +660,7 @@ struct Solved {
 };
 
 void solve_pile(const NonlinearPileSpec& pile, const HeadMovement& movement, double multiplier,
-                PileState* state, Solved& out) {
+                DeflectedShape* state, Solved& out) {
   validate(pile, movement, multiplier);
   const Vec3& a = pile.axis;
   const Vec3 u{movement[0], movement[1], movement[2]}, w{movement[3], movement[4], movement[5]};
@@ -699,7 +706,7 @@ PileHeadResponse pile_head_response(const NonlinearPileSpec& pile, const HeadMov
 }
 
 PileHeadResponse pile_head_response(const NonlinearPileSpec& pile, const HeadMovement& movement,
-                                    double p_multiplier, PileState* state) {
+                                    double p_multiplier, DeflectedShape* state) {
   PileHeadResponse out;
   Solved s;
   solve_pile(pile, movement, p_multiplier, state, s);

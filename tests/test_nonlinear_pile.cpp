@@ -310,7 +310,7 @@ TEST_CASE(
   REQUIRE(response.converged);
   // 1 %: the springs near the turning point are still elastic (within ~1 cm of it) and the
   // reactions are lumped at the nodes (h = 2.5 cm: the node at 1.5·D takes half a step of
-  // resistance Broms leaves out, +0.6 %).
+  // resistance Broms leaves out: 407.6 kN against 405.3, +0.6 %).
   REQUIRE(response.action[0] == close(broms, 1e-2));
 }
 
@@ -377,6 +377,10 @@ TEST_CASE("nonlinear pile: the profile's moment and shear at the head match the 
   // Hetényi (1946), free head: the largest moment lies at λz = π/4 (0.785/λ = 2.22 m).
   const double lambda = std::pow(12000.0 / (4.0 * kEI), 0.25);
   REQUIRE(free_head.max_moment_depth == close(std::numbers::pi / 4.0 / lambda, 0.1));
+  // Hetényi (1946), free head: M_max = e^(−π/4)·sin(π/4)·H/λ = 0.3224·H/λ (1 %: the nodes
+  // 0.15 m apart and the lumped springs).
+  const auto free_action = cairn::pile_head_response(linear_pile(12000.0, pinned(), 200), m);
+  REQUIRE(free_head.max_moment == close(0.3224 * free_action.action[0] / lambda, 1e-2));
 }
 
 TEST_CASE("nonlinear pile: a call started from a nearby state gives the same answer",
@@ -457,4 +461,28 @@ TEST_CASE("nonlinear pile: the p-multiplier scales every p-y spring",
   REQUIRE(half.tangent[0][0] == close(head.lateral, 1e-2));
   REQUIRE(half.tangent[4][4] == close(head.bending.rotational, 1e-2));
   REQUIRE(half.action[0] == close(half.tangent[0][0] * 0.01, 1e-9));
+}
+
+TEST_CASE("nonlinear pile: softening curves converge", "[nonlinear_pile]") {
+  // Matlock (1970) cyclic soft clay: above zr the resistance falls beyond 3·y50 (y50 = 15 mm
+  // here), so near the head the tangent is negative; the iteration still settles and the
+  // tangent is still the derivative of the action (central differences, hand check).
+  cairn::SoftClayPy clay;
+  clay.undrained_strength = 20.0;
+  clay.effective_unit_weight = 6.0;
+  clay.width = 0.6;
+  clay.strain_50 = 0.01;
+  clay.loading = cairn::PyLoading::cyclic;
+  NonlinearPileSpec pile = linear_pile(0.0, fixed());
+  pile.curves.lateral = [clay](double z, double y) { return clay.resistance(z, y); };
+  for (double d : {0.05, 0.15, 0.3}) {
+    CAPTURE(d);
+    const auto at = cairn::pile_head_response(pile, {d, 0, 0, 0, 0, 0});
+    INFO(at.message);
+    REQUIRE(at.converged);
+    const double step = 1e-6;
+    const auto a = cairn::pile_head_response(pile, {d + step, 0, 0, 0, 0, 0});
+    const auto b = cairn::pile_head_response(pile, {d - step, 0, 0, 0, 0, 0});
+    REQUIRE(at.tangent[0][0] == close((a.action[0] - b.action[0]) / (2 * step), 1e-3));
+  }
 }

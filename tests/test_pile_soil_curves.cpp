@@ -204,7 +204,7 @@ TEST_CASE("pile soil curves: what the nonlinear mode lacks is reported where it 
   REQUIRE(problems[0].message ==
           "soil.layers[0] ('soft clay').lateral_curve: missing; the nonlinear soil response "
           "needs the p-y curve of every layer the piles cross, one of soft_clay, stiff_clay_dry, "
-          "sand_api");
+          "sand_api, stiff_clay_wet, sand_reese");
   try {
     cairn::require_nonlinear_soil(project);
     FAIL("no input error");
@@ -229,4 +229,39 @@ TEST_CASE("pile soil curves: the soil keys are read and checked", "[pile_soil_cu
       read_text(project_text(", lateral_curve: soft_clay, strain_50: 0.015", ""), "keys");
   REQUIRE(project.soil->layers[0].lateral_curve == cairn::LateralCurve::soft_clay);
   REQUIRE(project.soil->layers[0].strain_50 == 0.015);
+}
+
+TEST_CASE("pile soil curves: Reese, Cox & Koop's stiff clay with free water and sand by name",
+          "[pile_soil_curves]") {
+  const cairn::Project project =
+      read_text(project_text(", lateral_curve: stiff_clay_wet", ", lateral_curve: sand_reese"),
+                "rck");
+  REQUIRE(cairn::nonlinear_soil_problems(project).empty());
+  const cairn::NonlinearPileSpec spec = cairn::nonlinear_pile_spec(project, 0);
+  // Reese, Cox & Koop (1975): the layer's cu = 45 kPa uniform (c0 = cu, no gradient), ε50 and
+  // k_s from cu by the paper's classes (from memory, py_curves.hpp), static loading.
+  cairn::StiffClayWetPy clay;
+  clay.undrained_strength = 45.0;
+  clay.strength_gradient = 0.0;
+  clay.effective_unit_weight = 17.5;
+  clay.width = 0.45;
+  clay.strain_50 = cairn::stiff_clay_strain_50(45.0);
+  clay.initial_modulus =
+      cairn::stiff_clay_subgrade_modulus(45.0, cairn::PyLoading::static_load);
+  REQUIRE(spec.curves.lateral(0.0, 0.004) == close(clay.resistance(1.5, 0.004), 1e-12));
+  // Reese, Cox & Koop (1974) sand: φ' = 36° is the medium class, below the water table
+  // 16.3 MN/m³ (60 lb/in³, from memory).
+  cairn::SandReesePy sand;
+  sand.friction_angle = 36.0;
+  sand.width = 0.45;
+  sand.initial_modulus = cairn::sand_subgrade_modulus(cairn::SandDensity::medium, true);
+  sand.effective_unit_weight = (3.0 * 17.5 + 5.0 * (18.5 - 9.81) + 8.5 * (20.0 - 9.81)) / 16.5;
+  REQUIRE(spec.curves.lateral(15.0, 0.005) == close(sand.resistance(16.5, 0.005), 1e-9));
+  REQUIRE(cairn::parse_lateral_curve("sand_reese") == cairn::LateralCurve::sand_reese);
+  REQUIRE(cairn::parse_lateral_curve("stiff_clay_wet") == cairn::LateralCurve::stiff_clay_wet);
+  // A sand curve on a clay layer is refused where it is written.
+  const std::string wrong =
+      input_error(project_text(", lateral_curve: sand_reese", ", lateral_curve: sand_api"),
+                  "rck-wrong");
+  REQUIRE(cairn::test::has(wrong, "lateral_curve"));
 }

@@ -79,6 +79,41 @@ std::function<double(double)> build_sand_api(const CurveSite& site) {
   return [py, d](double y) { return py.resistance(d, y); };
 }
 
+// Reese, Cox & Koop (1974) sand: k from modulus_gradient, else the paper's table by the same
+// φ' classes as the API chart (loose φ' < 30°, medium to 36°, dense beyond).
+std::function<double(double)> build_sand_reese(const CurveSite& site) {
+  SandReesePy py;
+  const double phi = *site.layer->friction_angle;
+  py.friction_angle = phi;
+  py.effective_unit_weight = positive_weight(site.effective_unit_weight);
+  py.width = site.width;
+  const SandDensity density =
+      phi < 30.0 ? SandDensity::loose : (phi <= 36.0 ? SandDensity::medium : SandDensity::dense);
+  py.initial_modulus = site.layer->modulus_gradient.value_or(
+      sand_subgrade_modulus(density, site.below_water));
+  py.loading = site.loading;
+  const double d = site.depth;
+  return [py, d](double y) { return py.resistance(d, y); };
+}
+
+// Reese, Cox & Koop (1975) stiff clay with free water: the layer's cu taken as uniform (c0 = cu,
+// no gradient, so c_a = cu), ε50 by the layer or from cu by the paper's classes, k
+// (modulus_gradient) by the layer or from cu and the loading.
+std::function<double(double)> build_stiff_clay_wet(const CurveSite& site) {
+  StiffClayWetPy py;
+  const double cu = *site.layer->undrained_strength;
+  py.undrained_strength = cu;
+  py.strength_gradient = 0.0;
+  py.effective_unit_weight = positive_weight(site.effective_unit_weight);
+  py.width = site.width;
+  py.strain_50 = site.layer->strain_50.value_or(stiff_clay_strain_50(cu));
+  py.initial_modulus =
+      site.layer->modulus_gradient.value_or(stiff_clay_subgrade_modulus(cu, site.loading));
+  py.loading = site.loading;
+  const double d = site.depth;
+  return [py, d](double y) { return py.resistance(d, y); };
+}
+
 const std::vector<LateralCurveInfo> kTable = {
     {LateralCurve::soft_clay, "soft_clay", SoilKind::clay,
      "soft clay below water, Matlock (1970); ε50 by the layer or from cu", clay_problems,
@@ -89,6 +124,13 @@ const std::vector<LateralCurveInfo> kTable = {
     {LateralCurve::sand_api, "sand_api", SoilKind::sand,
      "sand, API RP 2GEO (O'Neill & Murchison 1983); k = modulus_gradient or from φ'", sand_problems,
      build_sand_api},
+    {LateralCurve::stiff_clay_wet, "stiff_clay_wet", SoilKind::clay,
+     "stiff clay with free water, Reese, Cox & Koop (1975); cu uniform in the layer; ε50 and "
+     "k = modulus_gradient by the layer or from cu",
+     clay_problems, build_stiff_clay_wet},
+    {LateralCurve::sand_reese, "sand_reese", SoilKind::sand,
+     "sand, Reese, Cox & Koop (1974); k = modulus_gradient or from φ'", sand_problems,
+     build_sand_reese},
 };
 
 double batter_cosine(const Pile& pile) { return std::abs(pile.axis()[2]); }

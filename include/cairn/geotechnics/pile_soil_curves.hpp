@@ -7,6 +7,10 @@
 //   soft_clay       Matlock (1970), clay below water
 //   stiff_clay_dry  Welch & Reese (1972), stiff clay without free water
 //   sand_api        API RP 2GEO sand (O'Neill & Murchison 1983)
+//   stiff_clay_wet  Reese, Cox & Koop (1975), stiff clay with free water (cu uniform in the
+//                   layer; ε50 and k from cu by the paper's classes unless given)
+//   sand_reese      Reese, Cox & Koop (1974) sand (k from φ' by the paper's density classes
+//                   unless modulus_gradient is given)
 // The curve at a point of the pile is the one of the layer at that point's depth below the
 // ground surface, d = Cap::depth + z·cos i (z along the pile from its head, i the batter
 // angle), with the curve's depth d and γ' = σ'v(d)/d (the mean effective unit weight above

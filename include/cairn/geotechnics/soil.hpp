@@ -33,7 +33,7 @@ enum class SoilKind { clay, sand };
 
 // The p-y curve of a layer for the nonlinear soil response (pile_soil_curves.hpp holds each
 // curve's name in the project file, soil, source and what it needs).
-enum class LateralCurve { soft_clay, stiff_clay_dry, sand_api };
+enum class LateralCurve { soft_clay, stiff_clay_dry, sand_api, stiff_clay_wet, sand_reese };
 
 struct SoilLayer {
   std::string name;

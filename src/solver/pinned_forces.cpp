@@ -2,6 +2,8 @@
 
 #include <algorithm>
 #include <cmath>
+#include <cstddef>
+#include <iterator>
 
 namespace cairn::detail {
 
@@ -40,8 +42,43 @@ void one_pile(const PinnedPiles& piles, std::size_t i, const double movement[6],
   row.head_moment = 0.0;
 }
 
+// The rows of a block of active piles from its arrays, for vector::insert: each row is
+// constructed once, in place, and the vector's end is set once per block.
+struct Rows {
+  using iterator_category = std::forward_iterator_tag;
+  using value_type = PileForce;
+  using difference_type = std::ptrdiff_t;
+  using pointer = const PileForce*;
+  using reference = PileForce;
+  const double *axial, *lateral, *fx, *fy, *fz;
+  std::size_t k;
+  PileForce operator*() const {
+    return {axial[k], lateral[k], true, {fx[k], fy[k], fz[k], 0.0, 0.0, 0.0}, 0.0};
+  }
+  Rows& operator++() {
+    ++k;
+    return *this;
+  }
+  Rows operator++(int) {
+    Rows before = *this;
+    ++k;
+    return before;
+  }
+  bool operator==(const Rows& other) const { return k == other.k; }
+};
+
 }  // namespace
 
+// Built twice where the compiler can, for processors with AVX2 (four piles at a time) and
+// for the others, chosen when the program starts. AVX2 alone, without FMA: every operation
+// is the same IEEE operation, rounded the same, so both give the same bits.
+#if defined(__x86_64__) && defined(__GNUC__) && !defined(__clang__)
+#define CAIRN_PILE_CLONES __attribute__((target_clones("avx2", "default")))
+#else
+#define CAIRN_PILE_CLONES
+#endif
+
+CAIRN_PILE_CLONES
 void pinned_forces(const PinnedPiles& piles, const double movement[6],
                    const std::vector<bool>* active, std::vector<PileForce>& out) {
   const double t0 = movement[0], t1 = movement[1], t2 = movement[2];
@@ -81,8 +118,7 @@ void pinned_forces(const PinnedPiles& piles, const double movement[6],
       fy[k] = n_axial * ay[k] + kl[k] * w1;
       fz[k] = n_axial * az[k] + kl[k] * w2;
     }
-    for (std::size_t k = 0; k < len; ++k)
-      out.push_back(PileForce{axial[k], lateral[k], true, {fx[k], fy[k], fz[k], 0.0, 0.0, 0.0}, 0.0});
+    out.insert(out.end(), Rows{axial, lateral, fx, fy, fz, 0}, Rows{axial, lateral, fx, fy, fz, len});
     if (active) {
       for (std::size_t k = 0; k < len; ++k)
         if (!(*active)[start + k]) one_pile(piles, start + k, movement, false, out[start + k]);

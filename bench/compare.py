@@ -48,14 +48,17 @@ def timed_once(cmd, out_path, cwd, env=None):
     seconds = int(h or 0) * 3600 + int(m) * 60 + float(s)
     rss = int(re.search(r"Maximum resident set size \(kbytes\): (\d+)", err).group(1)) / 1024
     cpu = re.search(r"Percent of CPU this job got: (\d+)%", err).group(1)
-    return seconds, rss, int(cpu)
+    user = float(re.search(r"User time \(seconds\): ([\d.]+)", err).group(1))
+    system = float(re.search(r"System time \(seconds\): ([\d.]+)", err).group(1))
+    return seconds, rss, int(cpu), user + system
 
 
 def timed(cmd, out_path, cwd, repeat=1, env=None):
-    """The median wall time of `repeat` runs, with the largest peak memory and CPU share."""
+    """The median wall time of `repeat` runs, with the largest peak memory and CPU share,
+    and the median CPU time (user + system: less disturbed than wall time on a busy machine)."""
     runs = [timed_once(cmd, out_path, cwd, env) for _ in range(repeat)]
     return (statistics.median(r[0] for r in runs), max(r[1] for r in runs),
-            max(r[2] for r in runs))
+            max(r[2] for r in runs), statistics.median(r[3] for r in runs))
 
 
 def make(work, name, piles, combos, *extra):
@@ -137,14 +140,15 @@ def main():
         if a.only and not any(o in name for o in a.only):
             return
         c_out, p_out = os.path.join(a.work, "cairn.out"), os.path.join(a.work, "peer.out")
-        ct, cm, cc = timed(cairn_cmd, c_out, cwd, a.repeat)
-        pt, pm, pc = (timed(peer_cmd, p_out, cwd, a.repeat, peer_env) if peer_cmd
-                      else (None, None, None))
-        if reading and os.path.exists(read_only):
+        ct, cm, cc, c_cpu = timed(cairn_cmd, c_out, cwd, a.repeat)
+        pt, pm, pc, p_cpu = (timed(peer_cmd, p_out, cwd, a.repeat, peer_env) if peer_cmd
+                             else (None, None, None, None))
+        if reading and peer_cmd and os.path.exists(read_only):
             scratch = os.path.join(a.work, "read.out")
-            cr = timed([read_only, reading], scratch, cwd, a.repeat)[0]
-            pr = timed([PY, PEER, "read", reading], scratch, cwd, a.repeat, peer_env)[0]
-            after.append((name, cr, ct - cr, pr, pt - pr))
+            cr, _, _, cr_cpu = timed([read_only, reading], scratch, cwd, a.repeat)
+            pr, _, _, pr_cpu = timed([PY, PEER, "read", reading], scratch, cwd, a.repeat,
+                                     peer_env)
+            after.append((name, cr, ct - cr, pr, pt - pr, c_cpu - cr_cpu, p_cpu - pr_cpu))
         note = ""
         if check_envelope:
             same = envelope_of(open(c_out).read()) == envelope_of(open(p_out).read())
@@ -217,12 +221,15 @@ def main():
         print("After reading (a full run less a run that only reads):")
         print()
         print("| case | cairn reading | cairn after reading | peer reading | peer after reading "
-              "| peer / cairn after reading |")
-        print("|---|---|---|---|---|---|")
-        for name, cr, ca, pr, pa in after:
+              "| peer / cairn after reading | the same in CPU time |")
+        print("|---|---|---|---|---|---|---|")
+        for name, cr, ca, pr, pa, ca_cpu, pa_cpu in after:
             # Below the noise of the two runs at small scales: no ratio.
             ratio = f"{pa / ca:.1f}×" if ca > 0 and pa > 0 else "—"
-            print(f"| {name} | {cr:.2f} s | {ca:.2f} s | {pr:.2f} s | {pa:.2f} s | {ratio} |")
+            cpu = (f"{ca_cpu:.2f} s, {pa_cpu:.2f} s: {pa_cpu / ca_cpu:.1f}×"
+                   if ca_cpu > 0 and pa_cpu > 0 else "—")
+            print(f"| {name} | {cr:.2f} s | {ca:.2f} s | {pr:.2f} s | {pa:.2f} s | {ratio} "
+                  f"| {cpu} |")
 
 
 if __name__ == "__main__":

@@ -2,19 +2,30 @@
 """cairn against the numpy peer (bench/peer_rigid_cap.py) on the same generated cases.
 
     bench/compare.py [--cairn build/cairn] [--work /tmp/cairn-bench] [--scale 1.0] [--json]
-                     [--only NAME ...]
+                     [--only NAME ...] [--repeat N] [--blas DIR]
 
 Generates the cases under --work (never in the repository), checks that the peer agrees with
 cairn to 1e-9 on a smaller case of each kind (cairn's JSON, full precision) and that the
 envelope tables of the timed cases are the same text, then runs each program once per case
 under /usr/bin/time -v and prints wall time, peak memory and the ratio peer / cairn.
 --scale shrinks every case (0.1 for a quick look); --json adds cairn's JSON of the linear
-case (the peer writes no JSON). Needs Debian's python3 with python3-numpy and python3-yaml:
-scripts/install-deps --bench installs them.
+case (the peer writes no JSON). --repeat N runs every timing N times and keeps the median
+(the machine may be shared). --blas DIR puts DIR first on the peer's LD_LIBRARY_PATH, e.g.
+the folder of an optimized libblas.so.3 (OpenBLAS); the BLAS the peer's numpy loads is
+printed.
+
+After reading: for the two 500 × 10,000 envelope cases each program also runs reading
+alone (cairn's bench_read_project, the peer's `read` mode: the file into the arrays the
+solve starts from), and the time after reading is the full run's less that run's (start-up
+cancels). The solver core: bench_cap_solver's CPU time against the peer's `core` mode.
+Needs Debian's python3 with python3-numpy and python3-yaml: scripts/install-deps --bench
+installs them.
 """
 import argparse
+import json
 import os
 import re
+import statistics
 import subprocess
 import sys
 
@@ -24,11 +35,11 @@ PEER = os.path.join(HERE, "peer_rigid_cap.py")
 MAKE = os.path.join(HERE, "make_cases.py")
 
 
-def timed(cmd, out_path, cwd):
+def timed_once(cmd, out_path, cwd, env=None):
     """Wall seconds and peak resident memory (MB) of cmd, stdout to out_path."""
     with open(out_path, "wb") as out:
         proc = subprocess.run(["/usr/bin/time", "-v"] + cmd, stdout=out, stderr=subprocess.PIPE,
-                              cwd=cwd)
+                              cwd=cwd, env=env)
     err = proc.stderr.decode(errors="replace")
     if proc.returncode not in (0, 1):
         sys.exit(f"compare: {' '.join(cmd)} failed ({proc.returncode}):\n{err[-2000:]}")
@@ -37,7 +48,17 @@ def timed(cmd, out_path, cwd):
     seconds = int(h or 0) * 3600 + int(m) * 60 + float(s)
     rss = int(re.search(r"Maximum resident set size \(kbytes\): (\d+)", err).group(1)) / 1024
     cpu = re.search(r"Percent of CPU this job got: (\d+)%", err).group(1)
-    return seconds, rss, int(cpu)
+    user = float(re.search(r"User time \(seconds\): ([\d.]+)", err).group(1))
+    system = float(re.search(r"System time \(seconds\): ([\d.]+)", err).group(1))
+    return seconds, rss, int(cpu), user + system
+
+
+def timed(cmd, out_path, cwd, repeat=1, env=None):
+    """The median wall time of `repeat` runs, with the largest peak memory and CPU share,
+    and the median CPU time (user + system: less disturbed than wall time on a busy machine)."""
+    runs = [timed_once(cmd, out_path, cwd, env) for _ in range(repeat)]
+    return (statistics.median(r[0] for r in runs), max(r[1] for r in runs),
+            max(r[2] for r in runs), statistics.median(r[3] for r in runs))
 
 
 def make(work, name, piles, combos, *extra):
@@ -73,8 +94,21 @@ def main():
     ap.add_argument("--scale", type=float, default=1.0)
     ap.add_argument("--json", action="store_true")
     ap.add_argument("--only", nargs="*")
+    ap.add_argument("--repeat", type=int, default=1)
+    ap.add_argument("--blas")
     a = ap.parse_args()
     cairn = os.path.abspath(a.cairn)
+    peer_env = None
+    if a.blas:
+        peer_env = dict(os.environ)
+        peer_env["LD_LIBRARY_PATH"] = a.blas + (":" + os.environ["LD_LIBRARY_PATH"]
+                                               if os.environ.get("LD_LIBRARY_PATH") else "")
+    blas = subprocess.run(
+        [PY, "-c", "import numpy; print(sorted({l.split()[-1] for l in open('/proc/self/maps') "
+                   "if 'blas' in l and len(l.split()) > 5}))"],
+        capture_output=True, text=True, env=peer_env).stdout.strip()
+    print(f"the peer's numpy loads: {blas}")
+    read_only = os.path.join(os.path.dirname(cairn), "bench_read_project")
     try:
         subprocess.run([PY, "-c", "import numpy, yaml; yaml.CSafeLoader"], check=True,
                        stderr=subprocess.DEVNULL)
@@ -100,12 +134,21 @@ def main():
 
     rows = []
 
-    def run(name, cairn_cmd, peer_cmd, cwd, check_envelope=False):
+    after = []
+
+    def run(name, cairn_cmd, peer_cmd, cwd, check_envelope=False, reading=None):
         if a.only and not any(o in name for o in a.only):
             return
         c_out, p_out = os.path.join(a.work, "cairn.out"), os.path.join(a.work, "peer.out")
-        ct, cm, cc = timed(cairn_cmd, c_out, cwd)
-        pt, pm, pc = timed(peer_cmd, p_out, cwd) if peer_cmd else (None, None, None)
+        ct, cm, cc, c_cpu = timed(cairn_cmd, c_out, cwd, a.repeat)
+        pt, pm, pc, p_cpu = (timed(peer_cmd, p_out, cwd, a.repeat, peer_env) if peer_cmd
+                             else (None, None, None, None))
+        if reading and peer_cmd and os.path.exists(read_only):
+            scratch = os.path.join(a.work, "read.out")
+            cr, _, _, cr_cpu = timed([read_only, reading], scratch, cwd, a.repeat)
+            pr, _, _, pr_cpu = timed([PY, PEER, "read", reading], scratch, cwd, a.repeat,
+                                     peer_env)
+            after.append((name, cr, ct - cr, pr, pt - pr, c_cpu - cr_cpu, p_cpu - pr_cpu))
         note = ""
         if check_envelope:
             same = envelope_of(open(c_out).read()) == envelope_of(open(p_out).read())
@@ -120,7 +163,8 @@ def main():
     for kind, extra in (("linear", []), ("compression-only", ["--compression-only"])):
         case = make(a.work, f"{kind}-{n}x{m}-{tag}", n, m, *extra) + ".yaml"
         run(f"{n} × {m} {kind}, envelope", [cairn, "check", case, "--format", "csv"] +
-            detail("envelope"), [PY, PEER, "envelope", case], a.work, check_envelope=True)
+            detail("envelope"), [PY, PEER, "envelope", case], a.work, check_envelope=True,
+            reading=case)
         if has_detail:
             run(f"{n} × {m} {kind}, full CSV", [cairn, "check", case, "--format", "csv"],
                 [PY, PEER, "full", case], a.work)
@@ -143,13 +187,19 @@ def main():
     bench = os.path.join(os.path.dirname(cairn), "bench_cap_solver")
     core = None
     if os.path.exists(bench) and (not a.only or any("core" in o for o in a.only)):
-        import json
         r = subprocess.run([bench, "--benchmark_filter=Linear500|Floor500",
-                            "--benchmark_format=json"], capture_output=True, text=True)
-        times = {b["name"].split("/")[0]: b["cpu_time"] for b in json.loads(r.stdout)["benchmarks"]}
-        case = make(a.work, f"linear-{n}x{m}-{tag}", n, m) + ".yaml"
-        peer_core = float(subprocess.run([PY, PEER, "core", case], capture_output=True,
-                                         text=True).stdout) * 1000
+                            f"--benchmark_repetitions={a.repeat}", "--benchmark_format=json"],
+                           capture_output=True, text=True)
+        times = {}
+        for b in json.loads(r.stdout)["benchmarks"]:
+            if b.get("run_type", "iteration") == "iteration":
+                times.setdefault(b["name"].split("/")[0], []).append(b["cpu_time"])
+        times = {k: statistics.median(v) for k, v in times.items()}
+        # bench_cap_solver's case is 500 × 10,000 whatever --scale says; so is the peer's.
+        case = make(a.work, "linear-500x10000-s1", 500, 10000) + ".yaml"
+        peer_core = statistics.median(
+            float(subprocess.run([PY, PEER, "core", case], capture_output=True, text=True,
+                                 env=peer_env).stdout) * 1000 for _ in range(a.repeat))
         core = (times["BM_SolveLinear500x10000"], times["BM_WriteFloor500x10000"], peer_core)
 
     print()
@@ -166,6 +216,20 @@ def main():
         pmem = f"{pm:.0f} MB" if pm else "—"
         ratio = f"{pt / ct:.2f}×" if pt else "—"
         print(f"| {name} | {ct:.2f} s | {cm:.0f} MB | {peer} | {pmem} | {ratio} |")
+    if after:
+        print()
+        print("After reading (a full run less a run that only reads):")
+        print()
+        print("| case | cairn reading | cairn after reading | peer reading | peer after reading "
+              "| peer / cairn after reading | the same in CPU time |")
+        print("|---|---|---|---|---|---|---|")
+        for name, cr, ca, pr, pa, ca_cpu, pa_cpu in after:
+            # Below the noise of the two runs at small scales: no ratio.
+            ratio = f"{pa / ca:.1f}×" if ca > 0 and pa > 0 else "—"
+            cpu = (f"{ca_cpu:.2f} s, {pa_cpu:.2f} s: {pa_cpu / ca_cpu:.1f}×"
+                   if ca_cpu > 0 and pa_cpu > 0 else "—")
+            print(f"| {name} | {cr:.2f} s | {ca:.2f} s | {pr:.2f} s | {pa:.2f} s | {ratio} "
+                  f"| {cpu} |")
 
 
 if __name__ == "__main__":

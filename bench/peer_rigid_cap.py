@@ -7,6 +7,7 @@ that bench/compare.sh times against cairn on the same generated project files.
     peer_rigid_cap.py summary CAP.yaml [...]       one summary row per cap
     peer_rigid_cap.py agree CAP.yaml CAIRN.json    compares with cairn's JSON to 1e-9
     peer_rigid_cap.py core CAP.yaml                CPU seconds of the solve alone
+    peer_rigid_cap.py read CAP.yaml                reading alone (the file into the arrays)
 
 The same method as cairn's solver (docs/methods.md): a rigid cap with six degrees of
 freedom on axial and lateral pile-head springs, K = Σ Tᵢᵀ·Kᵢ·Tᵢ, one factorization, the load
@@ -241,6 +242,12 @@ def main():
         start = time.process_time()
         solve(m)
         print(f"{time.process_time() - start:.6f}")
+        return
+    if mode == "read":
+        # Reading alone, for the time after reading (a full run less this one): the file
+        # read and turned into the arrays the solve starts from.
+        m = model(load(files[0]))
+        print(f"{m['n']} piles, {len(m['combo_ids'])} combinations read")
         return
     if mode == "summary":
         print("file,piles,combinations,max utilization,pile,combination,check,result")

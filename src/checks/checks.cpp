@@ -247,10 +247,14 @@ void CheckAccumulator::add(std::size_t c, CapSolution solution) {
   CombinationCheck check;
   check.combination = c;
   check.solution = std::move(solution);
-  check.piles.resize(n);
+  // Pile rows are kept for full detail only; otherwise each pile's row is built in `row`,
+  // folded into the envelope and the summary, and dropped.
+  if (results.pile_rows) check.piles.resize(n);
+  PileCheck row;
   const bool overturns = check.solution.overturns;
   for (std::size_t i = 0; i < n; ++i) {
-    PileCheck& p = check.piles[i];
+    if (!results.pile_rows) row = PileCheck{};
+    PileCheck& p = results.pile_rows ? check.piles[i] : row;
     PileEnvelope& e = results.envelope[i];
     if (overturns) {
       // No equilibrium: the solver's forces mean nothing, and no pile can be shown safe.

@@ -6,8 +6,11 @@
 #include <limits>
 #include <set>
 #include <stdexcept>
+#include <type_traits>
 
 #include <fmt/format.h>
+
+#include "pinned_forces.hpp"
 
 namespace cairn {
 namespace {
@@ -78,6 +81,8 @@ struct CapSolver::Impl {
   std::vector<Eigen::Vector3d> axes;
   std::vector<double> axial, lateral;                    // kN/m
   std::vector<HeadBending> bending;                      // fixed and partially fixed heads
+  detail::PinnedPiles pinned;       // every pile's springs as arrays, for the forces in double
+  std::vector<std::size_t> bent;    // the piles with head bending (bending[i].any())
   std::vector<Matrix6> contributions;                    // T̂ᵀ·K_pile·T̂, kN/m
   // A pile that dropped out (it takes no tension) keeps its lateral spring: the soil still
   // holds it across its axis. Its lateral-only contribution:
@@ -322,10 +327,10 @@ struct CapSolver::Impl {
     // pass over the piles.
     if (&dec == &all_active && well_conditioned) {
       const double residual = relative<double>(load - stiffness_all * first, load);
-      if (residual <= kSettled) return forces_from<double>(first, active, residual);
+      if (residual <= kSettled) return forces_from<double>(first, active, &dec == &all_active, residual);
     }
     const double residual = relative(imbalance<double>(active, first, load), load);
-    if (!(residual > kSettled)) return forces_from<double>(first, active, residual);
+    if (!(residual > kSettled)) return forces_from<double>(first, active, &dec == &all_active, residual);
     Vector6R<long double> movement = first.cast<long double>();
     Vector6R<long double> miss = imbalance<long double>(active, movement, load);
     double refined = relative(miss, load);
@@ -339,13 +344,14 @@ struct CapSolver::Impl {
       miss = next_miss;
       refined = next_refined;
     }
-    return forces_from<long double>(movement, active, refined);
+    return forces_from<long double>(movement, active, &dec == &all_active, refined);
   }
 
   // Pile forces and the reported movement from the nondimensional movement Û.
+  // `every_active`: no pile dropped out (active is all true).
   template <typename Real>
   CapSolution forces_from(const Vector6R<Real>& movement, const std::vector<bool>& active,
-                          double residual) const {
+                          bool every_active, double residual) const {
     CapSolution solution;
     const Eigen::Vector3d t = movement.template head<3>().template cast<double>();
     const Eigen::Vector3d r =
@@ -355,17 +361,35 @@ struct CapSolver::Impl {
     solution.movement.rotation = to_array(r);
     // t₀ = t + r × (0 − c): the cap point at the origin, for display.
     solution.movement.translation = to_array(t - r.cross(reference));
-    solution.piles.resize(maps.size());
-    for (std::size_t i = 0; i < maps.size(); ++i) {
+    if constexpr (std::is_same_v<Real, double>) {
+      // Every pile as springs alone in one vectorized pass (the same operations as below,
+      // pinned_forces.hpp), then the piles with head bending by the code below.
+      const double m[6] = {movement(0), movement(1), movement(2),
+                           movement(3), movement(4), movement(5)};
+      detail::pinned_forces(pinned, m, every_active ? nullptr : &active, solution.piles);
+      for (const std::size_t i : bent) pile_forces_of<Real>(i, movement, active[i], solution.piles[i]);
+    } else {
+      solution.piles.resize(maps.size());
+      for (std::size_t i = 0; i < maps.size(); ++i)
+        pile_forces_of<Real>(i, movement, active[i], solution.piles[i]);
+    }
+    solution.residual = residual;
+    return solution;
+  }
+
+  // Pile i's forces and head actions at the movement Û.
+  template <typename Real>
+  void pile_forces_of(std::size_t i, const Vector6R<Real>& movement, bool is_active,
+                      PileForce& pile) const {
+    {
       const Vector3R<Real> u = head_movement<Real>(i, movement);
       const Vector3R<Real> a = axes[i].cast<Real>();
       const Real along = a.dot(u);
-      auto& pile = solution.piles[i];
-      pile.active = active[i];
+      pile.active = is_active;
       // An inactive pile carries no axial force: report zero.
-      pile.axial = active[i] ? static_cast<double>(axial[i] * along) : 0.0;
+      pile.axial = is_active ? static_cast<double>(axial[i] * along) : 0.0;
       pile.lateral = static_cast<double>(lateral[i] * (u - along * a).norm());
-      Vector3R<Real> f = pile_force<Real>(i, active[i], u);
+      Vector3R<Real> f = pile_force<Real>(i, is_active, u);
       const Vector3R<Real> moment = add_bending_action<Real>(i, u, movement, f);
       for (int j = 0; j < 3; ++j) {
         pile.head_forces[static_cast<std::size_t>(j)] = static_cast<double>(f(j));
@@ -377,8 +401,6 @@ struct CapSolver::Impl {
         pile.head_moment = static_cast<double>((moment - a.dot(moment) * a).norm());
       }
     }
-    solution.residual = residual;
-    return solution;
   }
 };
 
@@ -446,7 +468,13 @@ CapSolver::CapSolver(std::vector<PileSpring> springs)
                         spring_matrix(a, s.axial > 0.0 ? 1.0 : 0.0, has_lateral) * t);
     m.lateral_pattern.push_back(t.transpose() * spring_matrix(a, 0.0, has_lateral) * t);
     m.bending.push_back(s.bending);
-    if (s.bending.any()) m.add_bending(m.contributions.size() - 1);
+    if (s.bending.any()) {
+      m.add_bending(m.contributions.size() - 1);
+      m.bent.push_back(m.contributions.size() - 1);
+    }
+    const Eigen::Vector3d& rho = m.offsets.back();
+    const double rho_array[3] = {rho(0), rho(1), rho(2)};
+    m.pinned.add(rho_array, s.axis.data(), s.axial, s.lateral);
   }
   m.all_active = m.decompose(std::vector<bool>(springs_.size(), true));
   double stiffest = 0.0, softest = std::numeric_limits<double>::infinity();

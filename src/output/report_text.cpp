@@ -150,6 +150,7 @@ void write_check(const CheckReport& r, Format format, std::ostream& out) {
   if (r.cap_stiffness) out << render_table(cap_stiffness_table(r), format);
   if (r.group) out << group_block(r, format);
   if (r.explain_pile) out << explain_block(r, format);
+  out << nonlinear_block(r, format);
   out << assumptions_block(r, format);
   const std::string line = summary_line(r);
   out << (format == Format::markdown ? "**" + line + "**\n\n" : line + "\n\n");

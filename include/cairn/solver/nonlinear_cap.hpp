@@ -63,6 +63,7 @@ struct NonlinearGroup {
   PileResponseFunction response;
   PileProfileFunction profile;  // may be empty: no profile with depth in the results
   std::vector<std::string> names;  // pile ids for messages (may be empty: "pile 3")
+  std::vector<std::string> curves;  // per pile: PileCurves::description, for the report
 };
 
 struct NonlinearSettings {

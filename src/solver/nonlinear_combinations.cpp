@@ -1,0 +1,65 @@
+#include "cairn/solver/nonlinear_combinations.hpp"
+
+#include <algorithm>
+#include <cmath>
+#include <stdexcept>
+
+#include "cairn/geotechnics/p_multipliers.hpp"
+
+namespace cairn {
+
+NonlinearGroup project_nonlinear_group(const Project&) {
+  throw std::invalid_argument("nonlinear soil response: the piles' curves are not available yet");
+}
+
+std::vector<double> combination_multipliers(const Project& project, const Wrench& load,
+                                            GroupMultipliers rule,
+                                            std::optional<double>* direction) {
+  const std::size_t n = project.piles.size();
+  const double horizontal = std::hypot(load[0], load[1]);
+  const bool pushed = horizontal > 0.0 && horizontal > 1e-9 * std::abs(load[2]);
+  if (direction) *direction = pushed ? std::optional<double>(std::atan2(load[1], load[0])) : std::nullopt;
+  if (rule == GroupMultipliers::none || !pushed || n < 2) return std::vector<double>(n, 1.0);
+  std::vector<std::array<double, 2>> heads;
+  double width = 0.0;
+  for (const Pile& pile : project.piles) {
+    heads.push_back({pile.x, pile.y});
+    width = std::max(width, project.pile_types.at(pile.type).section.width);
+  }
+  return p_multipliers(heads, width, std::atan2(load[1], load[0]),
+                       rule == GroupMultipliers::reversing);
+}
+
+void solve_nonlinear_combinations(const Project& project, const NonlinearCapSolver& solver,
+                                  GroupMultipliers rule, NonlinearRun& run,
+                                  const std::function<void(std::size_t, CapSolution&&)>& each) {
+  run.rule = rule;
+  run.combinations.assign(project.combinations.size(), NonlinearCombination{});
+  for (std::size_t c = 0; c < project.combinations.size(); ++c) {
+    const Combination& combo = project.combinations[c];
+    const Wrench load = combination_load(project, combo, solver.reference());
+    NonlinearCombination& out = run.combinations[c];
+    const std::vector<double> multipliers =
+        combination_multipliers(project, load, rule, &out.direction);
+    NonlinearCapResult result = solver.solve(CapLoad(load), multipliers, combo.id);
+    out.reached = result.reached;
+    out.steps = result.steps;
+    out.iterations = result.iterations;
+    out.piles = std::move(result.piles);
+    each(c, std::move(result.solution));
+  }
+}
+
+PushoverCurve push_combination(const Project& project, const NonlinearCapSolver& solver,
+                               GroupMultipliers rule, std::size_t c,
+                               const AnalysisSettings& settings) {
+  const Combination& combo = project.combinations.at(c);
+  const Wrench load = combination_load(project, combo, solver.reference());
+  PushoverLimits limits;
+  limits.largest_factor = settings.pushover_limit;
+  limits.displacement = settings.pushover_displacement.value_or(0.0);
+  return solver.pushover(CapLoad(load), combination_multipliers(project, load, rule), combo.id,
+                         limits);
+}
+
+}  // namespace cairn

@@ -54,6 +54,10 @@ struct NonlinearPileSpec {
   bool tension = true;             // false: the pile takes no tension (no axial action < 0)
   PileCurves curves;
   int segments = 60;               // finite-difference segments along the pile
+  // The largest head deflection (resultant across the axis, m) the curves are used for;
+  // beyond it pile_head_response returns converged = false (the pile has reached its lateral
+  // capacity). 0: the pile's width, or L/10 without a width.
+  double deflection_limit = 0.0;
 };
 
 // The head movement of one pile: u (m) and ω (rad), global.
@@ -70,6 +74,17 @@ struct PileHeadResponse {
 // action, 1 for a single pile). Does not throw on non-convergence.
 PileHeadResponse pile_head_response(const NonlinearPileSpec& pile, const HeadMovement& movement,
                                     double p_multiplier = 1.0);
+
+// The converged deflected shape of one pile (the solver's unknowns), kept by the caller
+// between calls for the same pile and multiplier: a call given the state of a nearby movement
+// starts its Newton iteration from it instead of from rest (a few iterations instead of about
+// ten). Empty, or from another pile: ignored. Updated on convergence only.
+struct PileState {
+  std::vector<double> lateral;  // deflections and slopes of the nodes, both planes
+  std::vector<double> axial;    // movements of the nodes along the axis
+};
+PileHeadResponse pile_head_response(const NonlinearPileSpec& pile, const HeadMovement& movement,
+                                    double p_multiplier, PileState* state);
 
 // The pile along its length at a head movement: the resultant of the two bending planes.
 struct PileProfile {

@@ -382,7 +382,7 @@ TEST_CASE("nonlinear pile: a call started from a nearby state gives the same ans
   clay.width = 0.6;
   NonlinearPileSpec pile = linear_pile(0.0, fixed());
   pile.curves.lateral = [clay](double z, double y) { return clay.resistance(z, y); };
-  cairn::PileState state;
+  cairn::PileShape state;
   REQUIRE(cairn::pile_head_response(pile, {0.02, 0.01, -0.004, 0, 0.002, 0}, 1.0, &state).converged);
   REQUIRE_FALSE(state.lateral.empty());
   const HeadMovement next{0.025, 0.008, -0.005, 0.0005, 0.0015, 0};

@@ -653,7 +653,7 @@ struct Solved {
 };
 
 void solve_pile(const NonlinearPileSpec& pile, const HeadMovement& movement, double multiplier,
-                PileState* state, Solved& out) {
+                PileShape* state, Solved& out) {
   validate(pile, movement, multiplier);
   const Vec3& a = pile.axis;
   const Vec3 u{movement[0], movement[1], movement[2]}, w{movement[3], movement[4], movement[5]};
@@ -699,7 +699,7 @@ PileHeadResponse pile_head_response(const NonlinearPileSpec& pile, const HeadMov
 }
 
 PileHeadResponse pile_head_response(const NonlinearPileSpec& pile, const HeadMovement& movement,
-                                    double p_multiplier, PileState* state) {
+                                    double p_multiplier, PileShape* state) {
   PileHeadResponse out;
   Solved s;
   solve_pile(pile, movement, p_multiplier, state, s);

@@ -79,12 +79,12 @@ PileHeadResponse pile_head_response(const NonlinearPileSpec& pile, const HeadMov
 // between calls for the same pile and multiplier: a call given the state of a nearby movement
 // starts its Newton iteration from it instead of from rest (a few iterations instead of about
 // ten). Empty, or from another pile: ignored. Updated on convergence only.
-struct PileState {
+struct PileShape {
   std::vector<double> lateral;  // deflections and slopes of the nodes, both planes
   std::vector<double> axial;    // movements of the nodes along the axis
 };
 PileHeadResponse pile_head_response(const NonlinearPileSpec& pile, const HeadMovement& movement,
-                                    double p_multiplier, PileState* state);
+                                    double p_multiplier, PileShape* state);
 
 // The pile along its length at a head movement: the resultant of the two bending planes.
 struct PileProfile {

@@ -124,13 +124,13 @@ NonlinearGroup nonlinear_group(std::vector<NonlinearPileSpec> specs) {
   // The piles' last converged shapes, shared by the copies of the functions: one solver
   // calls them in turn (a group is not solved from two threads at once).
   auto shared = std::make_shared<const std::vector<NonlinearPileSpec>>(std::move(specs));
-  auto states = std::make_shared<std::vector<PileShape>>(shared->size());
+  auto states = std::make_shared<std::vector<DeflectedShape>>(shared->size());
   g.response = [shared, states](std::size_t i, const HeadMovement& m, double pm) {
     PileHeadResponse r = pile_head_response((*shared)[i], m, pm, &(*states)[i]);
     if (r.converged) return r;
     // A start far from this movement (the last combination's) can fail where a start from
     // rest does not: try again from rest.
-    PileShape fresh;
+    DeflectedShape fresh;
     r = pile_head_response((*shared)[i], m, pm, &fresh);
     if (r.converged) (*states)[i] = std::move(fresh);
     return r;

@@ -68,7 +68,7 @@ struct NonlinearGroup {
 };
 
 // The group of `specs` on pile_head_response and pile_profile (nonlinear_pile.hpp); each pile
-// starts its own iteration from its last converged shape (PileShape). Names and curves from
+// starts its own iteration from its last converged shape (DeflectedShape). Names and curves from
 // the specs' order: give names after.
 NonlinearGroup nonlinear_group(std::vector<NonlinearPileSpec> specs);
 

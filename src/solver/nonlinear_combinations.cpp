@@ -2,14 +2,21 @@
 
 #include <algorithm>
 #include <cmath>
-#include <stdexcept>
 
 #include "cairn/geotechnics/p_multipliers.hpp"
+#include "cairn/geotechnics/pile_soil_curves.hpp"
 
 namespace cairn {
 
-NonlinearGroup project_nonlinear_group(const Project&) {
-  throw std::invalid_argument("nonlinear soil response: the piles' curves are not available yet");
+NonlinearGroup project_nonlinear_group(const Project& project) {
+  require_nonlinear_soil(project);
+  std::vector<NonlinearPileSpec> specs;
+  specs.reserve(project.piles.size());
+  for (std::size_t i = 0; i < project.piles.size(); ++i)
+    specs.push_back(nonlinear_pile_spec(project, i));
+  NonlinearGroup group = nonlinear_group(std::move(specs));
+  for (const Pile& pile : project.piles) group.names.push_back(pile.id);
+  return group;
 }
 
 std::vector<double> combination_multipliers(const Project& project, const Wrench& load,

@@ -41,8 +41,9 @@ struct NonlinearRun {
   std::optional<PushoverCurve> pushover;
 };
 
-// The project's piles on the nonlinear curves of its soil profile (nonlinear_pile.hpp), in
-// the order of Project::piles. Throws std::invalid_argument when the soil cannot give them.
+// The project's piles on the nonlinear curves of its soil profile (pile_soil_curves.hpp), in
+// the order of Project::piles, named by their ids. Throws InputError naming every layer or
+// pile type that cannot give them (require_nonlinear_soil).
 NonlinearGroup project_nonlinear_group(const Project& project);
 
 // The p-multipliers of the project's piles for a load (about any point: only its horizontal

@@ -331,3 +331,35 @@ TEST_CASE("nonlinear check on linear heads gives the linear check's pile forces"
   REQUIRE(nonlinear.nonlinear->pushover);
   CHECK(nonlinear.nonlinear->pushover->points.size() >= 5);
 }
+
+TEST_CASE("nonlinear check on the soil's curves: the governing piles' profiles", "[nonlinear_cap]") {
+  // The SI cap of the end-to-end cases: the profiles handed to the report belong to the
+  // piles and combinations they are named for, and agree with the pile rows (the same
+  // pile solved at the same head movement: consistency).
+  const cairn::CheckRun run =
+      cairn::analyse_project(std::string(CAIRN_TEST_DATA) + "/nonlinear/lateral_si.yaml");
+  REQUIRE(run.nonlinear);
+  const auto& nl = *run.nonlinear;
+  REQUIRE_FALSE(nl.profiles.empty());
+  CHECK(nl.profiles.front().why == "largest utilization");
+  CHECK(nl.profiles.front().pile == *run.results.summary.pile);
+  for (const auto& p : nl.profiles) {
+    REQUIRE(p.profile.converged);
+    const auto& row = nl.combinations[p.combination].piles[p.pile];
+    CHECK(p.profile.max_moment == close(row.max_moment, 1e-9));
+    CHECK(p.profile.head_deflection == close(row.head_deflection, 1e-9));
+    CHECK(p.profile.depth.size() == p.profile.moment.size());
+  }
+  REQUIRE(nl.pushover);
+  CHECK(nl.pushover->combination == "U1");
+  // Each combination converged to the tolerance, and the heads balance the load about the
+  // origin to 1e-9 (statics of the cap's free body, head_balance).
+  const auto springs = cairn::pile_springs(run.project);
+  for (const auto& cc : run.results.combinations) {
+    CHECK(cc.solution.residual <= 1e-10);
+    const auto balance = cairn::head_balance(
+        springs, cc.solution,
+        cairn::combination_load(run.project, run.project.combinations[cc.combination]));
+    CHECK(balance.relative <= 1e-9);
+  }
+}

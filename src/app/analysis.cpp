@@ -5,6 +5,7 @@
 #include <mutex>
 #include <stdexcept>
 #include <thread>
+#include <tuple>
 
 #include <fmt/format.h>
 
@@ -30,6 +31,85 @@ void scale(Resistance& r, double f) {
   for (auto* v : {&r.compression, &r.tension, &r.lateral, &r.structural_axial, &r.structural_moment})
     if (*v) **v *= f;
 }
+
+// Each pile's head moment and largest moment along it in a nonlinear combination.
+std::vector<MomentPeak> nonlinear_moments(const NonlinearRun& run, std::size_t c,
+                                          const CapSolution& solution) {
+  std::vector<MomentPeak> along;
+  const auto& piles = run.combinations[c].piles;
+  for (std::size_t i = 0; i < piles.size() && i < solution.piles.size(); ++i)
+    along.push_back({solution.piles[i].head_moment, piles[i].max_moment, piles[i].max_moment_depth});
+  return along;
+}
+
+// The profiles of the governing piles of a nonlinear run (NonlinearRun::profiles).
+void add_governing_profiles(CheckRun& run, const NonlinearCapSolver& solver) {
+  NonlinearRun& nl = *run.nonlinear;
+  std::vector<std::tuple<std::size_t, std::size_t, std::string>> picks;
+  const CheckSummary& s = run.results.summary;
+  if (s.pile && s.combination) picks.emplace_back(*s.pile, *s.combination, "largest utilization");
+  std::optional<std::pair<std::size_t, std::size_t>> moment, deflection;
+  double most_moment = 0.0, most_deflection = 0.0;
+  for (const CombinationCheck& cc : run.results.combinations) {
+    if (cc.solution.overturns) continue;
+    const auto& piles = nl.combinations[cc.combination].piles;
+    for (std::size_t i = 0; i < piles.size(); ++i) {
+      if (piles[i].max_moment > most_moment) {
+        most_moment = piles[i].max_moment;
+        moment = {i, cc.combination};
+      }
+      if (piles[i].head_deflection > most_deflection) {
+        most_deflection = piles[i].head_deflection;
+        deflection = {i, cc.combination};
+      }
+    }
+  }
+  if (moment) picks.emplace_back(moment->first, moment->second, "largest moment");
+  if (deflection) picks.emplace_back(deflection->first, deflection->second, "largest deflection");
+  for (const auto& [pile, c, why] : picks) {
+    const bool seen = std::any_of(nl.profiles.begin(), nl.profiles.end(), [&](const NonlinearProfile& p) {
+      return p.pile == pile && p.combination == c;
+    });
+    if (seen) continue;
+    const double pm = nl.combinations[c].piles[pile].p_multiplier;
+    nl.profiles.push_back(
+        {pile, c, why, pile_profile_at(solver, pile, run.results.combinations[c].solution.movement, pm)});
+  }
+}
+
+// What a nonlinear run assumed, in plain words, for every output.
+std::vector<std::string> nonlinear_assumptions(const Project& project, const NonlinearRun& run) {
+  std::vector<std::string> notes;
+  notes.push_back(
+      "Soil response: nonlinear. Each pile is a beam-column on the soil's p-y curves with t-z "
+      "and Q-z curves along its axis; the cap's six movements are found by Newton iteration on "
+      "the piles' head responses in load steps, each combination on its own loads (no "
+      "superposition); a combination with no equilibrium fails (docs/methods-nonlinear.md).");
+  for (std::size_t t = 0; t < project.pile_types.size() && t < run.curves.size(); ++t)
+    if (!run.curves[t].empty())
+      notes.push_back(fmt::format("Curves of pile type '{}': {}.", project.pile_types[t].id,
+                                  run.curves[t]));
+  switch (run.rule) {
+    case GroupMultipliers::by_direction:
+      notes.push_back(
+          "p-multipliers: AASHTO LRFD Table 10.7.2.4-1 by row and spacing, rows across the "
+          "direction of each combination's horizontal resultant, the leading row the one "
+          "farthest along it (analysis.p_multipliers: by_direction).");
+      break;
+    case GroupMultipliers::reversing:
+      notes.push_back(
+          "p-multipliers: AASHTO LRFD Table 10.7.2.4-1 by row and spacing, each pile the "
+          "smaller of its multipliers for the direction of each combination's horizontal "
+          "resultant and the opposite one, for loads that reverse (analysis.p_multipliers: "
+          "reversing).");
+      break;
+    case GroupMultipliers::none:
+      notes.push_back("p-multipliers: none; every pile's p-y curves as for a single pile "
+                      "(analysis.p_multipliers: none).");
+      break;
+  }
+  return notes;
+}
 }  // namespace
 
 CheckRun analyse(Project project_in, const TypeAdjustments& adjust,
@@ -50,29 +130,51 @@ CheckRun analyse(Project project_in, const TypeAdjustments& adjust,
   }
   const CapSolver solver(pile_springs(project, run.stiffness));
   run.cap_stiffness = solver.stiffness_about({0.0, 0.0, 0.0});
+  const bool nonlinear =
+      options.soil_response.value_or(project.analysis.soil_response) == SoilResponse::nonlinear;
   Diagnostics problems;
-  for (const auto& u : unresisted_cases(project, solver)) {
-    const LoadCase& lc = project.load_cases[u.load_case];
-    // Point at the first load that has the component, else at the load case.
-    SourceLocation where = lc.where;
-    const auto component = static_cast<std::size_t>(
-        std::find(kWrenchNames.begin(), kWrenchNames.end(), u.load.component) - kWrenchNames.begin());
-    for (const auto& load : lc.loads)
-      if (component < 6 && load.load[component] != 0.0) {
-        where = load.where;
-        break;
-      }
-    problems.error(where, fmt::format("load_cases.{}: {} cannot be resisted: {}", lc.id,
-                                      u.load.component, u.load.reason));
-  }
+  // A nonlinear run has p-y curves along every pile, so no load goes unresisted by the
+  // linear springs' rule; a load the piles cannot carry is a combination without
+  // equilibrium instead.
+  if (!nonlinear)
+    for (const auto& u : unresisted_cases(project, solver)) {
+      const LoadCase& lc = project.load_cases[u.load_case];
+      // Point at the first load that has the component, else at the load case.
+      SourceLocation where = lc.where;
+      const auto component = static_cast<std::size_t>(
+          std::find(kWrenchNames.begin(), kWrenchNames.end(), u.load.component) - kWrenchNames.begin());
+      for (const auto& load : lc.loads)
+        if (component < 6 && load.load[component] != 0.0) {
+          where = load.where;
+          break;
+        }
+      problems.error(where, fmt::format("load_cases.{}: {} cannot be resisted: {}", lc.id,
+                                        u.load.component, u.load.reason));
+    }
   // The cap's pile forces depend on the springs only, so they are known before the
   // resistances; Broms' yield moment is taken at the least favourable of them.
   // (Not when a load cannot be resisted at all: that is reported first.)
   // Without a soil profile nothing computed depends on the pile forces: a run that keeps no
   // pile rows then checks each combination as it is solved and keeps none of them.
-  const bool streamed = !options.pile_rows && !(project.soil && !project.soil->layers.empty());
+  const bool streamed =
+      !nonlinear && !options.pile_rows && !(project.soil && !project.soil->layers.empty());
   std::vector<CapSolution> solutions;
-  if (problems.empty() && !streamed) solutions = solve_combinations(project, solver);
+  std::optional<NonlinearCapSolver> nonlinear_solver;
+  if (nonlinear) {
+    NonlinearGroup group = options.nonlinear_piles ? options.nonlinear_piles(project)
+                                                   : project_nonlinear_group(project);
+    run.nonlinear.emplace();
+    run.nonlinear->curves.assign(project.pile_types.size(), std::string());
+    for (std::size_t i = 0; i < project.piles.size() && i < group.curves.size(); ++i)
+      run.nonlinear->curves[project.piles[i].type] = group.curves[i];
+    nonlinear_solver.emplace(std::move(group));
+    solve_nonlinear_combinations(project, *nonlinear_solver, project.analysis.p_multipliers,
+                                 *run.nonlinear, [&](std::size_t, CapSolution&& solution) {
+                                   solutions.push_back(std::move(solution));
+                                 });
+  } else if (problems.empty() && !streamed) {
+    solutions = solve_combinations(project, solver);
+  }
   const auto lateral = lateral_capacities(project, axial_ranges(project, solutions));
   for (const auto& d : lateral_input_problems(project, lateral, solutions)) problems.error(d.where, d.message);
   run.resistances =
@@ -105,7 +207,11 @@ CheckRun analyse(Project project_in, const TypeAdjustments& adjust,
     });
   else
     for (std::size_t c = 0; c < solutions.size(); ++c) {
-      accumulator.add(c, std::move(solutions[c]));
+      if (run.nonlinear) {
+        const std::vector<MomentPeak> along = nonlinear_moments(*run.nonlinear, c, solutions[c]);
+        accumulator.add(c, std::move(solutions[c]), along);
+      } else
+        accumulator.add(c, std::move(solutions[c]));
       if (!options.pile_rows) std::vector<PileForce>().swap(solutions[c].piles);
       report(c);
     }
@@ -115,6 +221,21 @@ CheckRun analyse(Project project_in, const TypeAdjustments& adjust,
   std::vector<std::pair<std::string, std::string>> sources;
   for (const auto& k : run.stiffness) sources.emplace_back(k.axial_source, k.lateral_source);
   run.assumptions = assumptions(project, run.resistances, sources);
+  if (run.nonlinear) {
+    const auto& s = run.results.summary;
+    std::optional<std::size_t> pushed;
+    for (std::size_t c = 0; c < project.combinations.size(); ++c)
+      if (project.combinations[c].id == project.analysis.pushover) pushed = c;
+    if (!pushed) pushed = s.combination;
+    if (!pushed && !s.overturned.empty()) pushed = s.overturned.front();
+    if (pushed)
+      run.nonlinear->pushover = push_combination(project, *nonlinear_solver,
+                                                 project.analysis.p_multipliers, *pushed,
+                                                 project.analysis);
+    add_governing_profiles(run, *nonlinear_solver);
+    const auto notes = nonlinear_assumptions(project, *run.nonlinear);
+    run.assumptions.insert(run.assumptions.end(), notes.begin(), notes.end());
+  }
   return run;
 }
 
@@ -159,6 +280,7 @@ CheckReport make_check_report(const CheckRun& run, const std::string& options,
   report.stiffness = &run.stiffness;
   report.group = &run.group;
   report.cap_stiffness = run.cap_stiffness;
+  if (run.nonlinear) report.nonlinear = &*run.nonlinear;
   report.options = options;
   if (explain) {
     const auto& piles = run.project.piles;

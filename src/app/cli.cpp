@@ -62,6 +62,7 @@ std::string describe_options(const Options& o) {
   if (o.out_dir) text += " --out " + *o.out_dir;
   if (o.explain_pile) text += " --explain " + *o.explain_pile;
   if (o.as_built) text += " --as-built " + *o.as_built;
+  if (o.soil_response) text += std::string(" --soil-response ") + to_string(*o.soil_response);
   return text;
 }
 
@@ -184,7 +185,8 @@ int run_batch(const Options& options, std::ostream& out, std::ostream& err) {
     };
   const auto outcomes =
       analyse_all(options.files,
-                  AnalysisOptions{.pile_rows = options.out_dir && options.detail == Detail::full},
+                  AnalysisOptions{.pile_rows = options.out_dir && options.detail == Detail::full,
+                                  .soil_response = options.soil_response},
                   err, reduce);
   std::vector<CapSummaryRow> rows;
   std::vector<OutputFile> written;
@@ -229,6 +231,7 @@ int run_check(const Options& options, std::ostream& out, std::ostream& err) {
   Progress progress(err, "combinations");
   AnalysisOptions analysis;
   analysis.pile_rows = options.detail == Detail::full || options.explain_pile.has_value();
+  analysis.soil_response = options.soil_response;
   analysis.progress = progress.callback();
   const CheckRun run = analyse_project(options.files.front(), analysis);
   progress.clear();
@@ -359,6 +362,7 @@ struct CommandLine {
   Options options;
   std::string format = "text";
   std::string detail = "full";
+  std::string soil_response;
   std::string need_basis = "allowable";
 };
 
@@ -403,6 +407,12 @@ void check_options(CLI::App* check, CommandLine& line) {
       ->check(CLI::IsMember(kDetails));
   check->add_option("--explain", line.options.explain_pile,
                     "Show the hand check (section properties, substituted formula) for PILE");
+  check
+      ->add_option("--soil-response", line.soil_response,
+                   "How the soil holds the piles: linear (springs, default) or nonlinear (p-y, "
+                   "t-z and Q-z curves, each combination on its own); overrides the project's "
+                   "analysis.soil_response")
+      ->check(CLI::IsMember({"linear", "nonlinear"}));
   add_as_built(check, line);
 }
 
@@ -615,6 +625,9 @@ int run_command_line(int argc, const char* const* argv, std::ostream& out, std::
   options.command_line = command_line_text(argc, argv);
   options.format = chosen<Format>(kFormats, line.format);
   options.detail = chosen<Detail>(kDetails, line.detail);
+  if (!line.soil_response.empty())
+    options.soil_response =
+        line.soil_response == "nonlinear" ? SoilResponse::nonlinear : SoilResponse::linear;
   if (line.need_basis == "factored") options.need_basis = CapacityBasis::factored;
   for (const auto& [s, command] : commands)
     if (command->parsed()) options.command = s->command;

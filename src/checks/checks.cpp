@@ -237,6 +237,16 @@ CheckAccumulator::CheckAccumulator(const Project& project,
 }
 
 void CheckAccumulator::add(std::size_t c, CapSolution solution) {
+  add_checked(c, std::move(solution), nullptr);
+}
+
+void CheckAccumulator::add(std::size_t c, CapSolution solution,
+                           const std::vector<MomentPeak>& along) {
+  add_checked(c, std::move(solution), &along);
+}
+
+void CheckAccumulator::add_checked(std::size_t c, CapSolution solution,
+                                   const std::vector<MomentPeak>* along) {
   const Project& project = project_;
   const auto& resistances = resistances_;
   const auto& head_moment_per_shear = head_moment_per_shear_;
@@ -296,7 +306,11 @@ void CheckAccumulator::add(std::size_t c, CapSolution solution) {
     consider(p.axial, r.compression, Demand::compression);
     consider(-p.axial, r.tension, Demand::tension);
     consider(p.lateral, r.lateral, Demand::lateral);
-    if (pile.type < moment_influence_.size() && moment_influence_[pile.type]) {
+    if (along && i < along->size()) {
+      p.head_moment = (*along)[i].head;
+      p.max_moment = (*along)[i].value;
+      p.max_moment_depth = (*along)[i].depth;
+    } else if (pile.type < moment_influence_.size() && moment_influence_[pile.type]) {
       const MomentPeak peak =
           largest_moment_along(*moment_influence_[pile.type], pile.axis(), force.head_forces);
       p.head_moment = peak.head;

@@ -99,6 +99,12 @@ const char* to_string(En1997PileKind k) { return name_in(kEn1997PileKindNames, k
 
 const char* to_string(SectionShape s) { return s == SectionShape::square ? "square" : "round"; }
 
+constexpr const char* kSoilResponseNames[] = {"linear", "nonlinear"};
+const char* to_string(SoilResponse r) { return name_in(kSoilResponseNames, r); }
+
+constexpr const char* kGroupMultipliersNames[] = {"by_direction", "reversing", "none"};
+const char* to_string(GroupMultipliers m) { return name_in(kGroupMultipliersNames, m); }
+
 Wrench resultant_about(const LoadCase& load_case, const std::array<double, 3>& point) {
   Wrench total{};
   for (const auto& load : load_case.loads) {

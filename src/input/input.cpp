@@ -8,6 +8,7 @@
 #include <fmt/format.h>
 
 #include "cairn/input/includes.hpp"
+#include "cairn/input/analysis_keys.hpp"
 #include "cairn/input/package_keys.hpp"
 #include "cairn/input/sections.hpp"
 #include "cairn/input/yaml_core.hpp"
@@ -19,7 +20,7 @@ namespace fs = std::filesystem;
 
 const DocumentShape kProjectShape = {
     {"title", "units", "include", "cap", "pile_types", "piles", "soil", "load_cases",
-     "combinations", "columns", "loads_from", "group", "package", "design"},
+     "combinations", "columns", "loads_from", "group", "package", "design", "analysis"},
     {"pile_types", "load_cases", "combinations"}};
 
 // A load case no combination takes (with a factor other than 0) is never checked: say so.
@@ -131,6 +132,8 @@ Project read_project(const std::string& path, Piles piles_needed) {
     if (f != path && f != project.loads_file) project.input_files.push_back(f);
   if (const NamedEntry* package = section("package"))
     read_package_settings(package->value, project, diag);
+  if (const NamedEntry* analysis = section("analysis"))
+    read_analysis_settings(analysis->value, project, ctx);
   project.warnings = ctx.take_warnings();
   if (diag.empty()) add_self_weight(project, diag);
   if (diag.empty()) warn_unused_load_cases(project);

@@ -108,6 +108,7 @@ std::string report_detail::render_check_brief(const CheckReport& r, Format forma
   if (r.detail == Detail::summary) out += render_table(summary_table(r), format);
   if (r.group && r.detail != Detail::summary) out += group_block(r, format);
   if (r.explain_pile) out += explain_block(r, format);
+  out += nonlinear_block(r, format);
   out += assumptions_block(r, format);
   const std::string line = summary_line(r);
   out += format == Format::markdown ? "**" + line + "**\n\n" : line + "\n\n";

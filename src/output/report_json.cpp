@@ -6,11 +6,21 @@
 #include <limits>
 #include <set>
 
+#include "cairn/solver/nonlinear_combinations.hpp"
+
 namespace cairn {
 
 using namespace report_detail;
 
 namespace {
+
+// A nonlinear run's values of pile i in combination cc, or none (a linear run).
+const NonlinearPileResult* nonlinear_pile(const CheckReport& r, const CombinationCheck& cc,
+                                          std::size_t i) {
+  if (!r.nonlinear || cc.combination >= r.nonlinear->combinations.size()) return nullptr;
+  const auto& piles = r.nonlinear->combinations[cc.combination].piles;
+  return i < piles.size() ? &piles[i] : nullptr;
+}
 
 // One combination of the JSON document ("combinations" holds them in order); below full
 // detail only overturned combinations are listed, without pile rows.
@@ -47,7 +57,13 @@ json combination_entry(const CheckReport& r, const CombinationCheck& cc, double 
       head.push_back(none ? json(nullptr)
                           : json(u.value(k < 3 ? Quantity::force : Quantity::moment, hf[k])));
     pile["head_forces"] = head;
-    if (r.stiffness && (*r.stiffness)[p.piles[i].type].head != HeadFixity::pinned) {
+    const NonlinearPileResult* extra = nonlinear_pile(r, cc, i);
+    if (extra) {
+      pile["head_deflection"] =
+          none ? json(nullptr) : json(u.value(Quantity::small_length, extra->head_deflection));
+      pile["p_multiplier"] = extra->p_multiplier;
+    }
+    if (extra || (r.stiffness && (*r.stiffness)[p.piles[i].type].head != HeadFixity::pinned)) {
       pile["head_moment"] = none ? json(nullptr) : json(u.value(Quantity::moment, pc.head_moment));
       pile["max_moment"] = none ? json(nullptr) : json(u.value(Quantity::moment, pc.max_moment));
       pile["max_moment_depth"] =
@@ -195,6 +211,7 @@ static json check_json_head(const CheckReport& r) {
     }
     doc["explain"] = {{"pile", p.piles[*r.explain_pile].id}, {"combinations", hand}};
   }
+  if (r.nonlinear) doc["analysis"] = nonlinear_json(r);
   doc["assumptions"] = r.assumptions;  // the warnings among them, as notes
   nlohmann::json warnings = nlohmann::json::array();
   for (const auto& w : p.warnings)
@@ -276,6 +293,12 @@ void report_detail::write_check_json(const CheckReport& r, std::ostream& out) {
       else number(u.value(Quantity::force, pc.axial));
       out << "," << in << "\"axial_stiffness\": " << axial_k[type];
       out << "," << in << "\"governing\": " << demands[static_cast<std::size_t>(pc.governing)];
+      const NonlinearPileResult* extra = nonlinear_pile(r, cc, i);
+      if (extra) {
+        out << "," << in << "\"head_deflection\": ";
+        if (none) out << "null";
+        else number(u.value(Quantity::small_length, extra->head_deflection));
+      }
       out << "," << in << "\"head_forces\": ";
       {
         json head = json::array();
@@ -285,7 +308,7 @@ void report_detail::write_check_json(const CheckReport& r, std::ostream& out) {
                               : json(u.value(k < 3 ? Quantity::force : Quantity::moment, hf[k])));
         dump(head, 10);
       }
-      const bool bends = r.stiffness && (*r.stiffness)[type].head != HeadFixity::pinned;
+      const bool bends = extra || (r.stiffness && (*r.stiffness)[type].head != HeadFixity::pinned);
       if (bends) {
         out << "," << in << "\"head_moment\": ";
         if (none) out << "null";
@@ -303,6 +326,10 @@ void report_detail::write_check_json(const CheckReport& r, std::ostream& out) {
         out << "," << in << "\"max_moment_depth\": ";
         if (none) out << "null";
         else number(u.value(Quantity::length, pc.max_moment_depth));
+      }
+      if (extra) {
+        out << "," << in << "\"p_multiplier\": ";
+        number(extra->p_multiplier);
       }
       out << "," << in << "\"pass\": " << (pc.pass ? "true" : "false");
       out << "," << in << "\"state\": " << states[static_cast<std::size_t>(pc.state)];

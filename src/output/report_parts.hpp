@@ -60,5 +60,12 @@ std::string render_check_brief(const CheckReport& r, Format format);
 void write_check_json(const CheckReport& r, std::ostream& out);
 std::string assumptions_block(const CheckReport& r, Format format);
 std::string explain_block(const CheckReport& r, Format format);
+// A nonlinear run's parts (report_nonlinear.cpp): its piles per combination, the pushover,
+// the block of both with the notes, and the JSON "analysis" member. Require r.nonlinear
+// (the block is empty without it; the pushover table needs a pushover).
+Table nonlinear_piles_table(const CheckReport& r);
+Table pushover_table(const CheckReport& r);
+std::string nonlinear_block(const CheckReport& r, Format format);
+json nonlinear_json(const CheckReport& r);
 
 }  // namespace cairn::report_detail

@@ -106,7 +106,10 @@ std::string summary_line(const CheckReport& r) {
   return fmt::format("FAIL: {} of {} {}{}{}{}", s.failed_combinations,
                      count_text(p.combinations.size(), "combination"),
                      s.failed_combinations == 1 ? "fails" : "fail",
-                     overturned.empty() ? "" : "; the cap overturns in " + overturned, utilization,
+                     overturned.empty() ? ""
+                     : r.nonlinear      ? "; no equilibrium (a mechanism) in " + overturned
+                                        : "; the cap overturns in " + overturned,
+                     utilization,
                      group_fails ? "; group checks fail (see Group checks)" : "");
 }
 void write_check(const CheckReport& r, Format format, std::ostream& out) {
@@ -150,6 +153,7 @@ void write_check(const CheckReport& r, Format format, std::ostream& out) {
   if (r.cap_stiffness) out << render_table(cap_stiffness_table(r), format);
   if (r.group) out << group_block(r, format);
   if (r.explain_pile) out << explain_block(r, format);
+  out << nonlinear_block(r, format);
   out << assumptions_block(r, format);
   const std::string line = summary_line(r);
   out << (format == Format::markdown ? "**" + line + "**\n\n" : line + "\n\n");

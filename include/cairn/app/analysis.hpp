@@ -17,6 +17,7 @@
 #include "cairn/geotechnics/project_capacity.hpp"
 #include "cairn/output/report.hpp"
 #include "cairn/geotechnics/stiffness.hpp"
+#include "cairn/solver/nonlinear_combinations.hpp"
 
 namespace cairn {
 
@@ -30,6 +31,9 @@ struct CheckRun {
   std::vector<std::string> assumptions;
   // The cap's stiffness about the origin for the global structural model (every pile active).
   std::array<std::array<double, 6>, 6> cap_stiffness{};
+  // A nonlinear run (analysis.soil_response: nonlinear, or --soil-response nonlinear): what
+  // it adds per combination and pile, and the pushover curve. Absent for a linear run.
+  std::optional<NonlinearRun> nonlinear;
 };
 
 // What the analysis builds beyond the check. With `depth_tables`, each computed pile type's
@@ -43,6 +47,11 @@ struct AnalysisOptions {
   bool pile_rows = true;
   // When given, called with (combinations checked, combinations) every 1,000 combinations.
   std::function<void(std::size_t done, std::size_t total)> progress{};
+  // `check --soil-response`: overrides the project's analysis.soil_response when given.
+  std::optional<SoilResponse> soil_response{};
+  // The piles on nonlinear soil for a nonlinear run; empty: the project's own, from its soil
+  // profile's curves. Another pile model can be given here (tests).
+  std::function<NonlinearGroup(const Project&)> nonlinear_piles{};
 };
 
 // Reads and checks one project file. Throws InputError for any input problem (nothing is

@@ -59,6 +59,8 @@ struct Options {
   std::uint64_t seed = 1;
   bool normal = false;
   int rays = 72;  // safe-region: rays of the traced region
+  // check: the soil response, over the project's analysis.soil_response (linear, nonlinear).
+  std::optional<SoilResponse> soil_response;
 };
 
 inline constexpr int kExitPass = 0;

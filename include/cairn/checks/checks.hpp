@@ -184,9 +184,14 @@ class CheckAccumulator {
                    const std::vector<std::optional<MomentInfluence>>& moment_influence = {});
   // The combination's solution (combinations in order, index c).
   void add(std::size_t c, CapSolution solution);
+  // The same with each pile's head moment and largest moment along it given (per pile, as
+  // Project::piles: a nonlinear run's pile profiles); they take the place of the moment
+  // influence and of the moment per shear.
+  void add(std::size_t c, CapSolution solution, const std::vector<MomentPeak>& along);
   CheckResults finish();
 
  private:
+  void add_checked(std::size_t c, CapSolution solution, const std::vector<MomentPeak>* along);
   const Project& project_;
   const std::vector<PileTypeResistance>& resistances_;
   std::vector<double> head_moment_per_shear_;

@@ -242,6 +242,24 @@ struct PackageSettings {
   SourceLocation where;
 };
 
+// How the piles' soil is modelled in `check` (`analysis:` in the project file; docs/user-guide.md):
+// linear springs (the default), or nonlinear p-y, t-z and Q-z curves with each combination solved
+// on its own (solver/nonlinear_cap.hpp).
+enum class SoilResponse { linear, nonlinear };
+// Group action on the p-y curves in a nonlinear run (geotechnics/p_multipliers.hpp): rows by
+// the direction of each combination's horizontal resultant, by both directions of it (loads
+// that reverse: the smaller multiplier), or none (every multiplier 1).
+enum class GroupMultipliers { by_direction, reversing, none };
+
+struct AnalysisSettings {
+  SoilResponse soil_response = SoilResponse::linear;
+  GroupMultipliers p_multipliers = GroupMultipliers::by_direction;
+  std::string pushover;               // combination pushed; empty: the governing one
+  double pushover_limit = 5.0;        // the largest load factor λ of the pushover
+  std::optional<double> pushover_displacement;  // m, the cap's movement that ends it
+  SourceLocation where;
+};
+
 struct Project {
   std::string file;  // path of the project file as given
   std::string title;
@@ -262,6 +280,7 @@ struct Project {
   // the reactions CSV is loads_file.
   std::vector<std::string> input_files;
   PackageSettings package;
+  AnalysisSettings analysis;
 };
 
 const char* to_string(LimitState);
@@ -270,6 +289,8 @@ const char* to_string(LoadKind);
 const char* to_string(ResistanceSet);
 const char* to_string(En1997PileKind);
 const char* to_string(SectionShape);
+const char* to_string(SoilResponse);
+const char* to_string(GroupMultipliers);
 
 // Sum of all loads in a case as forces and moments about `point`: M = Σ (at − point) × F + M,
 // each lever arm the difference of input coordinates (no digits lost far from the origin).

@@ -32,6 +32,8 @@
 
 namespace cairn {
 
+struct NonlinearRun;
+
 enum class Format { text, csv, markdown, json };
 
 // How much of a check the outputs show (`cairn check --detail`):
@@ -72,6 +74,9 @@ struct CheckReport {
   std::optional<std::array<std::array<double, 6>, 6>> cap_stiffness;
   // Below full, the renderers need no pile rows (CheckResults::pile_rows may be false).
   Detail detail = Detail::full;
+  // A nonlinear run (solver/nonlinear_combinations.hpp): its notes, per-pile values and
+  // pushover are shown; absent for a linear run, whose outputs it leaves unchanged.
+  const NonlinearRun* nonlinear = nullptr;
 };
 
 std::string render_check(const CheckReport& report, Format format);

@@ -101,7 +101,7 @@ TEST_CASE("package equilibrium: the fixed-head pier balances with its head momen
   CHECK(has(html, "The pile's reaction on the cap is the opposite"));
   CHECK_FALSE(has(html, "not part of this sum"));
   CHECK(has(html, "cairn check --explain"));
-  CHECK(has(html, "fixed heads: the cap puts Mx = "));
+  CHECK(has(html, "heads held by the cap (fixed or partially fixed): the cap puts Mx = "));
   REQUIRE(run.results.summary.pile);
   REQUIRE(run.results.summary.combination);
   for (const HandCheck& h : explain_pile(run.project, run.results, *run.results.summary.pile)) {

@@ -95,6 +95,8 @@ std::string render_cap_package_html(const CapPackageInput& input) {
   std::vector<std::string> extras;
   if (r.group) extras.push_back(render_group_section_html(r));
   extras.push_back(render_equilibrium_section_html(r));
+  if (input.nonlinear && has_content(*input.nonlinear))
+    extras.push_back(render_nonlinear_section_html(*input.nonlinear, p.units));
   extras.insert(extras.end(), page.extra_sections_html.begin(), page.extra_sections_html.end());
   if (!input.inputs.empty()) {
     extras.push_back(render_input_echo_html(r, input.inputs));

@@ -558,7 +558,7 @@ std::string explain_block(const CheckReport& r, Format format) {
     text += fmt::format("{}Ixx = {} {}, Iyy = {} {}, Ixy = {} {}\n", in, u.area(s.ixx), a,
                         u.area(s.iyy), a, u.area(s.ixy), a);
     if (h.heads_moment_x != 0.0 || h.heads_moment_y != 0.0)
-      text += fmt::format("{}fixed heads: the cap puts Mx = {} {}, My = {} {} on the pile heads; Mx and My "
+      text += fmt::format("{}heads held by the cap (fixed or partially fixed): the cap puts Mx = {} {}, My = {} {} on the pile heads; Mx and My "
                           "below are the applied moments less these\n",
                           in, u.moment(h.heads_moment_x), m, u.moment(h.heads_moment_y), m);
     text += fmt::format("{}V = {} {}, Mx = {} {}, My = {} {}; eccentricity ex = {} {}, ey = {} {}\n",

@@ -8,18 +8,21 @@
 // used, defaults taken, warnings), the equilibrium of the governing combinations with the
 // hand check, the input echo (every file that fed the run with its path relative to the
 // project, size and SHA-256, the tool version and the command) and the input text itself in
-// an appendix; a print style sheet (A4 and Letter, a running header with project, cap and
-// page number, the caution on every page). With more than kFullCombinationsLimit
-// combinations only the combinations that matter get their own table (see
+// an appendix; when the nonlinear analysis gives them, the diagrams of the governing piles and the
+// group's pushover curve (html_nonlinear.hpp); a print style sheet (A4 and Letter, a running header
+// with project, cap and page number, the caution on every page). With more than
+// kFullCombinationsLimit combinations only the combinations that matter get their own table (see
 // combinations_shown); the full table goes beside the page as CSV.
 //
 // Every function returns escaped HTML (or CSS, or CSV) and writes nothing.
 #pragma once
 
 #include <cstddef>
+#include <optional>
 #include <string>
 #include <vector>
 
+#include "cairn/output/html_nonlinear.hpp"
 #include "cairn/output/html_report.hpp"
 #include "cairn/output/report.hpp"
 
@@ -72,6 +75,9 @@ struct CapPackageInput {
   std::vector<InputFileText> inputs;   // the project file first
   std::string project_name;            // running header: the foundation, else the cap
   std::string all_combinations_file;   // the full CSV's name beside the page, when written
+  // The nonlinear soil response (html_nonlinear.hpp), placed after the equilibrium section
+  // when it holds a governing pile or a pushover curve; absent for a linear run.
+  std::optional<NonlinearSection> nonlinear;
 };
 
 // The whole page of one cap ("<!DOCTYPE html>…").

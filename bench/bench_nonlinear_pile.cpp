@@ -77,10 +77,10 @@ void BM_head_response_warm_soft_clay(benchmark::State& state) {
   const cairn::HeadMovement before{0.02, 0.01, -0.005, 0.0, 0.002, 0.0};
   cairn::HeadMovement after = before;
   for (double& m : after) m *= 1.02;
-  cairn::PileState start;
+  cairn::DeflectedShape start;
   cairn::pile_head_response(pile, before, 1.0, &start);
   for (auto _ : state) {
-    cairn::PileState warm = start;
+    cairn::DeflectedShape warm = start;
     const auto response = cairn::pile_head_response(pile, after, 1.0, &warm);
     if (!response.converged) state.SkipWithError(response.message.c_str());
     benchmark::DoNotOptimize(response.action);

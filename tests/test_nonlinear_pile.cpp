@@ -115,12 +115,13 @@ TEST_CASE("nonlinear pile: linear p-y on a long pile gives Hetényi's head stiff
     bending.torsional = 5000.0;
     const Matrix6Rows want = cairn::head_stiffness_matrix(pile.axis, k_a, head.lateral, bending);
     require_matrix(response.tangent, want, 1e-2);
-    // Linear curves: the action is the tangent times the movement.
-    const HeadMovement m{0.004, -0.002, -0.003, 0.001, 0.0005, 0.0};
+    // Linear curves and no axial force (no P-Δ): the action is the tangent times the movement.
+    const HeadMovement m{0.004, -0.002, 0.0, 0.001, 0.0005, 0.0};
+    const auto flat = cairn::pile_head_response(pile, m);
     for (int i = 0; i < 6; ++i) {
       double expected = 0.0;
-      for (int j = 0; j < 6; ++j) expected += response.tangent[i][j] * m[j];
-      REQUIRE(response.action[i] == close(expected, 1e-7, 1e-6));
+      for (int j = 0; j < 6; ++j) expected += flat.tangent[i][j] * m[j];
+      REQUIRE(flat.action[i] == close(expected, 1e-7, 1e-6));
     }
   }
 }
@@ -382,7 +383,7 @@ TEST_CASE("nonlinear pile: a call started from a nearby state gives the same ans
   clay.width = 0.6;
   NonlinearPileSpec pile = linear_pile(0.0, fixed());
   pile.curves.lateral = [clay](double z, double y) { return clay.resistance(z, y); };
-  cairn::PileState state;
+  cairn::DeflectedShape state;
   REQUIRE(cairn::pile_head_response(pile, {0.02, 0.01, -0.004, 0, 0.002, 0}, 1.0, &state).converged);
   REQUIRE_FALSE(state.lateral.empty());
   const HeadMovement next{0.025, 0.008, -0.005, 0.0005, 0.0015, 0};
@@ -392,5 +393,47 @@ TEST_CASE("nonlinear pile: a call started from a nearby state gives the same ans
   for (int i = 0; i < 6; ++i) {
     REQUIRE(warm.action[i] == close(cold.action[i], 1e-7, 1e-6));
     for (int j = 0; j < 6; ++j) REQUIRE(warm.tangent[i][j] == close(cold.tangent[i][j], 1e-6, 1e-3));
+  }
+}
+
+TEST_CASE("nonlinear pile: the condensed tangent is the derivative of the head action",
+          "[nonlinear_pile]") {
+  // Hand check (calculus): central differences of the action over each movement component
+  // agree with the analytic tangent on nonlinear curves (Matlock 1970 soft clay; API sand t-z
+  // and Q-z), for each head restraint, with P-Δ from the axial force.
+  cairn::SoftClayPy clay;
+  clay.undrained_strength = 30.0;
+  clay.effective_unit_weight = 8.0;
+  clay.width = 0.6;
+  clay.strain_50 = 0.01;
+  for (const HeadRestraint& restraint : {pinned(), fixed(), partial(60000.0)}) {
+    CAPTURE(static_cast<int>(restraint.kind));
+    NonlinearPileSpec pile = linear_pile(0.0, restraint);
+    pile.curves.lateral = [clay](double z, double y) { return clay.resistance(z, y); };
+    pile.curves.shaft = [](double, double w) {
+      return 100.0 * cairn::shaft_transfer(cairn::AxialSoil::sand, 0.6, w);
+    };
+    pile.curves.tip = [](double w) { return 1500.0 * cairn::tip_transfer(0.6, w); };
+    pile.torsional = 2000.0;
+    const HeadMovement m{0.015, -0.01, -0.002, 0.001, 0.0015, 0.0003};
+    const auto at = cairn::pile_head_response(pile, m);
+    REQUIRE(at.converged);
+    for (int j = 0; j < 6; ++j) {
+      const double step = j < 3 ? 1e-6 : 1e-7;
+      HeadMovement plus = m, minus = m;
+      plus[j] += step;
+      minus[j] -= step;
+      const auto a = cairn::pile_head_response(pile, plus), b = cairn::pile_head_response(pile, minus);
+      for (int i = 0; i < 6; ++i) {
+        CAPTURE(i, j);
+        const double numeric = (a.action[i] - b.action[i]) / (2.0 * step);
+        // 1e-3 of the column's largest term: the differences' truncation and the solves'
+        // convergence tolerance. The P-Δ coupling (the lateral action changing with the axial
+        // force, ∂F_x/∂u_z) is part of the tangent.
+        double scale = 0.0;
+        for (int k = 0; k < 6; ++k) scale = std::max(scale, std::abs(at.tangent[k][j]));
+        REQUIRE(at.tangent[i][j] == close(numeric, 1e-3, 1e-3 * scale));
+      }
+    }
   }
 }

@@ -877,6 +877,57 @@ ShaftLimit shaft_limit(ShaftMethod method, const SoilLayer& layer, Installation 
 
 }  // namespace
 
+std::vector<double> unit_shaft_at(const SoilProfile& profile, const PileGeometry& pile,
+                                  const PileDesign& design, const std::vector<double>& depths) {
+  if (const auto problems = validate_design(profile, pile, design); !problems.empty())
+    throw std::invalid_argument(problems.front());
+  const SoilColumn column(profile);
+  const std::vector<double>& z = column.boundaries();
+  const double head = pile.head_depth, tip = pile.tip_depth();
+  StressField stress{column, std::nullopt};
+  if (design.critical_depth_diameters)
+    stress.critical_depth = *design.critical_depth_diameters * pile.width;
+  // λ: the mean over the clay crossed with it, as in pile_capacity.
+  double lambda_length = 0.0, lambda_stress = 0.0, lambda_cu = 0.0;
+  for (std::size_t i = 0; i < profile.layers.size(); ++i) {
+    const SoilLayer& layer = profile.layers[i];
+    const double a = std::max(z[i], head), b = std::min(z[i + 1], tip);
+    if (b <= a || shaft_method_for(design, layer.kind) != ShaftMethod::lambda) continue;
+    std::vector<double> splits;
+    if (const auto water = column.water_level()) splits.push_back(*water);
+    lambda_length += b - a;
+    lambda_stress +=
+        integrate_split([&](double x) { return column.effective_stress(x); }, a, b, splits);
+    lambda_cu += *layer.undrained_strength * (b - a);
+  }
+  std::vector<double> out;
+  out.reserve(depths.size());
+  for (const double depth : depths) {
+    if (depth < head - kDepthTolerance || depth > tip + kDepthTolerance) {
+      out.push_back(0.0);
+      continue;
+    }
+    const SoilLayer& layer = column.layer(column.layer_at(depth));
+    const std::optional<ShaftMethod> method = shaft_method_for(design, layer.kind);
+    if (!method) {
+      out.push_back(0.0);
+      continue;
+    }
+    const double limit = shaft_limit(*method, layer, design.installation).value.value_or(INFINITY);
+    double f = 0.0;
+    if (*method == ShaftMethod::lambda) {
+      const double lambda = layer.lambda.value_or(vijayvergiya_focht_lambda(pile.length));
+      f = lambda_length > 0.0
+              ? lambda_unit_shaft(lambda, lambda_stress / lambda_length, lambda_cu / lambda_length)
+              : 0.0;
+    } else {
+      f = unit_shaft(*method, layer, depth, stress, column, pile, design.installation);
+    }
+    out.push_back(std::min(f, limit));
+  }
+  return out;
+}
+
 CapacityResult pile_capacity(const SoilProfile& profile, const PileGeometry& pile,
                              const PileDesign& design) {
   if (const auto problems = validate_design(profile, pile, design); !problems.empty())

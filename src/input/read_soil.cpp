@@ -1,6 +1,8 @@
 // The `soil:` section (sections.hpp): every range check of a layer's keys is here.
 #include "cairn/input/sections.hpp"
 
+#include "cairn/geotechnics/pile_soil_curves.hpp"
+
 #include <fmt/format.h>
 
 namespace cairn {
@@ -33,7 +35,8 @@ std::optional<SoilProfile> read_soil(const Located& n, ReadContext& ctx) {
                        "max_unit_tip", "max_unit_shaft_reason", "max_unit_tip_reason",
                        "meyerhof_nq", "lambda", "uplift_factor",
                        "compression_index", "recompression_index", "void_ratio",
-                       "preconsolidation", "subgrade_modulus", "modulus_gradient"});
+                       "preconsolidation", "subgrade_modulus", "modulus_gradient",
+                       "lateral_curve", "strain_50"});
     SoilLayer layer;
     layer.line = ctx.at(l).line;
     layer.name = ctx.text(l, "name", Need::optional).value_or(fmt::format("layer {}", i + 1));
@@ -80,6 +83,25 @@ std::optional<SoilProfile> read_soil(const Located& n, ReadContext& ctx) {
     layer.subgrade_modulus = opt("subgrade_modulus", Quantity::unit_weight);
     layer.modulus_gradient = opt("modulus_gradient", Quantity::unit_weight);
     const std::string who = fmt::format("{} ('{}')", l.path, layer.name);
+    if (auto c = l.child("lateral_curve"); c.present()) {
+      std::map<std::string, LateralCurve> names;
+      for (const LateralCurveInfo& info : lateral_curve_table()) names.emplace(info.name, info.curve);
+      if (auto v = ctx.choice<LateralCurve>(c, names)) {
+        layer.lateral_curve = *v;
+        const LateralCurveInfo& info = lateral_curve_info(*v);
+        if (l.child("kind").present() && info.soil != layer.kind)
+          ctx.error(ctx.at(c), fmt::format("{}.lateral_curve: '{}' is a curve for {} layers, "
+                                           "this layer is {}",
+                                           who, info.name, to_string(info.soil),
+                                           to_string(layer.kind)));
+      }
+    }
+    layer.strain_50 = opt("strain_50", Quantity::number);
+    if (layer.strain_50 && *layer.strain_50 >= 0.1)
+      ctx.error(ctx.at(l.child("strain_50")),
+                fmt::format("{}.strain_50: expected a strain below 0.1 (ε50 of clays is 0.004 "
+                            "to 0.02), got {:g}",
+                            who, *layer.strain_50));
     if (layer.kind == SoilKind::sand && !layer.friction_angle)
       ctx.error(ctx.at(l), fmt::format("{}: a sand layer needs friction_angle", who));
     if (layer.kind == SoilKind::clay && !layer.undrained_strength &&

@@ -214,6 +214,7 @@ struct AxialResult {
   double stiffness = 0.0;   // ∂N0/∂w0, kN/m
   std::vector<double> movement;       // w per node, m, positive into the ground
   std::vector<double> element_force;  // per element, compression positive, kN
+  std::vector<double> force_rate;     // ∂N_e/∂w0 per element, kN/m (for the P-Δ tangent)
 };
 
 AxialResult solve_axial(const NonlinearPileSpec& pile, double head_movement,
@@ -229,10 +230,17 @@ AxialResult solve_axial(const NonlinearPileSpec& pile, double head_movement,
     force = 0.0;
     tangent = 0.0;
     if (shaft) {
-      const double z = i * h, r = std::abs(w);
-      const CurvePoint c = curve_point([&](double x) { return shaft(z, x); }, r);
-      force += trib(i) * std::copysign(c.value, w);
-      tangent += trib(i) * c.tangent;
+      // t(z, w) need not be odd (less friction in tension): evaluated on its own side.
+      const double z = i * h;
+      if (std::abs(w) < kTiny) {
+        const double k = w < 0.0 ? -shaft(z, -kTiny) / kTiny : shaft(z, kTiny) / kTiny;
+        force += trib(i) * k * w;
+        tangent += trib(i) * k;
+      } else {
+        const double step = 1e-6 * std::abs(w);
+        force += trib(i) * shaft(z, w);
+        tangent += trib(i) * (shaft(z, w + step) - shaft(z, w - step)) / (2.0 * step);
+      }
     }
     if (i == n && tip) {
       // Q(w) is 0 for w ≤ 0: its slope at rest is the one into the ground.
@@ -339,13 +347,19 @@ AxialResult solve_axial(const NonlinearPileSpec& pile, double head_movement,
   }
   out.movement = w;
   out.element_force.resize(static_cast<std::size_t>(n));
-  for (int e = 0; e < n; ++e)
+  out.force_rate.resize(static_cast<std::size_t>(n));
+  // ∂w_i/∂w0 = EA/h·[K_II⁻¹]_{i1} (step holds K_II⁻¹·e1), 1 at the head.
+  auto rate = [&](int i) { return i == 0 ? 1.0 : k_bar * step[static_cast<std::size_t>(i)]; };
+  for (int e = 0; e < n; ++e) {
     out.element_force[static_cast<std::size_t>(e)] = k_bar * (w[static_cast<std::size_t>(e)] - w[static_cast<std::size_t>(e + 1)]);
+    out.force_rate[static_cast<std::size_t>(e)] = k_bar * (rate(e) - rate(e + 1));
+  }
   if (!pile.tension && out.head_force < 0.0) {
     // The pile takes no tension: it leaves the cap.
     out.head_force = 0.0;
     out.stiffness = 0.0;
     std::fill(out.element_force.begin(), out.element_force.end(), 0.0);
+    std::fill(out.force_rate.begin(), out.force_rate.end(), 0.0);
   }
   return out;
 }
@@ -490,7 +504,11 @@ class Lateral {
 
   // The head action per plane (H1, H2 and the forces on the cap slopes φ1, φ2) and the 4×4
   // tangent on (y0_1, y0_2, φ1, φ2), the static condensation of the interior unknowns.
+  // `force_rate` (∂N_e/∂w0) gives `axial_coupling`, the rate of the four head forces with the
+  // head's axial movement w0 through P-Δ: ∂f_B/∂w0 = g_B − K_BI·K_II⁻¹·g_I with
+  // g = Σ_e ∂N_e/∂w0·(∂K_e/∂N)·d_e.
   bool condense(std::array<double, 4>& action, std::array<std::array<double, 4>, 4>& tangent,
+                const std::vector<double>& force_rate, std::array<double, 4>& axial_coupling,
                 std::string& message) const {
     for (int i = 0; i < 4; ++i) action[static_cast<std::size_t>(i)] = f_[static_cast<std::size_t>(i)];
     Band k = linear_;
@@ -524,6 +542,31 @@ class Lateral {
           for (int i = first_; i < std::min(size_, first_ + kBand + 4); ++i)
             s -= k.get(a, i) * column[static_cast<std::size_t>(i)];
         tangent[static_cast<std::size_t>(a)][static_cast<std::size_t>(b)] = s;
+      }
+    }
+    axial_coupling = {};
+    if (std::any_of(force_rate.begin(), force_rate.end(), [](double v) { return v != 0.0; })) {
+      std::vector<double> g(static_cast<std::size_t>(size_), 0.0);
+      double unit[4][4];
+      element_matrix(0.0, h_, -1.0, unit);  // −∂K_e/∂N
+      for (int plane = 0; plane < 2; ++plane)
+        for (int e = 0; e < n_; ++e) {
+          const double rate = force_rate[static_cast<std::size_t>(e)];
+          if (rate == 0.0) continue;
+          const int dofs[4] = {index(e, 2 * plane), index(e, 2 * plane + 1),
+                               index(e + 1, 2 * plane), index(e + 1, 2 * plane + 1)};
+          for (int i = 0; i < 4; ++i)
+            for (int j = 0; j < 4; ++j)
+              g[static_cast<std::size_t>(dofs[i])] -=
+                  rate * unit[i][j] * d_[static_cast<std::size_t>(dofs[j])];
+        }
+      std::vector<double> y = g;
+      factored.solve(y);
+      for (int a = 0; a < 4; ++a) {
+        double s = g[static_cast<std::size_t>(a)];
+        for (int i = first_; i < std::min(size_, first_ + kBand + 4); ++i)
+          s -= k.get(a, i) * y[static_cast<std::size_t>(i)];
+        axial_coupling[static_cast<std::size_t>(a)] = s;
       }
     }
     return true;
@@ -653,7 +696,7 @@ struct Solved {
 };
 
 void solve_pile(const NonlinearPileSpec& pile, const HeadMovement& movement, double multiplier,
-                PileState* state, Solved& out) {
+                DeflectedShape* state, Solved& out) {
   validate(pile, movement, multiplier);
   const Vec3& a = pile.axis;
   const Vec3 u{movement[0], movement[1], movement[2]}, w{movement[3], movement[4], movement[5]};
@@ -699,7 +742,7 @@ PileHeadResponse pile_head_response(const NonlinearPileSpec& pile, const HeadMov
 }
 
 PileHeadResponse pile_head_response(const NonlinearPileSpec& pile, const HeadMovement& movement,
-                                    double p_multiplier, PileState* state) {
+                                    double p_multiplier, DeflectedShape* state) {
   PileHeadResponse out;
   Solved s;
   solve_pile(pile, movement, p_multiplier, state, s);
@@ -709,7 +752,10 @@ PileHeadResponse pile_head_response(const NonlinearPileSpec& pile, const HeadMov
   }
   std::array<double, 4> plane_action{};
   std::array<std::array<double, 4>, 4> plane_tangent{};
-  if (!s.lateral->condense(plane_action, plane_tangent, out.message)) return out;
+  std::array<double, 4> axial_coupling{};
+  if (!s.lateral->condense(plane_action, plane_tangent, s.axial.force_rate, axial_coupling,
+                           out.message))
+    return out;
   // The plane unknowns (y0_1, y0_2, φ1, φ2) from the global (u, ω): rows of B, 4×6.
   const Vec3& a = pile.axis;
   double b[4][6] = {};
@@ -735,6 +781,10 @@ PileHeadResponse pile_head_response(const NonlinearPileSpec& pile, const HeadMov
         for (int l = 0; l < 4; ++l)
           v += b[k][i] * plane_tangent[static_cast<std::size_t>(k)][static_cast<std::size_t>(l)] * b[l][j];
       if (i < 3 && j < 3) v += s.axial.stiffness * a[static_cast<std::size_t>(i)] * a[static_cast<std::size_t>(j)];
+      // P-Δ: the lateral forces change with the axial force, w0 = a·u.
+      if (j < 3)
+        for (int k = 0; k < 4; ++k)
+          v += b[k][i] * axial_coupling[static_cast<std::size_t>(k)] * a[static_cast<std::size_t>(j)];
       if (i >= 3 && j >= 3) v += pile.torsional * a[static_cast<std::size_t>(i - 3)] * a[static_cast<std::size_t>(j - 3)];
       out.tangent[static_cast<std::size_t>(i)][static_cast<std::size_t>(j)] = v;
     }

@@ -264,6 +264,14 @@ double default_uplift_factor(SoilKind kind);
 CapacityResult pile_capacity(const SoilProfile& profile, const PileGeometry& pile,
                              const PileDesign& design);
 
+// The unit shaft friction in compression (kPa, after the method's limit and the engineer's
+// max_unit_shaft) at each of `depths` (m below the ground surface): the function pile_capacity
+// integrates, for the nonlinear axial curves (t_max of the t-z curves); the λ method gives its
+// mean over the clay it covers. 0 outside the shaft and in a soil without a shaft method.
+// Requires an empty validate_design(); throws std::invalid_argument otherwise.
+std::vector<double> unit_shaft_at(const SoilProfile& profile, const PileGeometry& pile,
+                                  const PileDesign& design, const std::vector<double>& depths);
+
 // The most rows a capacity-with-depth table may have: a table for reading, and a bound on
 // the work a step typed on the command line can ask for.
 inline constexpr std::size_t kMaxDepthRows = 10000;

@@ -31,6 +31,10 @@ namespace cairn {
 // clay: undrained, total stress (cu); sand: drained, effective stress (φ').
 enum class SoilKind { clay, sand };
 
+// The p-y curve of a layer for the nonlinear soil response (pile_soil_curves.hpp holds each
+// curve's name in the project file, soil, source and what it needs).
+enum class LateralCurve { soft_clay, stiff_clay_dry, sand_api };
+
 struct SoilLayer {
   std::string name;
   SoilKind kind = SoilKind::sand;
@@ -59,6 +63,9 @@ struct SoilLayer {
   std::optional<double> preconsolidation;       // σ'p, kPa
   std::optional<double> subgrade_modulus;       // kh, horizontal, kN/m³
   std::optional<double> modulus_gradient;       // nh, kN/m³: Es = nh·z below the pile head
+  // Nonlinear soil response (pile_soil_curves.hpp): the layer's p-y curve and ε50 (clay).
+  std::optional<LateralCurve> lateral_curve;
+  std::optional<double> strain_50;              // ε50, strain at half the peak deviator stress
   int line = 0;                                 // 1-based line in the project file, for messages
 };
 

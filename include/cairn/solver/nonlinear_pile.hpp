@@ -35,7 +35,8 @@ struct PileCurves {
   // p-multiplier for group action is applied by the caller of pile_head_response, not here.
   std::function<double(double, double)> lateral;
   // t(z, w): shaft resistance per unit length of pile (kN/m: unit friction times perimeter)
-  // at a movement w (m) of the pile relative to the soil, positive into the ground; odd in w.
+  // at a movement w (m) of the pile relative to the soil, positive into the ground; t(z, 0) = 0,
+  // rising with |w| on each side (not necessarily odd: less friction in tension).
   std::function<double(double, double)> shaft;
   // Q(w): tip resistance (kN) at a tip movement w (m) into the ground; 0 for w ≤ 0.
   std::function<double(double)> tip;
@@ -79,12 +80,12 @@ PileHeadResponse pile_head_response(const NonlinearPileSpec& pile, const HeadMov
 // between calls for the same pile and multiplier: a call given the state of a nearby movement
 // starts its Newton iteration from it instead of from rest (a few iterations instead of about
 // ten). Empty, or from another pile: ignored. Updated on convergence only.
-struct PileState {
+struct DeflectedShape {
   std::vector<double> lateral;  // deflections and slopes of the nodes, both planes
   std::vector<double> axial;    // movements of the nodes along the axis
 };
 PileHeadResponse pile_head_response(const NonlinearPileSpec& pile, const HeadMovement& movement,
-                                    double p_multiplier, PileState* state);
+                                    double p_multiplier, DeflectedShape* state);
 
 // The pile along its length at a head movement: the resultant of the two bending planes.
 struct PileProfile {

@@ -9,6 +9,7 @@
 #include <fmt/format.h>
 
 #include "cairn/solver/cap_solver.hpp"
+#include "cairn/app/nonlinear_profiles.hpp"
 #include "cairn/checks/explain.hpp"
 #include "cairn/input/input.hpp"
 
@@ -196,6 +197,8 @@ CheckRun analyse(Project project_in, const TypeAdjustments& adjust,
       run.nonlinear->pushover = push_combination(project, *nonlinear_solver,
                                                  project.analysis.p_multipliers, *pushed,
                                                  project.analysis);
+    run.nonlinear_profiles = governing_pile_profiles(project, run.results, *run.nonlinear,
+                                                     nonlinear_solver->group());
     const auto notes = nonlinear_assumptions(project, *run.nonlinear);
     run.assumptions.insert(run.assumptions.end(), notes.begin(), notes.end());
   }

@@ -125,6 +125,12 @@ PackageFiles package_files(const std::vector<CapOutcome>& outcomes, const Packag
       input.all_combinations_file = name + "-all-combinations.csv";
       out.files.emplace_back(input.all_combinations_file, all_combinations_csv(report));
     }
+    // A nonlinear run's diagrams of the governing piles and its pushover curve; nothing for a
+    // linear run, whose page stays as it was.
+    if (run.nonlinear) {
+      NonlinearSection section{run.nonlinear_profiles, run.nonlinear->pushover};
+      if (has_content(section)) input.nonlinear = std::move(section);
+    }
     out.files.emplace_back(name + ".html", render_cap_package_html(input));
     if (request.plan_svg)
       out.files.emplace_back(name + "-plan.svg",

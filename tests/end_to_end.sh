@@ -836,5 +836,11 @@ for f in report.txt results.json summary.csv governing.csv; do
 done
 if [ -e "$work/governing-out/results.csv" ]; then bad "--detail governing --out: results.csv written"; else ok; fi
 expect_status "--detail unknown" 2 check "$crane" --detail everything
+# Nonlinear soil keys (issue 15): a p-y curve for the other soil and ε50 out of range are
+# located input errors.
+expect_status "lateral curve on the wrong soil" 2 check "$data/e2e/bad_lateral_curve.yaml"
+expect_in "lateral curve on the wrong soil named" "$work/err" "bad_lateral_curve.yaml:7:"
+expect_in "lateral curve on the wrong soil says why" "$work/err" "soil.layers[0] ('soft clay').lateral_curve: 'sand_api' is a curve for sand layers, this layer is clay"
+expect_in "strain_50 out of range" "$work/err" "strain_50: expected a strain below 0.1"
 echo "$passed passed, $failed failed"
 [ "$failed" -eq 0 ]

@@ -104,7 +104,8 @@ TEST_CASE("nonlinear pile: linear p-y on a long pile gives Hetényi's head stiff
     CAPTURE(static_cast<int>(restraint.kind));
     NonlinearPileSpec pile = linear_pile(kWinkler, restraint);
     pile.torsional = 5000.0;
-    const auto response = cairn::pile_head_response(pile, {0.004, -0.002, -0.003, 0.001, 0.0005, 0.0});
+    const auto response =
+        cairn::pile_head_response(pile, {0.004, -0.002, -0.003, 0.001, 0.0005, 0.0});
     REQUIRE(response.converged);
     // Source: Hetényi (1946), semi-infinite beam on elastic foundation: k_hh = 4EIλ³,
     // k_hm = −2EIλ², k_mm = 2EIλ (hetenyi_long_pile); the restraint condensed by
@@ -188,8 +189,10 @@ TEST_CASE("nonlinear pile: a pile that takes no tension leaves the cap when pull
   REQUIRE(held.action[2] > 0.0);  // the cap pulls the pile up: F along +z
 }
 
-TEST_CASE("nonlinear pile: at small movements the tangent is the linear response with the "
-          "curves' initial slopes", "[nonlinear_pile]") {
+TEST_CASE(
+    "nonlinear pile: at small movements the tangent is the linear response with the "
+    "curves' initial slopes",
+    "[nonlinear_pile]") {
   // API sand (O'Neill & Murchison 1983): p = A·pu·tanh(k·z·y/(A·pu)), initial slope k·z.
   // API t-z sand: linear up to 2.5 mm; Q-z: 0.25·Qp at z = 0.002·D (initial slope).
   cairn::SandApiPy sand;
@@ -235,7 +238,7 @@ TEST_CASE("nonlinear pile: a pile rotated in plan or battered gives the rotated 
   const auto base = cairn::pile_head_response(pile, {u[0], u[1], u[2], w[0], w[1], w[2]});
   REQUIRE(base.converged);
   for (const auto& [n, angle] :
-       {std::pair<std::array<double, 3>, double>{{0.0, 0.0, 1.0}, 0.7},          // in plan
+       {std::pair<std::array<double, 3>, double>{{0.0, 0.0, 1.0}, 0.7},              // in plan
         std::pair<std::array<double, 3>, double>{{0.6, 0.8, 0.0}, std::atan(0.25)},  // 1:4 batter
         std::pair<std::array<double, 3>, double>{{0.48, 0.6, 0.64}, 1.1}}) {
     const auto r = rotation(n, angle);
@@ -276,8 +279,10 @@ TEST_CASE("nonlinear pile: a skewed deflection acts on the resultant", "[nonline
   REQUIRE(std::hypot(skewed.action[0], skewed.action[1]) == close(along_x.action[0], 1e-7));
 }
 
-TEST_CASE("nonlinear pile: at large movements a short rigid pile reaches Broms' ultimate "
-          "load", "[nonlinear_pile][published]") {
+TEST_CASE(
+    "nonlinear pile: at large movements a short rigid pile reaches Broms' ultimate "
+    "load",
+    "[nonlinear_pile][published]") {
   // Broms (1964), "Lateral resistance of piles in cohesive soils", JSMFD 90(SM2): a short
   // free-head pile in clay, no resistance over the top 1.5·D, 9·cu·D below; H·(e + 1.5D +
   // 0.5f) = 2.25·D·g²·cu with f = H/(9·cu·D), L = 1.5D + f + g (e = 0).
@@ -305,7 +310,7 @@ TEST_CASE("nonlinear pile: at large movements a short rigid pile reaches Broms' 
   REQUIRE(response.converged);
   // 1 %: the springs near the turning point are still elastic (within ~1 cm of it) and the
   // reactions are lumped at the nodes (h = 2.5 cm: the node at 1.5·D takes half a step of
-  // resistance Broms leaves out, +0.6 %).
+  // resistance Broms leaves out: 407.6 kN against 405.3, +0.6 %).
   REQUIRE(response.action[0] == close(broms, 1e-2));
 }
 
@@ -372,6 +377,10 @@ TEST_CASE("nonlinear pile: the profile's moment and shear at the head match the 
   // Hetényi (1946), free head: the largest moment lies at λz = π/4 (0.785/λ = 2.22 m).
   const double lambda = std::pow(12000.0 / (4.0 * kEI), 0.25);
   REQUIRE(free_head.max_moment_depth == close(std::numbers::pi / 4.0 / lambda, 0.1));
+  // Hetényi (1946), free head: M_max = e^(−π/4)·sin(π/4)·H/λ = 0.3224·H/λ (1 %: the nodes
+  // 0.15 m apart and the lumped springs).
+  const auto free_action = cairn::pile_head_response(linear_pile(12000.0, pinned(), 200), m);
+  REQUIRE(free_head.max_moment == close(0.3224 * free_action.action[0] / lambda, 1e-2));
 }
 
 TEST_CASE("nonlinear pile: a call started from a nearby state gives the same answer",
@@ -384,7 +393,8 @@ TEST_CASE("nonlinear pile: a call started from a nearby state gives the same ans
   NonlinearPileSpec pile = linear_pile(0.0, fixed());
   pile.curves.lateral = [clay](double z, double y) { return clay.resistance(z, y); };
   cairn::DeflectedShape state;
-  REQUIRE(cairn::pile_head_response(pile, {0.02, 0.01, -0.004, 0, 0.002, 0}, 1.0, &state).converged);
+  REQUIRE(
+      cairn::pile_head_response(pile, {0.02, 0.01, -0.004, 0, 0.002, 0}, 1.0, &state).converged);
   REQUIRE_FALSE(state.lateral.empty());
   const HeadMovement next{0.025, 0.008, -0.005, 0.0005, 0.0015, 0};
   const auto warm = cairn::pile_head_response(pile, next, 1.0, &state);
@@ -392,7 +402,8 @@ TEST_CASE("nonlinear pile: a call started from a nearby state gives the same ans
   REQUIRE(warm.converged);
   for (int i = 0; i < 6; ++i) {
     REQUIRE(warm.action[i] == close(cold.action[i], 1e-7, 1e-6));
-    for (int j = 0; j < 6; ++j) REQUIRE(warm.tangent[i][j] == close(cold.tangent[i][j], 1e-6, 1e-3));
+    for (int j = 0; j < 6; ++j)
+      REQUIRE(warm.tangent[i][j] == close(cold.tangent[i][j], 1e-6, 1e-3));
   }
 }
 
@@ -423,7 +434,8 @@ TEST_CASE("nonlinear pile: the condensed tangent is the derivative of the head a
       HeadMovement plus = m, minus = m;
       plus[j] += step;
       minus[j] -= step;
-      const auto a = cairn::pile_head_response(pile, plus), b = cairn::pile_head_response(pile, minus);
+      const auto a = cairn::pile_head_response(pile, plus),
+                 b = cairn::pile_head_response(pile, minus);
       for (int i = 0; i < 6; ++i) {
         CAPTURE(i, j);
         const double numeric = (a.action[i] - b.action[i]) / (2.0 * step);
@@ -435,5 +447,42 @@ TEST_CASE("nonlinear pile: the condensed tangent is the derivative of the head a
         REQUIRE(at.tangent[i][j] == close(numeric, 1e-3, 1e-3 * scale));
       }
     }
+  }
+}
+
+TEST_CASE("nonlinear pile: the p-multiplier scales every p-y spring",
+          "[nonlinear_pile][published]") {
+  // Source: Hetényi (1946) with k·P_m: a long fixed-head pile with P_m = 0.5 on k = 12 000 kN/m²
+  // has the head terms of k = 6 000 kN/m² (1 %: the lumped springs, as above).
+  const auto half =
+      cairn::pile_head_response(linear_pile(12000.0, fixed()), {0.01, 0, 0, 0, 0, 0}, 0.5);
+  REQUIRE(half.converged);
+  const auto head = cairn::restrained_head(cairn::hetenyi_long_pile(kEI, 6000.0), fixed());
+  REQUIRE(half.tangent[0][0] == close(head.lateral, 1e-2));
+  REQUIRE(half.tangent[4][4] == close(head.bending.rotational, 1e-2));
+  REQUIRE(half.action[0] == close(half.tangent[0][0] * 0.01, 1e-9));
+}
+
+TEST_CASE("nonlinear pile: softening curves converge", "[nonlinear_pile]") {
+  // Matlock (1970) cyclic soft clay: above zr the resistance falls beyond 3·y50 (y50 = 15 mm
+  // here), so near the head the tangent is negative; the iteration still settles and the
+  // tangent is still the derivative of the action (central differences, hand check).
+  cairn::SoftClayPy clay;
+  clay.undrained_strength = 20.0;
+  clay.effective_unit_weight = 6.0;
+  clay.width = 0.6;
+  clay.strain_50 = 0.01;
+  clay.loading = cairn::PyLoading::cyclic;
+  NonlinearPileSpec pile = linear_pile(0.0, fixed());
+  pile.curves.lateral = [clay](double z, double y) { return clay.resistance(z, y); };
+  for (double d : {0.05, 0.15, 0.3}) {
+    CAPTURE(d);
+    const auto at = cairn::pile_head_response(pile, {d, 0, 0, 0, 0, 0});
+    INFO(at.message);
+    REQUIRE(at.converged);
+    const double step = 1e-6;
+    const auto a = cairn::pile_head_response(pile, {d + step, 0, 0, 0, 0, 0});
+    const auto b = cairn::pile_head_response(pile, {d - step, 0, 0, 0, 0, 0});
+    REQUIRE(at.tangent[0][0] == close((a.action[0] - b.action[0]) / (2 * step), 1e-3));
   }
 }

@@ -120,7 +120,8 @@ TEST_CASE("pile soil curves: a pile's p-y, t-z and Q-z curves from the project",
           close(t_max * cairn::shaft_transfer(cairn::AxialSoil::clay, 0.45, 0.002), 1e-9));
   REQUIRE(spec.curves.shaft(3.0, -0.002) == close(-spec.curves.shaft(3.0, 0.002), 1e-12));
   // Sand: in tension 2/3 of the compression friction (default_uplift_factor).
-  REQUIRE(spec.curves.shaft(15.0, -0.001) == close(-2.0 / 3.0 * spec.curves.shaft(15.0, 0.001), 1e-12));
+  REQUIRE(spec.curves.shaft(15.0, -0.001) ==
+          close(-2.0 / 3.0 * spec.curves.shaft(15.0, 0.001), 1e-12));
   const double tip = cairn::pile_capacity(*project.soil, g, project.pile_types[0].design).tip;
   REQUIRE(spec.curves.tip(0.45 * 0.1) == close(tip, 1e-12));  // Q_p at z = 0.1·D
   REQUIRE(spec.curves.tip(-0.01) == 0.0);
@@ -129,7 +130,8 @@ TEST_CASE("pile soil curves: a pile's p-y, t-z and Q-z curves from the project",
   double sum = 0.0;
   const double h = 18.0 / 60;
   for (int i = 0; i <= 60; ++i) {
-    const double t = spec.curves.shaft(i * h, 1.0);  // far along the curve: t_max (sand, clay residual 0.9)
+    const double t =
+        spec.curves.shaft(i * h, 1.0);  // far along the curve: t_max (sand, clay residual 0.9)
     sum += (i == 0 || i == 60 ? 0.5 : 1.0) * h * t;
   }
   const double shaft = cairn::pile_capacity(*project.soil, g, project.pile_types[0].design).shaft;

@@ -16,7 +16,7 @@
 namespace cairn {
 namespace {
 
-constexpr double kWaterUnitWeight = 9.81;     // kN/m³
+constexpr double kWaterUnitWeight = 9.81;       // kN/m³
 constexpr double kPoundPerCubicInch = 271.447;  // kN/m³ per lb/in³ (4.448222 N / 0.0254³ m³)
 
 SoilCurveProblem make_problem(SourceLocation where, std::string message) {
@@ -87,8 +87,8 @@ const std::vector<LateralCurveInfo> kTable = {
      "stiff clay without free water, Welch & Reese (1972); ε50 by the layer or from cu",
      clay_problems, build_stiff_clay_dry},
     {LateralCurve::sand_api, "sand_api", SoilKind::sand,
-     "sand, API RP 2GEO (O'Neill & Murchison 1983); k = modulus_gradient or from φ'",
-     sand_problems, build_sand_api},
+     "sand, API RP 2GEO (O'Neill & Murchison 1983); k = modulus_gradient or from φ'", sand_problems,
+     build_sand_api},
 };
 
 double batter_cosine(const Pile& pile) { return std::abs(pile.axis()[2]); }
@@ -105,7 +105,8 @@ PileGeometry geometry(const Project& project, const Pile& pile, const PileType& 
 
 std::string names_list() {
   std::string out;
-  for (const LateralCurveInfo& info : kTable) out += std::string(out.empty() ? "" : ", ") + info.name;
+  for (const LateralCurveInfo& info : kTable)
+    out += std::string(out.empty() ? "" : ", ") + info.name;
   return out;
 }
 
@@ -193,17 +194,21 @@ double default_strain_50(double cu) {
 double default_sand_modulus(double phi, bool below_water) {
   // API RP 2GEO's chart of k against relative density, by its classes (from memory).
   double pci = 0.0;
-  if (phi < 30.0) pci = below_water ? 20.0 : 25.0;
-  else if (phi <= 36.0) pci = below_water ? 60.0 : 90.0;
-  else pci = below_water ? 125.0 : 225.0;
+  if (phi < 30.0)
+    pci = below_water ? 20.0 : 25.0;
+  else if (phi <= 36.0)
+    pci = below_water ? 60.0 : 90.0;
+  else
+    pci = below_water ? 125.0 : 225.0;
   return pci * kPoundPerCubicInch;
 }
 
 std::vector<SoilCurveProblem> nonlinear_soil_problems(const Project& project) {
   std::vector<SoilCurveProblem> out;
   if (!project.soil) {
-    out.push_back(make_problem(SourceLocation{project.file, 0, 0},
-                               "soil: missing; the nonlinear soil response needs the soil profile"));
+    out.push_back(
+        make_problem(SourceLocation{project.file, 0, 0},
+                     "soil: missing; the nonlinear soil response needs the soil profile"));
     return out;
   }
   const SoilProfile& profile = *project.soil;
@@ -222,11 +227,13 @@ std::vector<SoilCurveProblem> nonlinear_soil_problems(const Project& project) {
       out.push_back(make_problem(type.where, fmt::format("pile_types.{}: {}", type.id, message)));
     };
     if (!(type.elastic_modulus > 0.0))
-      problem("elastic_modulus: missing; the nonlinear soil response needs the pile's E for "
-              "EI and EA");
+      problem(
+          "elastic_modulus: missing; the nonlinear soil response needs the pile's E for "
+          "EI and EA");
     if (!type.design.computes_capacity()) {
-      problem("the nonlinear soil response needs the pile type's tip and shaft methods "
-              "(tip_clay/tip_sand, shaft_clay/shaft_sand) for its t-z and Q-z curves");
+      problem(
+          "the nonlinear soil response needs the pile type's tip and shaft methods "
+          "(tip_clay/tip_sand, shaft_clay/shaft_sand) for its t-z and Q-z curves");
       continue;
     }
     for (const std::string& p : validate_design(profile, g, type.design)) problem(p);
@@ -245,10 +252,11 @@ std::vector<SoilCurveProblem> nonlinear_soil_problems(const Project& project) {
     const LateralCurveInfo& info = lateral_curve_info(*layer.lateral_curve);
     if (info.soil != layer.kind)
       out.push_back(make_problem(where, fmt::format("{}.lateral_curve: '{}' is a curve for {} "
-                                                    "layers", who, info.name,
-                                                    to_string(info.soil))));
+                                                    "layers",
+                                                    who, info.name, to_string(info.soil))));
     for (const std::string& p : info.problems(layer))
-      out.push_back(make_problem(where, fmt::format("{}: lateral_curve '{}' {}", who, info.name, p)));
+      out.push_back(
+          make_problem(where, fmt::format("{}: lateral_curve '{}' {}", who, info.name, p)));
   }
   return out;
 }
@@ -304,12 +312,14 @@ NonlinearPileSpec nonlinear_pile_spec(const Project& project, std::size_t index,
     field->lateral_at_node.push_back(field->lateral_at(z));
     depths.push_back(field->ground_depth(z));
   }
-  const std::vector<double> unit = unit_shaft_at(field->profile, field->geometry, field->design, depths);
+  const std::vector<double> unit =
+      unit_shaft_at(field->profile, field->geometry, field->design, depths);
   const SoilColumn column(field->profile);
   for (std::size_t i = 0; i < nodes; ++i) {
     const SoilLayer& layer = column.layer(column.layer_at(depths[i]));
     field->shaft_max_at_node.push_back(unit[i] * field->perimeter);
-    field->uplift_at_node.push_back(layer.uplift_factor.value_or(default_uplift_factor(layer.kind)));
+    field->uplift_at_node.push_back(
+        layer.uplift_factor.value_or(default_uplift_factor(layer.kind)));
     field->soil_at_node.push_back(layer.kind == SoilKind::clay ? AxialSoil::clay : AxialSoil::sand);
   }
   const double width = type.section.width;
@@ -342,10 +352,10 @@ NonlinearPileSpec nonlinear_pile_spec(const Project& project, std::size_t index,
     lateral += fmt::format("{}'{}': {}", lateral.empty() ? "" : "; ", layer.name,
                            lateral_curve_info(*layer.lateral_curve).description);
   }
-  spec.curves.description =
-      fmt::format("p-y ({}): {}; t-z and Q-z: API RP 2GEO, t_max from the shaft method, Q_p = "
-                  "{:.1f} kN from the tip method",
-                  options.loading == PyLoading::cyclic ? "cyclic" : "static", lateral, tip);
+  spec.curves.description = fmt::format(
+      "p-y ({}): {}; t-z and Q-z: API RP 2GEO, t_max from the shaft method, Q_p = "
+      "{:.1f} kN from the tip method",
+      options.loading == PyLoading::cyclic ? "cyclic" : "static", lateral, tip);
   return spec;
 }
 

@@ -85,7 +85,8 @@ std::optional<SoilProfile> read_soil(const Located& n, ReadContext& ctx) {
     const std::string who = fmt::format("{} ('{}')", l.path, layer.name);
     if (auto c = l.child("lateral_curve"); c.present()) {
       std::map<std::string, LateralCurve> names;
-      for (const LateralCurveInfo& info : lateral_curve_table()) names.emplace(info.name, info.curve);
+      for (const LateralCurveInfo& info : lateral_curve_table())
+        names.emplace(info.name, info.curve);
       if (auto v = ctx.choice<LateralCurve>(c, names)) {
         layer.lateral_curve = *v;
         const LateralCurveInfo& info = lateral_curve_info(*v);

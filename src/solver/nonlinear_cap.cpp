@@ -4,6 +4,7 @@
 #include <algorithm>
 #include <cmath>
 #include <limits>
+#include <memory>
 #include <stdexcept>
 
 #include <fmt/format.h>
@@ -22,6 +23,18 @@ std::array<double, 3> to_array(const Eigen::Vector3d& v) { return {v(0), v(1), v
 constexpr int kEasyStep = 4;
 // Halvings of the Newton correction tried by the line search before the step is given up.
 constexpr int kLineSearchHalvings = 8;
+
+// T̂ = [[I, −[ρ]×], [0, I/L]] (ρ = (p − c)/L) taking Û = (t, L·r) to the head's (u, ω);
+// T̂ᵀ·(F, M) = (F, ρ × F + M/L).
+Matrix6 map_of(const Eigen::Vector3d& rho, double size) {
+  Eigen::Matrix3d skew;
+  skew << 0, -rho(2), rho(1), rho(2), 0, -rho(0), -rho(1), rho(0), 0;
+  Matrix6 map = Matrix6::Zero();
+  map.block<3, 3>(0, 0).setIdentity();
+  map.block<3, 3>(0, 3) = -skew;
+  map.block<3, 3>(3, 3) = Eigen::Matrix3d::Identity() / size;
+  return map;
+}
 
 }  // namespace
 
@@ -57,8 +70,9 @@ NonlinearCapSolver::NonlinearCapSolver(NonlinearGroup group, NonlinearSettings s
   const Eigen::Vector3d first = to_vector3(group_.heads[0]);
   std::vector<double> weight(n, 0.0);
   double total = 0.0;
+  std::vector<PileHeadResponse> initial(n);
   for (std::size_t i = 0; i < n; ++i) {
-    const PileHeadResponse r = group_.response(i, HeadMovement{}, 1.0);
+    const PileHeadResponse& r = initial[i] = group_.response(i, HeadMovement{}, 1.0);
     const double k = r.tangent[2][2];
     weight[i] = std::isfinite(k) && k > 0.0 ? k : 0.0;
     total += weight[i];
@@ -82,6 +96,49 @@ NonlinearCapSolver::NonlinearCapSolver(NonlinearGroup group, NonlinearSettings s
   double reach = 0.0;
   for (const auto& h : group_.heads) reach = std::max(reach, (to_vector3(h) - c).norm());
   size_ = reach > 0.0 ? reach : 1.0;
+  // The group at rest: no action, the initial tangent K̂₀ = Σ T̂ᵢᵀ·Kᵢ(0)·T̂ᵢ (multipliers 1).
+  auto rest = std::make_shared<State>();
+  rest->piles.assign(n, PileHeadResponse{});
+  for (auto& p : rest->piles) p.converged = true;
+  rest->valid = true;
+  for (std::size_t i = 0; i < n; ++i) {
+    const Eigen::Vector3d rho = (to_vector3(group_.heads[i]) - c) / size_;
+    Matrix6 k;
+    for (int a = 0; a < 6; ++a)
+      for (int b = 0; b < 6; ++b)
+        k(a, b) = initial[i].tangent[static_cast<std::size_t>(a)][static_cast<std::size_t>(b)];
+    if (!k.allFinite()) continue;
+    rest->tangent += map_of(rho, size_).transpose() * k * map_of(rho, size_);
+  }
+  rest_ = std::move(rest);
+}
+
+NonlinearGroup nonlinear_group(std::vector<NonlinearPileSpec> specs) {
+  NonlinearGroup g;
+  for (const auto& s : specs) {
+    g.heads.push_back(s.head);
+    g.axes.push_back(s.axis);
+    g.tension.push_back(s.tension);
+    g.curves.push_back(s.curves.description);
+  }
+  // The piles' last converged shapes, shared by the copies of the functions: one solver
+  // calls them in turn (a group is not solved from two threads at once).
+  auto shared = std::make_shared<const std::vector<NonlinearPileSpec>>(std::move(specs));
+  auto states = std::make_shared<std::vector<DeflectedShape>>(shared->size());
+  g.response = [shared, states](std::size_t i, const HeadMovement& m, double pm) {
+    PileHeadResponse r = pile_head_response((*shared)[i], m, pm, &(*states)[i]);
+    if (r.converged) return r;
+    // A start far from this movement (the last combination's) can fail where a start from
+    // rest does not: try again from rest.
+    DeflectedShape fresh;
+    r = pile_head_response((*shared)[i], m, pm, &fresh);
+    if (r.converged) (*states)[i] = std::move(fresh);
+    return r;
+  };
+  g.profile = [shared](std::size_t i, const HeadMovement& m, double pm) {
+    return pile_profile((*shared)[i], m, pm);
+  };
+  return g;
 }
 
 CapLoad NonlinearCapSolver::from_origin(const Wrench& w) const {
@@ -137,14 +194,7 @@ bool NonlinearCapSolver::advance(Path& path, double target) const {
         s.valid = false;
         return s;
       }
-      // T̂ = [[I, −[ρ]×], [0, I/L]], ρ = d/L; T̂ᵀ·(F, M) = (F, ρ × F + M/L).
-      const Eigen::Vector3d rho = d / size;
-      Eigen::Matrix3d skew;
-      skew << 0, -rho(2), rho(1), rho(2), 0, -rho(0), -rho(1), rho(0), 0;
-      Matrix6 map = Matrix6::Zero();
-      map.block<3, 3>(0, 0).setIdentity();
-      map.block<3, 3>(0, 3) = -skew;
-      map.block<3, 3>(3, 3) = Eigen::Matrix3d::Identity() / size;
+      const Matrix6 map = map_of(d / size, size);
       Vector6 action;
       Matrix6 k;
       for (int a = 0; a < 6; ++a) {
@@ -157,7 +207,9 @@ bool NonlinearCapSolver::advance(Path& path, double target) const {
     }
     return s;
   };
-  if (path.state.piles.empty()) path.state = evaluate(path.state.movement);
+  // From rest: the piles carry nothing at zero movement; the first Newton step takes the
+  // initial tangent (a modified Newton step, the line search guarding it).
+  if (path.state.piles.empty()) path.state = *rest_;
   // Newton iteration at load factor λ from the converged state `from`.
   auto newton = [&](const State& from, double lambda, State& out, int& used) {
     const Vector6 applied = lambda * path.load;

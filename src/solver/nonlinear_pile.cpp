@@ -47,7 +47,10 @@ class Band {
  public:
   Band() = default;
   Band(int size, int band, int inner_from, int inner_band)
-      : size_(size), band_(band), inner_from_(inner_from), inner_band_(inner_band),
+      : size_(size),
+        band_(band),
+        inner_from_(inner_from),
+        inner_band_(inner_band),
         a_(static_cast<std::size_t>(size * (band + 1)), 0.0) {}
   int size() const { return size_; }
   double get(int i, int j) const {
@@ -184,7 +187,8 @@ void validate(const NonlinearPileSpec& pile, const HeadMovement& movement, doubl
   auto positive = [](double v) { return std::isfinite(v) && v > 0.0; };
   if (!(std::isfinite(pile.deflection_limit) && pile.deflection_limit >= 0.0))
     throw std::invalid_argument("nonlinear pile: deflection limit must be ≥ 0");
-  if (!positive(pile.length)) throw std::invalid_argument("nonlinear pile: length must be positive");
+  if (!positive(pile.length))
+    throw std::invalid_argument("nonlinear pile: length must be positive");
   if (!positive(pile.bending_stiffness))
     throw std::invalid_argument("nonlinear pile: bending stiffness EI must be positive");
   if (!positive(pile.axial_rigidity))
@@ -198,7 +202,8 @@ void validate(const NonlinearPileSpec& pile, const HeadMovement& movement, doubl
     throw std::invalid_argument("nonlinear pile: a partial head restraint needs k_r > 0");
   if (!(std::isfinite(pile.torsional) && pile.torsional >= 0.0))
     throw std::invalid_argument("nonlinear pile: torsional stiffness must be ≥ 0");
-  if (!positive(multiplier)) throw std::invalid_argument("nonlinear pile: p-multiplier must be positive");
+  if (!positive(multiplier))
+    throw std::invalid_argument("nonlinear pile: p-multiplier must be positive");
   for (double m : movement)
     if (!std::isfinite(m)) throw std::invalid_argument("nonlinear pile: head movement not finite");
 }
@@ -210,8 +215,8 @@ void validate(const NonlinearPileSpec& pile, const HeadMovement& movement, doubl
 struct AxialResult {
   bool converged = false;
   std::string message;
-  double head_force = 0.0;  // N0, kN, compression positive (into the ground)
-  double stiffness = 0.0;   // ∂N0/∂w0, kN/m
+  double head_force = 0.0;            // N0, kN, compression positive (into the ground)
+  double stiffness = 0.0;             // ∂N0/∂w0, kN/m
   std::vector<double> movement;       // w per node, m, positive into the ground
   std::vector<double> element_force;  // per element, compression positive, kN
   std::vector<double> force_rate;     // ∂N_e/∂w0 per element, kN/m (for the P-Δ tangent)
@@ -262,52 +267,67 @@ AxialResult solve_axial(const NonlinearPileSpec& pile, double head_movement,
   if (start && start->size() == w.size()) w = *start;
   w[0] = head_movement;
   // Interior unknowns 1 … n: tridiagonal, diagonal d, off-diagonal −EA/h.
-  std::vector<double> force(static_cast<std::size_t>(n + 1)), tangent(static_cast<std::size_t>(n + 1));
+  std::vector<double> force(static_cast<std::size_t>(n + 1)),
+      tangent(static_cast<std::size_t>(n + 1));
   auto residual = [&](const std::vector<double>& x, std::vector<double>& r) {
-    for (int i = 0; i <= n; ++i) spring(i, x[static_cast<std::size_t>(i)], force[static_cast<std::size_t>(i)], tangent[static_cast<std::size_t>(i)]);
+    for (int i = 0; i <= n; ++i)
+      spring(i, x[static_cast<std::size_t>(i)], force[static_cast<std::size_t>(i)],
+             tangent[static_cast<std::size_t>(i)]);
     for (int i = 1; i <= n; ++i) {
-      double v = force[static_cast<std::size_t>(i)] + k_bar * (x[static_cast<std::size_t>(i)] - x[static_cast<std::size_t>(i - 1)]);
+      double v = force[static_cast<std::size_t>(i)] +
+                 k_bar * (x[static_cast<std::size_t>(i)] - x[static_cast<std::size_t>(i - 1)]);
       if (i < n) v += k_bar * (x[static_cast<std::size_t>(i)] - x[static_cast<std::size_t>(i + 1)]);
       r[static_cast<std::size_t>(i)] = v;
     }
   };
   // Thomas algorithm for the interior system with diagonal `diag` and off-diagonals −EA/h.
-  std::vector<double> cprime(static_cast<std::size_t>(n + 1)), dprime(static_cast<std::size_t>(n + 1));
+  std::vector<double> cprime(static_cast<std::size_t>(n + 1)),
+      dprime(static_cast<std::size_t>(n + 1));
   auto tridiagonal = [&](const std::vector<double>& diag, std::vector<double>& b) {
     double denominator = diag[1];
     cprime[1] = -k_bar / denominator;
     dprime[1] = b[1] / denominator;
     for (int i = 2; i <= n; ++i) {
-      denominator = diag[static_cast<std::size_t>(i)] + k_bar * cprime[static_cast<std::size_t>(i - 1)];
+      denominator =
+          diag[static_cast<std::size_t>(i)] + k_bar * cprime[static_cast<std::size_t>(i - 1)];
       cprime[static_cast<std::size_t>(i)] = -k_bar / denominator;
-      dprime[static_cast<std::size_t>(i)] = (b[static_cast<std::size_t>(i)] + k_bar * dprime[static_cast<std::size_t>(i - 1)]) / denominator;
+      dprime[static_cast<std::size_t>(i)] =
+          (b[static_cast<std::size_t>(i)] + k_bar * dprime[static_cast<std::size_t>(i - 1)]) /
+          denominator;
     }
     b[static_cast<std::size_t>(n)] = dprime[static_cast<std::size_t>(n)];
     for (int i = n - 1; i >= 1; --i)
-      b[static_cast<std::size_t>(i)] = dprime[static_cast<std::size_t>(i)] - cprime[static_cast<std::size_t>(i)] * b[static_cast<std::size_t>(i + 1)];
+      b[static_cast<std::size_t>(i)] =
+          dprime[static_cast<std::size_t>(i)] -
+          cprime[static_cast<std::size_t>(i)] * b[static_cast<std::size_t>(i + 1)];
   };
-  std::vector<double> r(static_cast<std::size_t>(n + 1), 0.0), diag(static_cast<std::size_t>(n + 1)),
-      step(static_cast<std::size_t>(n + 1)), trial(static_cast<std::size_t>(n + 1)),
-      r_trial(static_cast<std::size_t>(n + 1));
+  std::vector<double> r(static_cast<std::size_t>(n + 1), 0.0),
+      diag(static_cast<std::size_t>(n + 1)), step(static_cast<std::size_t>(n + 1)),
+      trial(static_cast<std::size_t>(n + 1)), r_trial(static_cast<std::size_t>(n + 1));
   auto fill_diagonal = [&](bool clipped) {
     for (int i = 1; i <= n; ++i) {
       const double t = tangent[static_cast<std::size_t>(i)];
-      diag[static_cast<std::size_t>(i)] = (i < n ? 2.0 : 1.0) * k_bar + (clipped ? std::max(t, 0.0) : t);
+      diag[static_cast<std::size_t>(i)] =
+          (i < n ? 2.0 : 1.0) * k_bar + (clipped ? std::max(t, 0.0) : t);
     }
   };
   residual(w, r);
   for (int iteration = 0; iteration < kNewtonLimit && !out.converged; ++iteration) {
     fill_diagonal(true);
-    for (int i = 1; i <= n; ++i) step[static_cast<std::size_t>(i)] = -r[static_cast<std::size_t>(i)];
+    for (int i = 1; i <= n; ++i)
+      step[static_cast<std::size_t>(i)] = -r[static_cast<std::size_t>(i)];
     tridiagonal(diag, step);
     double g0 = 0.0;
-    for (int i = 1; i <= n; ++i) g0 += step[static_cast<std::size_t>(i)] * r[static_cast<std::size_t>(i)];
+    for (int i = 1; i <= n; ++i)
+      g0 += step[static_cast<std::size_t>(i)] * r[static_cast<std::size_t>(i)];
     auto slope = [&](double alpha) {
       trial = w;
-      for (int i = 1; i <= n; ++i) trial[static_cast<std::size_t>(i)] += alpha * step[static_cast<std::size_t>(i)];
+      for (int i = 1; i <= n; ++i)
+        trial[static_cast<std::size_t>(i)] += alpha * step[static_cast<std::size_t>(i)];
       residual(trial, r_trial);
       double g = 0.0;
-      for (int i = 1; i <= n; ++i) g += step[static_cast<std::size_t>(i)] * r_trial[static_cast<std::size_t>(i)];
+      for (int i = 1; i <= n; ++i)
+        g += step[static_cast<std::size_t>(i)] * r_trial[static_cast<std::size_t>(i)];
       return g;
     };
     double evaluated = 1.0;
@@ -323,9 +343,10 @@ AxialResult solve_axial(const NonlinearPileSpec& pile, double head_movement,
     if (change <= kTolerance * largest || largest == 0.0) out.converged = true;
   }
   if (!out.converged) {
-    out.message = fmt::format("the axial soil springs did not settle in {} iterations at a head "
-                              "movement of {:.4g} m along the pile",
-                              kNewtonLimit, head_movement);
+    out.message = fmt::format(
+        "the axial soil springs did not settle in {} iterations at a head "
+        "movement of {:.4g} m along the pile",
+        kNewtonLimit, head_movement);
     return out;
   }
   residual(w, r);  // the springs' tangents at the solution
@@ -351,7 +372,8 @@ AxialResult solve_axial(const NonlinearPileSpec& pile, double head_movement,
   // ∂w_i/∂w0 = EA/h·[K_II⁻¹]_{i1} (step holds K_II⁻¹·e1), 1 at the head.
   auto rate = [&](int i) { return i == 0 ? 1.0 : k_bar * step[static_cast<std::size_t>(i)]; };
   for (int e = 0; e < n; ++e) {
-    out.element_force[static_cast<std::size_t>(e)] = k_bar * (w[static_cast<std::size_t>(e)] - w[static_cast<std::size_t>(e + 1)]);
+    out.element_force[static_cast<std::size_t>(e)] =
+        k_bar * (w[static_cast<std::size_t>(e)] - w[static_cast<std::size_t>(e + 1)]);
     out.force_rate[static_cast<std::size_t>(e)] = k_bar * (rate(e) - rate(e + 1));
   }
   if (!pile.tension && out.head_force < 0.0) {
@@ -370,17 +392,21 @@ AxialResult solve_axial(const NonlinearPileSpec& pile, double head_movement,
 
 class Lateral {
  public:
-  Lateral(const NonlinearPileSpec& pile, const std::vector<double>& axial_force,
-          double multiplier)
-      : pile_(pile), multiplier_(multiplier), n_(pile.segments), h_(pile.length / pile.segments),
+  Lateral(const NonlinearPileSpec& pile, const std::vector<double>& axial_force, double multiplier)
+      : pile_(pile),
+        multiplier_(multiplier),
+        n_(pile.segments),
+        h_(pile.length / pile.segments),
         fixed_(pile.restraint.kind == HeadRestraint::Kind::fixed),
-        first_(4), size_((fixed_ ? 4 : 6) + 4 * n_), axial_(axial_force) {
+        first_(4),
+        size_((fixed_ ? 4 : 6) + 4 * n_),
+        axial_(axial_force) {
     linear_ = Band(size_, kBand, first_, kInnerBand);
     const double ei = pile.bending_stiffness, h = h_;
     for (int plane = 0; plane < 2; ++plane)
       for (int e = 0; e < n_; ++e) {
-        const int dofs[4] = {index(e, 2 * plane), index(e, 2 * plane + 1),
-                             index(e + 1, 2 * plane), index(e + 1, 2 * plane + 1)};
+        const int dofs[4] = {index(e, 2 * plane), index(e, 2 * plane + 1), index(e + 1, 2 * plane),
+                             index(e + 1, 2 * plane + 1)};
         double k[4][4];
         element_matrix(ei, h, axial_[static_cast<std::size_t>(e)], k);
         for (int i = 0; i < 4; ++i)
@@ -432,7 +458,8 @@ class Lateral {
              std::string& message) {
     d_.assign(static_cast<std::size_t>(size_), 0.0);
     if (start && start->size() == d_.size()) d_ = *start;
-    for (int i = 0; i < 4; ++i) d_[static_cast<std::size_t>(i)] = boundary[static_cast<std::size_t>(i)];
+    for (int i = 0; i < 4; ++i)
+      d_[static_cast<std::size_t>(i)] = boundary[static_cast<std::size_t>(i)];
     std::vector<double> f(static_cast<std::size_t>(size_)), step(static_cast<std::size_t>(size_)),
         trial(static_cast<std::size_t>(size_)), f_trial(static_cast<std::size_t>(size_));
     forces(d_, f);
@@ -459,22 +486,29 @@ class Lateral {
       // Newton: K_II·Δ = −f_I. Secant: K_II(d)·d_I = −K_IB·d_B, i.e. Δ = −K_II⁻¹·f_I(d)
       // with f from the secant matrix, which is the same since f = K_sec·d.
       std::fill(step.begin(), step.end(), 0.0);
-      for (int i = first_; i < size_; ++i) step[static_cast<std::size_t>(i)] = -f[static_cast<std::size_t>(i)];
+      for (int i = first_; i < size_; ++i)
+        step[static_cast<std::size_t>(i)] = -f[static_cast<std::size_t>(i)];
       k.solve(step);
       double g0 = 0.0;
-      for (int i = first_; i < size_; ++i) g0 += step[static_cast<std::size_t>(i)] * f[static_cast<std::size_t>(i)];
+      for (int i = first_; i < size_; ++i)
+        g0 += step[static_cast<std::size_t>(i)] * f[static_cast<std::size_t>(i)];
       auto slope = [&](double alpha) {
         for (int i = 0; i < size_; ++i)
-          trial[static_cast<std::size_t>(i)] = d_[static_cast<std::size_t>(i)] + (i >= first_ ? alpha * step[static_cast<std::size_t>(i)] : 0.0);
+          trial[static_cast<std::size_t>(i)] =
+              d_[static_cast<std::size_t>(i)] +
+              (i >= first_ ? alpha * step[static_cast<std::size_t>(i)] : 0.0);
         forces(trial, f_trial);
         double g = 0.0;
-        for (int i = first_; i < size_; ++i) g += step[static_cast<std::size_t>(i)] * f_trial[static_cast<std::size_t>(i)];
+        for (int i = first_; i < size_; ++i)
+          g += step[static_cast<std::size_t>(i)] * f_trial[static_cast<std::size_t>(i)];
         return g;
       };
       double evaluated = 1.0;
       const double alpha = secant_mode ? 1.0 : line_search(g0, slope, evaluated);
-      if (secant_mode) slope(1.0);
-      else if (evaluated != alpha) slope(alpha);
+      if (secant_mode)
+        slope(1.0);
+      else if (evaluated != alpha)
+        slope(alpha);
       d_.swap(trial);
       f.swap(f_trial);
       double largest = 0.0, change = 0.0;
@@ -483,7 +517,8 @@ class Lateral {
           const int i = index(node, comp);
           const double scale = (comp % 2 == 0) ? 1.0 : h_;  // slopes as h·s
           largest = std::max(largest, scale * std::abs(d_[static_cast<std::size_t>(i)]));
-          if (i >= first_) change = std::max(change, scale * alpha * std::abs(step[static_cast<std::size_t>(i)]));
+          if (i >= first_)
+            change = std::max(change, scale * alpha * std::abs(step[static_cast<std::size_t>(i)]));
         }
       if (largest == 0.0 || change <= kTolerance * largest) {
         converged_ = true;
@@ -510,7 +545,8 @@ class Lateral {
   bool condense(std::array<double, 4>& action, std::array<std::array<double, 4>, 4>& tangent,
                 const std::vector<double>& force_rate, std::array<double, 4>& axial_coupling,
                 std::string& message) const {
-    for (int i = 0; i < 4; ++i) action[static_cast<std::size_t>(i)] = f_[static_cast<std::size_t>(i)];
+    for (int i = 0; i < 4; ++i)
+      action[static_cast<std::size_t>(i)] = f_[static_cast<std::size_t>(i)];
     Band k = linear_;
     add_soil(k, Tangent::full);
     Band factored = k;
@@ -586,7 +622,8 @@ class Lateral {
                          index(e + 1, 2 * plane + 1)};
     std::array<double, 4> out{};
     for (int i = 0; i < 4; ++i)
-      for (int j = 0; j < 4; ++j) out[static_cast<std::size_t>(i)] += k[i][j] * d_[static_cast<std::size_t>(dofs[j])];
+      for (int j = 0; j < 4; ++j)
+        out[static_cast<std::size_t>(i)] += k[i][j] * d_[static_cast<std::size_t>(dofs[j])];
     return out;
   }
 
@@ -652,10 +689,11 @@ class Lateral {
   std::string unstable_message() const {
     const double largest = axial_.empty() ? 0.0 : *std::max_element(axial_.begin(), axial_.end());
     if (largest > 0.0)
-      return fmt::format("no stable equilibrium: the axial force ({:.4g} kN) exceeds the "
-                         "buckling load of the pile in this soil, or the soil along the pile "
-                         "is at its ultimate resistance (a mechanism)",
-                         largest);
+      return fmt::format(
+          "no stable equilibrium: the axial force ({:.4g} kN) exceeds the "
+          "buckling load of the pile in this soil, or the soil along the pile "
+          "is at its ultimate resistance (a mechanism)",
+          largest);
     return "no stable equilibrium: the soil along the pile is at its ultimate resistance and "
            "the pile turns as a rigid body (a mechanism); the head can take no more lateral load";
   }
@@ -676,11 +714,15 @@ class Lateral {
 // Two lateral unit directions: e1 ⟂ a (from the global axis least aligned with a, as
 // largest_moment_along does), e2 = a × e1.
 void lateral_directions(const Vec3& a, Vec3& e1, Vec3& e2) {
-  if (std::abs(a[0]) <= std::abs(a[1]) && std::abs(a[0]) <= std::abs(a[2])) e1 = {1, 0, 0};
-  else if (std::abs(a[1]) <= std::abs(a[2])) e1 = {0, 1, 0};
-  else e1 = {0, 0, 1};
+  if (std::abs(a[0]) <= std::abs(a[1]) && std::abs(a[0]) <= std::abs(a[2]))
+    e1 = {1, 0, 0};
+  else if (std::abs(a[1]) <= std::abs(a[2]))
+    e1 = {0, 1, 0};
+  else
+    e1 = {0, 0, 1};
   const double along = dot(e1, a);
-  for (int j = 0; j < 3; ++j) e1[static_cast<std::size_t>(j)] -= along * a[static_cast<std::size_t>(j)];
+  for (int j = 0; j < 3; ++j)
+    e1[static_cast<std::size_t>(j)] -= along * a[static_cast<std::size_t>(j)];
   const double norm = std::sqrt(dot(e1, e1));
   for (auto& v : e1) v /= norm;
   e2 = cross(a, e1);
@@ -701,17 +743,18 @@ void solve_pile(const NonlinearPileSpec& pile, const HeadMovement& movement, dou
   const Vec3& a = pile.axis;
   const Vec3 u{movement[0], movement[1], movement[2]}, w{movement[3], movement[4], movement[5]};
   const double limit = pile.deflection_limit > 0.0 ? pile.deflection_limit
-                        : pile.width > 0.0          ? pile.width
-                                                    : 0.1 * pile.length;
+                       : pile.width > 0.0          ? pile.width
+                                                   : 0.1 * pile.length;
   const double across = std::sqrt(std::max(dot(u, u) - dot(u, a) * dot(u, a), 0.0));
   if (across > limit) {
-    out.message = fmt::format("the head deflection ({:.4g} m) is beyond {:.4g} m ({}): the "
-                              "p-y curves are not meant for movements this large; the pile "
-                              "has passed its lateral capacity",
-                              across, limit,
-                              pile.deflection_limit > 0.0 ? "the limit given"
-                              : pile.width > 0.0          ? "the pile's width"
-                                                          : "a tenth of the pile's length");
+    out.message = fmt::format(
+        "the head deflection ({:.4g} m) is beyond {:.4g} m ({}): the "
+        "p-y curves are not meant for movements this large; the pile "
+        "has passed its lateral capacity",
+        across, limit,
+        pile.deflection_limit > 0.0 ? "the limit given"
+        : pile.width > 0.0          ? "the pile's width"
+                                    : "a tenth of the pile's length");
     return;
   }
   out.axial = solve_axial(pile, dot(u, a), state ? &state->axial : nullptr);
@@ -770,8 +813,10 @@ PileHeadResponse pile_head_response(const NonlinearPileSpec& pile, const HeadMov
   for (int i = 0; i < 6; ++i) {
     double v = 0.0;
     for (int k = 0; k < 4; ++k) v += b[k][i] * plane_action[static_cast<std::size_t>(k)];
-    if (i < 3) v += s.axial.head_force * a[static_cast<std::size_t>(i)];
-    else v += pile.torsional * along_w * a[static_cast<std::size_t>(i - 3)];
+    if (i < 3)
+      v += s.axial.head_force * a[static_cast<std::size_t>(i)];
+    else
+      v += pile.torsional * along_w * a[static_cast<std::size_t>(i - 3)];
     out.action[static_cast<std::size_t>(i)] = v;
   }
   for (int i = 0; i < 6; ++i)
@@ -779,13 +824,18 @@ PileHeadResponse pile_head_response(const NonlinearPileSpec& pile, const HeadMov
       double v = 0.0;
       for (int k = 0; k < 4; ++k)
         for (int l = 0; l < 4; ++l)
-          v += b[k][i] * plane_tangent[static_cast<std::size_t>(k)][static_cast<std::size_t>(l)] * b[l][j];
-      if (i < 3 && j < 3) v += s.axial.stiffness * a[static_cast<std::size_t>(i)] * a[static_cast<std::size_t>(j)];
+          v += b[k][i] * plane_tangent[static_cast<std::size_t>(k)][static_cast<std::size_t>(l)] *
+               b[l][j];
+      if (i < 3 && j < 3)
+        v += s.axial.stiffness * a[static_cast<std::size_t>(i)] * a[static_cast<std::size_t>(j)];
       // P-Δ: the lateral forces change with the axial force, w0 = a·u.
       if (j < 3)
         for (int k = 0; k < 4; ++k)
-          v += b[k][i] * axial_coupling[static_cast<std::size_t>(k)] * a[static_cast<std::size_t>(j)];
-      if (i >= 3 && j >= 3) v += pile.torsional * a[static_cast<std::size_t>(i - 3)] * a[static_cast<std::size_t>(j - 3)];
+          v += b[k][i] * axial_coupling[static_cast<std::size_t>(k)] *
+               a[static_cast<std::size_t>(j)];
+      if (i >= 3 && j >= 3)
+        v += pile.torsional * a[static_cast<std::size_t>(i - 3)] *
+             a[static_cast<std::size_t>(j - 3)];
       out.tangent[static_cast<std::size_t>(i)][static_cast<std::size_t>(j)] = v;
     }
   out.converged = true;
@@ -823,9 +873,10 @@ PileProfile pile_profile(const NonlinearPileSpec& pile, const HeadMovement& move
     out.moment.push_back(std::sqrt(m2));
     out.shear.push_back(node == 0 ? lateral.head_shear() : std::sqrt(v2));
     const auto& ef = s.axial.element_force;
-    out.axial.push_back(node == 0 ? s.axial.head_force
-                                  : node == n ? ef[static_cast<std::size_t>(n - 1)]
-                                              : 0.5 * (ef[static_cast<std::size_t>(node - 1)] + ef[static_cast<std::size_t>(node)]));
+    out.axial.push_back(node == 0   ? s.axial.head_force
+                        : node == n ? ef[static_cast<std::size_t>(n - 1)]
+                                    : 0.5 * (ef[static_cast<std::size_t>(node - 1)] +
+                                             ef[static_cast<std::size_t>(node)]));
     if (out.moment.back() > out.max_moment) {
       out.max_moment = out.moment.back();
       out.max_moment_depth = node * h;

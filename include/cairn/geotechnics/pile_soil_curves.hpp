@@ -50,9 +50,9 @@ struct CurveSite {
   double effective_stress = 0.0;       // σ'v at d, kPa
   double effective_unit_weight = 0.0;  // γ' = σ'v/d (the layer's own at d = 0), kN/m³
   bool below_water = false;
-  double width = 0.0;                  // b, m
+  double width = 0.0;  // b, m
   PyLoading loading = PyLoading::static_load;
-  double cycles = 1.0;                 // N, for the cyclic curves that count cycles
+  double cycles = 1.0;  // N, for the cyclic curves that count cycles
 };
 
 // One p-y model: its name in the project file, its soil, source, and how it is built.

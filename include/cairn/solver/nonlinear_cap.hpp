@@ -38,6 +38,7 @@
 #include <array>
 #include <cstddef>
 #include <functional>
+#include <memory>
 #include <string>
 #include <vector>
 
@@ -66,11 +67,16 @@ struct NonlinearGroup {
   std::vector<std::string> curves;  // per pile: PileCurves::description, for the report
 };
 
+// The group of `specs` on pile_head_response and pile_profile (nonlinear_pile.hpp); each pile
+// starts its own iteration from its last converged shape (DeflectedShape). Names and curves from
+// the specs' order: give names after.
+NonlinearGroup nonlinear_group(std::vector<NonlinearPileSpec> specs);
+
 struct NonlinearSettings {
   double tolerance = 1e-10;   // relative residual for convergence (header)
   double accept = 1e-6;       // a stalled residual below this is taken as converged
   int iterations = 30;        // Newton iterations per load step
-  int initial_steps = 2;      // equal load steps from λ = 0 to 1 to start with
+  int initial_steps = 1;      // equal load steps from λ = 0 to 1 to start with
   double smallest_step = 1.0 / 512.0;  // Δλ below which the group has no equilibrium
   // A cap translation (m), or rotation times L, above which the group is taken to have no
   // equilibrium (its movement runs away); 0: no limit.
@@ -133,6 +139,7 @@ class NonlinearCapSolver {
 
   NonlinearGroup group_;
   NonlinearSettings settings_;
+  std::shared_ptr<const State> rest_;  // the group at rest, its initial tangent
   std::array<double, 3> reference_{};
   double size_ = 1.0;
 };

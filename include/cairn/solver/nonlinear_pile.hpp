@@ -17,6 +17,24 @@
 // rigidity EA on t-z springs along the shaft and a Q-z spring at the tip, the head movement
 // along the axis prescribed. Torsion: the linear torsional stiffness where given.
 //
+// Method (docs/methods-bending.md §8.1):
+//  - EI·y'''' + N·y'' + p = 0 on `segments` cubic beam elements, the soil lumped at the nodes
+//    over their tributary lengths (at the same spacing, Reese & Van Impe's difference method),
+//    P-Δ through the elements' geometric stiffness with N from the axial solution;
+//  - the p-y curve acts on the RESULTANT deflection r = |y| of the two planes, along it: nodal
+//    force p(z, r)·ŷ, tangent k_sec·(I − ŷŷᵀ) + k_tan·ŷŷᵀ (k_sec = p/r, k_tan = dp/dr), so a
+//    skewed deflection meets the same soil as one along an axis;
+//  - Newton's method with the curves' tangents (central differences; below 1 µm the secant at
+//    1 µm), clipped at 0 in the iteration matrix, the step chosen so the energy falls, a secant
+//    step where that matrix is singular; banded LDLᵀ (O(segments) per iteration);
+//  - the tangent is the static condensation of the converged tangent system onto the head
+//    (not differences of whole solves), with the P-Δ rate of the lateral head forces with the
+//    axial movement (the axial force does not depend on the lateral movement: the tangent is
+//    not symmetric when N ≠ 0).
+// Results that cannot be had (buckling, a head deflection beyond `deflection_limit`, springs
+// that do not settle) come back as converged = false with a message; malformed specs throw
+// std::invalid_argument.
+//
 // Units: kN, m, rad.
 #pragma once
 
@@ -54,7 +72,7 @@ struct NonlinearPileSpec {
   double torsional = 0.0;          // k_t, kN·m/rad, linear
   bool tension = true;             // false: the pile takes no tension (no axial action < 0)
   PileCurves curves;
-  int segments = 60;               // finite-difference segments along the pile
+  int segments = 60;               // segments along the pile (≥ 4)
   // The largest head deflection (resultant across the axis, m) the curves are used for;
   // beyond it pile_head_response returns converged = false (the pile has reached its lateral
   // capacity). 0: the pile's width, or L/10 without a width.

@@ -842,5 +842,65 @@ expect_status "lateral curve on the wrong soil" 2 check "$data/e2e/bad_lateral_c
 expect_in "lateral curve on the wrong soil named" "$work/err" "bad_lateral_curve.yaml:7:"
 expect_in "lateral curve on the wrong soil says why" "$work/err" "soil.layers[0] ('soft clay').lateral_curve: 'sand_api' is a curve for sand layers, this layer is clay"
 expect_in "strain_50 out of range" "$work/err" "strain_50: expected a strain below 0.1"
+# ---- nonlinear soil response (issue 15): the switch, its outputs, linear unchanged -------
+nl="$data/nonlinear"
+expect_status "nonlinear: SI cap passes" 0 check "$nl/lateral_si.yaml"
+expect_in "nonlinear: the mode" "$work/out" "Soil response: nonlinear; p-multipliers: by_direction."
+expect_in "nonlinear: the curves used" "$work/out" "Curves of pile type PC45: p-y (static): 'soft clay': soft clay below water, Matlock (1970)"
+expect_in "nonlinear: the multiplier of each pile" "$work/out" "Nonlinear soil response: piles in each combination"
+expect_in "nonlinear: the pushover of the governing combination" "$work/out" "Pushover of combination U1: its loads times λ"
+expect_status "nonlinear: JSON" 0 check "$nl/lateral_si.yaml" --format json
+if python3 -c '
+import json, sys
+doc = json.load(sys.stdin)
+a = doc["analysis"]
+assert a["soil_response"] == "nonlinear" and a["p_multipliers"] == "by_direction", a
+assert a["pushover"]["combination"] == "U1" and a["pushover"]["points"][0]["load_factor"] == 0
+for c in doc["combinations"]:
+    for p in c["piles"]:
+        for k in ("head_forces", "head_deflection", "max_moment", "max_moment_depth", "p_multiplier", "axial"):
+            assert k in p, (c["id"], p["id"], k)
+# The leading row of a load along +x is the row of largest x (AASHTO LRFD Table 10.7.2.4-1).
+u1 = {p["id"]: p["p_multiplier"] for p in doc["combinations"][1]["piles"]}
+assert u1["A3"] > u1["A2"] > u1["A1"], u1
+u2 = {p["id"]: p["p_multiplier"] for p in doc["combinations"][2]["piles"]}
+assert u2["A1"] > u2["A3"], u2
+' <"$work/out" 2>"$work/err"; then ok; else bad "nonlinear: JSON analysis member or pile fields"; fi
+# The streamed JSON (--out) and the one on stdout are the same document.
+expect_status "nonlinear: --out" 0 check "$nl/lateral_si.yaml" --format json --out "$work/nl-out"
+if cmp -s "$work/out" "$work/nl-out/results.json"; then ok; else bad "nonlinear: results.json differs from stdout"; fi
+expect_status "nonlinear: US cap" 0 check "$nl/lateral_us.yaml"
+expect_in "nonlinear US: deflections in inches" "$work/out" "Head deflection (in)"
+expect_in "nonlinear US: reversing loads" "$work/out" "p-multipliers: reversing."
+expect_in "nonlinear US: the chosen combination pushed" "$work/out" "Pushover of combination U-1"
+expect_in "nonlinear US: the displacement limit ends the curve" "$work/out" "the displacement limit of"
+expect_status "nonlinear: a load above the group's capacity" 1 check "$nl/mechanism.yaml"
+expect_in "nonlinear: no equilibrium, named" "$work/out" "the group found no equilibrium beyond λ ="
+expect_in "nonlinear: the verdict names it" "$work/out" "no equilibrium (a mechanism) in U1, U2"
+# The switch on the command line: linear over the project's key gives the linear run of the
+# same project without the analysis section, line for line (but the command and input).
+expect_status "--soil-response linear" 0 check "$nl/lateral_si.yaml" --soil-response linear
+grep -v '^command:\|^input:' "$work/out" >"$work/nl-linear"
+grep -v '^analysis:\|^  soil_response:\|^  p_multipliers:' "$nl/lateral_si.yaml" >"$work/no-analysis.yaml"
+expect_status "the same cap without analysis:" 0 check "$work/no-analysis.yaml"
+grep -v '^command:\|^input:' "$work/out" >"$work/plain-linear"
+if cmp -s "$work/nl-linear" "$work/plain-linear"; then ok; else bad "--soil-response linear differs from the linear run"; fi
+if grep -q 'Nonlinear soil response\|Pushover' "$work/plain-linear"; then bad "linear run: nonlinear sections shown"; else ok; fi
+# Linear outputs do not change: --soil-response linear on a project without the key.
+expect_status "base.yaml, JSON" 0 check "$data/base.yaml" --format json
+grep -v '"command"' "$work/out" >"$work/base-default"
+expect_status "base.yaml, JSON, --soil-response linear" 0 check "$data/base.yaml" --format json --soil-response linear
+grep -v '"command"' "$work/out" >"$work/base-linear"
+if cmp -s "$work/base-default" "$work/base-linear"; then ok; else bad "--soil-response linear changes the linear JSON"; fi
+if grep -q '"analysis"\|p_multiplier' "$work/base-linear"; then bad "linear JSON: nonlinear fields"; else ok; fi
+expect_status "--soil-response nonlinear without p-y curves" 2 check "$data/e2e/soil.yaml" --soil-response nonlinear
+expect_in "nonlinear without p-y curves: located" "$work/err" "soil.yaml:8: error: soil.layers[0] ('soft clay').lateral_curve: missing"
+expect_status "--soil-response unknown" 2 check "$nl/lateral_si.yaml" --soil-response elastic
+sed 's/soil_response: nonlinear/soil_response: plastic/' "$nl/lateral_si.yaml" >"$work/bad-response.yaml"
+expect_status "analysis.soil_response unknown" 2 check "$work/bad-response.yaml"
+expect_in "analysis.soil_response unknown: located" "$work/err" "bad-response.yaml:37:"
+sed 's/p_multipliers: by_direction/p_multipliers: by_direction\n  pushover: U9/' "$nl/lateral_si.yaml" >"$work/bad-pushover.yaml"
+expect_status "analysis.pushover unknown" 2 check "$work/bad-pushover.yaml"
+expect_in "analysis.pushover unknown: named" "$work/err" "analysis.pushover: combination 'U9' does not exist; did you mean 'U1'?"
 echo "$passed passed, $failed failed"
 [ "$failed" -eq 0 ]

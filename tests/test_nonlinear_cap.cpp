@@ -14,6 +14,8 @@
 #include <string>
 #include <vector>
 
+#include "cairn/app/analysis.hpp"
+#include "cairn/geotechnics/stiffness.hpp"
 #include "cairn/solver/cap_solver.hpp"
 #include "cairn/solver/head_forces.hpp"
 #include "cairn/solver/nonlinear_cap.hpp"
@@ -290,5 +292,74 @@ TEST_CASE("nonlinear cap: the pushover curve rises to the group's capacity", "[n
     CHECK_FALSE(short_curve.mechanism);
     CHECK(short_curve.points.back().displacement >= 0.02);
     CHECK(cairn::test::has(short_curve.end_reason, "displacement limit"));
+  }
+}
+
+TEST_CASE("nonlinear check on linear heads gives the linear check's pile forces",
+          "[nonlinear_cap]") {
+  // The whole pipeline (analyse) with soil_response nonlinear and each pile's response the
+  // linear head of its springs: every combination's forces equal the linear run's, which
+  // superposes load cases and solves once (hand derivation: the same equations). Fixed and
+  // partially fixed heads, two battered piles, loads high above the cap.
+  const std::string file = std::string(CAIRN_TEST_DATA) + "/bending/fixed_heads.yaml";
+  const cairn::CheckRun linear = cairn::analyse_project(file);
+  cairn::AnalysisOptions options;
+  options.soil_response = cairn::SoilResponse::nonlinear;
+  options.nonlinear_piles = [&linear](const cairn::Project& project) {
+    return linear_group(cairn::pile_springs(project, linear.stiffness));
+  };
+  const cairn::CheckRun nonlinear = cairn::analyse_project(file, options);
+  REQUIRE(nonlinear.nonlinear);
+  REQUIRE_FALSE(linear.nonlinear);
+  const auto& a = linear.results.combinations;
+  const auto& b = nonlinear.results.combinations;
+  REQUIRE(a.size() == b.size());
+  for (std::size_t c = 0; c < a.size(); ++c) {
+    REQUIRE_FALSE(b[c].solution.overturns);
+    CHECK(b[c].solution.residual <= 1e-10);
+    for (std::size_t i = 0; i < a[c].piles.size(); ++i) {
+      CHECK(b[c].piles[i].axial == close(a[c].piles[i].axial, 1e-6, 1e-6));
+      CHECK(b[c].piles[i].lateral == close(a[c].piles[i].lateral, 1e-6, 1e-6));
+      CHECK(b[c].piles[i].utilization == close(a[c].piles[i].utilization, 1e-6, 1e-9));
+      for (std::size_t j = 0; j < 6; ++j)
+        CHECK(b[c].solution.piles[i].head_forces[j] ==
+              close(a[c].solution.piles[i].head_forces[j], 1e-6, 1e-6));
+    }
+  }
+  // The multipliers of the run are reported (this group's rows by the wind's direction).
+  CHECK(nonlinear.nonlinear->combinations[0].piles.size() == nonlinear.project.piles.size());
+  REQUIRE(nonlinear.nonlinear->pushover);
+  CHECK(nonlinear.nonlinear->pushover->points.size() >= 5);
+}
+
+TEST_CASE("nonlinear check on the soil's curves: the governing piles' profiles", "[nonlinear_cap]") {
+  // The SI cap of the end-to-end cases: the profiles handed to the report belong to the
+  // piles and combinations they are named for, and agree with the pile rows (the same
+  // pile solved at the same head movement: consistency).
+  const cairn::CheckRun run =
+      cairn::analyse_project(std::string(CAIRN_TEST_DATA) + "/nonlinear/lateral_si.yaml");
+  REQUIRE(run.nonlinear);
+  const auto& nl = *run.nonlinear;
+  REQUIRE_FALSE(nl.profiles.empty());
+  CHECK(nl.profiles.front().why == "largest utilization");
+  CHECK(nl.profiles.front().pile == *run.results.summary.pile);
+  for (const auto& p : nl.profiles) {
+    REQUIRE(p.profile.converged);
+    const auto& row = nl.combinations[p.combination].piles[p.pile];
+    CHECK(p.profile.max_moment == close(row.max_moment, 1e-9));
+    CHECK(p.profile.head_deflection == close(row.head_deflection, 1e-9));
+    CHECK(p.profile.depth.size() == p.profile.moment.size());
+  }
+  REQUIRE(nl.pushover);
+  CHECK(nl.pushover->combination == "U1");
+  // Each combination converged to the tolerance, and the heads balance the load about the
+  // origin to 1e-9 (statics of the cap's free body, head_balance).
+  const auto springs = cairn::pile_springs(run.project);
+  for (const auto& cc : run.results.combinations) {
+    CHECK(cc.solution.residual <= 1e-10);
+    const auto balance = cairn::head_balance(
+        springs, cc.solution,
+        cairn::combination_load(run.project, run.project.combinations[cc.combination]));
+    CHECK(balance.relative <= 1e-9);
   }
 }

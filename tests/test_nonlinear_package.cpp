@@ -1,5 +1,5 @@
-// Tests of the nonlinear section of the calculation package (app/nonlinear_profiles.hpp,
-// app/package.cpp): a nonlinear run's page shows the governing piles' diagrams and the
+// Tests of the nonlinear section of the calculation package (app/package.cpp, from
+// NonlinearRun::profiles): a nonlinear run's page shows the governing piles' diagrams and the
 // pushover curve; a linear run's page has no such section and does not change.
 #include <catch2/catch.hpp>
 
@@ -7,7 +7,6 @@
 #include <string>
 
 #include "cairn/app/analysis.hpp"
-#include "cairn/app/nonlinear_profiles.hpp"
 #include "cairn/app/package.hpp"
 #include "nonlinear_support.hpp"
 #include "support.hpp"
@@ -84,60 +83,53 @@ TEST_CASE("nonlinear package: a nonlinear run shows the governing piles and the 
   const cairn::CheckRun run = cairn::analyse_project(path, spec_piles());
   REQUIRE(run.nonlinear);
   REQUIRE(run.nonlinear->pushover);
-  REQUIRE_FALSE(run.nonlinear_profiles.empty());
-  REQUIRE(run.nonlinear_profiles.size() <= 2);
+  const auto& profiles = run.nonlinear->profiles;
+  REQUIRE_FALSE(profiles.empty());
   // Every governing pile was profiled at its converged movement: its head deflection and
   // largest moment are those the check found for it in that combination.
-  const cairn::Project& p = run.project;
-  for (const auto& g : run.nonlinear_profiles) {
+  for (const auto& g : profiles) {
     REQUIRE(g.profile.converged);
     REQUIRE_FALSE(g.profile.depth.empty());
-    const auto pile = static_cast<std::size_t>(
-        std::find_if(p.piles.begin(), p.piles.end(), [&](const auto& q) { return q.id == g.pile; }) -
-        p.piles.begin());
-    const auto combo = static_cast<std::size_t>(
-        std::find_if(p.combinations.begin(), p.combinations.end(),
-                     [&](const auto& q) { return q.id == g.combination; }) -
-        p.combinations.begin());
-    REQUIRE(pile < p.piles.size());
-    REQUIRE(combo < p.combinations.size());
-    const auto& found = run.nonlinear->combinations[combo].piles[pile];
+    const auto& found = run.nonlinear->combinations.at(g.combination).piles.at(g.pile);
     REQUIRE(g.profile.head_deflection == close(found.head_deflection, 1e-9, 1e-12));
-    REQUIRE(std::max(g.profile.max_moment, run.results.combinations[combo].solution.piles[pile].head_moment) ==
-            close(found.max_moment, 1e-9, 1e-9));
+    const double head = run.results.combinations.at(g.combination).solution.piles.at(g.pile).head_moment;
+    REQUIRE(std::max(g.profile.max_moment, head) == close(found.max_moment, 1e-9, 1e-9));
   }
-  // The second entry, when there is one, is the largest head deflection of all.
+  // The largest head deflection of all is among them.
   double largest = 0.0;
   for (const auto& c : run.nonlinear->combinations)
     for (const auto& q : c.piles) largest = std::max(largest, q.head_deflection);
-  REQUIRE(run.nonlinear_profiles.back().profile.head_deflection == close(largest, 1e-9, 1e-12));
+  REQUIRE(std::any_of(profiles.begin(), profiles.end(), [&](const auto& g) {
+    return g.profile.head_deflection == close(largest, 1e-9, 1e-12);
+  }));
 
+  // The page holds the section with each governing pile and combination by name, the three
+  // depth diagrams and the pushover chart.
   const std::string page = page_of(run, path);
   REQUIRE(contains(page, "id=\"nonlinear\""));
-  REQUIRE(contains(page, "<svg"));
-  REQUIRE(contains(page, run.nonlinear_profiles.front().pile));
+  const std::string section = page.substr(page.find("id=\"nonlinear\""));
+  REQUIRE(cairn::test::occurrences(section.substr(0, section.find("</section>")), "<svg") == 4);
+  for (const auto& g : profiles) {
+    REQUIRE(contains(section, "<td>" + run.project.piles[g.pile].id + "</td>"));
+    REQUIRE(contains(section, "<td>" + run.project.combinations[g.combination].id + "</td>"));
+  }
 }
 
 TEST_CASE("nonlinear package: a linear run's page has no nonlinear section and is unchanged",
           "[nonlinear_package]") {
   const std::string path = cairn::test::write_project_file(project_text(""), "nl-package-linear");
-  cairn::CheckRun run = cairn::analyse_project(path);
+  const cairn::CheckRun run = cairn::analyse_project(path);
   REQUIRE_FALSE(run.nonlinear);
-  REQUIRE(run.nonlinear_profiles.empty());
   const std::string page = page_of(run, path);
   REQUIRE_FALSE(contains(page, "id=\"nonlinear\""));
-  // Only a nonlinear run places the section: profiles left in a linear run change nothing,
-  // byte for byte.
+  REQUIRE_FALSE(contains(page, "Nonlinear soil response"));
+  // The same page as the package renderer gives without nonlinear data, byte for byte: the
+  // nonlinear run's section, had it been given, is the only difference.
   const cairn::CheckRun nonlinear = cairn::analyse_project(
       cairn::test::write_project_file(project_text("analysis: {soil_response: nonlinear}\n"),
                                       "nl-package-other"),
       spec_piles());
-  run.nonlinear_profiles = nonlinear.nonlinear_profiles;
-  REQUIRE_FALSE(run.nonlinear_profiles.empty());
+  REQUIRE(nonlinear.nonlinear);
+  REQUIRE(contains(page_of(nonlinear, path), "id=\"nonlinear\""));
   REQUIRE(page_of(run, path) == page);
-  // The profiles builder gives nothing without a profile function.
-  cairn::NonlinearGroup group;
-  REQUIRE(cairn::governing_pile_profiles(nonlinear.project, nonlinear.results,
-                                         *nonlinear.nonlinear, group)
-              .empty());
 }

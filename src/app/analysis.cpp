@@ -5,11 +5,11 @@
 #include <mutex>
 #include <stdexcept>
 #include <thread>
+#include <tuple>
 
 #include <fmt/format.h>
 
 #include "cairn/solver/cap_solver.hpp"
-#include "cairn/app/nonlinear_profiles.hpp"
 #include "cairn/checks/explain.hpp"
 #include "cairn/input/input.hpp"
 
@@ -40,6 +40,41 @@ std::vector<MomentPeak> nonlinear_moments(const NonlinearRun& run, std::size_t c
   for (std::size_t i = 0; i < piles.size() && i < solution.piles.size(); ++i)
     along.push_back({solution.piles[i].head_moment, piles[i].max_moment, piles[i].max_moment_depth});
   return along;
+}
+
+// The profiles of the governing piles of a nonlinear run (NonlinearRun::profiles).
+void add_governing_profiles(CheckRun& run, const NonlinearCapSolver& solver) {
+  NonlinearRun& nl = *run.nonlinear;
+  std::vector<std::tuple<std::size_t, std::size_t, std::string>> picks;
+  const CheckSummary& s = run.results.summary;
+  if (s.pile && s.combination) picks.emplace_back(*s.pile, *s.combination, "largest utilization");
+  std::optional<std::pair<std::size_t, std::size_t>> moment, deflection;
+  double most_moment = 0.0, most_deflection = 0.0;
+  for (const CombinationCheck& cc : run.results.combinations) {
+    if (cc.solution.overturns) continue;
+    const auto& piles = nl.combinations[cc.combination].piles;
+    for (std::size_t i = 0; i < piles.size(); ++i) {
+      if (piles[i].max_moment > most_moment) {
+        most_moment = piles[i].max_moment;
+        moment = {i, cc.combination};
+      }
+      if (piles[i].head_deflection > most_deflection) {
+        most_deflection = piles[i].head_deflection;
+        deflection = {i, cc.combination};
+      }
+    }
+  }
+  if (moment) picks.emplace_back(moment->first, moment->second, "largest moment");
+  if (deflection) picks.emplace_back(deflection->first, deflection->second, "largest deflection");
+  for (const auto& [pile, c, why] : picks) {
+    const bool seen = std::any_of(nl.profiles.begin(), nl.profiles.end(), [&](const NonlinearProfile& p) {
+      return p.pile == pile && p.combination == c;
+    });
+    if (seen) continue;
+    const double pm = nl.combinations[c].piles[pile].p_multiplier;
+    nl.profiles.push_back(
+        {pile, c, why, pile_profile_at(solver, pile, run.results.combinations[c].solution.movement, pm)});
+  }
 }
 
 // What a nonlinear run assumed, in plain words, for every output.
@@ -197,8 +232,7 @@ CheckRun analyse(Project project_in, const TypeAdjustments& adjust,
       run.nonlinear->pushover = push_combination(project, *nonlinear_solver,
                                                  project.analysis.p_multipliers, *pushed,
                                                  project.analysis);
-    run.nonlinear_profiles = governing_pile_profiles(project, run.results, *run.nonlinear,
-                                                     nonlinear_solver->group());
+    add_governing_profiles(run, *nonlinear_solver);
     const auto notes = nonlinear_assumptions(project, *run.nonlinear);
     run.assumptions.insert(run.assumptions.end(), notes.begin(), notes.end());
   }

@@ -471,7 +471,9 @@ std::vector<std::string> failure_reasons(const CheckReport& r) {
   const Project& p = *r.project;
   const CheckSummary& s = r.results->summary;
   std::vector<std::string> reasons;
-  if (!s.overturned.empty()) reasons.push_back("the cap overturns in " + overturned_ids(r));
+  if (!s.overturned.empty())
+    reasons.push_back((r.nonlinear ? "no equilibrium (a mechanism) in " : "the cap overturns in ") +
+                      overturned_ids(r));
   if (s.combination && s.pile && s.max_utilization > 1.0) {
     const std::string pile = p.piles[*s.pile].id, combo = p.combinations[*s.combination].id;
     reasons.push_back(std::isinf(s.max_utilization)

@@ -106,7 +106,10 @@ std::string summary_line(const CheckReport& r) {
   return fmt::format("FAIL: {} of {} {}{}{}{}", s.failed_combinations,
                      count_text(p.combinations.size(), "combination"),
                      s.failed_combinations == 1 ? "fails" : "fail",
-                     overturned.empty() ? "" : "; the cap overturns in " + overturned, utilization,
+                     overturned.empty() ? ""
+                     : r.nonlinear      ? "; no equilibrium (a mechanism) in " + overturned
+                                        : "; the cap overturns in " + overturned,
+                     utilization,
                      group_fails ? "; group checks fail (see Group checks)" : "");
 }
 void write_check(const CheckReport& r, Format format, std::ostream& out) {

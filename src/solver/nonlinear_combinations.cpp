@@ -2,14 +2,21 @@
 
 #include <algorithm>
 #include <cmath>
-#include <stdexcept>
 
 #include "cairn/geotechnics/p_multipliers.hpp"
+#include "cairn/geotechnics/pile_soil_curves.hpp"
 
 namespace cairn {
 
-NonlinearGroup project_nonlinear_group(const Project&) {
-  throw std::invalid_argument("nonlinear soil response: the piles' curves are not available yet");
+NonlinearGroup project_nonlinear_group(const Project& project) {
+  require_nonlinear_soil(project);
+  std::vector<NonlinearPileSpec> specs;
+  specs.reserve(project.piles.size());
+  for (std::size_t i = 0; i < project.piles.size(); ++i)
+    specs.push_back(nonlinear_pile_spec(project, i));
+  NonlinearGroup group = nonlinear_group(std::move(specs));
+  for (const Pile& pile : project.piles) group.names.push_back(pile.id);
+  return group;
 }
 
 std::vector<double> combination_multipliers(const Project& project, const Wrench& load,
@@ -48,6 +55,25 @@ void solve_nonlinear_combinations(const Project& project, const NonlinearCapSolv
     out.piles = std::move(result.piles);
     each(c, std::move(result.solution));
   }
+}
+
+PileProfile pile_profile_at(const NonlinearCapSolver& solver, std::size_t pile,
+                            const CapMovement& movement, double p_multiplier) {
+  const NonlinearGroup& group = solver.group();
+  if (!group.profile || pile >= group.heads.size()) {
+    PileProfile none;
+    none.message = "no profile with depth for this pile model";
+    return none;
+  }
+  // u = t + r × (p − c), ω = r.
+  const auto& t = movement.translation_at_reference;
+  const auto& r = movement.rotation;
+  const auto& c = movement.reference;
+  const auto& p = group.heads[pile];
+  const std::array<double, 3> d = {p[0] - c[0], p[1] - c[1], p[2] - c[2]};
+  const HeadMovement m = {t[0] + r[1] * d[2] - r[2] * d[1], t[1] + r[2] * d[0] - r[0] * d[2],
+                          t[2] + r[0] * d[1] - r[1] * d[0], r[0], r[1], r[2]};
+  return group.profile(pile, m, p_multiplier);
 }
 
 PushoverCurve push_combination(const Project& project, const NonlinearCapSolver& solver,

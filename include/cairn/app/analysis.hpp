@@ -15,7 +15,6 @@
 #include "cairn/checks/group_checks.hpp"
 #include "cairn/core/model.hpp"
 #include "cairn/geotechnics/project_capacity.hpp"
-#include "cairn/output/charts.hpp"
 #include "cairn/output/report.hpp"
 #include "cairn/geotechnics/stiffness.hpp"
 #include "cairn/solver/nonlinear_combinations.hpp"
@@ -35,9 +34,6 @@ struct CheckRun {
   // A nonlinear run (analysis.soil_response: nonlinear, or --soil-response nonlinear): what
   // it adds per combination and pile, and the pushover curve. Absent for a linear run.
   std::optional<NonlinearRun> nonlinear;
-  // A nonlinear run's governing piles with their deflection, moment and shear along their
-  // length, for the calculation package (app/nonlinear_profiles.hpp). Empty for a linear run.
-  std::vector<GoverningPileProfile> nonlinear_profiles;
 };
 
 // What the analysis builds beyond the check. With `depth_tables`, each computed pile type's

@@ -33,16 +33,35 @@ struct NonlinearCombination {
   std::vector<NonlinearPileResult> piles;  // per pile, as Project::piles
 };
 
+// One pile's profile with depth (deflection, moment, shear, axial) in one combination, for
+// the report's diagrams.
+struct NonlinearProfile {
+  std::size_t pile = 0;         // index into Project::piles
+  std::size_t combination = 0;  // index into Project::combinations
+  std::string why;              // "largest utilization", "largest moment", "largest deflection"
+  PileProfile profile;          // SI: m, kN, kN·m
+};
+
 // Everything a nonlinear run adds to the check, for the outputs.
 struct NonlinearRun {
   GroupMultipliers rule = GroupMultipliers::by_direction;
   std::vector<std::string> curves;   // per pile type: PileCurves::description (empty: unused)
   std::vector<NonlinearCombination> combinations;  // as Project::combinations
   std::optional<PushoverCurve> pushover;
+  // The governing piles' profiles: the pile and combination of the largest utilization, of
+  // the largest moment along a pile and of the largest head deflection (each pair once).
+  std::vector<NonlinearProfile> profiles;
 };
 
-// The project's piles on the nonlinear curves of its soil profile (nonlinear_pile.hpp), in
-// the order of Project::piles. Throws std::invalid_argument when the soil cannot give them.
+// The profile of pile `pile` when the cap has moved `movement` (its solution's), with its
+// p-y curves scaled by `p_multiplier`. Not converged (with a message) when the group has no
+// profile function.
+PileProfile pile_profile_at(const NonlinearCapSolver& solver, std::size_t pile,
+                            const CapMovement& movement, double p_multiplier);
+
+// The project's piles on the nonlinear curves of its soil profile (pile_soil_curves.hpp), in
+// the order of Project::piles, named by their ids. Throws InputError naming every layer or
+// pile type that cannot give them (require_nonlinear_soil).
 NonlinearGroup project_nonlinear_group(const Project& project);
 
 // The p-multipliers of the project's piles for a load (about any point: only its horizontal

@@ -11,6 +11,7 @@
 #include <cmath>
 #include <cstddef>
 #include <random>
+#include <sstream>
 #include <string>
 #include <vector>
 
@@ -352,6 +353,19 @@ TEST_CASE("nonlinear check on the soil's curves: the governing piles' profiles",
   }
   REQUIRE(nl.pushover);
   CHECK(nl.pushover->combination == "U1");
+  // The streamed JSON is the document tree written piece by piece (report.hpp), nonlinear
+  // members included, at every detail.
+  for (const auto detail : {cairn::Detail::full, cairn::Detail::envelope, cairn::Detail::summary}) {
+    cairn::CheckReport report = cairn::make_check_report(run, "check", std::nullopt);
+    report.detail = detail;
+    std::ostringstream streamed;
+    cairn::write_check(report, cairn::Format::json, streamed);
+    CHECK(streamed.str() == cairn::check_json(report).dump(2) + "\n");
+    const auto doc = cairn::check_json(report);
+    CHECK(doc["analysis"]["soil_response"] == "nonlinear");
+    if (detail == cairn::Detail::full)
+      CHECK(doc["combinations"][0]["piles"][0].contains("p_multiplier"));
+  }
   // Each combination converged to the tolerance, and the heads balance the load about the
   // origin to 1e-9 (statics of the cap's free body, head_balance).
   const auto springs = cairn::pile_springs(run.project);

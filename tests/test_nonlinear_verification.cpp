@@ -3,7 +3,7 @@
 //     load at large deflection against the limit equilibrium of a rigid pile (hand derivation
 //     from statics) and Broms (1964);
 //   - a long fixed-head pile in uniform elastic soil, through the whole project route (file →
-//     check, nonlinear mode): Hetényi's (1946) closed form;
+//     check, nonlinear mode): Hetényi's (1946) closed form; a long free-head pile on its own;
 //   - a 2×2 group at small loads: the nonlinear check equals the linear check whose springs are
 //     the curves' initial slopes;
 //   - a 3×3 group's pushover: p-multipliers lower the capacity.
@@ -270,4 +270,35 @@ TEST_CASE("nonlinear verification: p-multipliers lower a 3×3 group's pushover c
   // scales its lateral resistance at a given deflection by no less than m (a long pile's
   // stiffness k/λ grows as k^¾, Hetényi 1946; at the plateau, as m) — hand derivation.
   REQUIRE(with >= 0.3 * without);
+}
+
+TEST_CASE("nonlinear verification: a long free-head pile on a linear curve matches Hetényi's "
+          "free-head closed form",
+          "[nonlinear_verification][published]") {
+  // EI = 700 800 kN·m² (the river pier demo's pipe), k = 5 000 kN/m², H = 68 kN at the head,
+  // L = 38 m (λL = 7.6: long), pinned head, no axial load.
+  const double ei = 700800.0, k = 5000.0, h = 68.0, length = 38.0;
+  const double lambda = std::pow(k / (4.0 * ei), 0.25);  // 0.2055 1/m
+  cairn::NonlinearPileSpec pile;
+  pile.head = {0.0, 0.0, 0.0};
+  pile.axis = {0.0, 0.0, -1.0};
+  pile.length = length;
+  pile.bending_stiffness = ei;
+  pile.axial_rigidity = 1.0e7;
+  pile.width = 0.762;
+  pile.restraint.kind = cairn::HeadRestraint::Kind::pinned;
+  pile.segments = 200;
+  pile.curves.lateral = [k](double, double y) { return k * y; };
+  pile.curves.shaft = [](double, double w) { return 1.0e4 * w; };
+  pile.curves.tip = [](double w) { return w > 0.0 ? 1.0e5 * w : 0.0; };
+  // Hetényi (1946), semi-infinite beam with an end force (closed form from memory):
+  // y₀ = 2·H·λ/k, largest moment 0.3224·H/λ at λz = π/4 (hand derivation from it).
+  const double y0 = 2.0 * h * lambda / k;
+  const auto profile = cairn::pile_profile(pile, {y0, 0.0, 0.0, 0.0, 0.0, 0.0});
+  REQUIRE(profile.converged);
+  const auto response = cairn::pile_head_response(pile, {y0, 0.0, 0.0, 0.0, 0.0, 0.0});
+  REQUIRE(response.converged);
+  REQUIRE(std::abs(response.action[0]) == close(h, 0.005));              // Hetényi (1946), y₀
+  REQUIRE(profile.max_moment == close(0.3224 * h / lambda, 0.005));       // Hetényi (1946)
+  REQUIRE(profile.max_moment_depth == close(std::numbers::pi / (4.0 * lambda), 0.05));
 }

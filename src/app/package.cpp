@@ -125,6 +125,15 @@ PackageFiles package_files(const std::vector<CapOutcome>& outcomes, const Packag
       input.all_combinations_file = name + "-all-combinations.csv";
       out.files.emplace_back(input.all_combinations_file, all_combinations_csv(report));
     }
+    // A nonlinear run's diagrams of the governing piles and its pushover curve; nothing for a
+    // linear run, whose page stays as it was.
+    if (run.nonlinear) {
+      NonlinearSection section;
+      for (const NonlinearProfile& g : run.nonlinear->profiles)
+        section.piles.push_back({p.piles.at(g.pile).id, p.combinations.at(g.combination).id, g.profile});
+      section.pushover = run.nonlinear->pushover;
+      if (has_content(section)) input.nonlinear = std::move(section);
+    }
     out.files.emplace_back(name + ".html", render_cap_package_html(input));
     if (request.plan_svg)
       out.files.emplace_back(name + "-plan.svg",

@@ -9,6 +9,7 @@
 #include <fmt/format.h>
 
 #include "cairn/core/diagnostics.hpp"
+#include "cairn/core/quantity_format.hpp"
 #include "cairn/geotechnics/axial_curves.hpp"
 #include "cairn/geotechnics/capacity.hpp"
 #include "cairn/geotechnics/stiffness.hpp"
@@ -396,8 +397,10 @@ NonlinearPileSpec nonlinear_pile_spec(const Project& project, std::size_t index,
   }
   spec.curves.description = fmt::format(
       "p-y ({}): {}; t-z and Q-z: API RP 2GEO, t_max from the shaft method, Q_p = "
-      "{:.1f} kN from the tip method",
-      options.loading == PyLoading::cyclic ? "cyclic" : "static", lateral, tip);
+      "{} from the tip method",
+      options.loading == PyLoading::cyclic ? "cyclic" : "static", lateral,
+      QuantityFormat(project.units).text(Shown::force, tip));
+  spec.units = project.units;
   return spec;
 }
 

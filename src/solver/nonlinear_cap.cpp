@@ -9,6 +9,8 @@
 
 #include <fmt/format.h>
 
+#include "cairn/core/quantity_format.hpp"
+
 namespace cairn {
 namespace {
 
@@ -402,8 +404,10 @@ PushoverCurve NonlinearCapSolver::pushover(const CapLoad& load,
     }
     curve.points.push_back(point());
     if (limits.displacement > 0.0 && curve.points.back().displacement >= limits.displacement) {
-      curve.end_reason = fmt::format("the displacement limit of {:.4g} m is reached at λ = {:.3f}",
-                                     limits.displacement, path.lambda);
+      curve.end_reason =
+          fmt::format("the displacement limit of {} is reached at λ = {:.3f}",
+                      QuantityFormat(limits.units).text(Shown::displacement, limits.displacement),
+                      path.lambda);
       break;
     }
   }

@@ -84,6 +84,7 @@ PushoverCurve push_combination(const Project& project, const NonlinearCapSolver&
   PushoverLimits limits;
   limits.largest_factor = settings.pushover_limit;
   limits.displacement = settings.pushover_displacement.value_or(0.0);
+  limits.units = project.units;
   return solver.pushover(CapLoad(load), combination_multipliers(project, load, rule), combo.id,
                          limits);
 }

@@ -21,6 +21,8 @@
 
 #include <fmt/format.h>
 
+#include "cairn/core/quantity_format.hpp"
+
 namespace cairn {
 namespace {
 
@@ -345,8 +347,8 @@ AxialResult solve_axial(const NonlinearPileSpec& pile, double head_movement,
   if (!out.converged) {
     out.message = fmt::format(
         "the axial soil springs did not settle in {} iterations at a head "
-        "movement of {:.4g} m along the pile",
-        kNewtonLimit, head_movement);
+        "movement of {} along the pile",
+        kNewtonLimit, QuantityFormat(pile.units).text(Shown::displacement, head_movement));
     return out;
   }
   residual(w, r);  // the springs' tangents at the solution
@@ -690,10 +692,10 @@ class Lateral {
     const double largest = axial_.empty() ? 0.0 : *std::max_element(axial_.begin(), axial_.end());
     if (largest > 0.0)
       return fmt::format(
-          "no stable equilibrium: the axial force ({:.4g} kN) exceeds the "
+          "no stable equilibrium: the axial force ({}) exceeds the "
           "buckling load of the pile in this soil, or the soil along the pile "
           "is at its ultimate resistance (a mechanism)",
-          largest);
+          QuantityFormat(pile_.units).text(Shown::force, largest));
     return "no stable equilibrium: the soil along the pile is at its ultimate resistance and "
            "the pile turns as a rigid body (a mechanism); the head can take no more lateral load";
   }
@@ -748,10 +750,11 @@ void solve_pile(const NonlinearPileSpec& pile, const HeadMovement& movement, dou
   const double across = std::sqrt(std::max(dot(u, u) - dot(u, a) * dot(u, a), 0.0));
   if (across > limit) {
     out.message = fmt::format(
-        "the head deflection ({:.4g} m) is beyond {:.4g} m ({}): the "
+        "the head deflection ({}) is beyond {} ({}): the "
         "p-y curves are not meant for movements this large; the pile "
         "has passed its lateral capacity",
-        across, limit,
+        QuantityFormat(pile.units).text(Shown::displacement, across),
+        QuantityFormat(pile.units).text(Shown::displacement, limit),
         pile.deflection_limit > 0.0 ? "the limit given"
         : pile.width > 0.0          ? "the pile's width"
                                     : "a tenth of the pile's length");

@@ -107,6 +107,7 @@ struct PushoverLimits {
   double largest_factor = 5.0;  // λ at which the curve stops
   double displacement = 0.0;    // m along the load's direction; 0: none
   double step = 0.25;           // Δλ between the points beyond λ = 1
+  UnitSystem units = UnitSystem::SI;  // for the numbers in the end reason only
 };
 
 class NonlinearCapSolver {

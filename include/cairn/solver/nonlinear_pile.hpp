@@ -43,6 +43,7 @@
 #include <string>
 #include <vector>
 
+#include "cairn/core/units.hpp"
 #include "cairn/solver/pile_head.hpp"
 
 namespace cairn {
@@ -73,6 +74,7 @@ struct NonlinearPileSpec {
   bool tension = true;             // false: the pile takes no tension (no axial action < 0)
   PileCurves curves;
   int segments = 60;               // segments along the pile (≥ 4)
+  UnitSystem units = UnitSystem::SI;  // for the numbers in messages only (computed in SI)
   // The largest head deflection (resultant across the axis, m) the curves are used for;
   // beyond it pile_head_response returns converged = false (the pile has reached its lateral
   // capacity). 0: the pile's width, or L/10 without a width.

@@ -902,5 +902,8 @@ expect_in "analysis.soil_response unknown: located" "$work/err" "bad-response.ya
 sed 's/p_multipliers: by_direction/p_multipliers: by_direction\n  pushover: U9/' "$nl/lateral_si.yaml" >"$work/bad-pushover.yaml"
 expect_status "analysis.pushover unknown" 2 check "$work/bad-pushover.yaml"
 expect_in "analysis.pushover unknown: named" "$work/err" "analysis.pushover: combination 'U9' does not exist; did you mean 'U1'?"
+# The package of a group with no equilibrium on nonlinear soil says so in those words.
+expect_status "report, nonlinear mechanism" 1 report "$nl/mechanism.yaml" --out "$work/mech-package"
+if grep -q 'No equilibrium (a mechanism): ' "$work"/mech-package/*.html; then ok; else bad "nonlinear package: no-equilibrium wording"; fi
 echo "$passed passed, $failed failed"
 [ "$failed" -eq 0 ]

@@ -105,7 +105,8 @@ std::string title_block(const CheckReport& r) {
   for (auto c : r.results->summary.overturned)
     overturned += (overturned.empty() ? "" : ", ") + p.combinations[c].id;
   if (!overturned.empty())
-    s += "<p class=\"status fail overturned\" id=\"overturned\">Overturned: " + esc(overturned) +
+    s += std::string("<p class=\"status fail overturned\" id=\"overturned\">") +
+         (r.nonlinear ? "No equilibrium (a mechanism): " : "Overturned: ") + esc(overturned) +
          " — the cap has no equilibrium on its piles; no pile forces exist and every pile fails "
          "in " + (r.results->summary.overturned.size() == 1 ? "it" : "them") + ".</p>\n";
   return s + "</header>\n";

@@ -905,5 +905,10 @@ expect_in "analysis.pushover unknown: named" "$work/err" "analysis.pushover: com
 # The package of a group with no equilibrium on nonlinear soil says so in those words.
 expect_status "report, nonlinear mechanism" 1 report "$nl/mechanism.yaml" --out "$work/mech-package"
 if grep -q 'No equilibrium (a mechanism): ' "$work"/mech-package/*.html; then ok; else bad "nonlinear package: no-equilibrium wording"; fi
+# report --soil-response: the package of a project without the key, run on nonlinear soil.
+expect_status "report --soil-response nonlinear" 0 report "$work/no-analysis.yaml" --out "$work/nl-package" --soil-response nonlinear
+if grep -q 'id="nonlinear"' "$work"/nl-package/*.html; then ok; else bad "report --soil-response nonlinear: no nonlinear section"; fi
+expect_status "report, linear by default" 0 report "$work/no-analysis.yaml" --out "$work/lin-package"
+if grep -q 'id="nonlinear"' "$work"/lin-package/*.html; then bad "report without --soil-response: a nonlinear section"; else ok; fi
 echo "$passed passed, $failed failed"
 [ "$failed" -eq 0 ]

@@ -316,7 +316,9 @@ int run_report(const Options& options, std::ostream& out, std::ostream& err) {
   if (!options.out_dir) throw InputError({}, "report: expected --out DIR for the report files");
   // The analysis builds the capacity-with-depth tables of the chart with the check; the
   // package shows every pile in every combination.
-  auto outcomes = analyse_all(options.files, AnalysisOptions{.depth_tables = true}, err);
+  auto outcomes = analyse_all(
+      options.files,
+      AnalysisOptions{.depth_tables = true, .soil_response = options.soil_response}, err);
   for (const auto& o : outcomes) print_warnings(o.run->project, err);
   PackageRequest request;
   request.command = describe_options(options);
@@ -377,6 +379,16 @@ void add_files_and_format(CLI::App* command, CommandLine& line, const std::strin
       ->check(CLI::IsMember(kFormats));
 }
 
+// check and report: the soil's response, overriding the project's analysis.soil_response.
+void add_soil_response(CLI::App* command, CommandLine& line) {
+  command
+      ->add_option("--soil-response", line.soil_response,
+                   "How the soil holds the piles: linear (springs, default) or nonlinear (p-y, "
+                   "t-z and Q-z curves, each combination on its own); overrides the project's "
+                   "analysis.soil_response")
+      ->check(CLI::IsMember({"linear", "nonlinear"}));
+}
+
 // check, report and the site studies: the as-built re-check of a survey (site/as_built.hpp).
 void add_as_built(CLI::App* command, CommandLine& line) {
   command->add_option("--as-built", line.options.as_built,
@@ -407,12 +419,7 @@ void check_options(CLI::App* check, CommandLine& line) {
       ->check(CLI::IsMember(kDetails));
   check->add_option("--explain", line.options.explain_pile,
                     "Show the hand check (section properties, substituted formula) for PILE");
-  check
-      ->add_option("--soil-response", line.soil_response,
-                   "How the soil holds the piles: linear (springs, default) or nonlinear (p-y, "
-                   "t-z and Q-z curves, each combination on its own); overrides the project's "
-                   "analysis.soil_response")
-      ->check(CLI::IsMember({"linear", "nonlinear"}));
+  add_soil_response(check, line);
   add_as_built(check, line);
 }
 
@@ -441,6 +448,7 @@ void report_options(CLI::App* report, CommandLine& line) {
   report->add_flag("--svg", line.options.plan_svg, "Also write the cap plan alone as SVG");
   report->add_flag("--tables", line.options.tables,
                    "Also write the tables as CSV and Markdown (report.md, *.csv per cap)");
+  add_soil_response(report, line);
   add_as_built(report, line);
 }
 

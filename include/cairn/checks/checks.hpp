@@ -19,6 +19,7 @@
 #include <array>
 #include <cstddef>
 #include <map>
+#include <memory>
 #include <optional>
 #include <string>
 #include <vector>
@@ -182,16 +183,27 @@ class CheckAccumulator {
   CheckAccumulator(const Project& project, const std::vector<PileTypeResistance>& resistances,
                    const std::vector<double>& head_moment_per_shear, bool keep_pile_rows,
                    const std::vector<std::optional<MomentInfluence>>& moment_influence = {});
+  ~CheckAccumulator();
+  CheckAccumulator(const CheckAccumulator&) = delete;
+  CheckAccumulator& operator=(const CheckAccumulator&) = delete;
   // The combination's solution (combinations in order, index c).
   void add(std::size_t c, CapSolution solution);
   CheckResults finish();
+  // Combinations whose piles have no structural check and no moment along the pile are
+  // folded in one pass over arrays of the piles' values (check_fold.hpp), the others pile
+  // by pile; both give the same bits. true: every combination pile by pile (for the tests).
+  void fold_row_by_row(bool on);
 
  private:
+  struct Fold;
+  void add_rows(std::size_t c, CombinationCheck& check);
+  bool add_arrays(std::size_t c, CombinationCheck& check);
   const Project& project_;
   const std::vector<PileTypeResistance>& resistances_;
   std::vector<double> head_moment_per_shear_;
   std::vector<std::optional<MomentInfluence>> moment_influence_;
   CheckResults results_;
+  std::unique_ptr<Fold> fold_;
 };
 
 // Checks every pile in every combination. `solutions` is indexed like the combinations.

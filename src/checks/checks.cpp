@@ -236,13 +236,9 @@ struct CheckAccumulator::Fold {
   std::vector<double> governing;  // Demand, as a number
   bool row_by_row = false;
 
-  // A pile's envelope and governing checks as the row-by-row code reads them, and back.
+  // A pile's envelope and governing checks from the arrays, for the results.
   static Extreme extreme(double value, std::int64_t at) {
     return at < 0 ? Extreme{} : Extreme{value, static_cast<std::size_t>(at)};
-  }
-  static void store(const Extreme& x, double& value, std::int64_t& at) {
-    value = x.combination ? x.value : 0.0;
-    at = x.combination ? static_cast<std::int64_t>(*x.combination) : -1;
   }
   PileEnvelope envelope(std::size_t i) const {
     PileEnvelope e;
@@ -261,18 +257,6 @@ struct CheckAccumulator::Fold {
       g[k].demand = state.check_demand[k][i];
     }
     return g;
-  }
-  void store(std::size_t i, const PileEnvelope& e, const PileGoverning& g) {
-    store(e.max_compression, state.compression[i], state.compression_at[i]);
-    store(e.max_tension, state.tension[i], state.tension_at[i]);
-    store(e.max_lateral, state.lateral[i], state.lateral_at[i]);
-    store(e.max_utilization, state.utilization[i], state.utilization_at[i]);
-    state.governing[i] = static_cast<double>(static_cast<int>(e.governing));
-    state.failed[i] = e.pass ? 0 : 1;
-    for (std::size_t k = 0; k < 4; ++k) {
-      store(g[k].utilization, state.check_value[k][i], state.check_at[k][i]);
-      state.check_demand[k][i] = g[k].demand;
-    }
   }
 };
 
@@ -435,15 +419,15 @@ void CheckAccumulator::add_rows(std::size_t c, CombinationCheck& check) {
   for (std::size_t i = 0; i < n; ++i) {
     if (!results.pile_rows) row = PileCheck{};
     PileCheck& p = results.pile_rows ? check.piles[i] : row;
-    PileEnvelope e = fold.envelope(i);
-    PileGoverning g = fold.governing_checks(i);
+    // The pile's envelope and governing checks, in place in the fold's arrays (a value of 0
+    // with combination −1 while none is named).
+    detail::FoldState& e = fold.state;
     if (overturns) {
       // No equilibrium: the solver's forces mean nothing, and no pile can be shown safe.
       p.active = check.solution.piles[i].active;
       p.state = PileState::overturned;
       p.pass = false;
-      e.pass = false;
-      fold.store(i, e, g);
+      e.failed[i] = 1;
       continue;
     }
     const PileForce& force = check.solution.piles[i];
@@ -455,10 +439,13 @@ void CheckAccumulator::add_rows(std::size_t c, CombinationCheck& check) {
     p.state = force.active ? PileState::in_contact : PileState::dropped_out;
     // The governing combination of one check: the first of its largest utilization.
     auto govern = [&](Demand kind, double u, double demand) {
-      GoverningCheck& x = g[static_cast<std::size_t>(kind) - 1];
-      if (u > 0.0 && (!x.utilization.combination || u > x.utilization.value)) {
-        x.utilization = {u, c};
-        x.demand = demand;
+      const std::size_t k = static_cast<std::size_t>(kind) - 1;
+      double& value = e.check_value[k][i];
+      std::int64_t& at = e.check_at[k][i];
+      if (u > 0.0 && (at < 0 || u > value)) {
+        value = u;
+        at = static_cast<std::int64_t>(c);
+        e.check_demand[k][i] = demand;
       }
     };
     auto consider = [&](double demand, std::optional<double> capacity, Demand kind) {
@@ -499,7 +486,7 @@ void CheckAccumulator::add_rows(std::size_t c, CombinationCheck& check) {
     p.pass = p.utilization <= 1.0;
     if (!p.pass) {
       check.pass = false;
-      e.pass = false;
+      e.failed[i] = 1;
     }
     if (!check.governing_pile || p.utilization > check.max_utilization) {
       check.max_utilization = p.utilization;
@@ -508,20 +495,18 @@ void CheckAccumulator::add_rows(std::size_t c, CombinationCheck& check) {
     }
     // A zero value names no combination: "max tension 0.0 in S1" of a pile never in
     // tension would point the reader at nothing.
-    auto raise = [&](Extreme& x, double v, double tolerance) {
-      if (v > tolerance && (!x.combination || v > x.value)) {
-        x.value = v;
-        x.combination = c;
+    auto raise = [&](double& value, std::int64_t& at, double v, double tolerance) {
+      if (v > tolerance && (at < 0 || v > value)) {
+        value = v;
+        at = static_cast<std::int64_t>(c);
       }
     };
-    raise(e.max_compression, p.axial, kForceTolerance);
-    raise(e.max_tension, -p.axial, kForceTolerance);
-    raise(e.max_lateral, p.lateral, kForceTolerance);
-    if (p.utilization > 0.0 &&
-        (!e.max_utilization.combination || p.utilization > e.max_utilization.value))
-      e.governing = p.governing;
-    raise(e.max_utilization, p.utilization, 0.0);
-    fold.store(i, e, g);
+    raise(e.compression[i], e.compression_at[i], p.axial, kForceTolerance);
+    raise(e.tension[i], e.tension_at[i], -p.axial, kForceTolerance);
+    raise(e.lateral[i], e.lateral_at[i], p.lateral, kForceTolerance);
+    if (p.utilization > 0.0 && (e.utilization_at[i] < 0 || p.utilization > e.utilization[i]))
+      e.governing[i] = static_cast<double>(static_cast<int>(p.governing));
+    raise(e.utilization[i], e.utilization_at[i], p.utilization, 0.0);
   }
 }
 

@@ -14,7 +14,10 @@
 #include <cstddef>
 #include <random>
 #include <string>
+#include <utility>
+#include <vector>
 
+#include "cairn/checks/checks.hpp"
 #include "cairn/solver/cap_solver.hpp"
 #include "cairn/core/model.hpp"
 
@@ -188,6 +191,31 @@ void BM_SolveLinear500x10000(benchmark::State& state) {
   }
 }
 BENCHMARK(BM_SolveLinear500x10000)->Unit(benchmark::kMillisecond)->UseRealTime();
+
+// The same solve with the checks folded in as each combination is solved, as
+// `--detail envelope` runs them: each pile's utilization, envelope and governing
+// combinations (invented capacities: 1,500 kN compression, 600 kN tension, 80 kN lateral,
+// on both bases); the n·m rows are not kept.
+void BM_CheckEnvelope500x10000(benchmark::State& state) {
+  const Project project = linear_project();
+  const cairn::CapSolver solver(cairn::pile_springs(project));
+  cairn::PileTypeResistance r;
+  for (cairn::Resistance* basis : {&r.allowable, &r.factored}) {
+    basis->compression = 1500.0;
+    basis->tension = 600.0;
+    basis->lateral = 80.0;
+  }
+  const std::vector<cairn::PileTypeResistance> resistances(project.pile_types.size(), r);
+  for (auto _ : state) {
+    cairn::CheckAccumulator checks(project, resistances, {}, false);
+    cairn::solve_combinations(project, solver, [&](std::size_t c, cairn::CapSolution&& s) {
+      checks.add(c, std::move(s));
+    });
+    const cairn::CheckResults results = checks.finish();
+    benchmark::DoNotOptimize(results.summary.max_utilization);
+  }
+}
+BENCHMARK(BM_CheckEnvelope500x10000)->Unit(benchmark::kMillisecond)->UseRealTime();
 
 // The floor of that case: writing its n·m = 5,000,000 results (axial and lateral, 16 bytes
 // each) once to memory.

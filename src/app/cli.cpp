@@ -18,6 +18,7 @@
 
 #include "cairn/app/analysis.hpp"
 #include "cairn/app/package.hpp"
+#include "cairn/app/progress.hpp"
 #include "cairn/app/design_command.hpp"
 #include "cairn/solver/cap_solver.hpp"
 #include "cairn/geotechnics/capacity_length.hpp"
@@ -87,30 +88,6 @@ std::string command_line_text(int argc, const char* const* argv) {
   for (int i = 1; i < argc; ++i) text += " " + shell_word(argv[i]);
   return text;
 }
-
-// Progress on stderr, only when it is a terminal and once the run has taken more than a
-// second: "cairn: 120 of 500 caps checked", rewritten in place; clear() wipes the line.
-class Progress {
- public:
-  Progress(std::ostream& err, const char* what) : err_(err), what_(what) {}
-  std::function<void(std::size_t, std::size_t)> callback() {
-    return [this](std::size_t done, std::size_t total) {
-      if (!terminal_ || std::chrono::steady_clock::now() - start_ < std::chrono::seconds(1)) return;
-      err_ << "\rcairn: " << done << " of " << total << " " << what_ << " checked" << std::flush;
-      shown_ = true;
-    };
-  }
-  void clear() {
-    if (shown_) err_ << "\r\033[K" << std::flush;
-  }
-
- private:
-  std::ostream& err_;
-  const char* what_;
-  const bool terminal_ = isatty(STDERR_FILENO) != 0;
-  const std::chrono::steady_clock::time_point start_ = std::chrono::steady_clock::now();
-  bool shown_ = false;
-};
 
 // Every cap of the files given (foundation files expanded), analysed on all cores. Input
 // problems in any cap stop the run before anything is written.
@@ -227,8 +204,9 @@ int run_check(const Options& options, std::ostream& out, std::ostream& err) {
   const auto caps = expand_foundation(options.files.front());
   if (caps.size() != 1 || caps.front() != options.files.front()) return run_batch(options, out, err);
   // Below full detail no pile rows are kept (the hand check of --explain needs them).
-  // Progress as for many caps: on a terminal only, after a second.
+  // Progress as for many caps: on a terminal only, after a second (progress.hpp).
   Progress progress(err, "combinations");
+  progress.phase("reading " + options.files.front());
   AnalysisOptions analysis;
   analysis.pile_rows = options.detail == Detail::full || options.explain_pile.has_value();
   analysis.soil_response = options.soil_response;
@@ -239,7 +217,11 @@ int run_check(const Options& options, std::ostream& out, std::ostream& err) {
   CheckReport report = make_check_report(run, describe_options(options), options.explain_pile);
   report.detail = options.detail;
   // The files first (all or nothing), then the output streamed to the terminal or pipe.
-  if (options.out_dir) write_files_atomically(*options.out_dir, check_outputs(report));
+  if (options.out_dir) {
+    Progress writing(err, "");
+    writing.phase("writing " + *options.out_dir);
+    write_files_atomically(*options.out_dir, check_outputs(report));
+  }
   write_check(report, options.format, out);
   return run.results.summary.pass ? kExitPass : kExitFail;
 }

@@ -2,6 +2,7 @@
 
 #include <algorithm>
 #include <cmath>
+#include <cstdint>
 #include <limits>
 #include <map>
 #include <set>
@@ -13,6 +14,7 @@
 #include "cairn/geotechnics/code_resistance.hpp"
 #include "cairn/geotechnics/lateral.hpp"
 #include "cairn/geotechnics/section_moment.hpp"
+#include "check_fold.hpp"
 
 namespace cairn {
 namespace {
@@ -221,6 +223,56 @@ std::vector<Diagnostic> missing_resistances(const Project& project,
   return problems;
 }
 
+// The fold's arrays (check_fold.hpp), the capacities of each basis met so far, and the
+// combination's forces gathered for the pass.
+struct CheckAccumulator::Fold {
+  detail::FoldState state;
+  // Per basis (limit state or code resistance set): every pile's capacities, and whether
+  // all its piles can be folded as arrays (no structural check, no moment along the pile).
+  std::map<std::pair<int, int>, std::size_t> basis_index;
+  std::vector<detail::PileCapacities> capacities;
+  std::vector<char> arrays;
+  std::vector<double> axial, lateral, utilization;
+  std::vector<double> governing;  // Demand, as a number
+  bool row_by_row = false;
+
+  // A pile's envelope and governing checks from the arrays, for the results.
+  static Extreme extreme(double value, std::int64_t at) {
+    return at < 0 ? Extreme{} : Extreme{value, static_cast<std::size_t>(at)};
+  }
+  PileEnvelope envelope(std::size_t i) const {
+    PileEnvelope e;
+    e.max_compression = extreme(state.compression[i], state.compression_at[i]);
+    e.max_tension = extreme(state.tension[i], state.tension_at[i]);
+    e.max_lateral = extreme(state.lateral[i], state.lateral_at[i]);
+    e.max_utilization = extreme(state.utilization[i], state.utilization_at[i]);
+    e.governing = static_cast<Demand>(static_cast<int>(state.governing[i]));
+    e.pass = state.failed[i] == 0;
+    return e;
+  }
+  PileGoverning governing_checks(std::size_t i) const {
+    PileGoverning g;
+    for (std::size_t k = 0; k < 4; ++k) {
+      g[k].utilization = extreme(state.check_value[k][i], state.check_at[k][i]);
+      g[k].demand = state.check_demand[k][i];
+    }
+    return g;
+  }
+};
+
+namespace {
+
+// The capacities a pile is checked against in a combination.
+const Resistance& resistance_for(const std::vector<PileTypeResistance>& resistances,
+                                 std::size_t type, const Combination& combo) {
+  return combo.resistance_set != ResistanceSet::basis
+             ? resistances[type].by_set.at(combo.resistance_set)
+         : combo.limit_state == LimitState::service ? resistances[type].allowable
+                                                     : resistances[type].factored;
+}
+
+}  // namespace
+
 CheckAccumulator::CheckAccumulator(const Project& project,
                                    const std::vector<PileTypeResistance>& resistances,
                                    const std::vector<double>& head_moment_per_shear,
@@ -229,12 +281,21 @@ CheckAccumulator::CheckAccumulator(const Project& project,
     : project_(project),
       resistances_(resistances),
       head_moment_per_shear_(head_moment_per_shear),
-      moment_influence_(moment_influence) {
-  results_.envelope.assign(project.piles.size(), PileEnvelope{});
-  results_.governing.assign(project.piles.size(), PileGoverning{});
+      moment_influence_(moment_influence),
+      fold_(std::make_unique<Fold>()) {
   results_.pile_rows = keep_pile_rows;
   results_.combinations.reserve(project.combinations.size());
+  const std::size_t n = project.piles.size();
+  fold_->state.resize(n);
+  fold_->axial.resize(n);
+  fold_->lateral.resize(n);
+  fold_->utilization.resize(n);
+  fold_->governing.resize(n);
 }
+
+CheckAccumulator::~CheckAccumulator() = default;
+
+void CheckAccumulator::fold_row_by_row(bool on) { fold_->row_by_row = on; }
 
 void CheckAccumulator::add(std::size_t c, CapSolution solution) {
   add_checked(c, std::move(solution), nullptr);
@@ -247,16 +308,122 @@ void CheckAccumulator::add(std::size_t c, CapSolution solution,
 
 void CheckAccumulator::add_checked(std::size_t c, CapSolution solution,
                                    const std::vector<MomentPeak>* along) {
+  CheckResults& results = results_;
+  CheckSummary& summary = results.summary;
+  CombinationCheck check;
+  check.combination = c;
+  check.solution = std::move(solution);
+  // A nonlinear run's moments along the piles (`along`) are the row-by-row code's.
+  if (check.solution.overturns || fold_->row_by_row || along || !add_arrays(c, check))
+    add_rows(c, check, along);
+  if (check.solution.overturns) {
+    check.pass = false;
+    summary.overturned.push_back(c);
+  }
+  if (!check.pass) ++summary.failed_combinations;
+  // An overturned combination has no pile forces to speak of: it fails on its own line
+  // and does not name a governing pile.
+  if (!check.solution.overturns &&
+      (!summary.combination || check.max_utilization > summary.max_utilization)) {
+    summary.max_utilization = check.max_utilization;
+    summary.combination = c;
+    summary.pile = check.governing_pile;
+    summary.check = check.governing;
+  }
+  if (!results.pile_rows) {
+    // Only what a summary needs: the verdict, its governing pile, the movement.
+    std::vector<PileCheck>().swap(check.piles);
+    std::vector<PileForce>().swap(check.solution.piles);
+  }
+  results.combinations.push_back(std::move(check));
+}
+
+// The combination folded in one pass over arrays (check_fold.hpp), then the pile rows (full
+// detail), the combination's governing pile and its sums pile by pile, in pile order as the
+// row-by-row code does. false, with nothing done, when some pile needs the row-by-row code.
+bool CheckAccumulator::add_arrays(std::size_t c, CombinationCheck& check) {
+  Fold& fold = *fold_;
+  const Project& project = project_;
+  const Combination& combo = project.combinations[c];
+  const std::size_t n = project.piles.size();
+  const std::pair<int, int> basis{
+      static_cast<int>(combo.resistance_set),
+      combo.resistance_set != ResistanceSet::basis ? 0
+      : combo.limit_state == LimitState::service   ? 1
+                                                    : 2};
+  auto found = fold.basis_index.find(basis);
+  if (found == fold.basis_index.end()) {
+    detail::PileCapacities caps;
+    bool arrays = true;
+    auto positive = [](const std::optional<double>& v) { return v && *v > 0 ? *v : 0.0; };
+    for (const Pile& pile : project.piles) {
+      const Resistance& r = resistance_for(resistances_, pile.type, combo);
+      caps.compression.push_back(positive(r.compression));
+      caps.tension.push_back(positive(r.tension));
+      caps.lateral.push_back(positive(r.lateral));
+      if ((r.structural_axial && *r.structural_axial > 0) ||
+          (pile.type < moment_influence_.size() && moment_influence_[pile.type]))
+        arrays = false;
+    }
+    fold.capacities.push_back(std::move(caps));
+    fold.arrays.push_back(arrays ? 1 : 0);
+    found = fold.basis_index.emplace(basis, fold.capacities.size() - 1).first;
+  }
+  if (!fold.arrays[found->second]) return false;
+  const std::vector<PileForce>& forces = check.solution.piles;
+  for (std::size_t i = 0; i < n; ++i) {
+    fold.axial[i] = forces[i].axial;
+    fold.lateral[i] = forces[i].lateral;
+  }
+  const bool failed =
+      detail::fold_piles(n, fold.axial.data(), fold.lateral.data(), fold.capacities[found->second],
+                         kForceTolerance, static_cast<std::int64_t>(c), fold.state,
+                         fold.utilization.data(), fold.governing.data());
+  check.pass = !failed;
+  const double* u = fold.utilization.data();
+  const double* axial = fold.axial.data();
+  for (std::size_t i = 0; i < n; ++i) {
+    // Sums in pile order, as the row-by-row code adds them (adding 0 changes no bit).
+    const double a = axial[i];
+    check.total_compression += a > 0 ? a : 0.0;
+    check.total_tension -= a > 0 ? 0.0 : a;
+    if (i == 0 || u[i] > check.max_utilization) {
+      check.max_utilization = u[i];
+      check.governing_pile = i;
+      check.governing = static_cast<Demand>(static_cast<int>(fold.governing[i]));
+    }
+  }
+  if (results_.pile_rows) {
+    check.piles.resize(n);
+    for (std::size_t i = 0; i < n; ++i) {
+      PileCheck& p = check.piles[i];
+      const Pile& pile = project.piles[i];
+      p.axial = forces[i].axial;
+      p.lateral = forces[i].lateral;
+      p.active = forces[i].active;
+      p.state = forces[i].active ? PileState::in_contact : PileState::dropped_out;
+      if (pile.type < head_moment_per_shear_.size()) {
+        p.head_moment = p.lateral * head_moment_per_shear_[pile.type];
+        p.max_moment = p.head_moment;
+      }
+      p.utilization = u[i];
+      p.governing = static_cast<Demand>(static_cast<int>(fold.governing[i]));
+      p.pass = p.utilization <= 1.0;
+    }
+  }
+  return true;
+}
+
+// Pile by pile: every case, and the reference for the pass over arrays.
+void CheckAccumulator::add_rows(std::size_t c, CombinationCheck& check,
+                                const std::vector<MomentPeak>* along) {
   const Project& project = project_;
   const auto& resistances = resistances_;
   const auto& head_moment_per_shear = head_moment_per_shear_;
   CheckResults& results = results_;
-  CheckSummary& summary = results.summary;
+  Fold& fold = *fold_;
   const std::size_t n = project.piles.size();
   const Combination& combo = project.combinations[c];
-  CombinationCheck check;
-  check.combination = c;
-  check.solution = std::move(solution);
   // Pile rows are kept for full detail only; otherwise each pile's row is built in `row`,
   // folded into the envelope and the summary, and dropped.
   if (results.pile_rows) check.piles.resize(n);
@@ -265,33 +432,33 @@ void CheckAccumulator::add_checked(std::size_t c, CapSolution solution,
   for (std::size_t i = 0; i < n; ++i) {
     if (!results.pile_rows) row = PileCheck{};
     PileCheck& p = results.pile_rows ? check.piles[i] : row;
-    PileEnvelope& e = results.envelope[i];
+    // The pile's envelope and governing checks, in place in the fold's arrays (a value of 0
+    // with combination −1 while none is named).
+    detail::FoldState& e = fold.state;
     if (overturns) {
       // No equilibrium: the solver's forces mean nothing, and no pile can be shown safe.
       p.active = check.solution.piles[i].active;
       p.state = PileState::overturned;
       p.pass = false;
-      e.pass = false;
+      e.failed[i] = 1;
       continue;
     }
     const PileForce& force = check.solution.piles[i];
     const Pile& pile = project.piles[i];
-    const Resistance& r = combo.resistance_set != ResistanceSet::basis
-                              ? resistances[pile.type].by_set.at(combo.resistance_set)
-                          : combo.limit_state == LimitState::service
-                              ? resistances[pile.type].allowable
-                              : resistances[pile.type].factored;
+    const Resistance& r = resistance_for(resistances, pile.type, combo);
     p.axial = force.axial;
     p.lateral = force.lateral;
     p.active = force.active;
     p.state = force.active ? PileState::in_contact : PileState::dropped_out;
-    PileGoverning& g = results.governing[i];
     // The governing combination of one check: the first of its largest utilization.
     auto govern = [&](Demand kind, double u, double demand) {
-      GoverningCheck& x = g[static_cast<std::size_t>(kind) - 1];
-      if (u > 0.0 && (!x.utilization.combination || u > x.utilization.value)) {
-        x.utilization = {u, c};
-        x.demand = demand;
+      const std::size_t k = static_cast<std::size_t>(kind) - 1;
+      double& value = e.check_value[k][i];
+      std::int64_t& at = e.check_at[k][i];
+      if (u > 0.0 && (at < 0 || u > value)) {
+        value = u;
+        at = static_cast<std::int64_t>(c);
+        e.check_demand[k][i] = demand;
       }
     };
     auto consider = [&](double demand, std::optional<double> capacity, Demand kind) {
@@ -336,7 +503,7 @@ void CheckAccumulator::add_checked(std::size_t c, CapSolution solution,
     p.pass = p.utilization <= 1.0;
     if (!p.pass) {
       check.pass = false;
-      e.pass = false;
+      e.failed[i] = 1;
     }
     if (!check.governing_pile || p.utilization > check.max_utilization) {
       check.max_utilization = p.utilization;
@@ -345,44 +512,30 @@ void CheckAccumulator::add_checked(std::size_t c, CapSolution solution,
     }
     // A zero value names no combination: "max tension 0.0 in S1" of a pile never in
     // tension would point the reader at nothing.
-    auto raise = [&](Extreme& x, double v, double tolerance) {
-      if (v > tolerance && (!x.combination || v > x.value)) {
-        x.value = v;
-        x.combination = c;
+    auto raise = [&](double& value, std::int64_t& at, double v, double tolerance) {
+      if (v > tolerance && (at < 0 || v > value)) {
+        value = v;
+        at = static_cast<std::int64_t>(c);
       }
     };
-    raise(e.max_compression, p.axial, kForceTolerance);
-    raise(e.max_tension, -p.axial, kForceTolerance);
-    raise(e.max_lateral, p.lateral, kForceTolerance);
-    if (p.utilization > 0.0 &&
-        (!e.max_utilization.combination || p.utilization > e.max_utilization.value))
-      e.governing = p.governing;
-    raise(e.max_utilization, p.utilization, 0.0);
+    raise(e.compression[i], e.compression_at[i], p.axial, kForceTolerance);
+    raise(e.tension[i], e.tension_at[i], -p.axial, kForceTolerance);
+    raise(e.lateral[i], e.lateral_at[i], p.lateral, kForceTolerance);
+    if (p.utilization > 0.0 && (e.utilization_at[i] < 0 || p.utilization > e.utilization[i]))
+      e.governing[i] = static_cast<double>(static_cast<int>(p.governing));
+    raise(e.utilization[i], e.utilization_at[i], p.utilization, 0.0);
   }
-  if (check.solution.overturns) {
-    check.pass = false;
-    summary.overturned.push_back(c);
-  }
-  if (!check.pass) ++summary.failed_combinations;
-  // An overturned combination has no pile forces to speak of: it fails on its own line
-  // and does not name a governing pile.
-  if (!check.solution.overturns &&
-      (!summary.combination || check.max_utilization > summary.max_utilization)) {
-    summary.max_utilization = check.max_utilization;
-    summary.combination = c;
-    summary.pile = check.governing_pile;
-    summary.check = check.governing;
-  }
-  if (!results.pile_rows) {
-    // Only what a summary needs: the verdict, its governing pile, the movement.
-    std::vector<PileCheck>().swap(check.piles);
-    std::vector<PileForce>().swap(check.solution.piles);
-  }
-  results.combinations.push_back(std::move(check));
 }
 
 CheckResults CheckAccumulator::finish() {
   results_.summary.pass = results_.summary.failed_combinations == 0;
+  const std::size_t n = project_.piles.size();
+  results_.envelope.resize(n);
+  results_.governing.resize(n);
+  for (std::size_t i = 0; i < n; ++i) {
+    results_.envelope[i] = fold_->envelope(i);
+    results_.governing[i] = fold_->governing_checks(i);
+  }
   return std::move(results_);
 }
 

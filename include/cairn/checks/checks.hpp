@@ -19,6 +19,7 @@
 #include <array>
 #include <cstddef>
 #include <map>
+#include <memory>
 #include <optional>
 #include <string>
 #include <vector>
@@ -182,6 +183,9 @@ class CheckAccumulator {
   CheckAccumulator(const Project& project, const std::vector<PileTypeResistance>& resistances,
                    const std::vector<double>& head_moment_per_shear, bool keep_pile_rows,
                    const std::vector<std::optional<MomentInfluence>>& moment_influence = {});
+  ~CheckAccumulator();
+  CheckAccumulator(const CheckAccumulator&) = delete;
+  CheckAccumulator& operator=(const CheckAccumulator&) = delete;
   // The combination's solution (combinations in order, index c).
   void add(std::size_t c, CapSolution solution);
   // The same with each pile's head moment and largest moment along it given (per pile, as
@@ -189,14 +193,22 @@ class CheckAccumulator {
   // influence and of the moment per shear.
   void add(std::size_t c, CapSolution solution, const std::vector<MomentPeak>& along);
   CheckResults finish();
+  // Combinations whose piles have no structural check and no moment along the pile are
+  // folded in one pass over arrays of the piles' values (check_fold.hpp), the others pile
+  // by pile; both give the same bits. true: every combination pile by pile (for the tests).
+  void fold_row_by_row(bool on);
 
  private:
   void add_checked(std::size_t c, CapSolution solution, const std::vector<MomentPeak>* along);
+  struct Fold;
+  void add_rows(std::size_t c, CombinationCheck& check, const std::vector<MomentPeak>* along);
+  bool add_arrays(std::size_t c, CombinationCheck& check);
   const Project& project_;
   const std::vector<PileTypeResistance>& resistances_;
   std::vector<double> head_moment_per_shear_;
   std::vector<std::optional<MomentInfluence>> moment_influence_;
   CheckResults results_;
+  std::unique_ptr<Fold> fold_;
 };
 
 // Checks every pile in every combination. `solutions` is indexed like the combinations.

@@ -875,6 +875,29 @@ ShaftLimit shaft_limit(ShaftMethod method, const SoilLayer& layer, Installation 
   return limit;
 }
 
+// The λ method's sums over the clay crossed with it between the depths head and tip: the
+// length, ∫σ'v dz and ∫cu dz (their means are the sums over the length).
+struct LambdaSums {
+  double length = 0.0, stress = 0.0, cu = 0.0;
+};
+LambdaSums lambda_sums(const SoilColumn& column, const PileDesign& design, double head,
+                       double tip) {
+  const std::vector<double>& z = column.boundaries();
+  LambdaSums out;
+  for (std::size_t i = 0; i < column.size(); ++i) {
+    const SoilLayer& layer = column.layer(i);
+    const double a = std::max(z[i], head), b = std::min(z[i + 1], tip);
+    if (b <= a || shaft_method_for(design, layer.kind) != ShaftMethod::lambda) continue;
+    std::vector<double> splits;
+    if (const auto water = column.water_level()) splits.push_back(*water);
+    out.length += b - a;
+    out.stress +=
+        integrate_split([&](double x) { return column.effective_stress(x); }, a, b, splits);
+    out.cu += *layer.undrained_strength * (b - a);
+  }
+  return out;
+}
+
 }  // namespace
 
 std::vector<double> unit_shaft_at(const SoilProfile& profile, const PileGeometry& pile,
@@ -882,24 +905,12 @@ std::vector<double> unit_shaft_at(const SoilProfile& profile, const PileGeometry
   if (const auto problems = validate_design(profile, pile, design); !problems.empty())
     throw std::invalid_argument(problems.front());
   const SoilColumn column(profile);
-  const std::vector<double>& z = column.boundaries();
   const double head = pile.head_depth, tip = pile.tip_depth();
   StressField stress{column, std::nullopt};
   if (design.critical_depth_diameters)
     stress.critical_depth = *design.critical_depth_diameters * pile.width;
   // λ: the mean over the clay crossed with it, as in pile_capacity.
-  double lambda_length = 0.0, lambda_stress = 0.0, lambda_cu = 0.0;
-  for (std::size_t i = 0; i < profile.layers.size(); ++i) {
-    const SoilLayer& layer = profile.layers[i];
-    const double a = std::max(z[i], head), b = std::min(z[i + 1], tip);
-    if (b <= a || shaft_method_for(design, layer.kind) != ShaftMethod::lambda) continue;
-    std::vector<double> splits;
-    if (const auto water = column.water_level()) splits.push_back(*water);
-    lambda_length += b - a;
-    lambda_stress +=
-        integrate_split([&](double x) { return column.effective_stress(x); }, a, b, splits);
-    lambda_cu += *layer.undrained_strength * (b - a);
-  }
+  const auto [lambda_length, lambda_stress, lambda_cu] = lambda_sums(column, design, head, tip);
   std::vector<double> out;
   out.reserve(depths.size());
   for (const double depth : depths) {
@@ -962,18 +973,7 @@ CapacityResult pile_capacity(const SoilProfile& profile, const PileGeometry& pil
   }
   // λ method: one mean unit friction over all clay crossed with that method
   // (Vijayvergiya & Focht 1972): f_av = λ (σ̄'v + 2 c̄u), λ from the penetration L.
-  double lambda_length = 0.0, lambda_stress = 0.0, lambda_cu = 0.0;
-  for (std::size_t i = 0; i < profile.layers.size(); ++i) {
-    const SoilLayer& layer = profile.layers[i];
-    const double a = std::max(z[i], head), b = std::min(z[i + 1], tip);
-    if (b <= a || shaft_method_for(design, layer.kind) != ShaftMethod::lambda) continue;
-    std::vector<double> splits;
-    if (water) splits.push_back(*water);
-    lambda_length += b - a;
-    lambda_stress +=
-        integrate_split([&](double x) { return column.effective_stress(x); }, a, b, splits);
-    lambda_cu += *layer.undrained_strength * (b - a);
-  }
+  const auto [lambda_length, lambda_stress, lambda_cu] = lambda_sums(column, design, head, tip);
 
   for (std::size_t i = 0; i < profile.layers.size(); ++i) {
     const SoilLayer& layer = profile.layers[i];

@@ -215,3 +215,32 @@ TEST_CASE("stiffness: the layer at the pile head gives kh, below the cap's depth
   // Hetényi's closed form again (computed): 16 945 kN/m with the clay's kh, not the fill's.
   CHECK(k[0].lateral == Approx(16945.0).epsilon(kPublished));
 }
+
+TEST_CASE("A hollow section's stiffness is its wall's: pipe and hollow square", "[stiffness]") {
+  // Hand formulas of a ring and a hollow square (common practice): A = π/4·(D² − d²),
+  // I = π/64·(D⁴ − d⁴); A = b² − bi², I = (b⁴ − bi⁴)/12, d = D − 2t, bi = b − 2t.
+  cairn::PileType pipe;
+  pipe.section = {cairn::SectionShape::round, 0.762};
+  pipe.length = 38.0;
+  pipe.elastic_modulus = 2.0e8;
+  pipe.structure = cairn::Structure{};
+  pipe.structure->wall_thickness = 0.022;
+  const double d = 0.762 - 0.044;
+  CHECK(pipe.material_area() == Approx(std::numbers::pi / 4.0 * (0.762 * 0.762 - d * d)).epsilon(1e-12));
+  CHECK(pipe.material_inertia() ==
+        Approx(std::numbers::pi / 64.0 * (std::pow(0.762, 4) - std::pow(d, 4))).epsilon(1e-12));
+  CHECK(pipe.material_inertia() == Approx(3.504e-3).epsilon(1e-3));  // hand arithmetic
+  CHECK(pipe.axial_stiffness_used() == Approx(2.0e8 * pipe.material_area() / 38.0).epsilon(1e-12));
+  cairn::PileType box = pipe;
+  box.section = {cairn::SectionShape::square, 0.4};
+  box.structure->wall_thickness = 0.02;
+  CHECK(box.material_area() == Approx(0.4 * 0.4 - 0.36 * 0.36).epsilon(1e-12));
+  CHECK(box.material_inertia() == Approx((std::pow(0.4, 4) - std::pow(0.36, 4)) / 12.0).epsilon(1e-12));
+  // Without a wall (or a wall of half the width or more) the section is solid.
+  cairn::PileType solid = pipe;
+  solid.structure->wall_thickness.reset();
+  CHECK(solid.material_area() == Approx(solid.section.area()).epsilon(1e-15));
+  CHECK(solid.material_inertia() == Approx(cairn::section_inertia(solid.section)).epsilon(1e-15));
+  solid.structure->wall_thickness = 0.5;
+  CHECK(solid.material_area() == Approx(solid.section.area()).epsilon(1e-15));
+}

@@ -18,10 +18,31 @@ double Section::perimeter() const {
   return shape == SectionShape::square ? 4.0 * width : std::numbers::pi * width;
 }
 
+namespace {
+// The inner width of a hollow section (structure.wall_thickness below half the width), else 0.
+double inner_width(const PileType& type) {
+  if (!type.structure || !type.structure->wall_thickness) return 0.0;
+  const double t = *type.structure->wall_thickness;
+  return t > 0.0 && t < 0.5 * type.section.width ? type.section.width - 2.0 * t : 0.0;
+}
+}  // namespace
+
+double PileType::material_area() const {
+  const double b = section.width, bi = inner_width(*this);
+  return section.shape == SectionShape::square ? b * b - bi * bi
+                                               : std::numbers::pi * (b * b - bi * bi) / 4.0;
+}
+
+double PileType::material_inertia() const {
+  const double b4 = std::pow(section.width, 4), bi4 = std::pow(inner_width(*this), 4);
+  return section.shape == SectionShape::square ? (b4 - bi4) / 12.0
+                                               : std::numbers::pi * (b4 - bi4) / 64.0;
+}
+
 double PileType::axial_stiffness_used() const {
   // Default: elastic shortening of the whole pile, E·A/L (a column fixed at the toe).
   if (axial_stiffness) return *axial_stiffness;
-  return elastic_modulus * section.area() / length;
+  return elastic_modulus * material_area() / length;
 }
 
 double PileType::lateral_stiffness_used() const { return lateral_stiffness.value_or(0.0); }

@@ -600,7 +600,8 @@ VesicSettlement shortening(const VesicPile& pile, const WorkingLoadSplit& load) 
   VesicSettlement s;
   s.tip_load = load.tip;
   s.shaft_load = load.shaft;
-  s.shortening = (load.tip + pile.xi * load.shaft) * pile.length / (area(pile) * pile.pile_modulus);
+  const double material = pile.material_area > 0.0 ? pile.material_area : area(pile);
+  s.shortening = (load.tip + pile.xi * load.shaft) * pile.length / (material * pile.pile_modulus);
   s.notes.push_back("ξ = " + number(pile.xi, 2) + " for the distribution of shaft friction");
   return s;
 }

@@ -323,8 +323,8 @@ NonlinearPileSpec nonlinear_pile_spec(const Project& project, std::size_t index,
   spec.head = {pile.x, pile.y, 0.0};
   spec.axis = pile.axis();
   spec.length = type.length;
-  spec.bending_stiffness = type.elastic_modulus * section_inertia(type.section);
-  spec.axial_rigidity = type.elastic_modulus * type.section.area();
+  spec.bending_stiffness = type.elastic_modulus * type.material_inertia();
+  spec.axial_rigidity = type.elastic_modulus * type.material_area();
   spec.width = type.section.width;
   switch (type.head) {
     case HeadFixity::pinned: spec.restraint.kind = HeadRestraint::Kind::pinned; break;

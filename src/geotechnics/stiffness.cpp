@@ -45,7 +45,7 @@ std::optional<Subgrade> subgrade_modulus(const SoilLayer& layer, const PileType&
   if (layer.soil_modulus && type.elastic_modulus > 0) {
     const double es = *layer.soil_modulus;
     const double mu = layer.poisson_ratio.value_or(kDefaultPoisson);
-    const double ei = type.elastic_modulus * section_inertia(type.section);
+    const double ei = type.elastic_modulus * type.material_inertia();
     const double k = kVesicSubgradeFactor * std::pow(es * std::pow(d, 4) / ei, 1.0 / 12.0) * es /
                      (1.0 - mu * mu);
     return Subgrade{k / d, fmt::format("kh = {} from Vesić (1961) with Es of layer '{}'",
@@ -124,6 +124,7 @@ std::optional<VesicPile> vesic_pile(const Project& project, std::size_t t,
   pile.round = type.section.shape == SectionShape::round;
   pile.length = type.length;
   pile.pile_modulus = type.elastic_modulus;
+  pile.material_area = type.material_area();
   const double head = project.cap.depth, tip = head + type.length;
   const double zone = kTipZoneDiameters * pile.width;
   std::vector<std::size_t> lacking;
@@ -195,7 +196,7 @@ std::vector<PileTypeStiffness> pile_type_stiffness(const Project& project,
     if (type.lateral_stiffness) {
       s.lateral = *type.lateral_stiffness;
       s.lateral_source = "given";
-      const double ei = type.elastic_modulus * section_inertia(type.section);
+      const double ei = type.elastic_modulus * type.material_inertia();
       if (type.head != HeadFixity::pinned && ei > 0.0 && s.lateral > 0.0 &&
           type.section.width > 0.0) {
         // k_hh = 4EIλ³ (Hetényi 1946, long pile, head held against rotation).
@@ -222,7 +223,7 @@ std::vector<PileTypeStiffness> pile_type_stiffness(const Project& project,
         const SoilColumn column(*project.soil);
         if (const SoilLayer* top = &column.layer(column.layer_at(project.cap.depth))) {
           if (top->modulus_gradient && *top->modulus_gradient > 0 && type.length > 0) {
-            const double ei = type.elastic_modulus * section_inertia(type.section);
+            const double ei = type.elastic_modulus * type.material_inertia();
             const GradientPile g = gradient_pile(ei, *top->modulus_gradient, type.length);
             const auto& k = g.plane;
             s.lateral = k.k_hh - k.k_hm * k.k_hm / k.k_mm;
@@ -237,7 +238,7 @@ std::vector<PileTypeStiffness> pile_type_stiffness(const Project& project,
                 g.long_pile ? "" : " (L < 5T: finite-difference beam)");
           } else if (auto kh = subgrade_modulus(*top, type, u)) {
             ElasticPile pile;
-            pile.bending_stiffness = type.elastic_modulus * section_inertia(type.section);
+            pile.bending_stiffness = type.elastic_modulus * type.material_inertia();
             pile.subgrade_modulus = kh->kh;
             pile.width = type.section.width;
             pile.embedded_length = type.length;

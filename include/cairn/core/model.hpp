@@ -102,7 +102,15 @@ struct PileType {
   PileDesign design;                        // installation and methods for soil-based capacity
   std::optional<Structure> structure;       // material strength, for the structural check
 
-  // Stiffness without soil: the value given, else E·A/L (axial) and 0 (lateral).
+  // The section's material for the pile's stiffness: with structure.wall_thickness (below half
+  // the width) the wall of a pipe or hollow square, else the solid section. Round:
+  // A = π/4·(D² − d²), I = π/64·(D⁴ − d⁴); square: A = b² − b_i², I = (b⁴ − b_i⁴)/12, with
+  // d = D − 2t and b_i = b − 2t (the gross section stays the one of capacity: a plugged tip).
+  double material_area() const;     // m²
+  double material_inertia() const;  // m⁴, about a centroidal axis (the same for both axes)
+
+  // Stiffness without soil: the value given, else E·A/L (axial, A the material area) and 0
+  // (lateral).
   double axial_stiffness_used() const;    // kN/m
   double lateral_stiffness_used() const;  // kN/m
 };

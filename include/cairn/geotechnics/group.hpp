@@ -240,6 +240,8 @@ struct VesicPile {
   bool round = true;         // Ap = πD²/4 and p = πD; square: D² and 4D
   double length = 0.0;       // L, m, embedded length
   double pile_modulus = 0.0; // Ep, kPa
+  double material_area = 0.0;  // m², of the section's material for the shortening (a pipe's
+                               // wall); 0: the gross area
   double soil_modulus_tip = 0.0;    // Es below the tip, kPa (elastic route only)
   double soil_modulus_shaft = 0.0;  // Es along the shaft, kPa (elastic route only)
   double poisson_ratio = 0.3;       // μs of the soil

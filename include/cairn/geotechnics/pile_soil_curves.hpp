@@ -27,7 +27,8 @@
 // the perimeter, in tension times the layer's uplift factor (default_uplift_factor when it
 // gives none); Q-z with Q_p the ultimate tip resistance of the pile type's tip method
 // (pile_capacity). Both curves are the ultimate ones, without factors.
-// Pile: EI = E·I and EA = E·A of the section (section_inertia, Section::area), the head
+// Pile: EI = E·I and EA = E·A of the section's material (PileType::material_inertia and
+// material_area: a pipe's wall with structure.wall_thickness), the head
 // restraint, torsional stiffness and tension of the pile type.
 //
 // Units: kN, m, kPa, kN/m³.

@@ -66,7 +66,10 @@ void add_governing_profiles(CheckRun& run, const NonlinearCapSolver& solver) {
   }
   if (moment) picks.emplace_back(moment->first, moment->second, "largest moment");
   if (deflection) picks.emplace_back(deflection->first, deflection->second, "largest deflection");
-  for (const auto& [pile, c, why] : picks) {
+  for (const auto& pick : picks) {
+    // Named copies, not structured bindings: clang 14 cannot capture those in a lambda.
+    const std::size_t pile = std::get<0>(pick), c = std::get<1>(pick);
+    const auto& why = std::get<2>(pick);
     const bool seen = std::any_of(nl.profiles.begin(), nl.profiles.end(), [&](const NonlinearProfile& p) {
       return p.pile == pile && p.combination == c;
     });

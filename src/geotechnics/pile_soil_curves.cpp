@@ -46,38 +46,39 @@ double strain_50(const SoilLayer& layer) {
 // γ' may not be 0 in the curves' formulas (a saturated weight at the water's own).
 double positive_weight(double gamma) { return std::max(gamma, 0.1); }
 
+// The curve `py` (its own values set) placed at the site: γ', the width, and p(y) at the
+// site's depth.
+template <typename Curve>
+std::function<double(double)> at_site(Curve py, const CurveSite& site) {
+  py.effective_unit_weight = positive_weight(site.effective_unit_weight);
+  py.width = site.width;
+  const double d = site.depth;
+  return [py, d](double y) { return py.resistance(d, y); };
+}
+
 std::function<double(double)> build_soft_clay(const CurveSite& site) {
   SoftClayPy py;
   py.undrained_strength = *site.layer->undrained_strength;
-  py.effective_unit_weight = positive_weight(site.effective_unit_weight);
-  py.width = site.width;
   py.strain_50 = strain_50(*site.layer);
   py.loading = site.loading;
-  const double d = site.depth;
-  return [py, d](double y) { return py.resistance(d, y); };
+  return at_site(py, site);
 }
 
 std::function<double(double)> build_stiff_clay_dry(const CurveSite& site) {
   StiffClayDryPy py;
   py.undrained_strength = *site.layer->undrained_strength;
-  py.effective_unit_weight = positive_weight(site.effective_unit_weight);
-  py.width = site.width;
   py.strain_50 = strain_50(*site.layer);
   py.cycles = site.loading == PyLoading::cyclic ? std::max(site.cycles, 1.0) : 1.0;
-  const double d = site.depth;
-  return [py, d](double y) { return py.resistance(d, y); };
+  return at_site(py, site);
 }
 
 std::function<double(double)> build_sand_api(const CurveSite& site) {
   SandApiPy py;
   py.friction_angle = *site.layer->friction_angle;
-  py.effective_unit_weight = positive_weight(site.effective_unit_weight);
-  py.width = site.width;
   py.initial_modulus = site.layer->modulus_gradient.value_or(
       default_sand_modulus(*site.layer->friction_angle, site.below_water));
   py.loading = site.loading;
-  const double d = site.depth;
-  return [py, d](double y) { return py.resistance(d, y); };
+  return at_site(py, site);
 }
 
 // Reese, Cox & Koop (1974) sand: k from modulus_gradient, else the paper's table by the same
@@ -86,15 +87,12 @@ std::function<double(double)> build_sand_reese(const CurveSite& site) {
   SandReesePy py;
   const double phi = *site.layer->friction_angle;
   py.friction_angle = phi;
-  py.effective_unit_weight = positive_weight(site.effective_unit_weight);
-  py.width = site.width;
   const SandDensity density =
       phi < 30.0 ? SandDensity::loose : (phi <= 36.0 ? SandDensity::medium : SandDensity::dense);
   py.initial_modulus = site.layer->modulus_gradient.value_or(
       sand_subgrade_modulus(density, site.below_water));
   py.loading = site.loading;
-  const double d = site.depth;
-  return [py, d](double y) { return py.resistance(d, y); };
+  return at_site(py, site);
 }
 
 // Reese, Cox & Koop (1975) stiff clay with free water: the layer's cu taken as uniform (c0 = cu,
@@ -105,14 +103,11 @@ std::function<double(double)> build_stiff_clay_wet(const CurveSite& site) {
   const double cu = *site.layer->undrained_strength;
   py.undrained_strength = cu;
   py.strength_gradient = 0.0;
-  py.effective_unit_weight = positive_weight(site.effective_unit_weight);
-  py.width = site.width;
   py.strain_50 = site.layer->strain_50.value_or(stiff_clay_strain_50(cu));
   py.initial_modulus =
       site.layer->modulus_gradient.value_or(stiff_clay_subgrade_modulus(cu, site.loading));
   py.loading = site.loading;
-  const double d = site.depth;
-  return [py, d](double y) { return py.resistance(d, y); };
+  return at_site(py, site);
 }
 
 const std::vector<LateralCurveInfo> kTable = {

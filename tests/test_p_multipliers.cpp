@@ -108,7 +108,8 @@ TEST_CASE("p-multipliers: a 3×3 group at 3B loaded along +x, −x and at 45°",
       CHECK(pm[3 * i + 0] == exact(0.30));
     }
   }
-  SECTION("at 45°: five diagonal rows, 3B/√2 = 2.12B apart, the table's 3B values held") {
+  SECTION("at 45°: across the anti-diagonals, five rows 3B/√2 = 2.12B apart") {
+    // The rows of one direction (p_multiplier_rows), before the skewed-load rule.
     const auto rows = cairn::p_multiplier_rows(heads, b, std::numbers::pi / 4.0);
     // Projections (x + y)/√2: the corner (+1.8, +1.8) leads alone; then the two next to it.
     CHECK(rows[8].row == 1);
@@ -122,11 +123,20 @@ TEST_CASE("p-multipliers: a 3×3 group at 3B loaded along +x, −x and at 45°",
     CHECK(rows[0].row == 5);
     CHECK(rows[4].spacing_over_width == Approx(3.0 / std::sqrt(2.0)));
     CHECK_FALSE(cairn::p_multiplier_in_table(rows[4].spacing_over_width));
+  }
+  SECTION("at 45°: the mean of the rows along x and along y (the skewed-load rule)") {
+    REQUIRE(cairn::p_multiplier_axis(heads, b) == 0.0);  // the grid's axes are the cap's
     const auto pm = cairn::p_multipliers(heads, b, std::numbers::pi / 4.0, false);
-    CHECK(pm[8] == exact(0.80));
-    CHECK(pm[7] == exact(0.40));
-    CHECK(pm[4] == exact(0.30));
-    CHECK(pm[0] == exact(0.30));
+    // P_m = P_x·cos²45° + P_y·sin²45°, P_x and P_y from the table's 3B column (hand derivation).
+    CHECK(pm[8] == exact(0.80));               // leading both ways
+    CHECK(pm[7] == exact((0.80 + 0.40) / 2));  // x leading, y second
+    CHECK(pm[6] == exact((0.80 + 0.30) / 2));  // x leading, y trailing
+    CHECK(pm[4] == exact(0.40));               // second both ways
+    CHECK(pm[0] == exact(0.30));               // trailing both ways
+    const auto rev = cairn::p_multipliers(heads, b, std::numbers::pi / 4.0, true);
+    CHECK(rev[8] == exact(0.30));              // leading one way, trailing the other, both axes
+    CHECK(rev[7] == exact((0.30 + 0.40) / 2));
+    CHECK(rev[4] == exact(0.40));
   }
   SECTION("reversing along x: each pile the smaller of +x and −x") {
     const auto pm = cairn::p_multipliers(heads, b, 0.0, true);
@@ -164,4 +174,71 @@ TEST_CASE("p-multipliers: a single pile, a single row across the load, rows with
   // Reversing: both rows are leading one way and second the other: 0.625 each.
   for (const double m : cairn::p_multipliers(two, b, 0.0, true)) CHECK(m == exact(0.625));
   CHECK_THROWS_AS(cairn::p_multipliers(two, 0.0, 0.0, false), std::invalid_argument);
+}
+
+TEST_CASE("p-multipliers: a skewed load moves them continuously from one axis to the other",
+          "[p_multipliers]") {
+  // The fault of rows formed across a skewed load: at 39.5° on a 2 × 3 grid every pile stood
+  // in a row of its own, 0.30 each. With the rule of p_multipliers each pile's multiplier is
+  // a weighted mean of its values along the two axes (cairn's rule, docs/methods-nonlinear.md).
+  const double b = 0.762;
+  Heads heads;  // three columns along x at 3.0 m, two rows along y at 3.0 m (3.94B)
+  for (int i = 0; i < 3; ++i)
+    for (int j = 0; j < 2; ++j) heads.push_back({(i - 1) * 3.0, (j - 0.5) * 3.0});
+  REQUIRE(cairn::p_multiplier_axis(heads, b) == 0.0);
+  const double deg = std::numbers::pi / 180.0;
+  for (const bool reversing : {false, true}) {
+    const auto px = cairn::p_multipliers(heads, b, 0.0, reversing);
+    const auto py = cairn::p_multipliers(heads, b, 90.0 * deg, reversing);
+    std::vector<double> last = px;
+    for (int k = 1; k <= 180; ++k) {  // 0° to 90° in steps of half a degree
+      const double theta = 0.5 * k * deg;
+      const auto pm = cairn::p_multipliers(heads, b, theta, reversing);
+      for (std::size_t i = 0; i < heads.size(); ++i) {
+        CAPTURE(reversing, k, i);
+        // Between the two axes' values, and moving by at most (P_x − P_y)·sin 2θ·Δθ per step.
+        CHECK(pm[i] >= std::min(px[i], py[i]) - 1e-12);
+        CHECK(pm[i] <= std::max(px[i], py[i]) + 1e-12);
+        CHECK(std::abs(pm[i] - last[i]) <= std::abs(px[i] - py[i]) * 0.5 * deg + 1e-12);
+        CHECK(pm[i] == exact(px[i] * std::cos(theta) * std::cos(theta) +
+                             py[i] * std::sin(theta) * std::sin(theta)));
+      }
+      last = pm;
+    }
+    for (std::size_t i = 0; i < heads.size(); ++i) CHECK(last[i] == exact(py[i]));
+  }
+  // 39.5°, by direction: the leading corner (x = +3, y = +1.5) leads both ways, 1 × cos² +
+  // 0.9..·sin²; no pile is at the 0.30 the rows across the load gave.
+  const auto pm = cairn::p_multipliers(heads, b, 39.5 * deg, false);
+  for (const double m : pm) CHECK(m > 0.5);
+}
+
+TEST_CASE("p-multipliers: a grid turned in plan keeps its rows", "[p_multipliers]") {
+  const double b = 0.6, pitch = 3.0 * b;
+  const auto square = grid3x3(pitch);
+  const double deg = std::numbers::pi / 180.0;
+  for (const double turn : {20.0 * deg, -35.0 * deg, 45.0 * deg}) {
+    Heads turned;
+    for (const auto& h : square)
+      turned.push_back({h[0] * std::cos(turn) - h[1] * std::sin(turn),
+                        h[0] * std::sin(turn) + h[1] * std::cos(turn)});
+    double expected = std::fmod(turn, std::numbers::pi / 2.0);
+    if (expected < 0.0) expected += std::numbers::pi / 2.0;
+    CAPTURE(turn);
+    CHECK(cairn::p_multiplier_axis(turned, b) == Approx(expected).margin(1e-9));
+    // The turned group under the turned load = the square group under the load (frame
+    // invariance, common practice), along its axes and between them.
+    for (const double theta : {0.0, 30.0 * deg, 90.0 * deg, 200.0 * deg})
+      for (const bool reversing : {false, true}) {
+        const auto a = cairn::p_multipliers(square, b, theta, reversing);
+        const auto t = cairn::p_multipliers(turned, b, theta + turn, reversing);
+        for (std::size_t i = 0; i < a.size(); ++i) CHECK(t[i] == Approx(a[i]).margin(1e-9));
+      }
+  }
+  // Two piles at one point and a line of piles: no failure, the line's own axis.
+  CHECK(cairn::p_multiplier_axis({{0.0, 0.0}, {0.0, 0.0}}, b) == 0.0);
+  CHECK(cairn::p_multiplier_axis({{0.0, 0.0}, {1.0, 1.0}, {2.0, 2.0}}, b) ==
+        Approx(std::numbers::pi / 4.0));
+  CHECK_THROWS_AS(cairn::p_multiplier_axis({{0.0, 0.0}, {1.0, std::nan("")}}, b),
+                  std::invalid_argument);
 }

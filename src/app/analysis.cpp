@@ -3,6 +3,7 @@
 #include <algorithm>
 #include <atomic>
 #include <mutex>
+#include <numbers>
 #include <stdexcept>
 #include <thread>
 #include <tuple>
@@ -92,19 +93,28 @@ std::vector<std::string> nonlinear_assumptions(const Project& project, const Non
     if (!run.curves[t].empty())
       notes.push_back(fmt::format("Curves of pile type '{}': {}.", project.pile_types[t].id,
                                   run.curves[t]));
+  const double axis_deg = run.multiplier_axis * 180.0 / std::numbers::pi;
+  const std::string axes =
+      run.multiplier_axis == 0.0
+          ? std::string("the group's plan axes x and y")
+          : fmt::format("the group's plan axes at {:.1f}° and {:.1f}° from +x", axis_deg,
+                        axis_deg + 90.0);
   switch (run.rule) {
     case GroupMultipliers::by_direction:
-      notes.push_back(
-          "p-multipliers: AASHTO LRFD Table 10.7.2.4-1 by row and spacing, rows across the "
-          "direction of each combination's horizontal resultant, the leading row the one "
-          "farthest along it (analysis.p_multipliers: by_direction).");
+      notes.push_back(fmt::format(
+          "p-multipliers: AASHTO LRFD Table 10.7.2.4-1 by row and spacing, rows along {}, the "
+          "leading row the one farthest along the horizontal resultant's component; a "
+          "resultant at ψ from the first axis gives each pile P_a·cos²ψ + P_b·sin²ψ of its "
+          "multipliers along the two axes (analysis.p_multipliers: by_direction).",
+          axes));
       break;
     case GroupMultipliers::reversing:
-      notes.push_back(
-          "p-multipliers: AASHTO LRFD Table 10.7.2.4-1 by row and spacing, each pile the "
-          "smaller of its multipliers for the direction of each combination's horizontal "
-          "resultant and the opposite one, for loads that reverse (analysis.p_multipliers: "
-          "reversing).");
+      notes.push_back(fmt::format(
+          "p-multipliers: AASHTO LRFD Table 10.7.2.4-1 by row and spacing, rows along {}, "
+          "each pile the smaller of its multipliers for the two opposite directions along "
+          "each axis, for loads that reverse; a resultant at ψ from the first axis gives "
+          "P_a·cos²ψ + P_b·sin²ψ of those (analysis.p_multipliers: reversing).",
+          axes));
       break;
     case GroupMultipliers::none:
       notes.push_back("p-multipliers: none; every pile's p-y curves as for a single pile "

@@ -115,6 +115,7 @@ json report_detail::nonlinear_json(const CheckReport& r) {
   }
   json doc = {{"soil_response", "nonlinear"},
               {"p_multipliers", to_string(run.rule)},
+              {"p_multiplier_axis", run.multiplier_axis * 180.0 / std::numbers::pi},
               {"curves", curves},
               {"combinations", combos}};
   if (run.pushover) {

@@ -2,6 +2,7 @@
 
 #include <algorithm>
 #include <cmath>
+#include <utility>
 
 #include "cairn/geotechnics/p_multipliers.hpp"
 #include "cairn/geotechnics/pile_soil_curves.hpp"
@@ -19,6 +20,28 @@ NonlinearGroup project_nonlinear_group(const Project& project) {
   return group;
 }
 
+namespace {
+
+// The plan positions of the project's pile heads and the widest pile section: what the rows
+// of the p-multipliers are formed from.
+std::pair<std::vector<std::array<double, 2>>, double> row_geometry(const Project& project) {
+  std::vector<std::array<double, 2>> heads;
+  double width = 0.0;
+  for (const Pile& pile : project.piles) {
+    heads.push_back({pile.x, pile.y});
+    width = std::max(width, project.pile_types.at(pile.type).section.width);
+  }
+  return {std::move(heads), width};
+}
+
+}  // namespace
+
+double project_multiplier_axis(const Project& project) {
+  if (project.piles.size() < 2) return 0.0;
+  const auto geometry = row_geometry(project);
+  return p_multiplier_axis(geometry.first, geometry.second);
+}
+
 std::vector<double> combination_multipliers(const Project& project, const Wrench& load,
                                             GroupMultipliers rule,
                                             std::optional<double>* direction) {
@@ -27,13 +50,8 @@ std::vector<double> combination_multipliers(const Project& project, const Wrench
   const bool pushed = horizontal > 0.0 && horizontal > 1e-9 * std::abs(load[2]);
   if (direction) *direction = pushed ? std::optional<double>(std::atan2(load[1], load[0])) : std::nullopt;
   if (rule == GroupMultipliers::none || !pushed || n < 2) return std::vector<double>(n, 1.0);
-  std::vector<std::array<double, 2>> heads;
-  double width = 0.0;
-  for (const Pile& pile : project.piles) {
-    heads.push_back({pile.x, pile.y});
-    width = std::max(width, project.pile_types.at(pile.type).section.width);
-  }
-  return p_multipliers(heads, width, std::atan2(load[1], load[0]),
+  const auto geometry = row_geometry(project);
+  return p_multipliers(geometry.first, geometry.second, std::atan2(load[1], load[0]),
                        rule == GroupMultipliers::reversing);
 }
 
@@ -41,6 +59,7 @@ void solve_nonlinear_combinations(const Project& project, const NonlinearCapSolv
                                   GroupMultipliers rule, NonlinearRun& run,
                                   const std::function<void(std::size_t, CapSolution&&)>& each) {
   run.rule = rule;
+  run.multiplier_axis = project_multiplier_axis(project);
   run.combinations.assign(project.combinations.size(), NonlinearCombination{});
   for (std::size_t c = 0; c < project.combinations.size(); ++c) {
     const Combination& combo = project.combinations[c];

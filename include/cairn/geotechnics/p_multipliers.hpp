@@ -17,16 +17,30 @@
 //  - beyond 5B each row's straight line is continued until it reaches 1 (row 1 at 5B, row 2
 //    at 5.67B, rows 3+ at 6.5B) and is 1 after, so that P_m never jumps as spacing grows.
 //
-// Rows (the rule of p_multipliers): piles whose plan positions projected on the direction of
-// loading lie within half a pile width of the row's foremost pile form one row, across the
-// load. The leading row is the one farthest in the direction of loading (the side the load
-// pushes the group toward: its piles push into soil no other pile has disturbed); rows are
-// counted 1, 2, 3, ... from there backward. The spacing of a row is the distance along the
-// direction of loading between the mean projections of that row and the row ahead of it (for
-// the leading row: the row behind it), in widths; a group of one row has no row ahead or
-// behind and every pile gets 1. For a skewed load the direction is that of the resultant
-// horizontal load on the cap; for loads that reverse (cyclic or two-way), each pile takes the
-// smaller of its multipliers for the two opposite directions.
+// Rows (the rule of p_multiplier_rows): piles whose plan positions projected on a direction
+// lie within half a pile width of the row's foremost pile form one row, across that
+// direction. The leading row is the one farthest in the direction (the side the load pushes
+// the group toward: its piles push into soil no other pile has disturbed); rows are counted
+// 1, 2, 3, ... from there backward. The spacing of a row is the distance along the direction
+// between the mean projections of that row and the row ahead of it (for the leading row: the
+// row behind it), in widths; a group of one row has no row ahead or behind and every pile
+// gets 1.
+//
+// Skewed loads (the rule of p_multipliers; cairn's, stated in docs/methods-nonlinear.md): the
+// table is for a load along the rows of a group. Rows formed across an arbitrary direction
+// fall apart in a grid loaded at an odd angle (every pile its own "row", a fraction of a width
+// behind the next, the multipliers jumping with the angle), so the rows are formed along the
+// group's own two plan axes, at α and α + 90° (p_multiplier_axis: the pair of perpendicular
+// directions along which the rows gather the most piles, the cap's x and y when they do as
+// well as any), and for a load at ψ from the first axis each pile takes
+//     P_m = P_a·cos²ψ + P_b·sin²ψ,
+// P_a and P_b its multipliers for loads along the two axes, each toward the side the load's
+// component along that axis pushes. Along an axis this is the table's value exactly; between
+// them it moves continuously with the angle, and it is never above the larger of the two
+// (at 45° on a square grid it is their mean; the diagonal lanes, whose piles stand √2 times
+// farther apart, would give more). For loads that reverse (cyclic or two-way), P_a and P_b are
+// each the smaller of the two opposite directions along their axis, so every pile takes the
+// smaller of its multipliers for the load's direction and the opposite one.
 //
 // Units: m, radians.
 #pragma once
@@ -49,17 +63,27 @@ double p_multiplier_row(int row, double spacing_over_width);
 // p_multiplier_row holds the 3B values, which the table does not support.
 bool p_multiplier_in_table(double spacing_over_width);
 
+// The first plan axis α ∈ [0, 90°) of the group (radians from +x, counter-clockwise): of the
+// directions from each pile to its nearest neighbours (and the cap's x axis), the one along
+// which, with its perpendicular, the rows of p_multiplier_rows are fewest; ties go to the
+// direction nearest the cap's axes. 0 for fewer than two piles. Requires width > 0 and finite
+// positions; throws std::invalid_argument otherwise.
+double p_multiplier_axis(const std::vector<std::array<double, 2>>& heads, double width);
+
 // One p-multiplier per pile head (plan positions, m) for a lateral load in the plan direction
-// `direction` (radians from +x, counter-clockwise), piles of width `width` (m). Rows are
-// formed across the direction of loading (the rule above); `reversing`: the smaller of the
-// two directions. A single pile, a single row across the load, or rows farther apart than
-// the lines above reach 1, get 1. Requires width > 0 and finite positions and direction;
-// throws std::invalid_argument otherwise.
+// `direction` (radians from +x, counter-clockwise), piles of width `width` (m), by the skewed
+// load rule above with the group's axis `axis` (p_multiplier_axis); `reversing`: the smaller
+// of the two opposite directions. A single pile, a single row across the load, or rows
+// farther apart than the lines above reach 1, get 1. Requires width > 0 and finite positions,
+// direction and axis; throws std::invalid_argument otherwise.
+std::vector<double> p_multipliers(const std::vector<std::array<double, 2>>& heads, double width,
+                                  double direction, double axis, bool reversing);
+// The same with the group's own axis (p_multiplier_axis).
 std::vector<double> p_multipliers(const std::vector<std::array<double, 2>>& heads, double width,
                                   double direction, bool reversing);
 
-// The same for each pile, with the row number (1: leading) and the row's spacing in widths
-// used (0 for a group of one row), for the report.
+// The rows across one direction (the rule above): each pile's row number (1: leading), its
+// row's spacing in widths (0 for a group of one row) and the table's multiplier for them.
 struct PMultiplierRow {
   int row = 1;
   double spacing_over_width = 0.0;

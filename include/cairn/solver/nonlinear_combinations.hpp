@@ -45,6 +45,9 @@ struct NonlinearProfile {
 // Everything a nonlinear run adds to the check, for the outputs.
 struct NonlinearRun {
   GroupMultipliers rule = GroupMultipliers::by_direction;
+  // The group's first plan axis for the rows of the p-multipliers, radians from +x
+  // (p_multiplier_axis; the second is 90° from it).
+  double multiplier_axis = 0.0;
   std::vector<std::string> curves;   // per pile type: PileCurves::description (empty: unused)
   std::vector<NonlinearCombination> combinations;  // as Project::combinations
   std::optional<PushoverCurve> pushover;
@@ -63,6 +66,10 @@ PileProfile pile_profile_at(const NonlinearCapSolver& solver, std::size_t pile,
 // the order of Project::piles, named by their ids. Throws InputError naming every layer or
 // pile type that cannot give them (require_nonlinear_soil).
 NonlinearGroup project_nonlinear_group(const Project& project);
+
+// The first plan axis of the project's pile group for the rows of the p-multipliers, radians
+// from +x (p_multiplier_axis over the pile heads and the widest section; 0 for one pile).
+double project_multiplier_axis(const Project& project);
 
 // The p-multipliers of the project's piles for a load (about any point: only its horizontal
 // force counts) under `rule`; `direction` receives the plan direction of the horizontal

@@ -236,3 +236,34 @@ TEST_CASE("nonlinear as built: a pile model given by the caller refuses stiffnes
   adjust.stiffness_factor = {0.5};
   CHECK_THROWS_AS(cairn::analyse(cairn::read_project(file), adjust, options), std::logic_error);
 }
+
+TEST_CASE("as built on linear springs: a held head keeps the share f of its whole head "
+          "stiffness",
+          "[nonlinear_as_built]") {
+  // The linear counterpart of the rule: a damaged pile's springs × f, the coupling and
+  // rotational terms of fixed and partially fixed heads with them. With the same f on every
+  // pile the cap's stiffness is f·K, so the pile forces are those of the sound cap and its
+  // movement 1/f of it (hand derivation: (f·K)·(U/f) = F). f = 0.4 < 1/2: scaling the lateral
+  // term alone would leave a fixed head's Hetényi matrix indefinite (K_ll·K_rr < K_lr², with
+  // K_ll = 4EIλ³, K_lr = −2EIλ², K_rr = 2EIλ; Hetényi 1946, from memory).
+  const std::string file = kData + "/bending/fixed_heads.yaml";
+  const cairn::CheckRun sound = cairn::analyse_project(file);
+  const double f = 0.4;
+  cairn::TypeAdjustments adjust;
+  adjust.stiffness_factor.assign(sound.project.pile_types.size(), f);
+  const cairn::CheckRun damaged = cairn::analyse(cairn::read_project(file), adjust);
+  for (std::size_t c = 0; c < sound.results.combinations.size(); ++c) {
+    const auto& a = sound.results.combinations[c];
+    const auto& b = damaged.results.combinations[c];
+    for (std::size_t i = 0; i < a.piles.size(); ++i) {
+      CAPTURE(c, i);
+      CHECK(b.piles[i].axial == close(a.piles[i].axial, 1e-9, 1e-9));
+      CHECK(b.piles[i].lateral == close(a.piles[i].lateral, 1e-9, 1e-9));
+      CHECK(b.piles[i].head_moment == close(a.piles[i].head_moment, 1e-9, 1e-9));
+      CHECK(b.piles[i].max_moment == close(a.piles[i].max_moment, 1e-9, 1e-9));
+    }
+    for (std::size_t j = 0; j < 3; ++j)
+      CHECK(b.solution.movement.translation[j] ==
+            close(a.solution.movement.translation[j] / f, 1e-9, 1e-12));
+  }
+}

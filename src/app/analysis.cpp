@@ -127,9 +127,18 @@ CheckRun analyse(Project project_in, const TypeAdjustments& adjust,
     run.capacities = compute_capacities(project);
   }
   run.stiffness = pile_type_stiffness(project, run.capacities);
+  // The whole head stiffness of a damaged pile × f: its axial and lateral springs and, for a
+  // held head, the coupling, rotational and torsional terms with them (the lateral term alone
+  // × f < 1/2 would leave a fixed head's Hetényi matrix indefinite: K_ll·K_rr < K_lr²). The
+  // moment along the pile per head shear and moment is that of the pile scaled as a whole:
+  // unchanged.
   for (std::size_t t = 0; t < adjust.stiffness_factor.size() && t < run.stiffness.size(); ++t) {
-    run.stiffness[t].axial *= adjust.stiffness_factor[t];
-    run.stiffness[t].lateral *= adjust.stiffness_factor[t];
+    const double f = adjust.stiffness_factor[t];
+    run.stiffness[t].axial *= f;
+    run.stiffness[t].lateral *= f;
+    run.stiffness[t].bending.coupling *= f;
+    run.stiffness[t].bending.rotational *= f;
+    run.stiffness[t].bending.torsional *= f;
   }
   const CapSolver solver(pile_springs(project, run.stiffness));
   run.cap_stiffness = solver.stiffness_about({0.0, 0.0, 0.0});

@@ -47,7 +47,8 @@ soil:
   layers:
     - {name: clay, kind: clay, thickness: 40, unit_weight: 18, undrained_strength: 50, lateral_curve: soft_clay}
 pile_types:
-)" + types + R"(piles:
+)" + types +
+         R"(piles:
   - {id: A1, x: -0.9, y: -0.9, type: P}
   - {id: A2, x: 0.9, y: -0.9, type: P}
   - {id: B1, x: -0.9, y: 0.9, type: P}
@@ -56,7 +57,8 @@ load_cases:
   D: {kind: dead, loads: [{at: [0.3, 0.2, 0.0], Fx: 120, Fy: -50, Fz: -1200}]}
 combinations:
   S1: {limit_state: service, factors: {D: 1.0}}
-analysis: {)" + analysis + R"(}
+analysis: {)" +
+         analysis + R"(}
 )";
 }
 
@@ -65,9 +67,9 @@ analysis: {)" + analysis + R"(}
 // soil's moment about the head vanishes, ∫k(y₀ + θz)z dz = 0 → θ = −3y₀/(2L), and the head
 // force is H = ∫k(y₀ + θz)dz = k·L·y₀/4; axially a rigid bar on a tip spring k_Q. Both are
 // proportional to the soil's modulus, so soil × f is head stiffness × f exactly.
-constexpr double kSoil = 1.2e5;     // k = kh·b, kN/m² (kh = 2e5 kN/m³, b = 0.6 m)
-constexpr double kLength = 5.0;     // m
-constexpr double kTip = 4.0e5;      // k_Q, kN/m
+constexpr double kSoil = 1.2e5;  // k = kh·b, kN/m² (kh = 2e5 kN/m³, b = 0.6 m)
+constexpr double kLength = 5.0;  // m
+constexpr double kTip = 4.0e5;   // k_Q, kN/m
 constexpr double kLateral = kSoil * kLength / 4.0;  // 1.5e5 kN/m
 
 void rigid_on_linear_curves(cairn::NonlinearPileSpec& s) {
@@ -127,13 +129,15 @@ TEST_CASE("nonlinear as built: stiffness and capacity factors of 1 change nothin
   CHECK(adjusted.nonlinear->curves == plain.nonlinear->curves);
 }
 
-TEST_CASE("nonlinear as built: a damaged pile on linear curves equals the linear check with "
-          "its springs times the factor",
-          "[nonlinear_as_built]") {
+TEST_CASE(
+    "nonlinear as built: a damaged pile on linear curves equals the linear check with "
+    "its springs times the factor",
+    "[nonlinear_as_built]") {
   // The linear check takes the rigid piles' head springs (kL/4 laterally, k_Q axially, hand
   // derivation above) typed in; the nonlinear one the same piles as beam-columns on the
   // curves. Pile B2 (type Q) keeps 0.5 of its stiffness and 0.8 of its capacity in both.
-  const std::string springs = fmt::format("axial_stiffness: {}\n    lateral_stiffness: {}", kTip, kLateral);
+  const std::string springs =
+      fmt::format("axial_stiffness: {}\n    lateral_stiffness: {}", kTip, kLateral);
   const std::string linear_path = cairn::test::write_project_file(
       group_text(springs, "soil_response: linear"), "nl-as-built-linear");
   const std::string nonlinear_path = cairn::test::write_project_file(
@@ -162,7 +166,8 @@ TEST_CASE("nonlinear as built: a damaged pile on linear curves equals the linear
       CHECK(row(nonlinear, i).utilization == close(row(linear, i).utilization, 2e-3, 1e-6));
     }
     if (is_damaged)
-      CHECK(cairn::test::has(nonlinear.nonlinear->curves.at(1), "× 0.5 (as built: stiffness_factor)"));
+      CHECK(cairn::test::has(nonlinear.nonlinear->curves.at(1),
+                             "× 0.5 (as built: stiffness_factor)"));
   }
   // And the damage matters: B2 sheds load to the others. Under a centric load alone a
   // square of four springs with one halved gives that pile P/5 instead of P/4 (hand
@@ -170,14 +175,16 @@ TEST_CASE("nonlinear as built: a damaged pile on linear curves equals the linear
   // 0.8 of its share; this load is eccentric and lateral too, so the test asks for less
   // than 0.9 of it.
   const cairn::CheckRun sound = cairn::analyse(cairn::read_project(nonlinear_path), {}, options);
-  const cairn::CheckRun weak = cairn::analyse(cairn::read_project(nonlinear_path), damaged, options);
+  const cairn::CheckRun weak =
+      cairn::analyse(cairn::read_project(nonlinear_path), damaged, options);
   CHECK(row(weak, 3).axial < 0.9 * row(sound, 3).axial);
   CHECK(row(weak, 3).lateral < 0.9 * row(sound, 3).lateral);
 }
 
-TEST_CASE("nonlinear as built: a damaged pile of a symmetric group takes less load, through "
-          "the survey",
-          "[nonlinear_as_built]") {
+TEST_CASE(
+    "nonlinear as built: a damaged pile of a symmetric group takes less load, through "
+    "the survey",
+    "[nonlinear_as_built]") {
   // The six-pile cap on soft clay over sand (its own curves from the file), wind along x: A2
   // (0, −0.8) and B2 (0, 0.8) are mirror images about the load's line, so as designed they
   // carry the same (symmetry, common practice). The survey damages B2 (stiffness 0.5,
@@ -237,9 +244,10 @@ TEST_CASE("nonlinear as built: a pile model given by the caller refuses stiffnes
   CHECK_THROWS_AS(cairn::analyse(cairn::read_project(file), adjust, options), std::logic_error);
 }
 
-TEST_CASE("as built on linear springs: a held head keeps the share f of its whole head "
-          "stiffness",
-          "[nonlinear_as_built]") {
+TEST_CASE(
+    "as built on linear springs: a held head keeps the share f of its whole head "
+    "stiffness",
+    "[nonlinear_as_built]") {
   // The linear counterpart of the rule: a damaged pile's springs × f, the coupling and
   // rotational terms of fixed and partially fixed heads with them. With the same f on every
   // pile the cap's stiffness is f·K, so the pile forces are those of the sound cap and its

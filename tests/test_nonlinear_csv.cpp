@@ -32,7 +32,8 @@ std::vector<std::string> cells_of(const std::string& line) {
 }
 
 // A CSV table as rows of header → cell, from the header line that starts with `first`.
-std::vector<std::map<std::string, std::string>> rows_after(std::istream& in, const std::string& first) {
+std::vector<std::map<std::string, std::string>> rows_after(std::istream& in,
+                                                           const std::string& first) {
   std::vector<std::map<std::string, std::string>> rows;
   std::string line;
   while (std::getline(in, line))

@@ -175,14 +175,16 @@ CheckRun analyse(Project project_in, const TypeAdjustments& adjust,
   if (nonlinear) {
     // A damaged pile keeps the share stiffness_factor of its soil's resistance at every
     // movement (docs/methods-nonlinear.md §7), as its springs in a linear run.
-    const bool factored = std::any_of(adjust.stiffness_factor.begin(), adjust.stiffness_factor.end(),
-                                      [](double f) { return f != 1.0; });
+    const bool factored =
+        std::any_of(adjust.stiffness_factor.begin(), adjust.stiffness_factor.end(),
+                    [](double f) { return f != 1.0; });
     if (options.nonlinear_piles && factored)
-      throw std::logic_error("analyse: a pile model given by the caller cannot take stiffness factors");
-    NonlinearGroup group =
-        options.nonlinear_piles
-            ? options.nonlinear_piles(project)
-            : project_nonlinear_group(project, adjust.stiffness_factor, options.nonlinear_pile_change);
+      throw std::logic_error(
+          "analyse: a pile model given by the caller cannot take stiffness factors");
+    NonlinearGroup group = options.nonlinear_piles
+                               ? options.nonlinear_piles(project)
+                               : project_nonlinear_group(project, adjust.stiffness_factor,
+                                                         options.nonlinear_pile_change);
     run.nonlinear.emplace();
     run.nonlinear->curves.assign(project.pile_types.size(), std::string());
     for (std::size_t i = 0; i < project.piles.size() && i < group.curves.size(); ++i)

@@ -93,7 +93,8 @@ Table report_detail::with_nonlinear_columns(const CheckReport& r, const Combinat
                                             Table t) {
   if (!r.nonlinear) return t;
   const auto at = std::find(t.headers.begin(), t.headers.end(), "utilization");
-  if (at == t.headers.end()) throw std::logic_error("with_nonlinear_columns: no utilization column");
+  if (at == t.headers.end())
+    throw std::logic_error("with_nonlinear_columns: no utilization column");
   const auto column = static_cast<std::size_t>(at - t.headers.begin());
   // Fixed heads: the table has the largest moment and its depth already.
   const bool with_moment = !any_fixed_head(r);

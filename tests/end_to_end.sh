@@ -910,5 +910,77 @@ expect_status "report --soil-response nonlinear" 0 report "$work/no-analysis.yam
 if grep -q 'id="nonlinear"' "$work"/nl-package/*.html; then ok; else bad "report --soil-response nonlinear: no nonlinear section"; fi
 expect_status "report, linear by default" 0 report "$work/no-analysis.yaml" --out "$work/lin-package"
 if grep -q 'id="nonlinear"' "$work"/lin-package/*.html; then bad "report without --soil-response: a nonlinear section"; else ok; fi
+# ---- nonlinear runs: CSV columns and the as-built survey's factors ------------------------
+nl="$data/nonlinear"
+# The CSV of a nonlinear run (--format csv at full detail, results.csv under --out) carries each
+# pile's largest moment, its depth, head deflection and p-multiplier, equal to the JSON's.
+expect_status "nonlinear CSV: JSON" 0 check "$nl/lateral_si.yaml" --format json
+cp "$work/out" "$work/nl-csv.json"
+expect_status "nonlinear CSV: --format csv and --out" 0 check "$nl/lateral_si.yaml" --format csv --out "$work/nl-csv-out"
+cp "$work/out" "$work/nl-full.csv"
+if python3 - "$work/nl-csv.json" "$work/nl-full.csv" "$work/nl-csv-out/results.csv" <<'PY' 2>"$work/err"; then ok; else bad "nonlinear CSV: values differ from the JSON"; fi
+import csv, json, sys
+doc = json.load(open(sys.argv[1]))
+want = {}
+for c in doc["combinations"]:
+    for p in c["piles"]:
+        want[(c["id"], p["id"])] = p
+def close(text, value):
+    decimals = len(text.split(".")[1]) if "." in text else 0
+    return abs(float(text) - value) <= 0.5 * 10 ** -decimals + 1e-12
+def check(row, combination):
+    p = want[(combination, row["pile"])]
+    assert close(row["largest moment (kN·m)"], p["max_moment"]), (combination, row)
+    assert close(row["at depth (m)"], p["max_moment_depth"]), (combination, row)
+    assert close(row["head deflection (mm)"], p["head_deflection"]), (combination, row)
+    assert close(row["p-multiplier"], p["p_multiplier"]), (combination, row)
+seen = 0
+for row in csv.DictReader(l for l in open(sys.argv[3], encoding="utf-8") if not l.startswith("#")):
+    check(row, row["combination"])
+    seen += 1
+assert seen == len(want), (seen, len(want))
+# The full CSV: a table per combination, headed "# Combination <id> (...".
+lines = open(sys.argv[2], encoding="utf-8").read().split("\n")
+seen = 0
+for i, line in enumerate(lines):
+    if line.startswith("# Combination "):
+        combination = line.split()[2]
+        block = []
+        for l in lines[i + 1:]:
+            if not l:
+                break
+            block.append(l)
+        for row in csv.DictReader(block):
+            check(row, combination)
+            seen += 1
+assert seen == len(want), (seen, len(want))
+PY
+# A linear run's CSV has no such columns (the same project on linear springs).
+expect_status "linear CSV: no nonlinear columns" 0 check "$nl/lateral_si.yaml" --format csv --soil-response linear --out "$work/lin-csv-out"
+if grep -q 'head deflection\|p-multiplier' "$work/out" "$work/lin-csv-out/results.csv"; then bad "linear CSV: nonlinear columns"; else ok; fi
+# The as-built survey on a nonlinear project: the damaged pile's curves are scaled and it
+# carries less than its mirror image A2 (symmetric about the wind's line), on nonlinear soil as
+# on linear springs; the run says so.
+mkdir -p "$work/nl-site"
+cp "$nl/lateral_si.yaml" "$work/nl-site/cap.yaml"
+printf 'pile,x,y,status,stiffness_factor,capacity_factor\nA1,-1.6,-0.8,accepted,,\nA2,0.0,-0.8,accepted,,\nA3,1.6,-0.8,accepted,,\nB1,-1.6,0.8,accepted,,\nB2,0.0,0.8,damaged,0.5,0.7\nB3,1.6,0.8,accepted,,\n' >"$work/nl-site/survey.csv"
+for response in nonlinear linear; do
+  expect_status "as built, $response" 0 check "$work/nl-site/cap.yaml" --as-built "$work/nl-site/survey.csv" --format json --soil-response "$response"
+  if python3 -c '
+import json, sys
+doc = json.load(sys.stdin)
+for c in doc["combinations"]:
+    piles = {p["id"]: p for p in c["piles"]}
+    a2, b2 = piles["A2"], piles["B2"]
+    assert abs(a2["design_axial"] - b2["design_axial"]) < 0.1, c
+    assert b2["axial"] < 0.9 * a2["axial"], c
+' <"$work/out" 2>"$work/err"; then ok; else bad "as built, $response: the damaged pile does not shed load"; fi
+done
+expect_status "as built, nonlinear: text" 0 check "$work/nl-site/cap.yaml" --as-built "$work/nl-site/survey.csv"
+expect_in "as built, nonlinear: the scaled curves named" "$work/out" "p, t and Q × 0.5 (as built: stiffness_factor)"
+expect_in "as built, nonlinear: the mode" "$work/out" "Soil response: nonlinear."
+# The site studies work on the linear springs and say so for a nonlinear project.
+expect_status "pile-loss on a nonlinear project" 0 pile-loss "$work/nl-site/cap.yaml"
+expect_in "pile-loss on a nonlinear project: the warning" "$work/err" "pile-loss studies the cap on its linear springs"
 echo "$passed passed, $failed failed"
 [ "$failed" -eq 0 ]

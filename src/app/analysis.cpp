@@ -137,9 +137,18 @@ CheckRun analyse(Project project_in, const TypeAdjustments& adjust,
     run.capacities = compute_capacities(project);
   }
   run.stiffness = pile_type_stiffness(project, run.capacities);
+  // The whole head stiffness of a damaged pile × f: its axial and lateral springs and, for a
+  // held head, the coupling, rotational and torsional terms with them (the lateral term alone
+  // × f < 1/2 would leave a fixed head's Hetényi matrix indefinite: K_ll·K_rr < K_lr²). The
+  // moment along the pile per head shear and moment is that of the pile scaled as a whole:
+  // unchanged.
   for (std::size_t t = 0; t < adjust.stiffness_factor.size() && t < run.stiffness.size(); ++t) {
-    run.stiffness[t].axial *= adjust.stiffness_factor[t];
-    run.stiffness[t].lateral *= adjust.stiffness_factor[t];
+    const double f = adjust.stiffness_factor[t];
+    run.stiffness[t].axial *= f;
+    run.stiffness[t].lateral *= f;
+    run.stiffness[t].bending.coupling *= f;
+    run.stiffness[t].bending.rotational *= f;
+    run.stiffness[t].bending.torsional *= f;
   }
   const CapSolver solver(pile_springs(project, run.stiffness));
   run.cap_stiffness = solver.stiffness_about({0.0, 0.0, 0.0});
@@ -174,8 +183,18 @@ CheckRun analyse(Project project_in, const TypeAdjustments& adjust,
   std::vector<CapSolution> solutions;
   std::optional<NonlinearCapSolver> nonlinear_solver;
   if (nonlinear) {
-    NonlinearGroup group = options.nonlinear_piles ? options.nonlinear_piles(project)
-                                                   : project_nonlinear_group(project);
+    // A damaged pile keeps the share stiffness_factor of its soil's resistance at every
+    // movement (docs/methods-nonlinear.md §7), as its springs in a linear run.
+    const bool factored =
+        std::any_of(adjust.stiffness_factor.begin(), adjust.stiffness_factor.end(),
+                    [](double f) { return f != 1.0; });
+    if (options.nonlinear_piles && factored)
+      throw std::logic_error(
+          "analyse: a pile model given by the caller cannot take stiffness factors");
+    NonlinearGroup group = options.nonlinear_piles
+                               ? options.nonlinear_piles(project)
+                               : project_nonlinear_group(project, adjust.stiffness_factor,
+                                                         options.nonlinear_pile_change);
     run.nonlinear.emplace();
     run.nonlinear->curves.assign(project.pile_types.size(), std::string());
     for (std::size_t i = 0; i < project.piles.size() && i < group.curves.size(); ++i)

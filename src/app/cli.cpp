@@ -318,7 +318,9 @@ int run_report(const Options& options, std::ostream& out, std::ostream& err) {
   if (options.as_built) {
     request.extra_inputs.push_back({*options.as_built, "pile survey"});
     for (auto& o : outcomes) {
-      const auto site = as_built_run(std::move(*o.run), *options.as_built, options);
+      const auto site = as_built_run(
+          std::move(*o.run), *options.as_built, options,
+          AnalysisOptions{.depth_tables = true, .soil_response = options.soil_response});
       request.extra_sections.push_back({as_built_section_html(site->report(request.command))});
       request.pass_override.push_back(site->comparison.verdict != SiteVerdict::remedial);
       o.run = std::move(site->as_built);  // the section above is already rendered

@@ -30,7 +30,7 @@ AsBuiltReport AsBuiltRun::report(const std::string& options) const {
 }
 
 std::unique_ptr<AsBuiltRun> as_built_run(CheckRun design, const std::string& survey_path,
-                                         const Options& options) {
+                                         const Options& options, const AnalysisOptions& analysis) {
   auto run = std::make_unique<AsBuiltRun>();
   run->design = std::move(design);
   const Project& project = run->design.project;
@@ -55,7 +55,7 @@ std::unique_ptr<AsBuiltRun> as_built_run(CheckRun design, const std::string& sur
   const std::string cap = std::filesystem::path(project.file).stem().string();
   run->model = build_as_built(project, survey, cap, tolerances);
   try {
-    run->as_built = analyse(run->model.project, run->model.adjust);
+    run->as_built = analyse(run->model.project, run->model.adjust, analysis);
   } catch (const InputError& e) {
     // The as-built cap cannot be analysed (a load no remaining pile resists, say): say so.
     std::vector<Diagnostic> problems = e.diagnostics();
@@ -72,10 +72,13 @@ int run_as_built_check(const Options& options, const std::string& described, std
   for (const auto& f : options.files)
     for (const auto& cap : expand_foundation(f)) files.push_back(cap);
   std::vector<std::unique_ptr<AsBuiltRun>> runs;
+  // The design and the as-built cap on the same soil response (--soil-response over the
+  // project's analysis.soil_response).
+  const AnalysisOptions analysis{.soil_response = options.soil_response};
   for (const auto& file : files) {
-    CheckRun design = analyse_project(file);
+    CheckRun design = analyse_project(file, analysis);
     for (const auto& w : design.project.warnings) err << "cairn: " << format_warning(w) << "\n";
-    runs.push_back(as_built_run(std::move(design), *options.as_built, options));
+    runs.push_back(as_built_run(std::move(design), *options.as_built, options, analysis));
   }
   bool remedial = false;
   std::string rendered;
@@ -109,15 +112,26 @@ namespace {
 
 // The one cap of a site study: its design run and, with --as-built, the as-built run, which
 // the study then works on. Built in place, so that the runs never move.
+// The studies re-solve the rigid cap on its linear springs (site/fast_group.hpp), so both
+// runs are linear; a project whose analysis asks for nonlinear soil is told so in a warning
+// rather than shown linear numbers as if they were its nonlinear ones.
 struct StudyCap {
   std::optional<CheckRun> design;
   std::unique_ptr<AsBuiltRun> site;
   StudyCap(const Options& options, std::ostream& err, const char* command) {
     if (options.files.size() != 1)
       throw InputError({}, fmt::format("{}: expected one project file", command));
-    design = analyse_project(options.files.front());
-    for (const auto& w : design->project.warnings) err << "cairn: " << format_warning(w) << "\n";
-    if (options.as_built) site = as_built_run(*design, *options.as_built, options);
+    const AnalysisOptions linear{.soil_response = SoilResponse::linear};
+    design = analyse_project(options.files.front(), linear);
+    Project& project = design->project;
+    if (project.analysis.soil_response == SoilResponse::nonlinear)
+      project.warnings.push_back(
+          {project.analysis.where,
+           fmt::format("analysis.soil_response: nonlinear; {} studies the cap on its linear "
+                       "springs (the nonlinear soil response is for check and report)",
+                       command)});
+    for (const auto& w : project.warnings) err << "cairn: " << format_warning(w) << "\n";
+    if (options.as_built) site = as_built_run(*design, *options.as_built, options, linear);
   }
   const CheckRun& run() const { return site ? site->as_built : *design; }
 };

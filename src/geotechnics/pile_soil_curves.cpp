@@ -399,4 +399,19 @@ NonlinearPileSpec nonlinear_pile_spec(const Project& project, std::size_t index,
   return spec;
 }
 
+PileCurves scaled_curves(const PileCurves& curves, double factor) {
+  if (!(factor > 0.0)) throw std::logic_error("scaled_curves: expected a positive factor");
+  if (factor == 1.0) return curves;
+  PileCurves out;
+  out.lateral = [lateral = curves.lateral, factor](double z, double y) {
+    return factor * lateral(z, y);
+  };
+  out.shaft = [shaft = curves.shaft, factor](double z, double w) { return factor * shaft(z, w); };
+  out.tip = [tip = curves.tip, factor](double w) { return factor * tip(w); };
+  // A factor of the survey prints as given.
+  out.description =
+      fmt::format("{}; p, t and Q × {:g} (as built: stiffness_factor)", curves.description, factor);
+  return out;
+}
+
 }  // namespace cairn

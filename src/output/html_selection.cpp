@@ -2,6 +2,7 @@
 #include <map>
 
 #include "cairn/output/html_package.hpp"
+#include "report_parts.hpp"
 
 namespace cairn {
 
@@ -51,7 +52,9 @@ std::string all_combinations_csv(const CheckReport& report) {
   const Project& p = *report.project;
   Table all;
   for (std::size_t i = 0; i < tables.per_combination.size(); ++i) {
-    const Table& t = tables.per_combination[i];
+    // A nonlinear run's pile values as in the check's CSV.
+    const Table t = report_detail::with_nonlinear_columns(report, report.results->combinations[i],
+                                                          tables.per_combination[i]);
     const Combination& c = p.combinations[report.results->combinations[i].combination];
     if (all.headers.empty()) {
       all.headers = {"combination", "limit state", "verdict"};

@@ -123,6 +123,9 @@ void write_long_csv(const CheckReport& r, std::ostream& stream) {
   std::string out = "combination,pile,axial (" + u.label(Quantity::force) + "),lateral (" +
                     u.label(Quantity::force) + "),";
   if (moments) out += csv_cell("head moment (" + u.label(Quantity::moment) + ")") + ",";
+  // A nonlinear run: the largest moment along each pile and its depth, the head deflection and
+  // the p-multiplier (none of them in a linear run's table, which stays as it was).
+  for (const auto& h : nonlinear_csv_headers(r, true)) out += csv_cell(h) + ",";
   out += "utilization,check,state,result\n";
   std::vector<std::string> ids;
   ids.reserve(p.piles.size());
@@ -145,6 +148,11 @@ void write_long_csv(const CheckReport& r, std::ostream& stream) {
         out += none ? "-" : u.moment(pc.head_moment);
         out += ',';
       }
+      if (r.nonlinear)
+        for (const auto& cell : nonlinear_csv_cells(r, cc, i, true)) {
+          out += cell;
+          out += ',';
+        }
       out += none ? "-" : utilization_text(pc.utilization);
       out += ',';
       out += to_string(pc.governing);

@@ -3,8 +3,10 @@
 // combinations without equilibrium, and the pushover curve.
 #include "report_parts.hpp"
 
+#include <algorithm>
 #include <cmath>
 #include <numbers>
+#include <stdexcept>
 
 #include "cairn/solver/nonlinear_combinations.hpp"
 
@@ -46,6 +48,64 @@ Table report_detail::nonlinear_piles_table(const CheckReport& r) {
                         none ? "-" : u.moment(pile.max_moment),
                         none ? "-" : u.depth(pile.max_moment_depth)});
     }
+  }
+  return t;
+}
+
+std::vector<std::string> report_detail::nonlinear_csv_headers(const CheckReport& r,
+                                                              bool with_moment) {
+  if (!r.nonlinear) return {};
+  const QuantityFormat u(r.project->units);
+  std::vector<std::string> headers;
+  if (with_moment) {
+    headers.push_back("largest moment (" + u.label(Quantity::moment) + ")");
+    headers.push_back("at depth (" + u.label(Quantity::length) + ")");
+  }
+  headers.push_back("head deflection (" + u.label(Shown::displacement) + ")");
+  headers.push_back("p-multiplier");
+  return headers;
+}
+
+std::vector<std::string> report_detail::nonlinear_csv_cells(const CheckReport& r,
+                                                            const CombinationCheck& cc,
+                                                            std::size_t pile, bool with_moment) {
+  if (!r.nonlinear) return {};
+  const QuantityFormat u(r.project->units);
+  const bool none = cc.solution.overturns || pile >= cc.piles.size() ||
+                    cc.piles[pile].state == PileState::overturned;
+  const auto& piles = r.nonlinear->combinations.at(cc.combination).piles;
+  const NonlinearPileResult extra = pile < piles.size() ? piles[pile] : NonlinearPileResult{};
+  const std::string dash = "-";
+  std::vector<std::string> cells;
+  // The moment and its depth as the combination's table shows them (the pile check's, which
+  // in a nonlinear run is the profile's largest moment).
+  if (with_moment) {
+    cells.push_back(none ? dash : u.moment(cc.piles[pile].max_moment));
+    cells.push_back(none ? dash : u.length(cc.piles[pile].max_moment_depth));
+  }
+  cells.push_back(none ? dash : u.small(extra.head_deflection));
+  // Three decimals: the AASHTO multipliers between 3B and 5B are interpolated.
+  cells.push_back(QuantityFormat::fixed(extra.p_multiplier, 3));
+  return cells;
+}
+
+Table report_detail::with_nonlinear_columns(const CheckReport& r, const CombinationCheck& cc,
+                                            Table t) {
+  if (!r.nonlinear) return t;
+  const auto at = std::find(t.headers.begin(), t.headers.end(), "utilization");
+  if (at == t.headers.end())
+    throw std::logic_error("with_nonlinear_columns: no utilization column");
+  const auto column = static_cast<std::size_t>(at - t.headers.begin());
+  // Fixed heads: the table has the largest moment and its depth already.
+  const bool with_moment = !any_fixed_head(r);
+  const std::vector<std::string> headers = nonlinear_csv_headers(r, with_moment);
+  t.headers.insert(t.headers.begin() + static_cast<std::ptrdiff_t>(column), headers.begin(),
+                   headers.end());
+  t.numeric.insert(t.numeric.begin() + static_cast<std::ptrdiff_t>(column), headers.size(), true);
+  for (std::size_t i = 0; i < t.rows.size(); ++i) {
+    const std::vector<std::string> cells = nonlinear_csv_cells(r, cc, i, with_moment);
+    t.rows[i].insert(t.rows[i].begin() + static_cast<std::ptrdiff_t>(column), cells.begin(),
+                     cells.end());
   }
   return t;
 }

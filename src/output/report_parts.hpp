@@ -67,5 +67,16 @@ Table nonlinear_piles_table(const CheckReport& r);
 Table pushover_table(const CheckReport& r);
 std::string nonlinear_block(const CheckReport& r, Format format);
 json nonlinear_json(const CheckReport& r);
+// The CSV columns of a nonlinear run's pile values (report_nonlinear.cpp), in this order:
+// largest moment along the pile and its depth (only where `with_moment`, i.e. the table does
+// not have them yet), head deflection, p-multiplier. Headers in the project's units; cells
+// of pile `pile` in `cc` ("-" for the values of an overturned combination). Nothing for a
+// linear run.
+std::vector<std::string> nonlinear_csv_headers(const CheckReport& r, bool with_moment);
+std::vector<std::string> nonlinear_csv_cells(const CheckReport& r, const CombinationCheck& cc,
+                                             std::size_t pile, bool with_moment);
+// A combination's table (combination_table) with those columns inserted before
+// "utilization", for the CSV outputs; unchanged for a linear run.
+Table with_nonlinear_columns(const CheckReport& r, const CombinationCheck& cc, Table t);
 
 }  // namespace cairn::report_detail

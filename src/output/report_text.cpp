@@ -125,7 +125,7 @@ void write_check(const CheckReport& r, Format format, std::ostream& out) {
     out << "# summary\n" << render_table(summary_table(r), Format::csv) << "\n";
     out << "# envelope\n" << render_table(envelope_table(r), Format::csv);
     for (const auto& cc : r.results->combinations) {
-      Table t = combination_table(r, cc);
+      Table t = with_nonlinear_columns(r, cc, combination_table(r, cc));
       out << "\n# " << t.title << "\n";
       t.title.clear();
       out << render_table(t, Format::csv);

@@ -9,12 +9,20 @@
 
 namespace cairn {
 
-NonlinearGroup project_nonlinear_group(const Project& project) {
+NonlinearGroup project_nonlinear_group(const Project& project,
+                                       const std::vector<double>& stiffness_factor,
+                                       const std::function<void(NonlinearPileSpec&)>& change) {
   require_nonlinear_soil(project);
   std::vector<NonlinearPileSpec> specs;
   specs.reserve(project.piles.size());
-  for (std::size_t i = 0; i < project.piles.size(); ++i)
-    specs.push_back(nonlinear_pile_spec(project, i));
+  for (std::size_t i = 0; i < project.piles.size(); ++i) {
+    NonlinearPileSpec spec = nonlinear_pile_spec(project, i);
+    if (change) change(spec);
+    const std::size_t type = project.piles[i].type;
+    if (type < stiffness_factor.size() && stiffness_factor[type] != 1.0)
+      spec.curves = scaled_curves(spec.curves, stiffness_factor[type]);
+    specs.push_back(std::move(spec));
+  }
   NonlinearGroup group = nonlinear_group(std::move(specs));
   for (const Pile& pile : project.piles) group.names.push_back(pile.id);
   return group;

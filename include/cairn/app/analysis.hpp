@@ -50,8 +50,12 @@ struct AnalysisOptions {
   // `check --soil-response`: overrides the project's analysis.soil_response when given.
   std::optional<SoilResponse> soil_response{};
   // The piles on nonlinear soil for a nonlinear run; empty: the project's own, from its soil
-  // profile's curves. Another pile model can be given here (tests).
+  // profile's curves. Another pile model can be given here (tests); it is used as given, so
+  // it cannot take the stiffness factors of TypeAdjustments (analyse throws logic_error).
   std::function<NonlinearGroup(const Project&)> nonlinear_piles{};
+  // When given, changes each pile's model on the project's soil curves before the stiffness
+  // factors of TypeAdjustments scale them (tests: a linear p-y curve).
+  std::function<void(NonlinearPileSpec&)> nonlinear_pile_change{};
 };
 
 // Reads and checks one project file. Throws InputError for any input problem (nothing is
@@ -61,7 +65,9 @@ CheckRun analyse_project(const std::string& file, const AnalysisOptions& options
 
 // Changes to pile types made after the fact (a damaged pile's type, site/as_built.hpp):
 // factors on the springs and on every resistance, indexed like Project::pile_types
-// (missing entries = 1).
+// (missing entries = 1). In a nonlinear run the stiffness factor scales the pile's p-y, t-z
+// and Q-z curves instead of its springs (scaled_curves, pile_soil_curves.hpp); the capacity
+// factor scales the resistances of the checks in both.
 struct TypeAdjustments {
   std::vector<double> stiffness_factor;
   std::vector<double> capacity_factor;

@@ -24,9 +24,12 @@ struct AsBuiltRun {
 };
 
 // The as-built check of `design` from the survey at `survey_path` (its `cap` column matched
-// against the cap file's stem), with the tolerances of `options`. Throws InputError.
+// against the cap file's stem), with the tolerances of `options`; the as-built cap is analysed
+// with `analysis` (give the design run's soil response, so that both are linear or both
+// nonlinear). Throws InputError.
 std::unique_ptr<AsBuiltRun> as_built_run(CheckRun design, const std::string& survey_path,
-                                         const Options& options);
+                                         const Options& options,
+                                         const AnalysisOptions& analysis = {});
 
 // `cairn check CAP.yaml --as-built SURVEY.csv`: exit 1 when remedial work is needed.
 int run_as_built_check(const Options& options, const std::string& described, std::ostream& out,

@@ -114,4 +114,13 @@ void require_nonlinear_soil(const Project& project);
 NonlinearPileSpec nonlinear_pile_spec(const Project& project, std::size_t pile,
                                       const NonlinearSoilOptions& options = {});
 
+// The curves of a pile that keeps the share `factor` of its design stiffness (a damaged pile
+// of the as-built survey, stiffness_factor; site/as_built.hpp): every resistance multiplied by
+// the factor at every displacement,
+//   p_f(z, y) = f·p(z, y),   t_f(z, w) = f·t(z, w),   Q_f(w) = f·Q(w),
+// so the curves' initial slopes and their ultimate resistances both keep the share f; the
+// pile's own EI and EA are left as they are (docs/methods-nonlinear.md §7). The description
+// says so. Requires factor > 0; a factor of 1 returns the curves unchanged.
+PileCurves scaled_curves(const PileCurves& curves, double factor);
+
 }  // namespace cairn

@@ -63,9 +63,14 @@ PileProfile pile_profile_at(const NonlinearCapSolver& solver, std::size_t pile,
                             const CapMovement& movement, double p_multiplier);
 
 // The project's piles on the nonlinear curves of its soil profile (pile_soil_curves.hpp), in
-// the order of Project::piles, named by their ids. Throws InputError naming every layer or
-// pile type that cannot give them (require_nonlinear_soil).
-NonlinearGroup project_nonlinear_group(const Project& project);
+// the order of Project::piles, named by their ids. `stiffness_factor`, indexed like
+// Project::pile_types (missing entries = 1), scales the curves of each pile of that type
+// (scaled_curves: an as-built damaged pile); `change`, when given, changes each pile's model
+// before that (tests: a linear p-y curve). Throws InputError naming every layer or pile type
+// that cannot give them (require_nonlinear_soil).
+NonlinearGroup project_nonlinear_group(const Project& project,
+                                       const std::vector<double>& stiffness_factor = {},
+                                       const std::function<void(NonlinearPileSpec&)>& change = {});
 
 // The first plan axis of the project's pile group for the rows of the p-multipliers, radians
 // from +x (p_multiplier_axis over the pile heads and the widest section; 0 for one pile).

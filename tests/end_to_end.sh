@@ -977,7 +977,7 @@ for c in doc["combinations"]:
 ' <"$work/out" 2>"$work/err"; then ok; else bad "as built, $response: the damaged pile does not shed load"; fi
 done
 expect_status "as built, nonlinear: text" 0 check "$work/nl-site/cap.yaml" --as-built "$work/nl-site/survey.csv"
-expect_in "as built, nonlinear: the scaled curves named" "$work/out" "p, t and Q × 0.5 (as built: stiffness_factor)"
+expect_in "as built, nonlinear: the scaled curves named" "$work/out" "and the pile's own stiffness × 0.5 (as built: stiffness_factor)"
 expect_in "as built, nonlinear: the mode" "$work/out" "Soil response: nonlinear."
 # The site studies work on the linear springs and say so for a nonlinear project.
 expect_status "pile-loss on a nonlinear project" 0 pile-loss "$work/nl-site/cap.yaml"

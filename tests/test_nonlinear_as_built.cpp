@@ -6,6 +6,7 @@
 // derivation below), and on a symmetric group. Soil data are invented.
 #include <catch2/catch.hpp>
 
+#include <algorithm>
 #include <cmath>
 #include <string>
 
@@ -103,6 +104,38 @@ TEST_CASE("nonlinear as built: scaled curves are the curves times the factor",
     }
   CHECK(same.description == spec.curves.description);
   CHECK(cairn::test::has(damaged.description, "p, t and Q × 0.6 (as built: stiffness_factor)"));
+}
+
+TEST_CASE("nonlinear as built: a damaged pile is its sound self scaled by the factor",
+          "[nonlinear_as_built]") {
+  // The pile and its soil scaled together (EI, EA, k_t, k_r and every p, t, Q by f): the
+  // beam-column's equations, EI·y⁗ − (N·y′)′ + p(y) = 0 with the bar's EA·w″ = t(w), are
+  // homogeneous in the stiffnesses, so the same deflected shape carries f times every force
+  // (the axial force N of the P-Δ term included): hand derivation from the equations of
+  // docs/methods-nonlinear.md §1. A long flexible fixed-head pile (not the rigid pile of the
+  // test below: here the soil alone scaled would give f^¾ laterally, Hetényi 1946), moved far
+  // enough to reach its curves' nonlinear range.
+  const cairn::Project project = cairn::read_project(kData + "/nonlinear/lateral_si.yaml");
+  const cairn::NonlinearPileSpec sound = cairn::nonlinear_pile_spec(project, 0);
+  const double f = 0.45;
+  const cairn::NonlinearPileSpec damaged = cairn::scaled_pile(sound, f);
+  CHECK(damaged.bending_stiffness == close(f * sound.bending_stiffness, 1e-15));
+  CHECK(cairn::test::has(damaged.curves.description, "× 0.45 (as built: stiffness_factor)"));
+  for (const cairn::HeadMovement& m :
+       {cairn::HeadMovement{0.004, -0.002, 0.003, 0.0, 0.0, 0.0},
+        cairn::HeadMovement{0.03, 0.01, 0.008, 0.001, -0.002, 0.0005}}) {
+    const cairn::PileHeadResponse a = cairn::pile_head_response(sound, m, 0.7);
+    const cairn::PileHeadResponse b = cairn::pile_head_response(damaged, m, 0.7);
+    REQUIRE(a.converged);
+    REQUIRE(b.converged);
+    double largest = 0.0;
+    for (const double v : a.action) largest = std::max(largest, std::abs(v));
+    for (std::size_t k = 0; k < 6; ++k) {
+      CAPTURE(k);
+      CHECK(b.action[k] == close(f * a.action[k], 1e-7, 1e-9 * largest));
+    }
+  }
+  CHECK(cairn::scaled_pile(sound, 1.0).bending_stiffness == sound.bending_stiffness);
 }
 
 TEST_CASE("nonlinear as built: stiffness and capacity factors of 1 change nothing",

@@ -5,6 +5,7 @@
 #include <memory>
 #include <set>
 #include <stdexcept>
+#include <string>
 
 #include <fmt/format.h>
 
@@ -412,6 +413,21 @@ PileCurves scaled_curves(const PileCurves& curves, double factor) {
   out.description =
       fmt::format("{}; p, t and Q × {:g} (as built: stiffness_factor)", curves.description, factor);
   return out;
+}
+
+NonlinearPileSpec scaled_pile(NonlinearPileSpec pile, double factor) {
+  if (!(factor > 0.0)) throw std::logic_error("scaled_pile: expected a positive factor");
+  if (factor == 1.0) return pile;
+  const std::string described = pile.curves.description;
+  pile.curves = scaled_curves(pile.curves, factor);
+  pile.curves.description = fmt::format(
+      "{}; p, t, Q and the pile's own stiffness × {:g} (as built: stiffness_factor)", described,
+      factor);
+  pile.bending_stiffness *= factor;
+  pile.axial_rigidity *= factor;
+  pile.torsional *= factor;
+  pile.restraint.stiffness *= factor;  // k_r of a partial head (0 otherwise)
+  return pile;
 }
 
 }  // namespace cairn

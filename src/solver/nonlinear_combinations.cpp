@@ -20,7 +20,7 @@ NonlinearGroup project_nonlinear_group(const Project& project,
     if (change) change(spec);
     const std::size_t type = project.piles[i].type;
     if (type < stiffness_factor.size() && stiffness_factor[type] != 1.0)
-      spec.curves = scaled_curves(spec.curves, stiffness_factor[type]);
+      spec = scaled_pile(std::move(spec), stiffness_factor[type]);
     specs.push_back(std::move(spec));
   }
   NonlinearGroup group = nonlinear_group(std::move(specs));

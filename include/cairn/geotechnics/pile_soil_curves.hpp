@@ -117,10 +117,17 @@ NonlinearPileSpec nonlinear_pile_spec(const Project& project, std::size_t pile,
 // The curves of a pile that keeps the share `factor` of its design stiffness (a damaged pile
 // of the as-built survey, stiffness_factor; site/as_built.hpp): every resistance multiplied by
 // the factor at every displacement,
-//   p_f(z, y) = f·p(z, y),   t_f(z, w) = f·t(z, w),   Q_f(w) = f·Q(w),
-// so the curves' initial slopes and their ultimate resistances both keep the share f; the
-// pile's own EI and EA are left as they are (docs/methods-nonlinear.md §7). The description
-// says so. Requires factor > 0; a factor of 1 returns the curves unchanged.
+//   p_f(z, y) = f·p(z, y),   t_f(z, w) = f·t(z, w),   Q_f(w) = f·Q(w).
+// The description says so. Requires factor > 0; a factor of 1 returns the curves unchanged.
 PileCurves scaled_curves(const PileCurves& curves, double factor);
+
+// A damaged pile that keeps the share `factor` of its design stiffness: its curves scaled
+// (scaled_curves) and its own stiffnesses too (EI, EA, the head's rotational restraint k_r,
+// the torsional k_t), so the pile and its soil are one system scaled by f: at every head
+// movement the pile takes the same deflected shape and its head action, its tangent and every
+// internal force along it (the axial force of its P-Δ term included) are f times the sound
+// pile's (docs/methods-nonlinear.md §7), as a linear run multiplies its head stiffness by f.
+// Requires factor > 0; a factor of 1 returns the pile unchanged.
+NonlinearPileSpec scaled_pile(NonlinearPileSpec pile, double factor);
 
 }  // namespace cairn

@@ -982,5 +982,18 @@ expect_in "as built, nonlinear: the mode" "$work/out" "Soil response: nonlinear.
 # The site studies work on the linear springs and say so for a nonlinear project.
 expect_status "pile-loss on a nonlinear project" 0 pile-loss "$work/nl-site/cap.yaml"
 expect_in "pile-loss on a nonlinear project: the warning" "$work/err" "pile-loss studies the cap on its linear springs"
+# Cyclic p-y curves for a whole nonlinear run (analysis.lateral_loading), and the cycles a
+# curve needs as located errors.
+cp "$nl/lateral_si.yaml" "$work/cyclic.yaml"
+printf '  lateral_loading: cyclic\n' >>"$work/cyclic.yaml"
+expect_status "nonlinear, cyclic curves" 0 check "$work/cyclic.yaml"
+expect_in "nonlinear, cyclic curves named" "$work/out" "p-y (cyclic)"
+expect_status "nonlinear, cyclic curves: JSON" 0 check "$work/cyclic.yaml" --format json
+expect_in "nonlinear, cyclic curves: JSON member" "$work/out" '"lateral_loading": "cyclic"'
+cp "$nl/lateral_si.yaml" "$work/cycles-static.yaml"
+printf '  load_cycles: 100\n' >>"$work/cycles-static.yaml"
+expect_status "load_cycles without cyclic curves" 2 check "$work/cycles-static.yaml"
+expect_in "load_cycles without cyclic curves: located" "$work/err" "cycles-static.yaml:$(wc -l <"$work/cycles-static.yaml"):"
+expect_in "load_cycles without cyclic curves: why" "$work/err" "give it with lateral_loading: cyclic"
 echo "$passed passed, $failed failed"
 [ "$failed" -eq 0 ]

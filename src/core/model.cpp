@@ -125,6 +125,8 @@ const char* to_string(SoilResponse r) { return name_in(kSoilResponseNames, r); }
 
 constexpr const char* kGroupMultipliersNames[] = {"by_direction", "reversing", "none"};
 const char* to_string(GroupMultipliers m) { return name_in(kGroupMultipliersNames, m); }
+constexpr const char* kLateralLoadingNames[] = {"static", "cyclic"};
+const char* to_string(LateralLoading l) { return name_in(kLateralLoadingNames, l); }
 
 Wrench resultant_about(const LoadCase& load_case, const std::array<double, 3>& point) {
   Wrench total{};

@@ -177,8 +177,8 @@ struct SoilField {
                        (site.below_water ? kWaterUnitWeight : 0.0);
     site.effective_unit_weight = d > 1e-9 ? site.effective_stress / d : own;
     site.width = width;
-    site.loading = options.loading;
-    site.cycles = options.cycles;
+    site.loading = options.loading.value_or(PyLoading::static_load);
+    site.cycles = options.cycles.value_or(1.0);
     return lateral_curve_info(*layer.lateral_curve).build(site);
   }
 
@@ -296,6 +296,15 @@ std::vector<SoilCurveProblem> nonlinear_soil_problems(const Project& project) {
     for (const std::string& p : info.problems(layer))
       out.push_back(
           make_problem(where, fmt::format("{}: lateral_curve '{}' {}", who, info.name, p)));
+    if (*layer.lateral_curve == LateralCurve::stiff_clay_dry &&
+        project.analysis.lateral_loading == LateralLoading::cyclic &&
+        !project.analysis.load_cycles)
+      out.push_back(make_problem(
+          project.analysis.where,
+          fmt::format("analysis.load_cycles: missing; the cyclic curve of {} (Welch & Reese "
+                      "1972, stiff clay without free water) grows with the number of load "
+                      "cycles N: give it (e.g. load_cycles: 100)",
+                      who)));
   }
   return out;
 }
@@ -309,7 +318,14 @@ void require_nonlinear_soil(const Project& project) {
 }
 
 NonlinearPileSpec nonlinear_pile_spec(const Project& project, std::size_t index,
-                                      const NonlinearSoilOptions& options) {
+                                      const NonlinearSoilOptions& asked) {
+  // The loading and cycles the caller leaves open are the project's.
+  NonlinearSoilOptions options = asked;
+  if (!options.loading)
+    options.loading = project.analysis.lateral_loading == LateralLoading::cyclic
+                          ? PyLoading::cyclic
+                          : PyLoading::static_load;
+  if (!options.cycles) options.cycles = project.analysis.load_cycles.value_or(1.0);
   if (const auto problems = nonlinear_soil_problems(project); !problems.empty())
     throw std::invalid_argument(problems.front().message);
   if (options.segments < 4) throw std::invalid_argument("nonlinear pile: at least 4 segments");
@@ -394,7 +410,11 @@ NonlinearPileSpec nonlinear_pile_spec(const Project& project, std::size_t index,
   spec.curves.description = fmt::format(
       "p-y ({}): {}; t-z and Q-z: API RP 2GEO, t_max from the shaft method, Q_p = "
       "{} from the tip method",
-      options.loading == PyLoading::cyclic ? "cyclic" : "static", lateral,
+      options.loading == PyLoading::cyclic
+          ? (options.cycles && *options.cycles > 1.0 ? fmt::format("cyclic, N = {:g}", *options.cycles)
+                                                       : std::string("cyclic"))
+          : std::string("static"),
+      lateral,
       QuantityFormat(project.units).text(Shown::force, tip));
   spec.units = project.units;
   return spec;

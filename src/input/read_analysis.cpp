@@ -14,7 +14,7 @@ void read_analysis_settings(const Located& n, Project& project, ReadContext& ctx
   a.where = ctx.at(n);
   if (!ctx.expect_map(n)) return;
   ctx.check_keys(n, {"soil_response", "p_multipliers", "pushover", "pushover_limit",
-                     "pushover_displacement"});
+                     "pushover_displacement", "lateral_loading", "load_cycles"});
   if (auto s = n.child("soil_response"); s.present())
     if (auto v = ctx.choice<SoilResponse>(
             s, {{"linear", SoilResponse::linear}, {"nonlinear", SoilResponse::nonlinear}}))
@@ -45,6 +45,23 @@ void read_analysis_settings(const Located& n, Project& project, ReadContext& ctx
   }
   a.pushover_displacement =
       ctx.number(n, "pushover_displacement", Quantity::small_length, ReadContext::Need::optional);
+  if (auto l = n.child("lateral_loading"); l.present())
+    if (auto v = ctx.choice<LateralLoading>(
+            l, {{"static", LateralLoading::static_load}, {"cyclic", LateralLoading::cyclic}}))
+      a.lateral_loading = *v;
+  if (auto c = ctx.number(n, "load_cycles", Quantity::number, ReadContext::Need::optional)) {
+    if (!(*c >= 1.0 && *c <= 1e8))
+      ctx.error(ctx.at(n.child("load_cycles")),
+                fmt::format("analysis.load_cycles: expected a number of load cycles from 1 to "
+                            "100000000, got {}",
+                            *c));
+    else if (a.lateral_loading != LateralLoading::cyclic)
+      ctx.error(ctx.at(n.child("load_cycles")),
+                "analysis.load_cycles: counts the cycles of cyclic p-y curves; give it with "
+                "lateral_loading: cyclic (the static curves have no cycles)");
+    else
+      a.load_cycles = *c;
+  }
 }
 
 }  // namespace cairn

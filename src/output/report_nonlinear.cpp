@@ -176,8 +176,10 @@ json report_detail::nonlinear_json(const CheckReport& r) {
   json doc = {{"soil_response", "nonlinear"},
               {"p_multipliers", to_string(run.rule)},
               {"p_multiplier_axis", run.multiplier_axis * 180.0 / std::numbers::pi},
+              {"lateral_loading", to_string(p.analysis.lateral_loading)},
               {"curves", curves},
               {"combinations", combos}};
+  if (p.analysis.load_cycles) doc["load_cycles"] = *p.analysis.load_cycles;
   if (run.pushover) {
     const PushoverCurve& curve = *run.pushover;
     json points = json::array();

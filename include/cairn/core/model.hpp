@@ -258,6 +258,9 @@ enum class SoilResponse { linear, nonlinear };
 // the direction of each combination's horizontal resultant, by both directions of it (loads
 // that reverse: the smaller multiplier), or none (every multiplier 1).
 enum class GroupMultipliers { by_direction, reversing, none };
+// The p-y curves' loading in a nonlinear run: the published static curves, or their cyclic
+// forms (the resistance left after repeated loading).
+enum class LateralLoading { static_load, cyclic };
 
 struct AnalysisSettings {
   SoilResponse soil_response = SoilResponse::linear;
@@ -265,6 +268,8 @@ struct AnalysisSettings {
   std::string pushover;               // combination pushed; empty: the governing one
   double pushover_limit = 5.0;        // the largest load factor λ of the pushover
   std::optional<double> pushover_displacement;  // m, the cap's movement that ends it
+  LateralLoading lateral_loading = LateralLoading::static_load;
+  std::optional<double> load_cycles;  // N, for the cyclic curves that count cycles
   SourceLocation where;
 };
 
@@ -299,6 +304,7 @@ const char* to_string(En1997PileKind);
 const char* to_string(SectionShape);
 const char* to_string(SoilResponse);
 const char* to_string(GroupMultipliers);
+const char* to_string(LateralLoading);
 
 // Sum of all loads in a case as forces and moments about `point`: M = Σ (at − point) × F + M,
 // each lever arm the difference of input coordinates (no digits lost far from the origin).

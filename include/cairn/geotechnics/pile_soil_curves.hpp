@@ -86,9 +86,12 @@ double default_sand_modulus(double friction_angle, bool below_water);
 
 // Choices for the curves that are not properties of the soil.
 struct NonlinearSoilOptions {
-  PyLoading loading = PyLoading::static_load;  // static or cyclic p-y curves
-  double cycles = 1.0;                         // N for Welch & Reese's cyclic stiff clay
-  int segments = 60;                           // finite-difference segments along the pile
+  // Static or cyclic p-y curves; none: the project's analysis.lateral_loading.
+  std::optional<PyLoading> loading;
+  // N for Welch & Reese's cyclic stiff clay; none: the project's analysis.load_cycles (1 when
+  // it gives none: the curves that need N are a located problem then, nonlinear_soil_problems).
+  std::optional<double> cycles;
+  int segments = 60;  // finite-difference segments along the pile
 };
 
 // A value the nonlinear mode needs and the project lacks, located at the layer or pile type.

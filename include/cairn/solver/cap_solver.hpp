@@ -164,6 +164,14 @@ class CapSolver {
 
  private:
   struct Impl;
+  struct DecompositionCache;
+  // solve() with the decompositions of the active sets met kept in `cache` (none: not kept).
+  CapSolution solve_active(const CapLoad& load, DecompositionCache* cache) const;
+  // superpose() followed by solve_active() when a compression-only pile would be in tension.
+  CapSolution solve_superposed(const std::vector<std::pair<const CapSolution*, double>>& parts,
+                               const CapLoad& load, DecompositionCache& cache) const;
+  friend void solve_combinations(const Project& project, const CapSolver& solver,
+                                 const std::function<void(std::size_t, CapSolution&&)>& each);
   std::vector<PileSpring> springs_;
   std::unique_ptr<Impl> impl_;
 };

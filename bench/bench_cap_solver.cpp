@@ -193,6 +193,45 @@ void BM_SolveLinear500x10000(benchmark::State& state) {
 }
 BENCHMARK(BM_SolveLinear500x10000)->Unit(benchmark::kMillisecond)->UseRealTime();
 
+// The same solve with the piles' forces as arrays only (axial and lateral of every pile in
+// every combination, what the numpy peer's core computes), each combination's arrays
+// overwriting the last's: no pile rows, no head actions.
+void BM_SolveLinearArrays500x10000(benchmark::State& state) {
+  const Project project = linear_project();
+  const cairn::CapSolver solver(cairn::pile_springs(project));
+  for (auto _ : state) {
+    double sum = 0.0;
+    cairn::solve_combinations(
+        project, solver, [](std::size_t) { return false; },
+        [&](std::size_t, cairn::CapSolution&&, const double* axial, const double* lateral) {
+          sum += axial[0] + lateral[0];
+        });
+    benchmark::DoNotOptimize(sum);
+  }
+}
+BENCHMARK(BM_SolveLinearArrays500x10000)->Unit(benchmark::kMillisecond)->UseRealTime();
+
+// The same into arrays of every pile and combination (n·m axial and lateral forces, 80 MB
+// kept, as the peer keeps them): like for like with the peer's core.
+void BM_SolveLinearKept500x10000(benchmark::State& state) {
+  const Project project = linear_project();
+  const cairn::CapSolver solver(cairn::pile_springs(project));
+  const std::size_t n = project.piles.size(), m = project.combinations.size();
+  std::vector<double> all_axial(n * m), all_lateral(n * m);
+  for (auto _ : state) {
+    cairn::solve_combinations(
+        project, solver, [](std::size_t) { return false; },
+        [&](std::size_t c, cairn::CapSolution&&, const double* axial, const double* lateral) {
+          std::copy(axial, axial + n, all_axial.begin() + static_cast<std::ptrdiff_t>(c * n));
+          std::copy(lateral, lateral + n, all_lateral.begin() + static_cast<std::ptrdiff_t>(c * n));
+        });
+    benchmark::DoNotOptimize(all_axial.data());
+    benchmark::DoNotOptimize(all_lateral.data());
+    benchmark::ClobberMemory();
+  }
+}
+BENCHMARK(BM_SolveLinearKept500x10000)->Unit(benchmark::kMillisecond)->UseRealTime();
+
 // The same solve with the checks folded in as each combination is solved, as
 // `--detail envelope` runs them: each pile's utilization, envelope and governing
 // combinations (invented capacities: 1,500 kN compression, 600 kN tension, 80 kN lateral,
@@ -209,9 +248,11 @@ void BM_CheckEnvelope500x10000(benchmark::State& state) {
   const std::vector<cairn::PileTypeResistance> resistances(project.pile_types.size(), r);
   for (auto _ : state) {
     cairn::CheckAccumulator checks(project, resistances, {}, false);
-    cairn::solve_combinations(project, solver, [&](std::size_t c, cairn::CapSolution&& s) {
-      checks.add(c, std::move(s));
-    });
+    cairn::solve_combinations(
+        project, solver, [&](std::size_t c) { return checks.needs_rows(c); },
+        [&](std::size_t c, cairn::CapSolution&& s, const double* axial, const double* lateral) {
+          checks.add(c, std::move(s), axial, lateral);
+        });
     const cairn::CheckResults results = checks.finish();
     benchmark::DoNotOptimize(results.summary.max_utilization);
   }
@@ -298,9 +339,11 @@ void BM_CheckEnvelopeCompressionOnly500x10000(benchmark::State& state) {
   const std::vector<cairn::PileTypeResistance> resistances(project.pile_types.size(), r);
   for (auto _ : state) {
     cairn::CheckAccumulator checks(project, resistances, {}, false);
-    cairn::solve_combinations(project, solver, [&](std::size_t c, cairn::CapSolution&& s) {
-      checks.add(c, std::move(s));
-    });
+    cairn::solve_combinations(
+        project, solver, [&](std::size_t c) { return checks.needs_rows(c); },
+        [&](std::size_t c, cairn::CapSolution&& s, const double* axial, const double* lateral) {
+          checks.add(c, std::move(s), axial, lateral);
+        });
     const cairn::CheckResults results = checks.finish();
     benchmark::DoNotOptimize(results.summary.max_utilization);
   }

@@ -2,7 +2,8 @@
 // against the per-pile code they replace, and solve_combinations (the active sets'
 // decompositions kept from one combination to the next, the superposed forces of a
 // combination that lifts piles never formed) against superpose, needs_redistribution and
-// solve called one combination at a time. Random groups invented for the test: vertical and
+// solve called one combination at a time, and the piles' forces handed over as arrays (and
+// the checks folded from them) against the pile rows (and the checks of the rows). Random groups invented for the test: vertical and
 // battered piles, some without lateral springs, about half compression-only, some with head
 // bending.
 //
@@ -25,6 +26,7 @@
 #include <vector>
 
 #include "../src/solver/active_set_passes.hpp"
+#include "cairn/checks/checks.hpp"
 #include "cairn/core/model.hpp"
 #include "cairn/solver/cap_solver.hpp"
 
@@ -281,4 +283,101 @@ TEST_CASE("active set: solve_combinations gives each combination's solve, bit fo
   }
   // The groups are meant to lift piles in a good share of the combinations.
   CHECK(lifted > total / 10);
+}
+
+TEST_CASE("active set: the forces as arrays are the rows' forces, and the checks folded from them "
+          "the checks of the rows", "[active_set]") {
+  std::mt19937_64 rng(23);
+  std::uniform_real_distribution<double> unit(0.0, 1.0);
+  for (int trial = 0; trial < 8; ++trial) {
+    Project project = random_project(rng);
+    for (std::size_t c = 0; c < project.combinations.size(); ++c)
+      project.combinations[c].limit_state = c % 3 ? LimitState::service : LimitState::strength;
+    std::vector<PileSpring> springs = pile_springs(project);
+    if (trial % 2 == 1)  // fixed heads on the battered piles (redone by the per-pile code)
+      for (std::size_t i = 0; i < springs.size(); ++i)
+        if (project.piles[i].type == 2) springs[i].bending = {-2e3, 6e3, 0.0};
+    const CapSolver solver(springs);
+    if (!unresisted_cases(project, solver).empty()) continue;
+    // Capacities invented for the test; a structural check on the strength basis of one type
+    // in half the trials (its combinations then checked pile by pile, from the rows).
+    std::vector<PileTypeResistance> resistances(project.pile_types.size());
+    for (auto& r : resistances) {
+      for (Resistance* basis : {&r.allowable, &r.factored}) {
+        basis->compression = 500.0 + 3000.0 * unit(rng);
+        if (unit(rng) < 0.7) basis->tension = 200.0 + 800.0 * unit(rng);
+        basis->lateral = 20.0 + 200.0 * unit(rng);
+      }
+    }
+    if (trial % 4 < 2) resistances[1].factored.structural_axial = 4000.0;
+
+    std::vector<CapSolution> rows = solve_combinations(project, solver);
+    CheckAccumulator from_rows(project, resistances, {}, false);
+    for (std::size_t c = 0; c < rows.size(); ++c) from_rows.add(c, rows[c]);
+    const CheckResults expected = from_rows.finish();
+
+    CheckAccumulator from_arrays(project, resistances, {}, false);
+    std::size_t as_arrays = 0;
+    solve_combinations(
+        project, solver, [&](std::size_t c) { return from_arrays.needs_rows(c); },
+        [&](std::size_t c, CapSolution&& solution, const double* axial, const double* lateral) {
+          const CapSolution& row = rows[c];
+          INFO("trial " << trial << ", combination " << c);
+          CHECK(solution.overturns == row.overturns);
+          CHECK(solution.dropped == row.dropped);
+          CHECK(solution.residual == row.residual);
+          CHECK(solution.movement.rotation == row.movement.rotation);
+          CHECK(solution.movement.translation == row.movement.translation);
+          if (axial) {
+            ++as_arrays;
+            CHECK(solution.piles.empty());
+            for (std::size_t i = 0; i < row.piles.size(); ++i) {
+              INFO("pile " << i);
+              CHECK(axial[i] == row.piles[i].axial);
+              CHECK(lateral[i] == row.piles[i].lateral);
+            }
+          } else {
+            CHECK(same_bits(solution, row));
+          }
+          from_arrays.add(c, std::move(solution), axial, lateral);
+        });
+    const CheckResults got = from_arrays.finish();
+    CHECK(as_arrays > 0);
+    REQUIRE(got.envelope.size() == expected.envelope.size());
+    for (std::size_t i = 0; i < got.envelope.size(); ++i) {
+      INFO("trial " << trial << ", pile " << i);
+      const PileEnvelope &a = got.envelope[i], &b = expected.envelope[i];
+      for (const auto& [x, y] : {std::pair{a.max_compression, b.max_compression},
+                                 std::pair{a.max_tension, b.max_tension},
+                                 std::pair{a.max_lateral, b.max_lateral},
+                                 std::pair{a.max_utilization, b.max_utilization}}) {
+        CHECK(x.value == y.value);
+        CHECK(x.combination == y.combination);
+      }
+      CHECK(a.governing == b.governing);
+      CHECK(a.pass == b.pass);
+      for (std::size_t k = 0; k < 4; ++k) {
+        CHECK(got.governing[i][k].utilization.value == expected.governing[i][k].utilization.value);
+        CHECK(got.governing[i][k].utilization.combination ==
+              expected.governing[i][k].utilization.combination);
+        CHECK(got.governing[i][k].demand == expected.governing[i][k].demand);
+      }
+    }
+    REQUIRE(got.combinations.size() == expected.combinations.size());
+    for (std::size_t c = 0; c < got.combinations.size(); ++c) {
+      INFO("trial " << trial << ", combination " << c);
+      const CombinationCheck &a = got.combinations[c], &b = expected.combinations[c];
+      CHECK(a.pass == b.pass);
+      CHECK(a.max_utilization == b.max_utilization);
+      CHECK(a.governing_pile == b.governing_pile);
+      CHECK(a.governing == b.governing);
+      CHECK(a.total_compression == b.total_compression);
+      CHECK(a.total_tension == b.total_tension);
+    }
+    CHECK(got.summary.max_utilization == expected.summary.max_utilization);
+    CHECK(got.summary.combination == expected.summary.combination);
+    CHECK(got.summary.pile == expected.summary.pile);
+    CHECK(got.summary.failed_combinations == expected.summary.failed_combinations);
+    CHECK(got.summary.overturned == expected.summary.overturned);
+  }
 }

@@ -428,6 +428,34 @@ struct CapSolver::Impl {
                         : forces_from<double>(s.movement, active, every_active, s.residual);
   }
 
+  // Where the solver writes the piles' forces as arrays (one value per pile, kN).
+  struct ForceArrays {
+    double* axial;
+    double* lateral;
+  };
+
+  // The same solution with the piles' axial and lateral forces written to the arrays
+  // `forces` instead of pile rows (CapSolution::piles left empty): the same numbers. A
+  // movement refined in long double (stiff and soft piles together, rare) keeps its rows.
+  CapSolution arrays_of(const Settled& s, const std::vector<bool>& active, bool every_active,
+                        const ForceArrays& forces) const {
+    if (s.is_refined) return forces_of(s, active, every_active);
+    CapSolution solution = with_movement<double>(s.movement);
+    solution.residual = s.residual;
+    const double m[6] = {s.movement(0), s.movement(1), s.movement(2),
+                         s.movement(3), s.movement(4), s.movement(5)};
+    detail::pinned_axial_lateral(pinned, m, every_active ? nullptr : &active, forces.axial,
+                                 forces.lateral);
+    for (const std::size_t i : bent) {
+      PileForce row;
+      pile_forces_of<double>(i, s.movement, active[i], row);
+      forces.axial[i] = row.axial;
+      forces.lateral[i] = row.lateral;
+    }
+    return solution;
+  }
+
+
   // Û as the solution of a settled movement reports it (movement_of of its CapMovement:
   // the rotation divided by L, rounded to double, and multiplied again).
   Vector6 reported(const Settled& s) const {
@@ -456,11 +484,9 @@ struct CapSolver::Impl {
     return false;
   }
 
-  // Pile forces and the reported movement from the nondimensional movement Û.
-  // `every_active`: no pile dropped out (active is all true).
+  // A solution with the reported movement of the nondimensional movement Û, no piles yet.
   template <typename Real>
-  CapSolution forces_from(const Vector6R<Real>& movement, const std::vector<bool>& active,
-                          bool every_active, double residual) const {
+  CapSolution with_movement(const Vector6R<Real>& movement) const {
     CapSolution solution;
     const Eigen::Vector3d t = movement.template head<3>().template cast<double>();
     const Eigen::Vector3d r =
@@ -470,6 +496,15 @@ struct CapSolver::Impl {
     solution.movement.rotation = to_array(r);
     // t₀ = t + r × (0 − c): the cap point at the origin, for display.
     solution.movement.translation = to_array(t - r.cross(reference));
+    return solution;
+  }
+
+  // Pile forces and the reported movement from the nondimensional movement Û.
+  // `every_active`: no pile dropped out (active is all true).
+  template <typename Real>
+  CapSolution forces_from(const Vector6R<Real>& movement, const std::vector<bool>& active,
+                          bool every_active, double residual) const {
+    CapSolution solution = with_movement<Real>(movement);
     if constexpr (std::is_same_v<Real, double>) {
       // Every pile as springs alone in one vectorized pass (the same operations as below,
       // pinned_forces.hpp), then the piles with head bending by the code below.
@@ -720,7 +755,7 @@ CapSolution CapSolver::superpose(const std::vector<std::pair<const CapSolution*,
 
 CapSolution CapSolver::solve_superposed(
     const std::vector<std::pair<const CapSolution*, double>>& parts, const CapLoad& load,
-    DecompositionCache& cache) const {
+    DecompositionCache& cache, double* axial, double* lateral) const {
   // superpose(), then solve() when needs_redistribution(): the same results, without the
   // superposed forces of a combination that lifts piles (decided from its movement alone)
   // and with the active sets' decompositions kept for the next combinations.
@@ -729,8 +764,10 @@ CapSolution CapSolver::solve_superposed(
   const std::vector<bool> all(springs_.size(), true);
   const Impl::Settled settled =
       impl_->settle(impl_->all_active, all, impl_->scaled(load), u, true);
-  if (impl_->lifts(impl_->reported(settled), nullptr)) return solve_active(load, &cache);
-  CapSolution solution = impl_->forces_of(settled, all, true);
+  if (impl_->lifts(impl_->reported(settled), nullptr))
+    return solve_active(load, &cache, axial, lateral);
+  CapSolution solution = axial ? impl_->arrays_of(settled, all, true, {axial, lateral})
+                               : impl_->forces_of(settled, all, true);
   solution.iterations = 0;
   return solution;
 }
@@ -739,9 +776,12 @@ CapSolution CapSolver::solve(const Wrench& about_origin) const {
   return solve(from_origin(about_origin));
 }
 
-CapSolution CapSolver::solve(const CapLoad& load) const { return solve_active(load, nullptr); }
+CapSolution CapSolver::solve(const CapLoad& load) const {
+  return solve_active(load, nullptr, nullptr, nullptr);
+}
 
-CapSolution CapSolver::solve_active(const CapLoad& load, DecompositionCache* cache) const {
+CapSolution CapSolver::solve_active(const CapLoad& load, DecompositionCache* cache,
+                                    double* axial, double* lateral) const {
   const std::size_t n = springs_.size();
   const Vector6 f = impl_->scaled(load);
   std::vector<bool> active(n, true);
@@ -796,7 +836,9 @@ CapSolution CapSolver::solve_active(const CapLoad& load, DecompositionCache* cac
       for (std::size_t i = 0; i < n; ++i)
         if (moves[i]) (state[i] == detail::kInContact ? drop : add).push_back(i);
     if (drop.empty() && add.empty()) {
-      CapSolution solution = impl_->settled(dec, active, f, u, false);
+      const Impl::Settled settled = impl_->settle(dec, active, f, u, false);
+      CapSolution solution = axial ? impl_->arrays_of(settled, active, false, {axial, lateral})
+                                   : impl_->forces_of(settled, active, false);
       for (std::size_t i = 0; i < n; ++i)
         if (!active[i]) solution.dropped.push_back(i);
       solution.iterations = iteration;
@@ -874,6 +916,16 @@ std::vector<CapSolution> solve_combinations(const Project& project, const CapSol
 
 void solve_combinations(const Project& project, const CapSolver& solver,
                         const std::function<void(std::size_t, CapSolution&&)>& each) {
+  solve_combinations(project, solver, [](std::size_t) { return true; },
+                     [&](std::size_t c, CapSolution&& solution, const double*, const double*) {
+                       each(c, std::move(solution));
+                     });
+}
+
+void solve_combinations(
+    const Project& project, const CapSolver& solver,
+    const std::function<bool(std::size_t)>& rows,
+    const std::function<void(std::size_t, CapSolution&&, const double*, const double*)>& each) {
   std::vector<CapSolution> per_case;
   per_case.reserve(project.load_cases.size());
   for (const auto& lc : project.load_cases)
@@ -885,6 +937,7 @@ void solve_combinations(const Project& project, const CapSolver& solver,
   for (const auto& lc : project.load_cases) case_loads.push_back(resultant_about(lc, solver.reference()));
   constexpr double kResidualLimit = 1e-6;
   CapSolver::DecompositionCache cache;
+  std::vector<double> axial(solver.springs().size()), lateral(solver.springs().size());
   for (std::size_t c = 0; c < project.combinations.size(); ++c) {
     const Combination& combo = project.combinations[c];
     Wrench total{};
@@ -893,12 +946,18 @@ void solve_combinations(const Project& project, const CapSolver& solver,
     const CapLoad load(total);
     std::vector<std::pair<const CapSolution*, double>> parts;
     for (const auto& [index, factor] : combo.factors) parts.emplace_back(&per_case[index], factor);
-    CapSolution solution = solver.solve_superposed(parts, load, cache);
+    const bool as_rows = rows(c);
+    CapSolution solution =
+        solver.solve_superposed(parts, load, cache, as_rows ? nullptr : axial.data(),
+                                as_rows ? nullptr : lateral.data());
     if (!solution.overturns && !(solution.residual <= kResidualLimit))  // NaN fails too
       throw std::logic_error(fmt::format(
           "combination '{}' misses equilibrium by {:.3g} of the load", combo.id,
           solution.residual));
-    each(c, std::move(solution));
+    // Rows formed (asked for, or an overturned combination): no arrays.
+    const bool arrays = solution.piles.empty();
+    each(c, std::move(solution), arrays ? axial.data() : nullptr,
+         arrays ? lateral.data() : nullptr);
   }
 }
 

@@ -7,7 +7,7 @@
 #include <limits>
 #include <optional>
 #include <unordered_map>
-#include <set>
+#include <unordered_set>
 #include <stdexcept>
 #include <type_traits>
 
@@ -785,7 +785,7 @@ CapSolution CapSolver::solve_active(const CapLoad& load, DecompositionCache* cac
   const std::size_t n = springs_.size();
   const Vector6 f = impl_->scaled(load);
   std::vector<bool> active(n, true);
-  std::set<std::vector<bool>> seen, slow_seen;
+  std::unordered_set<std::vector<bool>> seen, slow_seen;  // sets met (hashed by word)
   bool one_at_a_time = false;
   // Piles left out for good: see the one-at-a-time steps below.
   std::vector<bool> left_out(n, false);

@@ -381,3 +381,32 @@ TEST_CASE("active set: the forces as arrays are the rows' forces, and the checks
     CHECK(got.summary.overturned == expected.summary.overturned);
   }
 }
+
+TEST_CASE("active set: the stiffness of an active set summed entry by entry, as Eigen's sum",
+          "[active_set]") {
+  std::mt19937_64 rng(3);
+  std::uniform_real_distribution<double> unit(-1.0, 1.0);
+  for (int trial = 0; trial < 50; ++trial) {
+    const std::size_t n = static_cast<std::size_t>(300 * (unit(rng) + 1.0) / 2.0) + 1;
+    using Matrix6 = Eigen::Matrix<double, 6, 6>;
+    std::vector<Matrix6> with(n), without(n);
+    std::vector<bool> active(n);
+    for (std::size_t i = 0; i < n; ++i) {
+      // Terms of mixed signs and sizes, some exact zeros and negative zeros.
+      for (int e = 0; e < 36; ++e) {
+        with[i](e) = unit(rng) * std::pow(10.0, 6 * unit(rng));
+        without[i](e) = unit(rng) < -0.6 ? -0.0 : unit(rng) * std::pow(10.0, 4 * unit(rng));
+      }
+      active[i] = unit(rng) < 0.4;
+    }
+    Matrix6 expected = Matrix6::Zero();
+    for (std::size_t i = 0; i < n; ++i) expected += active[i] ? with[i] : without[i];
+    Matrix6 got;
+    detail::sum_stiffness(n, with.front().data(), without.front().data(), active, got.data());
+    for (int e = 0; e < 36; ++e) {
+      INFO("trial " << trial << ", entry " << e);
+      CHECK(std::signbit(got(e)) == std::signbit(expected(e)));
+      CHECK(got(e) == expected(e));
+    }
+  }
+}

@@ -154,9 +154,12 @@ struct CapSolver::Impl {
   Decomposition all_active;
 
   Decomposition decompose(const std::vector<bool>& active) const {
+    // Σ (active ? contributions : lateral_contributions) in pile order, entry by entry
+    // (active_set_passes.hpp: the same sums as Eigen's k += … pile by pile).
     Matrix6 k = Matrix6::Zero();
-    for (std::size_t i = 0; i < maps.size(); ++i)
-      k += active[i] ? contributions[i] : lateral_contributions[i];
+    if (!maps.empty())
+      detail::sum_stiffness(maps.size(), contributions.front().data(),
+                            lateral_contributions.front().data(), active, k.data());
     // The unit-spring copy only decides which directions have no stiffness. Taken from the
     // whole group's less the dropped piles' axial parts (a few terms instead of a sum over
     // every pile), it decides as the sum would whenever it decides with a margin of 100 on

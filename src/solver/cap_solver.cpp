@@ -102,6 +102,28 @@ struct CapSolver::Impl {
   bool well_conditioned = false;
   bool any_compression_only = false;
   std::vector<std::size_t> compression_only;  // the piles that take no tension
+  // Over the compression-only piles, per component: the least and largest of the axis a and
+  // of h = ρ × a, and the largest |ρ|₁ (for surely_closed).
+  Eigen::Vector3d axis_low = Eigen::Vector3d::Zero(), axis_high = Eigen::Vector3d::Zero();
+  Eigen::Vector3d lever_low = Eigen::Vector3d::Zero(), lever_high = Eigen::Vector3d::Zero();
+  double reach_one = 0.0;
+
+  // True when no compression-only pile can be in tension at the movement Û = (t, θ), shown
+  // without a pass over the piles: a·u = a·t + θ·(ρ × a) ≥ Σ_j min(a_j·t_j) + Σ_j min(h_j·θ_j)
+  // over the ranges of a and h, and when that bound exceeds 1e-9 of ‖t‖₁ + ‖θ‖₁·max |ρ|₁
+  // (rounding in a·u is ~1e-15 of it) every computed a·u is positive, so the pass would drop
+  // none (its test is a·u < −1e-12·max |u| ≤ 0). Exact on a rectangular grid of vertical
+  // piles; false (the pass decides) when in doubt or not a number.
+  bool surely_closed(const Vector6& movement) const {
+    double bound = 0.0, scale = 0.0;
+    for (int j = 0; j < 3; ++j) {
+      const double t = movement(j), theta = movement(j + 3);
+      bound += std::min(axis_low(j) * t, axis_high(j) * t);
+      bound += std::min(lever_low(j) * theta, lever_high(j) * theta);
+      scale += std::abs(t) + std::abs(theta) * reach_one;
+    }
+    return bound > 1e-9 * scale;
+  }
   // The unit-spring copy of every pile active (Σ pattern) and each pile's axial part of it
   // (pattern − lateral_pattern): an active set's copy, less the dropped piles' parts, decides
   // its directions without stiffness without a sum over every pile (decompose).
@@ -480,6 +502,7 @@ struct CapSolver::Impl {
   // of the largest head movement.
   bool lifts(const Vector6& movement, const std::vector<bool>* active) const {
     if (!any_compression_only) return false;
+    if (surely_closed(movement)) return false;
     double largest = 0.0;
     const std::vector<double> a = along(movement, largest);
     for (const std::size_t i : compression_only)
@@ -644,7 +667,19 @@ CapSolver::CapSolver(std::vector<PileSpring> springs)
     m.stiffness_all += m.contributions[i];
     m.pattern_all += m.pattern[i];
     m.any_compression_only = m.any_compression_only || !springs_[i].tension;
-    if (!springs_[i].tension) m.compression_only.push_back(i);
+    if (!springs_[i].tension) {
+      const Eigen::Vector3d lever = m.offsets[i].cross(m.axes[i]);
+      if (m.compression_only.empty()) {
+        m.axis_low = m.axis_high = m.axes[i];
+        m.lever_low = m.lever_high = lever;
+      }
+      m.axis_low = m.axis_low.cwiseMin(m.axes[i]);
+      m.axis_high = m.axis_high.cwiseMax(m.axes[i]);
+      m.lever_low = m.lever_low.cwiseMin(lever);
+      m.lever_high = m.lever_high.cwiseMax(lever);
+      m.reach_one = std::max(m.reach_one, m.offsets[i].lpNorm<1>());
+      m.compression_only.push_back(i);
+    }
     for (const double k : {springs_[i].axial, springs_[i].lateral})
       if (k > 0.0) stiffest = std::max(stiffest, k), softest = std::min(softest, k);
   }

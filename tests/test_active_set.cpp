@@ -260,6 +260,9 @@ TEST_CASE("active set: solve_combinations gives each combination's solve, bit fo
     if (trial % 3 == 2)  // fixed heads on the battered piles (the per-pile code's path)
       for (std::size_t i = 0; i < springs.size(); ++i)
         if (project.piles[i].type == 2) springs[i].bending = {-2e3, 6e3, 0.0};
+    if (trial % 4 == 3)  // stiff battered piles among soft ones: movements refined in long double
+      for (std::size_t i = 0; i < springs.size(); ++i)
+        if (project.piles[i].type == 2) springs[i].axial *= 1e10;
     const CapSolver solver(springs);
     if (!unresisted_cases(project, solver).empty()) continue;
     std::vector<CapSolution> per_case;
@@ -289,6 +292,8 @@ TEST_CASE("active set: the forces as arrays are the rows' forces, and the checks
           "the checks of the rows", "[active_set]") {
   std::mt19937_64 rng(23);
   std::uniform_real_distribution<double> unit(0.0, 1.0);
+  // Both ways met: forces as arrays, and rows (a structural check; refined movements).
+  std::size_t as_arrays = 0, with_rows = 0;
   for (int trial = 0; trial < 8; ++trial) {
     Project project = random_project(rng);
     for (std::size_t c = 0; c < project.combinations.size(); ++c)
@@ -297,6 +302,9 @@ TEST_CASE("active set: the forces as arrays are the rows' forces, and the checks
     if (trial % 2 == 1)  // fixed heads on the battered piles (redone by the per-pile code)
       for (std::size_t i = 0; i < springs.size(); ++i)
         if (project.piles[i].type == 2) springs[i].bending = {-2e3, 6e3, 0.0};
+    if (trial % 4 == 3)  // stiff battered piles among soft ones: movements refined in long double
+      for (std::size_t i = 0; i < springs.size(); ++i)
+        if (project.piles[i].type == 2) springs[i].axial *= 1e10;
     const CapSolver solver(springs);
     if (!unresisted_cases(project, solver).empty()) continue;
     // Capacities invented for the test; a structural check on the strength basis of one type
@@ -317,7 +325,7 @@ TEST_CASE("active set: the forces as arrays are the rows' forces, and the checks
     const CheckResults expected = from_rows.finish();
 
     CheckAccumulator from_arrays(project, resistances, {}, false);
-    std::size_t as_arrays = 0;
+
     solve_combinations(
         project, solver, [&](std::size_t c) { return from_arrays.needs_rows(c); },
         [&](std::size_t c, CapSolution&& solution, const double* axial, const double* lateral) {
@@ -337,12 +345,13 @@ TEST_CASE("active set: the forces as arrays are the rows' forces, and the checks
               CHECK(lateral[i] == row.piles[i].lateral);
             }
           } else {
+            ++with_rows;
             CHECK(same_bits(solution, row));
           }
           from_arrays.add(c, std::move(solution), axial, lateral);
         });
     const CheckResults got = from_arrays.finish();
-    CHECK(as_arrays > 0);
+
     REQUIRE(got.envelope.size() == expected.envelope.size());
     for (std::size_t i = 0; i < got.envelope.size(); ++i) {
       INFO("trial " << trial << ", pile " << i);
@@ -380,6 +389,8 @@ TEST_CASE("active set: the forces as arrays are the rows' forces, and the checks
     CHECK(got.summary.failed_combinations == expected.summary.failed_combinations);
     CHECK(got.summary.overturned == expected.summary.overturned);
   }
+  CHECK(as_arrays > 100);
+  CHECK(with_rows > 100);
 }
 
 TEST_CASE("active set: the stiffness of an active set summed entry by entry, as Eigen's sum",

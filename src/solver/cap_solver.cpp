@@ -20,6 +20,8 @@ namespace cairn {
 namespace {
 
 using Matrix6 = Eigen::Matrix<double, 6, 6>;
+// The piles' 6×6 terms are summed as 36 doubles each, one pile after the other (decompose).
+static_assert(sizeof(Matrix6) == 36 * sizeof(double));
 using Vector6 = Eigen::Matrix<double, 6, 1>;
 using Matrix36 = Eigen::Matrix<double, 3, 6>;
 // The dofs that have stiffness: at most six, kept on the stack.
@@ -479,7 +481,6 @@ struct CapSolver::Impl {
     }
     return solution;
   }
-
 
   // Û as the solution of a settled movement reports it (movement_of of its CapMovement:
   // the rotation divided by L, rounded to double, and multiplied again).

@@ -10,6 +10,7 @@
 // Run: bench_cap_solver [--benchmark_repetitions=5]
 #include <benchmark/benchmark.h>
 
+#include <algorithm>
 #include <cmath>
 #include <cstddef>
 #include <random>
@@ -192,6 +193,45 @@ void BM_SolveLinear500x10000(benchmark::State& state) {
 }
 BENCHMARK(BM_SolveLinear500x10000)->Unit(benchmark::kMillisecond)->UseRealTime();
 
+// The same solve with the piles' forces as arrays only (axial and lateral of every pile in
+// every combination, what the numpy peer's core computes), each combination's arrays
+// overwriting the last's: no pile rows, no head actions.
+void BM_SolveLinearArrays500x10000(benchmark::State& state) {
+  const Project project = linear_project();
+  const cairn::CapSolver solver(cairn::pile_springs(project));
+  for (auto _ : state) {
+    double sum = 0.0;
+    cairn::solve_combinations(
+        project, solver, [](std::size_t) { return false; },
+        [&](std::size_t, cairn::CapSolution&&, const double* axial, const double* lateral) {
+          sum += axial[0] + lateral[0];
+        });
+    benchmark::DoNotOptimize(sum);
+  }
+}
+BENCHMARK(BM_SolveLinearArrays500x10000)->Unit(benchmark::kMillisecond)->UseRealTime();
+
+// The same into arrays of every pile and combination (n·m axial and lateral forces, 80 MB
+// kept, as the peer keeps them): like for like with the peer's core.
+void BM_SolveLinearKept500x10000(benchmark::State& state) {
+  const Project project = linear_project();
+  const cairn::CapSolver solver(cairn::pile_springs(project));
+  const std::size_t n = project.piles.size(), m = project.combinations.size();
+  std::vector<double> all_axial(n * m), all_lateral(n * m);
+  for (auto _ : state) {
+    cairn::solve_combinations(
+        project, solver, [](std::size_t) { return false; },
+        [&](std::size_t c, cairn::CapSolution&&, const double* axial, const double* lateral) {
+          std::copy(axial, axial + n, all_axial.begin() + static_cast<std::ptrdiff_t>(c * n));
+          std::copy(lateral, lateral + n, all_lateral.begin() + static_cast<std::ptrdiff_t>(c * n));
+        });
+    benchmark::DoNotOptimize(all_axial.data());
+    benchmark::DoNotOptimize(all_lateral.data());
+    benchmark::ClobberMemory();
+  }
+}
+BENCHMARK(BM_SolveLinearKept500x10000)->Unit(benchmark::kMillisecond)->UseRealTime();
+
 // The same solve with the checks folded in as each combination is solved, as
 // `--detail envelope` runs them: each pile's utilization, envelope and governing
 // combinations (invented capacities: 1,500 kN compression, 600 kN tension, 80 kN lateral,
@@ -208,14 +248,107 @@ void BM_CheckEnvelope500x10000(benchmark::State& state) {
   const std::vector<cairn::PileTypeResistance> resistances(project.pile_types.size(), r);
   for (auto _ : state) {
     cairn::CheckAccumulator checks(project, resistances, {}, false);
-    cairn::solve_combinations(project, solver, [&](std::size_t c, cairn::CapSolution&& s) {
-      checks.add(c, std::move(s));
-    });
+    cairn::solve_combinations(
+        project, solver, [&](std::size_t c) { return checks.needs_rows(c); },
+        [&](std::size_t c, cairn::CapSolution&& s, const double* axial, const double* lateral) {
+          checks.add(c, std::move(s), axial, lateral);
+        });
     const cairn::CheckResults results = checks.finish();
     benchmark::DoNotOptimize(results.summary.max_utilization);
   }
 }
 BENCHMARK(BM_CheckEnvelope500x10000)->Unit(benchmark::kMillisecond)->UseRealTime();
+
+// The compression-only case of bench/compare.py: 500 vertical piles that take no tension on
+// a 25 × 20 grid at 1.5 m, six load cases (bench/make_cases.py's: dead, live, wind and
+// seismic along x and y, 2 m above the heads) and 10,000 service combinations of the dead
+// load with factors in [−1, 1] on three of the others (a fixed seed): about a third of them
+// lift piles, so the active set runs.
+Project compression_only_project() {
+  Project project;
+  project.title = "benchmark: 500 compression-only piles, 10,000 combinations";
+  project.cap.thickness = kCapThickness;
+  project.pile_types = {pile_type("P40", 2.5e5, 8.0e3, false)};
+  constexpr int kColumns = 25, kRows = 20;
+  for (int r = 0; r < kRows; ++r)
+    for (int c = 0; c < kColumns; ++c) {
+      cairn::Pile pile;
+      pile.id = "P" + std::to_string(r * kColumns + c + 1);
+      pile.x = (c - (kColumns - 1) / 2.0) * 1.5;
+      pile.y = (r - (kRows - 1) / 2.0) * 1.5;
+      pile.type = 0;
+      project.piles.push_back(pile);
+    }
+  const double n = 500.0, width = kColumns * 1.5, length = kRows * 1.5;
+  const double wind = 1.3 * 600 * n;
+  using cairn::LoadKind;
+  project.load_cases = {
+      load_case("D", LoadKind::dead, {at(0.3, -0.2, {0, 0, -600 * n, 0, 0, 0})}),
+      load_case("L", LoadKind::live, {at(-0.5, 0.4, {0, 0, -150 * n, 15 * n, 0, 0})}),
+      load_case("WX", LoadKind::wind, {at(0, 0, {wind * 0.25, 0, 0, 0, wind * width / 12, 0})}),
+      load_case("WY", LoadKind::wind, {at(0, 0, {0, wind * 0.25, 0, -wind * length / 12, 0, 0})}),
+      load_case("EX", LoadKind::seismic,
+                {at(0, 0, {wind * 0.2, 0, 0, 0, wind * width / 10, 8 * n})}),
+      load_case("EY", LoadKind::seismic, {at(0, 0, {0, wind * 0.2, 0, -wind * length / 10, 0, 0})}),
+  };
+  std::mt19937 random(11);
+  std::uniform_real_distribution<double> factor(-1.0, 1.0);
+  for (std::size_t c = 0; c < 10000; ++c) {
+    cairn::Combination combination;
+    combination.id = "C" + std::to_string(c + 1);
+    combination.limit_state = cairn::LimitState::service;
+    combination.factors.emplace_back(0, 1.0);
+    std::vector<std::size_t> others = {1, 2, 3, 4, 5};
+    std::shuffle(others.begin(), others.end(), random);
+    others.resize(3);
+    std::sort(others.begin(), others.end());
+    for (const std::size_t lc : others)
+      combination.factors.emplace_back(lc, std::round(100.0 * factor(random)) / 100.0);
+    project.combinations.push_back(std::move(combination));
+  }
+  return project;
+}
+
+void BM_SolveCompressionOnly500x10000(benchmark::State& state) {
+  const Project project = compression_only_project();
+  const cairn::CapSolver solver(cairn::pile_springs(project));
+  std::size_t lifted = 0;
+  for (auto _ : state) {
+    double sum = 0.0;
+    lifted = 0;
+    cairn::solve_combinations(project, solver, [&](std::size_t, cairn::CapSolution&& s) {
+      sum += s.piles.front().axial;
+      lifted += s.dropped.empty() ? 0 : 1;
+    });
+    benchmark::DoNotOptimize(sum);
+  }
+  state.counters["with_lifted_piles"] = static_cast<double>(lifted);
+}
+BENCHMARK(BM_SolveCompressionOnly500x10000)->Unit(benchmark::kMillisecond)->UseRealTime();
+
+// The same with the checks folded in, as `--detail envelope` runs them (compression
+// 1,600 kN, lateral 250 kN, no tension: bench/make_cases.py's capacities).
+void BM_CheckEnvelopeCompressionOnly500x10000(benchmark::State& state) {
+  const Project project = compression_only_project();
+  const cairn::CapSolver solver(cairn::pile_springs(project));
+  cairn::PileTypeResistance r;
+  for (cairn::Resistance* basis : {&r.allowable, &r.factored}) {
+    basis->compression = 1600.0;
+    basis->lateral = 250.0;
+  }
+  const std::vector<cairn::PileTypeResistance> resistances(project.pile_types.size(), r);
+  for (auto _ : state) {
+    cairn::CheckAccumulator checks(project, resistances, {}, false);
+    cairn::solve_combinations(
+        project, solver, [&](std::size_t c) { return checks.needs_rows(c); },
+        [&](std::size_t c, cairn::CapSolution&& s, const double* axial, const double* lateral) {
+          checks.add(c, std::move(s), axial, lateral);
+        });
+    const cairn::CheckResults results = checks.finish();
+    benchmark::DoNotOptimize(results.summary.max_utilization);
+  }
+}
+BENCHMARK(BM_CheckEnvelopeCompressionOnly500x10000)->Unit(benchmark::kMillisecond)->UseRealTime();
 
 // The floor of that case: writing its n·m = 5,000,000 results (axial and lateral, 16 bytes
 // each) once to memory.

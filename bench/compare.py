@@ -187,7 +187,7 @@ def main():
     bench = os.path.join(os.path.dirname(cairn), "bench_cap_solver")
     core = None
     if os.path.exists(bench) and (not a.only or any("core" in o for o in a.only)):
-        r = subprocess.run([bench, "--benchmark_filter=Linear500|Floor500",
+        r = subprocess.run([bench, "--benchmark_filter=Linear500|LinearArrays500|LinearKept500|Floor500",
                             f"--benchmark_repetitions={a.repeat}", "--benchmark_format=json"],
                            capture_output=True, text=True)
         times = {}
@@ -200,14 +200,22 @@ def main():
         peer_core = statistics.median(
             float(subprocess.run([PY, PEER, "core", case], capture_output=True, text=True,
                                  env=peer_env).stdout) * 1000 for _ in range(a.repeat))
-        core = (times["BM_SolveLinear500x10000"], times["BM_WriteFloor500x10000"], peer_core)
+        core = (times["BM_SolveLinear500x10000"], times["BM_WriteFloor500x10000"], peer_core,
+                times.get("BM_SolveLinearArrays500x10000"), times.get("BM_SolveLinearKept500x10000"))
 
     print()
     if core:
-        c, floor, p = core
+        c, floor, p, arrays, kept = core
         print(f"solver core, 500 × 10,000 linear (CPU time): cairn {c:.1f} ms, "
               f"floor (writing n·m results) {floor:.1f} ms, cairn / floor {c / floor:.2f}; "
               f"numpy peer {p:.1f} ms, peer / cairn {p / c:.1f}×")
+        if arrays and kept:
+            # Axial and lateral alone, as the peer computes them: each combination's arrays
+            # overwriting the last's, and kept for every pile and combination (80 MB) as the
+            # peer keeps them.
+            print(f"  axial and lateral only: {arrays:.1f} ms (peer / cairn {p / arrays:.1f}×); "
+                  f"kept for every pile and combination: {kept:.1f} ms "
+                  f"(peer / cairn {p / kept:.1f}×)")
         print()
     print("| case | cairn | cairn memory | numpy peer | peer memory | peer / cairn |")
     print("|---|---|---|---|---|---|")

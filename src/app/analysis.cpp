@@ -233,10 +233,14 @@ CheckRun analyse(Project project_in, const TypeAdjustments& adjust,
     if (options.progress && (c + 1) % 1000 == 0) options.progress(c + 1, total);
   };
   if (streamed)
-    solve_combinations(project, solver, [&](std::size_t c, CapSolution&& solution) {
-      accumulator.add(c, std::move(solution));
-      report(c);
-    });
+    // The piles' forces as arrays, straight into the checks' pass over arrays; pile rows
+    // only for the combinations checked pile by pile.
+    solve_combinations(
+        project, solver, [&](std::size_t c) { return accumulator.needs_rows(c); },
+        [&](std::size_t c, CapSolution&& solution, const double* axial, const double* lateral) {
+          accumulator.add(c, std::move(solution), axial, lateral);
+          report(c);
+        });
   else
     for (std::size_t c = 0; c < solutions.size(); ++c) {
       if (run.nonlinear) {

@@ -308,14 +308,20 @@ void CheckAccumulator::add(std::size_t c, CapSolution solution,
 
 void CheckAccumulator::add_checked(std::size_t c, CapSolution solution,
                                    const std::vector<MomentPeak>* along) {
-  CheckResults& results = results_;
-  CheckSummary& summary = results.summary;
   CombinationCheck check;
   check.combination = c;
   check.solution = std::move(solution);
   // A nonlinear run's moments along the piles (`along`) are the row-by-row code's.
   if (check.solution.overturns || fold_->row_by_row || along || !add_arrays(c, check))
     add_rows(c, check, along);
+  finish_combination(std::move(check));
+}
+
+// The combination's verdict into the summary; its rows dropped unless they are kept.
+void CheckAccumulator::finish_combination(CombinationCheck check) {
+  CheckResults& results = results_;
+  CheckSummary& summary = results.summary;
+  const std::size_t c = check.combination;
   if (check.solution.overturns) {
     check.pass = false;
     summary.overturned.push_back(c);
@@ -341,11 +347,10 @@ void CheckAccumulator::add_checked(std::size_t c, CapSolution solution,
 // The combination folded in one pass over arrays (check_fold.hpp), then the pile rows (full
 // detail), the combination's governing pile and its sums pile by pile, in pile order as the
 // row-by-row code does. false, with nothing done, when some pile needs the row-by-row code.
-bool CheckAccumulator::add_arrays(std::size_t c, CombinationCheck& check) {
+std::size_t CheckAccumulator::basis_of(std::size_t c) {
   Fold& fold = *fold_;
   const Project& project = project_;
   const Combination& combo = project.combinations[c];
-  const std::size_t n = project.piles.size();
   const std::pair<int, int> basis{
       static_cast<int>(combo.resistance_set),
       combo.resistance_set != ResistanceSet::basis ? 0
@@ -369,19 +374,50 @@ bool CheckAccumulator::add_arrays(std::size_t c, CombinationCheck& check) {
     fold.arrays.push_back(arrays ? 1 : 0);
     found = fold.basis_index.emplace(basis, fold.capacities.size() - 1).first;
   }
-  if (!fold.arrays[found->second]) return false;
+  return found->second;
+}
+
+bool CheckAccumulator::needs_rows(std::size_t c) {
+  return results_.pile_rows || fold_->row_by_row || !fold_->arrays[basis_of(c)];
+}
+
+void CheckAccumulator::add(std::size_t c, CapSolution solution, const double* axial,
+                           const double* lateral) {
+  if (solution.overturns || needs_rows(c) || !axial) {
+    add_checked(c, std::move(solution), nullptr);
+    return;
+  }
+  CombinationCheck check;
+  check.combination = c;
+  check.solution = std::move(solution);
+  fold_arrays(c, check, axial, lateral);
+  finish_combination(std::move(check));
+}
+
+bool CheckAccumulator::add_arrays(std::size_t c, CombinationCheck& check) {
+  Fold& fold = *fold_;
+  const std::size_t n = project_.piles.size();
+  if (!fold.arrays[basis_of(c)]) return false;
   const std::vector<PileForce>& forces = check.solution.piles;
   for (std::size_t i = 0; i < n; ++i) {
     fold.axial[i] = forces[i].axial;
     fold.lateral[i] = forces[i].lateral;
   }
+  fold_arrays(c, check, fold.axial.data(), fold.lateral.data());
+  return true;
+}
+
+void CheckAccumulator::fold_arrays(std::size_t c, CombinationCheck& check,
+                                   const double* axial, const double* lateral) {
+  Fold& fold = *fold_;
+  const Project& project = project_;
+  const std::size_t n = project.piles.size();
   const bool failed =
-      detail::fold_piles(n, fold.axial.data(), fold.lateral.data(), fold.capacities[found->second],
-                         kForceTolerance, static_cast<std::int64_t>(c), fold.state,
-                         fold.utilization.data(), fold.governing.data());
+      detail::fold_piles(n, axial, lateral, fold.capacities[basis_of(c)], kForceTolerance,
+                         static_cast<std::int64_t>(c), fold.state, fold.utilization.data(),
+                         fold.governing.data());
   check.pass = !failed;
   const double* u = fold.utilization.data();
-  const double* axial = fold.axial.data();
   for (std::size_t i = 0; i < n; ++i) {
     // Sums in pile order, as the row-by-row code adds them (adding 0 changes no bit).
     const double a = axial[i];
@@ -394,6 +430,7 @@ bool CheckAccumulator::add_arrays(std::size_t c, CombinationCheck& check) {
     }
   }
   if (results_.pile_rows) {
+    const std::vector<PileForce>& forces = check.solution.piles;
     check.piles.resize(n);
     for (std::size_t i = 0; i < n; ++i) {
       PileCheck& p = check.piles[i];
@@ -411,7 +448,6 @@ bool CheckAccumulator::add_arrays(std::size_t c, CombinationCheck& check) {
       p.pass = p.utilization <= 1.0;
     }
   }
-  return true;
 }
 
 // Pile by pile: every case, and the reference for the pass over arrays.

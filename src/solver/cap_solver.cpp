@@ -3,19 +3,25 @@
 #include <Eigen/Dense>
 #include <algorithm>
 #include <cmath>
+#include <cstdint>
 #include <limits>
-#include <set>
+#include <optional>
+#include <unordered_map>
+#include <unordered_set>
 #include <stdexcept>
 #include <type_traits>
 
 #include <fmt/format.h>
 
+#include "active_set_passes.hpp"
 #include "pinned_forces.hpp"
 
 namespace cairn {
 namespace {
 
 using Matrix6 = Eigen::Matrix<double, 6, 6>;
+// The piles' 6×6 terms are summed as 36 doubles each, one pile after the other (decompose).
+static_assert(sizeof(Matrix6) == 36 * sizeof(double));
 using Vector6 = Eigen::Matrix<double, 6, 1>;
 using Matrix36 = Eigen::Matrix<double, 3, 6>;
 // The dofs that have stiffness: at most six, kept on the stack.
@@ -97,6 +103,34 @@ struct CapSolver::Impl {
   // then that of the 6×6 system, and equilibrium can be checked in 6-space (K̂·Û = F̂).
   bool well_conditioned = false;
   bool any_compression_only = false;
+  std::vector<std::size_t> compression_only;  // the piles that take no tension
+  // Over the compression-only piles, per component: the least and largest of the axis a and
+  // of h = ρ × a, and the largest |ρ|₁ (for surely_closed).
+  Eigen::Vector3d axis_low = Eigen::Vector3d::Zero(), axis_high = Eigen::Vector3d::Zero();
+  Eigen::Vector3d lever_low = Eigen::Vector3d::Zero(), lever_high = Eigen::Vector3d::Zero();
+  double reach_one = 0.0;
+
+  // True when no compression-only pile can be in tension at the movement Û = (t, θ), shown
+  // without a pass over the piles: a·u = a·t + θ·(ρ × a) ≥ Σ_j min(a_j·t_j) + Σ_j min(h_j·θ_j)
+  // over the ranges of a and h, and when that bound exceeds 1e-9 of ‖t‖₁ + ‖θ‖₁·max |ρ|₁
+  // (rounding in a·u is ~1e-15 of it) every computed a·u is positive, so the pass would drop
+  // none (its test is a·u < −1e-12·max |u| ≤ 0). Exact on a rectangular grid of vertical
+  // piles; false (the pass decides) when in doubt or not a number.
+  bool surely_closed(const Vector6& movement) const {
+    double bound = 0.0, scale = 0.0;
+    for (int j = 0; j < 3; ++j) {
+      const double t = movement(j), theta = movement(j + 3);
+      bound += std::min(axis_low(j) * t, axis_high(j) * t);
+      bound += std::min(lever_low(j) * theta, lever_high(j) * theta);
+      scale += std::abs(t) + std::abs(theta) * reach_one;
+    }
+    return bound > 1e-9 * scale;
+  }
+  // The unit-spring copy of every pile active (Σ pattern) and each pile's axial part of it
+  // (pattern − lateral_pattern): an active set's copy, less the dropped piles' parts, decides
+  // its directions without stiffness without a sum over every pile (decompose).
+  Matrix6 pattern_all = Matrix6::Zero();
+  std::vector<Matrix6> axial_pattern;
 
   // Adds pile i's head-bending terms to its contributions (active or dropped out: the soil
   // holds the pile across its axis either way) and to the unit-spring copies (unit rotational
@@ -144,16 +178,42 @@ struct CapSolver::Impl {
   Decomposition all_active;
 
   Decomposition decompose(const std::vector<bool>& active) const {
-    Matrix6 k = Matrix6::Zero(), unit = Matrix6::Zero();
-    for (std::size_t i = 0; i < maps.size(); ++i) {
-      k += active[i] ? contributions[i] : lateral_contributions[i];
+    // Σ (active ? contributions : lateral_contributions) in pile order, entry by entry
+    // (active_set_passes.hpp: the same sums as Eigen's k += … pile by pile).
+    Matrix6 k = Matrix6::Zero();
+    if (!maps.empty())
+      detail::sum_stiffness(maps.size(), contributions.front().data(),
+                            lateral_contributions.front().data(), active, k.data());
+    // The unit-spring copy only decides which directions have no stiffness. Taken from the
+    // whole group's less the dropped piles' axial parts (a few terms instead of a sum over
+    // every pile), it decides as the sum would whenever it decides with a margin of 100 on
+    // either side of each threshold (its rounding is ~1e-13 of its size); otherwise the
+    // sum is taken pile by pile.
+    Matrix6 unit = pattern_all;
+    for (std::size_t i = 0; i < maps.size(); ++i)
+      if (!active[i]) unit -= axial_pattern[i];
+    if (auto decided = factorized(k, unit, true)) return std::move(*decided);
+    unit.setZero();
+    for (std::size_t i = 0; i < maps.size(); ++i)
       unit += active[i] ? pattern[i] : lateral_pattern[i];
-    }
+    return std::move(*factorized(k, unit, false));
+  }
+
+  // The decomposition of stiffness k whose unit-spring copy is `unit`. `approximate`: unit
+  // is not the exact sum; no decomposition when a decision about directions without
+  // stiffness is within a factor 100 of its threshold, or when the copy might have such a
+  // direction among the kept dofs (then the exact sum decides).
+  std::optional<Decomposition> factorized(const Matrix6& k, const Matrix6& unit,
+                                          bool approximate) const {
+    constexpr double kMargin = 100.0;
     Decomposition result;
     // Dofs with no stiffness at all (vertical piles without lateral springs: ux, uy, rz)
     // are set aside whole, so the equilibration below works on the others undisturbed.
     const double largest_diagonal = unit.diagonal().maxCoeff();
     for (int j = 0; j < 6; ++j) {
+      if (approximate && !(unit(j, j) > kMargin * kNullShare * largest_diagonal) &&
+          !(unit(j, j) < kNullShare / kMargin * largest_diagonal))
+        return std::nullopt;
       if (unit(j, j) > kNullShare * largest_diagonal && k(j, j) > 0.0) {
         result.kept.push_back(j);
       } else {
@@ -184,7 +244,17 @@ struct CapSolver::Impl {
     // y): found on the unit-spring copy, then made stiff (unit stiffness, the scale of the
     // equilibrated matrix) so the factorization sees a definite matrix. A load has no
     // component along them (checked before solving), so they move nothing.
-    if (n > 0) {
+    if (n > 0 && approximate) {
+      // No such direction for certain when the smallest eigenvalue of the copy exceeds
+      // 100·kNullShare times its largest: λ_min ≥ 1/trace(A⁻¹) and λ_max ≤ trace(A) (A
+      // positive definite, its Cholesky factor A = L·Lᵀ, trace(A⁻¹) = Σ‖L⁻¹·e_j‖²).
+      const Eigen::LLT<MatrixKept> cholesky(kept_unit);
+      if (cholesky.info() != Eigen::Success) return std::nullopt;
+      const MatrixKept inverse_factor =
+          cholesky.matrixL().solve(MatrixKept::Identity(n, n));
+      const double inverse_trace = inverse_factor.squaredNorm();
+      if (!(1.0 / inverse_trace > kMargin * kNullShare * kept_unit.trace())) return std::nullopt;
+    } else if (n > 0) {
       const Eigen::SelfAdjointEigenSolver<MatrixKept> eigen(kept_unit);
       const double largest = eigen.eigenvalues().cwiseAbs().maxCoeff();
       for (int i = 0; i < n; ++i) {
@@ -248,15 +318,19 @@ struct CapSolver::Impl {
   }
 
   // Head movement along each pile axis, and the largest head movement of all.
+  // (One pass over the piles' arrays, active_set_passes.hpp: the same bits as
+  // axes[i].dot(head_movement(i, movement)) and the largest of their norms.)
   std::vector<double> along(const Vector6& movement, double& largest) const {
     std::vector<double> result(maps.size());
-    largest = 0.0;
-    for (std::size_t i = 0; i < maps.size(); ++i) {
-      const Eigen::Vector3d u = head_movement<double>(i, movement);
-      result[i] = axes[i].dot(u);
-      largest = std::max(largest, u.norm());
-    }
+    largest = along_into(movement, result);
     return result;
+  }
+  // The same into `result` (resized to the piles), returning the largest head movement.
+  double along_into(const Vector6& movement, std::vector<double>& result) const {
+    result.resize(maps.size());
+    const double m[6] = {movement(0), movement(1), movement(2),
+                         movement(3), movement(4), movement(5)};
+    return detail::head_movements_along(pinned, m, result.data());
   }
 
   // Pile forces and the equilibrium check are written for double and for long double
@@ -292,6 +366,20 @@ struct CapSolver::Impl {
   template <typename Real>
   Vector6R<Real> imbalance(const std::vector<bool>& active, const Vector6R<Real>& movement,
                            const Vector6& load) const {
+    if constexpr (std::is_same_v<Real, double>) {
+      if (bent.empty()) {
+        // Every head pinned: one pass over the piles' arrays (active_set_passes.hpp), the
+        // same operations in the same order as the loop below.
+        const double m[6] = {movement(0), movement(1), movement(2),
+                             movement(3), movement(4), movement(5)};
+        const double f[6] = {load(0), load(1), load(2), load(3), load(4), load(5)};
+        double sum[6];
+        detail::pinned_imbalance(pinned, m, active, f, sum);
+        Vector6 result;
+        for (int j = 0; j < 6; ++j) result(j) = sum[j];
+        return result;
+      }
+    }
     Vector6R<Real> sum = load.cast<Real>();
     for (std::size_t i = 0; i < offsets.size(); ++i) {
       const Vector3R<Real> u = head_movement<Real>(i, movement);
@@ -319,18 +407,32 @@ struct CapSolver::Impl {
   // ~1e-16 — is refined in long double (iterative refinement, Û += K̂⁻¹·(F̂ − K̂·Û), while
   // the imbalance falls): piles of stiffness ratio R start near 1e-16·R and settle in a step
   // or two, to ~1e-19·R.
+  // `whole_group`: dec is all_active and every pile active, reached without the active
+  // set (the active set's solves take the imbalance pile by pile even when no pile dropped).
   CapSolution settled(const Decomposition& dec, const std::vector<bool>& active,
-                      const Vector6& load, const Vector6& first) const {
+                      const Vector6& load, const Vector6& first, bool whole_group) const {
+    return forces_of(settle(dec, active, load, first, whole_group), active, whole_group);
+  }
+
+  // The settled movement (settled() before its forces): in double, or refined in long double.
+  struct Settled {
+    Vector6 movement = Vector6::Zero();
+    Vector6R<long double> refined = Vector6R<long double>::Zero();
+    bool is_refined = false;
+    double residual = 0.0;
+  };
+  Settled settle(const Decomposition& dec, const std::vector<bool>& active,
+                 const Vector6& load, const Vector6& first, bool whole_group) const {
     constexpr double kSettled = 1e-13;
     // Every pile active in a well-conditioned group: F̂ − K̂·Û in 6-space is the imbalance
     // Σ T̂ᵀ·f_i would give (to rounding far below kSettled), in 36 operations instead of a
     // pass over the piles.
-    if (&dec == &all_active && well_conditioned) {
+    if (whole_group && well_conditioned) {
       const double residual = relative<double>(load - stiffness_all * first, load);
-      if (residual <= kSettled) return forces_from<double>(first, active, &dec == &all_active, residual);
+      if (residual <= kSettled) return {first, {}, false, residual};
     }
     const double residual = relative(imbalance<double>(active, first, load), load);
-    if (!(residual > kSettled)) return forces_from<double>(first, active, &dec == &all_active, residual);
+    if (!(residual > kSettled)) return {first, {}, false, residual};
     Vector6R<long double> movement = first.cast<long double>();
     Vector6R<long double> miss = imbalance<long double>(active, movement, load);
     double refined = relative(miss, load);
@@ -344,14 +446,74 @@ struct CapSolver::Impl {
       miss = next_miss;
       refined = next_refined;
     }
-    return forces_from<long double>(movement, active, &dec == &all_active, refined);
+    return {Vector6::Zero(), movement, true, refined};
   }
 
-  // Pile forces and the reported movement from the nondimensional movement Û.
-  // `every_active`: no pile dropped out (active is all true).
+  CapSolution forces_of(const Settled& s, const std::vector<bool>& active,
+                        bool every_active) const {
+    return s.is_refined ? forces_from<long double>(s.refined, active, every_active, s.residual)
+                        : forces_from<double>(s.movement, active, every_active, s.residual);
+  }
+
+  // Where the solver writes the piles' forces as arrays (one value per pile, kN).
+  struct ForceArrays {
+    double* axial;
+    double* lateral;
+  };
+
+  // The same solution with the piles' axial and lateral forces written to the arrays
+  // `forces` instead of pile rows (CapSolution::piles left empty): the same numbers. A
+  // movement refined in long double (stiff and soft piles together, rare) keeps its rows.
+  CapSolution arrays_of(const Settled& s, const std::vector<bool>& active, bool every_active,
+                        const ForceArrays& forces) const {
+    if (s.is_refined) return forces_of(s, active, every_active);
+    CapSolution solution = with_movement<double>(s.movement);
+    solution.residual = s.residual;
+    const double m[6] = {s.movement(0), s.movement(1), s.movement(2),
+                         s.movement(3), s.movement(4), s.movement(5)};
+    detail::pinned_axial_lateral(pinned, m, every_active ? nullptr : &active, forces.axial,
+                                 forces.lateral);
+    for (const std::size_t i : bent) {
+      PileForce row;
+      pile_forces_of<double>(i, s.movement, active[i], row);
+      forces.axial[i] = row.axial;
+      forces.lateral[i] = row.lateral;
+    }
+    return solution;
+  }
+
+  // Û as the solution of a settled movement reports it (movement_of of its CapMovement:
+  // the rotation divided by L, rounded to double, and multiplied again).
+  Vector6 reported(const Settled& s) const {
+    Vector6 u;
+    for (int i = 0; i < 3; ++i) {
+      if (s.is_refined) {
+        u(i) = static_cast<double>(s.refined(i));
+        u(i + 3) = static_cast<double>(s.refined(i + 3) / static_cast<long double>(size)) * size;
+      } else {
+        u(i) = s.movement(i);
+        u(i + 3) = (s.movement(i + 3) / size) * size;
+      }
+    }
+    return u;
+  }
+
+  // True when a compression-only pile, active in `active` (every pile when null), is in
+  // tension at the movement Û: its head moves away from the cap by more than kTensionShare
+  // of the largest head movement.
+  bool lifts(const Vector6& movement, const std::vector<bool>* active) const {
+    if (!any_compression_only) return false;
+    if (surely_closed(movement)) return false;
+    double largest = 0.0;
+    const std::vector<double> a = along(movement, largest);
+    for (const std::size_t i : compression_only)
+      if ((!active || (*active)[i]) && a[i] < -kTensionShare * largest) return true;
+    return false;
+  }
+
+  // A solution with the reported movement of the nondimensional movement Û, no piles yet.
   template <typename Real>
-  CapSolution forces_from(const Vector6R<Real>& movement, const std::vector<bool>& active,
-                          bool every_active, double residual) const {
+  CapSolution with_movement(const Vector6R<Real>& movement) const {
     CapSolution solution;
     const Eigen::Vector3d t = movement.template head<3>().template cast<double>();
     const Eigen::Vector3d r =
@@ -361,6 +523,15 @@ struct CapSolver::Impl {
     solution.movement.rotation = to_array(r);
     // t₀ = t + r × (0 − c): the cap point at the origin, for display.
     solution.movement.translation = to_array(t - r.cross(reference));
+    return solution;
+  }
+
+  // Pile forces and the reported movement from the nondimensional movement Û.
+  // `every_active`: no pile dropped out (active is all true).
+  template <typename Real>
+  CapSolution forces_from(const Vector6R<Real>& movement, const std::vector<bool>& active,
+                          bool every_active, double residual) const {
+    CapSolution solution = with_movement<Real>(movement);
     if constexpr (std::is_same_v<Real, double>) {
       // Every pile as springs alone in one vectorized pass (the same operations as below,
       // pinned_forces.hpp), then the piles with head bending by the code below.
@@ -401,6 +572,21 @@ struct CapSolver::Impl {
         pile.head_moment = static_cast<double>((moment - a.dot(moment) * a).norm());
       }
     }
+  }
+};
+
+// Decompositions of the active sets met while solving many combinations, by set (the same
+// set gives the same decomposition, so reusing it changes no result). Owned by one
+// solve_combinations call, never shared between threads.
+struct CapSolver::DecompositionCache {
+  static constexpr std::size_t kLimit = 4096;  // about 2.5 MB; emptied when full
+  std::unordered_map<std::vector<bool>, Impl::Decomposition> sets;
+
+  const Impl::Decomposition& get(const Impl& impl, const std::vector<bool>& active) {
+    auto found = sets.find(active);
+    if (found != sets.end()) return found->second;
+    if (sets.size() >= kLimit) sets.clear();
+    return sets.emplace(active, impl.decompose(active)).first->second;
   }
 };
 
@@ -467,6 +653,7 @@ CapSolver::CapSolver(std::vector<PileSpring> springs)
     m.pattern.push_back(t.transpose() *
                         spring_matrix(a, s.axial > 0.0 ? 1.0 : 0.0, has_lateral) * t);
     m.lateral_pattern.push_back(t.transpose() * spring_matrix(a, 0.0, has_lateral) * t);
+    m.axial_pattern.push_back(m.pattern.back() - m.lateral_pattern.back());
     m.bending.push_back(s.bending);
     if (s.bending.any()) {
       m.add_bending(m.contributions.size() - 1);
@@ -476,14 +663,28 @@ CapSolver::CapSolver(std::vector<PileSpring> springs)
     const double rho_array[3] = {rho(0), rho(1), rho(2)};
     m.pinned.add(rho_array, s.axis.data(), s.axial, s.lateral);
   }
-  m.all_active = m.decompose(std::vector<bool>(springs_.size(), true));
   double stiffest = 0.0, softest = std::numeric_limits<double>::infinity();
   for (std::size_t i = 0; i < springs_.size(); ++i) {
     m.stiffness_all += m.contributions[i];
+    m.pattern_all += m.pattern[i];
     m.any_compression_only = m.any_compression_only || !springs_[i].tension;
+    if (!springs_[i].tension) {
+      const Eigen::Vector3d lever = m.offsets[i].cross(m.axes[i]);
+      if (m.compression_only.empty()) {
+        m.axis_low = m.axis_high = m.axes[i];
+        m.lever_low = m.lever_high = lever;
+      }
+      m.axis_low = m.axis_low.cwiseMin(m.axes[i]);
+      m.axis_high = m.axis_high.cwiseMax(m.axes[i]);
+      m.lever_low = m.lever_low.cwiseMin(lever);
+      m.lever_high = m.lever_high.cwiseMax(lever);
+      m.reach_one = std::max(m.reach_one, m.offsets[i].lpNorm<1>());
+      m.compression_only.push_back(i);
+    }
     for (const double k : {springs_[i].axial, springs_[i].lateral})
       if (k > 0.0) stiffest = std::max(stiffest, k), softest = std::min(softest, k);
   }
+  m.all_active = m.decompose(std::vector<bool>(springs_.size(), true));
   m.well_conditioned = stiffest > 0.0 && stiffest <= 1e3 * softest && std::isfinite(stiffest);
 }
 
@@ -558,7 +759,7 @@ CapSolution CapSolver::solve_linear(const CapLoad& load) const {
   const std::vector<bool> all(springs_.size(), true);
   const Vector6 f = impl_->scaled(load);
   CapSolution solution =
-      impl_->settled(impl_->all_active, all, f, impl_->solve(impl_->all_active, f));
+      impl_->settled(impl_->all_active, all, f, impl_->solve(impl_->all_active, f), true);
   solution.iterations = 1;
   return solution;
 }
@@ -569,13 +770,9 @@ CapSolution CapSolver::solve_linear(const Wrench& about_origin) const {
 
 bool CapSolver::needs_redistribution(const CapSolution& solution) const {
   if (!impl_->any_compression_only) return false;
-  double largest = 0.0;
-  const std::vector<double> along = impl_->along(impl_->movement_of(solution.movement), largest);
-  for (std::size_t i = 0; i < springs_.size(); ++i) {
-    if (!springs_[i].tension && solution.piles[i].active && along[i] < -kTensionShare * largest)
-      return true;
-  }
-  return false;
+  std::vector<bool> active(springs_.size());
+  for (std::size_t i = 0; i < springs_.size(); ++i) active[i] = solution.piles[i].active;
+  return impl_->lifts(impl_->movement_of(solution.movement), &active);
 }
 
 CapSolution CapSolver::superpose(const std::vector<std::pair<const CapSolution*, double>>& parts,
@@ -585,7 +782,7 @@ CapSolution CapSolver::superpose(const std::vector<std::pair<const CapSolution*,
   const std::vector<bool> all(springs_.size(), true);
   // The parts were settled against their own loads; the sum is settled against the
   // combination's (for very stiff piles the rounded parts do not add up to it).
-  CapSolution solution = impl_->settled(impl_->all_active, all, impl_->scaled(load), u);
+  CapSolution solution = impl_->settled(impl_->all_active, all, impl_->scaled(load), u, true);
   solution.iterations = 0;
   return solution;
 }
@@ -595,22 +792,60 @@ CapSolution CapSolver::superpose(const std::vector<std::pair<const CapSolution*,
   return superpose(parts, from_origin(about_origin));
 }
 
+CapSolution CapSolver::solve_superposed(
+    const std::vector<std::pair<const CapSolution*, double>>& parts, const CapLoad& load,
+    DecompositionCache& cache, double* axial, double* lateral) const {
+  // superpose(), then solve() when needs_redistribution(): the same results, without the
+  // superposed forces of a combination that lifts piles (decided from its movement alone)
+  // and with the active sets' decompositions kept for the next combinations.
+  Vector6 u = Vector6::Zero();
+  for (const auto& [part, factor] : parts) u += factor * impl_->movement_of(part->movement);
+  const std::vector<bool> all(springs_.size(), true);
+  const Impl::Settled settled =
+      impl_->settle(impl_->all_active, all, impl_->scaled(load), u, true);
+  if (impl_->lifts(impl_->reported(settled), nullptr))
+    return solve_active(load, &cache, axial, lateral);
+  CapSolution solution = axial ? impl_->arrays_of(settled, all, true, {axial, lateral})
+                               : impl_->forces_of(settled, all, true);
+  solution.iterations = 0;
+  return solution;
+}
+
 CapSolution CapSolver::solve(const Wrench& about_origin) const {
   return solve(from_origin(about_origin));
 }
 
 CapSolution CapSolver::solve(const CapLoad& load) const {
+  return solve_active(load, nullptr, nullptr, nullptr);
+}
+
+CapSolution CapSolver::solve_active(const CapLoad& load, DecompositionCache* cache,
+                                    double* axial, double* lateral) const {
   const std::size_t n = springs_.size();
   const Vector6 f = impl_->scaled(load);
   std::vector<bool> active(n, true);
-  std::set<std::vector<bool>> seen, slow_seen;
+  std::unordered_set<std::vector<bool>> seen, slow_seen;  // sets met (hashed by word)
   bool one_at_a_time = false;
   // Piles left out for good: see the one-at-a-time steps below.
   std::vector<bool> left_out(n, false);
   const int limit = static_cast<int>(4 * n + 20);
+  std::vector<double> along;
+  std::vector<std::size_t> drop, add;
+  // Each pile's state as active_set_passes.hpp reads it (active, left_out and whether the
+  // pile takes tension, kept beside them), and the piles whose state the step changes.
+  std::vector<std::uint8_t> state(n, detail::kTakesTension), moves(n);
+  for (const std::size_t i : impl_->compression_only) state[i] = detail::kInContact;
+  auto set_active = [&](std::size_t i, bool on) {
+    if (i >= n) throw std::logic_error("the active set changed a pile it does not hold");
+    active[i] = on;
+    state[i] = on ? detail::kInContact : detail::kDroppedOut;
+  };
   for (int iteration = 1; iteration <= limit; ++iteration) {
     const bool all = std::find(active.begin(), active.end(), false) == active.end();
-    const auto dec = all ? impl_->all_active : impl_->decompose(active);
+    std::optional<Impl::Decomposition> own;
+    const Impl::Decomposition& dec = all      ? impl_->all_active
+                                     : cache ? cache->get(*impl_, active)
+                                             : own.emplace(impl_->decompose(active));
     const auto loaded = impl_->loaded_null(dec, f);
     const bool any_active = std::find(active.begin(), active.end(), true) != active.end();
     if (!loaded.empty() || !any_active) {
@@ -630,17 +865,19 @@ CapSolution CapSolver::solve(const CapLoad& load) const {
     }
     const Vector6 u = impl_->solve(dec, f);
     // Would-be axial movement of every pile head, active or not.
-    double largest = 0.0;
-    const std::vector<double> along = impl_->along(u, largest);
+    const double largest = impl_->along_into(u, along);
     const double tol = kTensionShare * largest;
-    std::vector<std::size_t> drop, add;
-    for (std::size_t i = 0; i < n; ++i) {
-      if (springs_[i].tension) continue;
-      if (active[i] && along[i] < -tol) drop.push_back(i);
-      if (!active[i] && !left_out[i] && along[i] > tol) add.push_back(i);
-    }
+    drop.clear();
+    add.clear();
+    // The active piles in tension (dropped) and the dropped piles closed again (added), in
+    // pile order.
+    if (detail::active_set_moves(n, along.data(), state.data(), tol, moves.data()))
+      for (std::size_t i = 0; i < n; ++i)
+        if (moves[i]) (state[i] == detail::kInContact ? drop : add).push_back(i);
     if (drop.empty() && add.empty()) {
-      CapSolution solution = impl_->settled(dec, active, f, u);
+      const Impl::Settled settled = impl_->settle(dec, active, f, u, false);
+      CapSolution solution = axial ? impl_->arrays_of(settled, active, false, {axial, lateral})
+                                   : impl_->forces_of(settled, active, false);
       for (std::size_t i = 0; i < n; ++i)
         if (!active[i]) solution.dropped.push_back(i);
       solution.iterations = iteration;
@@ -652,11 +889,11 @@ CapSolution CapSolver::solve(const CapLoad& load) const {
       if (!drop.empty()) {
         changed = *std::min_element(drop.begin(), drop.end(),
                                     [&](auto a, auto b) { return along[a] < along[b]; });
-        active[changed] = false;
+        set_active(changed, false);
       } else {
         changed = *std::max_element(add.begin(), add.end(),
                                     [&](auto a, auto b) { return along[a] < along[b]; });
-        active[changed] = true;
+        set_active(changed, true);
       }
       // A dropped pile loses its lateral spring as well as its axial one, so a
       // compression-only pile with a lateral spring can have no consistent state: out, the
@@ -665,12 +902,13 @@ CapSolution CapSolver::solve(const CapLoad& load) const {
       // state, so returning to a state met on this path is a cycle: the pile that closes it
       // is left out for good (it carries nothing; the others hold the load).
       if (!slow_seen.insert(active).second) {
-        active[changed] = false;
+        set_active(changed, false);
         left_out[changed] = true;
+        state[changed] = detail::kLeftOut;
       }
     } else {
-      for (auto i : drop) active[i] = false;
-      for (auto i : add) active[i] = true;
+      for (auto i : drop) set_active(i, false);
+      for (auto i : add) set_active(i, true);
       if (!seen.insert(active).second) {  // a cycle: go slowly
         one_at_a_time = true;
         slow_seen.insert(active);
@@ -717,6 +955,16 @@ std::vector<CapSolution> solve_combinations(const Project& project, const CapSol
 
 void solve_combinations(const Project& project, const CapSolver& solver,
                         const std::function<void(std::size_t, CapSolution&&)>& each) {
+  solve_combinations(project, solver, [](std::size_t) { return true; },
+                     [&](std::size_t c, CapSolution&& solution, const double*, const double*) {
+                       each(c, std::move(solution));
+                     });
+}
+
+void solve_combinations(
+    const Project& project, const CapSolver& solver,
+    const std::function<bool(std::size_t)>& rows,
+    const std::function<void(std::size_t, CapSolution&&, const double*, const double*)>& each) {
   std::vector<CapSolution> per_case;
   per_case.reserve(project.load_cases.size());
   for (const auto& lc : project.load_cases)
@@ -727,6 +975,8 @@ void solve_combinations(const Project& project, const CapSolver& solver,
   case_loads.reserve(project.load_cases.size());
   for (const auto& lc : project.load_cases) case_loads.push_back(resultant_about(lc, solver.reference()));
   constexpr double kResidualLimit = 1e-6;
+  CapSolver::DecompositionCache cache;
+  std::vector<double> axial(solver.springs().size()), lateral(solver.springs().size());
   for (std::size_t c = 0; c < project.combinations.size(); ++c) {
     const Combination& combo = project.combinations[c];
     Wrench total{};
@@ -735,13 +985,18 @@ void solve_combinations(const Project& project, const CapSolver& solver,
     const CapLoad load(total);
     std::vector<std::pair<const CapSolution*, double>> parts;
     for (const auto& [index, factor] : combo.factors) parts.emplace_back(&per_case[index], factor);
-    CapSolution solution = solver.superpose(parts, load);
-    if (solver.needs_redistribution(solution)) solution = solver.solve(load);
+    const bool as_rows = rows(c);
+    CapSolution solution =
+        solver.solve_superposed(parts, load, cache, as_rows ? nullptr : axial.data(),
+                                as_rows ? nullptr : lateral.data());
     if (!solution.overturns && !(solution.residual <= kResidualLimit))  // NaN fails too
       throw std::logic_error(fmt::format(
           "combination '{}' misses equilibrium by {:.3g} of the load", combo.id,
           solution.residual));
-    each(c, std::move(solution));
+    // Rows formed (asked for, or an overturned combination): no arrays.
+    const bool arrays = solution.piles.empty();
+    each(c, std::move(solution), arrays ? axial.data() : nullptr,
+         arrays ? lateral.data() : nullptr);
   }
 }
 

@@ -126,4 +126,36 @@ void pinned_forces(const PinnedPiles& piles, const double movement[6],
   }
 }
 
+CAIRN_PILE_CLONES
+void pinned_axial_lateral(const PinnedPiles& piles, const double movement[6],
+                          const std::vector<bool>* active, double* __restrict axial,
+                          double* __restrict lateral) {
+  const double t0 = movement[0], t1 = movement[1], t2 = movement[2];
+  const double h0 = movement[3], h1 = movement[4], h2 = movement[5];
+  const std::size_t n = piles.size();
+  const double* __restrict rx = piles.rho_x.data();
+  const double* __restrict ry = piles.rho_y.data();
+  const double* __restrict rz = piles.rho_z.data();
+  const double* __restrict ax = piles.axis_x.data();
+  const double* __restrict ay = piles.axis_y.data();
+  const double* __restrict az = piles.axis_z.data();
+  const double* __restrict ka = piles.axial.data();
+  const double* __restrict kl = piles.lateral.data();
+  // As pinned_forces' loop, without the head forces.
+  for (std::size_t k = 0; k < n; ++k) {
+    const double u0 = t0 + (h1 * rz[k] - h2 * ry[k]);
+    const double u1 = t1 + (h2 * rx[k] - h0 * rz[k]);
+    const double u2 = t2 + (h0 * ry[k] - h1 * rx[k]);
+    const double along = (ax[k] * u0 + ay[k] * u1) + az[k] * u2;
+    const double w0 = u0 - along * ax[k];
+    const double w1 = u1 - along * ay[k];
+    const double w2 = u2 - along * az[k];
+    axial[k] = ka[k] * along;
+    lateral[k] = kl[k] * std::sqrt((w0 * w0 + w1 * w1) + w2 * w2);
+  }
+  if (active)
+    for (std::size_t k = 0; k < n; ++k)
+      if (!(*active)[k]) axial[k] = 0.0;
+}
+
 }  // namespace cairn::detail

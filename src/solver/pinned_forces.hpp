@@ -34,4 +34,10 @@ struct PinnedPiles {
 void pinned_forces(const PinnedPiles& piles, const double movement[6],
                    const std::vector<bool>* active, std::vector<PileForce>& out);
 
+// The axial and lateral forces alone, axial[i] and lateral[i] (kN) for pile i: the same
+// numbers as pinned_forces' rows (an exact 0 axial force for a pile that dropped out),
+// nothing else formed.
+void pinned_axial_lateral(const PinnedPiles& piles, const double movement[6],
+                          const std::vector<bool>* active, double* axial, double* lateral);
+
 }  // namespace cairn::detail

@@ -192,6 +192,14 @@ class CheckAccumulator {
   // Project::piles: a nonlinear run's pile profiles); they take the place of the moment
   // influence and of the moment per shear.
   void add(std::size_t c, CapSolution solution, const std::vector<MomentPeak>& along);
+  // The same with the piles' forces as arrays, axial[i] and lateral[i] (kN), as
+  // solve_combinations hands them over (null when the solution has its pile rows);
+  // `solution` needs its rows when needs_rows(c) or it overturns. The same results as
+  // add(c, solution) with the rows.
+  void add(std::size_t c, CapSolution solution, const double* axial, const double* lateral);
+  // Whether combination c is checked pile by pile and so needs the solution's pile rows
+  // (full detail, a structural check or a moment along the pile on its basis).
+  bool needs_rows(std::size_t c);
   CheckResults finish();
   // Combinations whose piles have no structural check and no moment along the pile are
   // folded in one pass over arrays of the piles' values (check_fold.hpp), the others pile
@@ -203,6 +211,10 @@ class CheckAccumulator {
   struct Fold;
   void add_rows(std::size_t c, CombinationCheck& check, const std::vector<MomentPeak>* along);
   bool add_arrays(std::size_t c, CombinationCheck& check);
+  void fold_arrays(std::size_t c, CombinationCheck& check, const double* axial,
+                   const double* lateral);
+  void finish_combination(CombinationCheck check);
+  std::size_t basis_of(std::size_t c);  // the fold's basis of combination c (made when new)
   const Project& project_;
   const std::vector<PileTypeResistance>& resistances_;
   std::vector<double> head_moment_per_shear_;

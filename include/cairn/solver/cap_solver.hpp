@@ -164,6 +164,20 @@ class CapSolver {
 
  private:
   struct Impl;
+  struct DecompositionCache;
+  // solve() with the decompositions of the active sets met kept in `cache` (none: not kept).
+  // With `axial` (and `lateral`), the piles' axial and lateral forces are written there, one
+  // per pile, instead of the pile rows (except for an overturned combination).
+  CapSolution solve_active(const CapLoad& load, DecompositionCache* cache, double* axial,
+                           double* lateral) const;
+  // superpose() followed by solve_active() when a compression-only pile would be in tension.
+  CapSolution solve_superposed(const std::vector<std::pair<const CapSolution*, double>>& parts,
+                               const CapLoad& load, DecompositionCache& cache, double* axial,
+                               double* lateral) const;
+  friend void solve_combinations(
+      const Project& project, const CapSolver& solver,
+      const std::function<bool(std::size_t)>& rows,
+      const std::function<void(std::size_t, CapSolution&&, const double*, const double*)>& each);
   std::vector<PileSpring> springs_;
   std::unique_ptr<Impl> impl_;
 };
@@ -186,6 +200,17 @@ std::vector<CapSolution> solve_combinations(const Project& project, const CapSol
 // of keeping them all.
 void solve_combinations(const Project& project, const CapSolver& solver,
                         const std::function<void(std::size_t, CapSolution&&)>& each);
+// The same for a consumer of the piles' axial and lateral forces: `rows(c)` says whether
+// combination c needs its pile rows (CapSolution::piles). When it does not, the forces are
+// handed over as arrays instead, axial[i] and lateral[i] (kN) for pile i, valid during the
+// call, written by a pass that forms nothing else, and CapSolution::piles is empty; the
+// numbers are the rows' to the last bit. When the solution has its rows (asked for, or an
+// overturned combination: each pile's state) the arrays are null.
+void solve_combinations(
+    const Project& project, const CapSolver& solver,
+    const std::function<bool(std::size_t)>& rows,
+    const std::function<void(std::size_t, CapSolution&&, const double* axial,
+                             const double* lateral)>& each);
 
 
 // Total load of a combination as a wrench about the origin (for display).
